@@ -1,0 +1,12 @@
+/** The registered commands, in the order `--help` lists them. */
+import type { Argv } from 'yargs';
+
+export interface CliCommand {
+  readonly command: string;
+  readonly describe: string;
+  readonly builder: (y: Argv) => Argv;
+  /** Runs the command and returns the exit status. */
+  readonly run: (args: Record<string, unknown>) => Promise<number>;
+}
+
+export const commands: readonly CliCommand[] = [];

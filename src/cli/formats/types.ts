@@ -1,0 +1,37 @@
+/**
+ * A manuscript format (Markdown, LaTeX) as the `check`, `build` and `watch`
+ * commands see it. Each format lives in its own module and is registered in
+ * ./registry.ts; the commands pick one by file extension.
+ */
+import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
+import type { Convention } from '../../core/convention/convention.ts';
+
+export interface FormatOptions {
+  /** Convention given on the command line; overrides what the document declares. */
+  readonly convention?: Partial<Convention>;
+  readonly strict?: boolean;
+  /** Output path asked for with -o, if any. */
+  readonly output?: string;
+  readonly html?: boolean;
+  readonly allowHtml?: boolean;
+}
+
+export interface OutputFile {
+  readonly path: string;
+  readonly content: string | Uint8Array;
+}
+
+export interface FormatResult {
+  readonly diagnostics: readonly Diagnostic[];
+  /** Files the build would write (check leaves this empty). Written atomically by the command. */
+  readonly outputs: readonly OutputFile[];
+  /** Every file read, for watch mode (the manuscript and what it includes). */
+  readonly inputs: readonly string[];
+}
+
+export interface ManuscriptFormat {
+  readonly name: string;
+  readonly extensions: readonly string[];
+  check(path: string, options: FormatOptions): Promise<FormatResult>;
+  build(path: string, options: FormatOptions): Promise<FormatResult>;
+}

@@ -1,0 +1,43 @@
+/**
+ * The `skeinproof` command line: yargs wiring only. Each command lives in
+ * ./commands and returns its exit status; nothing here computes.
+ *
+ * Exit status: 0 nothing fails; 1 a claim is contradicted (or a warning under
+ * --strict); 2 usage errors, unreadable files and invalid codes.
+ */
+import yargs from 'yargs';
+import type { Argv } from 'yargs';
+import { commands } from './commands/index.ts';
+
+export const EXIT_OK = 0;
+export const EXIT_CONTRADICTED = 1;
+export const EXIT_USAGE = 2;
+
+export async function main(argv: readonly string[]): Promise<number> {
+  let status = EXIT_OK;
+  let usageError: string | undefined;
+  let parser: Argv = yargs([...argv])
+    .scriptName('skeinproof')
+    .usage('$0 <command> [options]')
+    .strict()
+    .demandCommand(1, 'Name a command: compute, check, build or watch.')
+    .help()
+    .alias('h', 'help')
+    .version(false)
+    .wrap(Math.min(100, process.stdout.columns || 100))
+    .fail((message, error) => {
+      if (error && !(error as { isUsage?: boolean }).isUsage) throw error;
+      usageError = message ?? error?.message ?? 'invalid usage';
+    });
+  for (const command of commands) {
+    parser = parser.command(command.command, command.describe, command.builder, async (args) => {
+      status = await command.run(args as Record<string, unknown>);
+    });
+  }
+  await parser.parseAsync();
+  if (usageError !== undefined) {
+    process.stderr.write(`skeinproof: ${usageError}\nRun 'skeinproof --help' for the commands and options.\n`);
+    return EXIT_USAGE;
+  }
+  return status;
+}

@@ -1,0 +1,73 @@
+/**
+ * Everything the core computes about one diagram, as data. Front ends and the
+ * claims layer read this; they never recompute.
+ */
+import type { Laurent } from '../poly/laurent.ts';
+import type { LinkDiagram, Notation } from '../diagram/model.ts';
+
+/** Theorems a bound can rest on; the claims layer names them in its verdicts. */
+export type TheoremId =
+  | 'nugatory-removal' // each nugatory crossing can be removed by a flip
+  | 'kauffman-murasugi-thistlethwaite' // span V ≤ n for connected diagrams; = n for reduced alternating
+  | 'menasco' // reduced alternating connected diagrams are non-split
+  | 'linking-graph' // a connected graph of non-zero linking numbers certifies non-splitness
+  | 'split-span-bound' // span V ≤ c(L) + μ − 1 without a non-splitness certificate
+  | 'thistlethwaite-adequate' // a reduced adequate diagram has minimal crossing number
+  | 'trivial'; // no crossings / unknot facts
+
+export interface BoundReason {
+  readonly bound: 'lower' | 'upper' | 'exact';
+  readonly value: number;
+  readonly theorem: TheoremId;
+  /** One sentence, in our own words, saying why the bound holds for this diagram. */
+  readonly text: string;
+}
+
+export interface CrossingNumberBounds {
+  readonly lower: number;
+  readonly upper: number;
+  /** Set when the bounds meet by a theorem (then lower = upper = exact). */
+  readonly exact: number | null;
+  readonly reasons: readonly BoundReason[];
+}
+
+export interface LinkingNumber {
+  /** 0-based component indices, i < j. */
+  readonly components: readonly [number, number];
+  readonly value: number;
+}
+
+export interface DiagramReport {
+  readonly diagram: LinkDiagram;
+  readonly notation: Notation;
+  readonly crossings: number;
+  readonly components: number;
+  readonly writhe: number;
+  readonly positiveCrossings: number;
+  readonly negativeCrossings: number;
+  readonly linking: readonly LinkingNumber[];
+  /** Kauffman bracket in A with ⟨O⟩ = 1 and loop value −A² − A⁻². */
+  readonly bracket: Laurent;
+  /** Jones polynomial in t (half-integer exponents allowed), V(unknot) = 1. */
+  readonly jones: Laurent;
+  readonly span: number;
+  readonly jonesMinDegree: number;
+  readonly jonesMaxDegree: number;
+  readonly bracketSpan: number;
+  readonly bracketMinDegree: number;
+  readonly bracketMaxDegree: number;
+  readonly connected: boolean;
+  /** 0-based indices of the nugatory crossings, ascending. */
+  readonly nugatory: readonly number[];
+  readonly reduced: boolean;
+  readonly alternating: boolean;
+  readonly aAdequate: boolean;
+  readonly bAdequate: boolean;
+  readonly adequate: boolean;
+  /** Circle counts of the all-A and all-B states. */
+  readonly stateCircles: { readonly a: number; readonly b: number };
+  readonly chiralityFixed: boolean;
+  readonly crossingNumber: CrossingNumberBounds;
+  /** Largest open boundary (edge ends) the tangle contraction reached. */
+  readonly boundaryWidth: number;
+}

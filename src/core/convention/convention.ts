@@ -1,0 +1,45 @@
+/**
+ * The document's declared convention: how the author's polynomials are to be
+ * read and how computed ones are typeset. Sources differ, so a document says
+ * which one it follows (front matter, a LaTeX preamble command, or a
+ * command-line flag); nothing is guessed.
+ */
+
+/**
+ * How the Jones polynomial is written:
+ * - `t`: V(t) as computed (positive trefoil t + t³ − t⁴);
+ * - `t-inverse`: the mirror-reversed variable, t ↦ t⁻¹;
+ * - `q`: t = q², so t^{1/2} = q;
+ * - `q-graded`: t^{1/2} = −q, the substitution used with Khovanov-style gradings.
+ */
+export type JonesVariable = 't' | 't-inverse' | 'q' | 'q-graded';
+
+/** ⟨O⟩ = 1 (`unit`), or ⟨O⟩ = −A² − A⁻² (`loop`, the bracket of a diagram counts every circle). */
+export type BracketNormalization = 'unit' | 'loop';
+
+export type TermOrder = 'ascending' | 'descending';
+
+/** t^{1/2} written as a power (`power`) or as \sqrt{t} (`root`). */
+export type HalfPowerStyle = 'power' | 'root';
+
+/**
+ * Which sign the signature of the positive (right-handed) trefoil gets:
+ * `negative` gives σ = −2 (the sign of the Seifert-matrix form V + Vᵀ), `positive` gives +2.
+ */
+export type SignatureSign = 'negative' | 'positive';
+
+export interface Convention {
+  readonly jonesVariable: JonesVariable;
+  readonly bracketNormalization: BracketNormalization;
+  readonly termOrder: TermOrder;
+  readonly halfPowers: HalfPowerStyle;
+  readonly signatureSign: SignatureSign;
+}
+
+export const DEFAULT_CONVENTION: Convention = {
+  jonesVariable: 't',
+  bracketNormalization: 'unit',
+  termOrder: 'ascending',
+  halfPowers: 'power',
+  signatureSign: 'negative',
+};

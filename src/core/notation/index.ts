@@ -1,0 +1,15 @@
+/**
+ * One entry point from a diagram code's text to the diagram model. Each
+ * notation has its own module; all report bad input as an InputError that
+ * names the token or tuple at fault.
+ */
+import type { LinkDiagram, Notation } from '../diagram/model.ts';
+
+export interface ParseOptions {
+  /** Braid words: the number of strands, when more than the largest index + 1. */
+  readonly strands?: number;
+}
+
+export const NOTATIONS: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt'];
+
+export declare function parseDiagramCode(text: string, notation: Notation, options?: ParseOptions): LinkDiagram;
