@@ -1,0 +1,88 @@
+/**
+ * The contract of the claims layer: what an author can claim about a diagram,
+ * the verdict on a claim, and what can be typeset. Implemented in
+ * ./index.ts; front ends (compute --claim, Markdown, LaTeX) use only these.
+ */
+import type { DiagramReport, TheoremId } from '../analyze/report.ts';
+import type { Convention } from '../convention/convention.ts';
+
+/** Invariants an author can state a value for. */
+export type ClaimKey =
+  | 'jones'
+  | 'bracket'
+  | 'span'
+  | 'bracket-span'
+  | 'min-degree'
+  | 'max-degree'
+  | 'writhe'
+  | 'crossings'
+  | 'components'
+  | 'linking'
+  | 'alternating'
+  | 'reduced'
+  | 'adequate'
+  | 'crossing-number'
+  | 'alexander'
+  | 'conway'
+  | 'determinant'
+  | 'signature';
+
+export type Verdict = 'agrees' | 'contradicts' | 'undecided';
+
+export type DiagnosisKind = 'mirror' | 'negated' | 'shifted' | 'normalization' | 'one-coefficient' | 'swapped' | 'none';
+
+export interface Diagnosis {
+  readonly kind: DiagnosisKind;
+  /** One sentence naming the slip, e.g. "the claim is the value of the mirror image (t ↔ t⁻¹)". */
+  readonly detail: string;
+  /** `shifted`: the claim is the value times variable^shift. */
+  readonly shift?: number;
+  /** `one-coefficient`: the term that differs. */
+  readonly term?: { readonly exponent: number; readonly computed: string; readonly claimed: string };
+  /** `swapped`: the id of the diagram whose value the claim is. */
+  readonly otherDiagram?: string;
+}
+
+export interface Judgement {
+  readonly key: ClaimKey;
+  /** The claim as the author wrote it. */
+  readonly claimed: string;
+  readonly verdict: Verdict;
+  readonly diagnosis?: Diagnosis;
+  /** The reason as one sentence (names the theorem for crossing-number verdicts). */
+  readonly reason: string;
+  readonly theorem?: TheoremId;
+  /** The computed value in the document's convention (LaTeX for polynomials). */
+  readonly computed: string;
+  /** Set when the verdict is `agrees` only up to mirror image (DT codes) or otherwise needs a warning. */
+  readonly warning?: string;
+}
+
+export interface JudgeContext {
+  readonly convention: Convention;
+  /** Other diagrams of the same document by id, for the `swapped` diagnosis. */
+  readonly others?: ReadonlyMap<string, DiagramReport>;
+  /** The id of the diagram being judged, so it is not compared with itself. */
+  readonly selfId?: string;
+}
+
+/** Values a document can ask to have typeset. */
+export type FillKey =
+  | 'jones'
+  | 'bracket'
+  | 'span'
+  | 'writhe'
+  | 'crossings'
+  | 'components'
+  | 'crossing-number'
+  | 'statement'
+  | 'alexander'
+  | 'conway'
+  | 'determinant'
+  | 'signature';
+
+/**
+ * A typeset value: `math` is LaTeX for inline math (without delimiters);
+ * `text` is prose that may contain inline math between single dollars.
+ */
+export type Typeset = { readonly kind: 'math'; readonly latex: string } | { readonly kind: 'text'; readonly text: string };

@@ -1,0 +1,66 @@
+/**
+ * The format-independent pass over one manuscript. A front end (Markdown,
+ * LaTeX) finds the diagrams, claims and fill-ins in its own syntax, hands them
+ * here with a way to locate spans of their text in the file, and gets back the
+ * diagnostics and the typeset replacement for every fill-in. Implemented in
+ * ./session.ts; it holds no format knowledge.
+ */
+import type { Notation } from '../diagram/model.ts';
+import type { Convention } from '../convention/convention.ts';
+import type { Diagnostic, SourceLocation, TextSpan } from '../diagnostics/diagnostic.ts';
+import type { ClaimKey, FillKey, Typeset } from '../claims/api.ts';
+import type { DiagramReport } from '../analyze/report.ts';
+
+/** Maps a span inside an entry's text (or the whole entry, when absent) to the file. */
+export type Locator = (span?: TextSpan) => SourceLocation;
+
+export interface DiagramEntry {
+  /** Unique in the document; a duplicate is an error at the second one. */
+  readonly id: string;
+  readonly notation: Notation;
+  /** The code as written. */
+  readonly code: string;
+  readonly strands?: number;
+  /** Locates spans of `code`. */
+  readonly locateCode: Locator;
+  /** Locates the entry's header (where the id is written), for duplicate-id errors. */
+  readonly locateHeader: Locator;
+}
+
+export interface ClaimEntry {
+  /** The id of the diagram the claim is about. */
+  readonly target: string;
+  readonly key: ClaimKey;
+  /** The value as the author wrote it (LaTeX math for polynomials). */
+  readonly text: string;
+  /** Locates spans of `text`. */
+  readonly locate: Locator;
+  /** For table cells: "row R, column C" naming, used in messages. */
+  readonly context?: string;
+}
+
+export interface FillEntry {
+  readonly target: string;
+  readonly key: FillKey;
+  readonly locate: Locator;
+  readonly context?: string;
+}
+
+export interface SessionInput {
+  readonly diagrams: readonly DiagramEntry[];
+  readonly claims: readonly ClaimEntry[];
+  readonly fills: readonly FillEntry[];
+  readonly convention: Convention;
+  /** Warnings count as failures. */
+  readonly strict?: boolean;
+}
+
+export interface SessionResult {
+  readonly diagnostics: readonly Diagnostic[];
+  /** The typeset value for each fill-in, in the order given (undefined where it could not be computed). */
+  readonly fills: readonly (Typeset | undefined)[];
+  /** The analysed diagrams by id (invalid codes are absent). */
+  readonly reports: ReadonlyMap<string, DiagramReport>;
+  /** True when an error (or, under strict, a warning) was reported. */
+  readonly failed: boolean;
+}
