@@ -1,0 +1,99 @@
+/**
+ * Bounds on the crossing number of the link a diagram represents, each with
+ * the theorem it rests on as data. Only proven statements are used; when no
+ * theorem closes the gap the bounds stay apart and `exact` is null.
+ */
+import type { BoundReason, CrossingNumberBounds, TheoremId } from '../analyze/report.ts';
+import type { DiagramProperties } from './properties.ts';
+
+/** What the bounds need to know: the diagram's properties and the span of its Jones polynomial. */
+export interface CrossingBoundInput {
+  readonly properties: DiagramProperties;
+  readonly jonesSpan: number;
+}
+
+export function crossingNumberBounds({ properties: p, jonesSpan }: CrossingBoundInput): CrossingNumberBounds {
+  const n = p.crossings;
+  if (n === 0) {
+    const text = 'The diagram has no crossings, so it shows an unlink of circles, whose crossing number is 0.';
+    return { lower: 0, upper: 0, exact: 0, reasons: [{ bound: 'exact', value: 0, theorem: 'trivial', text }] };
+  }
+
+  const lower = spanLowerBound(p, jonesSpan);
+  const upper = nugatoryUpperBound(p);
+  const exactReasons = theoremsFixingTheCrossingNumber(p);
+  if (exactReasons.length === 0 && lower.value === upper.value) {
+    exactReasons.push({
+      bound: 'exact',
+      value: upper.value,
+      theorem: lower.theorem,
+      text: `The lower bound ${lower.value} meets the upper bound ${upper.value}, so the crossing number is ${upper.value}.`,
+    });
+  }
+  const reasons = [lower, upper, ...exactReasons];
+  if (exactReasons.length === 0) return { lower: lower.value, upper: upper.value, exact: null, reasons };
+
+  const exact = exactReasons[0]!.value;
+  // These are theorems; a disagreement means an engine computed a wrong value.
+  if (exactReasons.some((r) => r.value !== exact) || exact < lower.value || exact > upper.value) {
+    throw new Error(`internal: crossing-number bounds disagree (${reasons.map((r) => `${r.bound} ${r.value} by ${r.theorem}`).join('; ')})`);
+  }
+  return { lower: exact, upper: exact, exact, reasons };
+}
+
+function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
+  if (p.components === 1) {
+    return reason('lower', jonesSpan, 'kauffman-murasugi-thistlethwaite', `Every diagram of a knot has at least span V crossings (Kauffman–Murasugi–Thistlethwaite), and span V is ${jonesSpan} here.`);
+  }
+  if (p.alternating && p.connected) {
+    return reason('lower', jonesSpan, 'menasco', `The diagram is alternating and connected, so the link is non-split (Menasco), hence all of its diagrams are connected and have at least span V = ${jonesSpan} crossings (Kauffman–Murasugi–Thistlethwaite).`);
+  }
+  if (linkingGraphConnected(p)) {
+    return reason('lower', jonesSpan, 'linking-graph', `The non-zero linking numbers join all ${p.components} components, so the link is non-split, hence all of its diagrams are connected and have at least span V = ${jonesSpan} crossings (Kauffman–Murasugi–Thistlethwaite).`);
+  }
+  const value = Math.max(0, jonesSpan - (p.components - 1));
+  return reason('lower', value, 'split-span-bound', `No certificate that the link is non-split is at hand; a diagram with c crossings in k ≤ μ pieces has span V ≤ c + k − 1, so c ≥ span V − (μ − 1) = ${jonesSpan} − ${p.components - 1}${value === 0 ? ', no better than c ≥ 0' : ` = ${value}`}.`);
+}
+
+function nugatoryUpperBound(p: DiagramProperties): BoundReason {
+  const k = p.nugatory.length;
+  if (k === 0) return reason('upper', p.crossings, 'trivial', `The diagram itself has ${p.crossings} crossings.`);
+  return reason('upper', p.crossings - k, 'nugatory-removal', `Each of the ${k} nugatory crossing${k === 1 ? '' : 's'} can be undone by turning over one side of the diagram, leaving ${p.crossings - k} crossings.`);
+}
+
+function theoremsFixingTheCrossingNumber(p: DiagramProperties): BoundReason[] {
+  const found: BoundReason[] = [];
+  const n = p.crossings;
+  const k = p.nugatory.length;
+  if (p.alternating && p.connected) {
+    const text = k === 0
+      ? `A reduced alternating connected diagram has the fewest crossings of any diagram of its link (Kauffman–Murasugi–Thistlethwaite), so c = ${n}.`
+      : `Undoing the ${k} nugatory crossing${k === 1 ? '' : 's'} leaves a reduced alternating connected diagram, which has the fewest crossings of any diagram of its link (Kauffman–Murasugi–Thistlethwaite), so c = ${n - k}.`;
+    found.push(reason('exact', n - k, 'kauffman-murasugi-thistlethwaite', text));
+  }
+  if (p.adequate && p.reduced && p.connected) {
+    found.push(reason('exact', n, 'thistlethwaite-adequate', `The diagram is connected, reduced and adequate, and such a diagram has the fewest crossings of any diagram of its link (Thistlethwaite), so c = ${n}.`));
+  }
+  return found;
+}
+
+/** True when the graph on the components with an edge for every non-zero linking number is connected. */
+function linkingGraphConnected(p: DiagramProperties): boolean {
+  const parent = Array.from({ length: p.components }, (_, i) => i);
+  const find = (x: number): number => (parent[x] === x ? x : (parent[x] = find(parent[x]!)));
+  let groups = p.components;
+  for (const { components: [i, j], value } of p.linking) {
+    if (value === 0) continue;
+    const a = find(i);
+    const b = find(j);
+    if (a !== b) {
+      parent[a] = b;
+      groups--;
+    }
+  }
+  return groups === 1;
+}
+
+function reason(bound: BoundReason['bound'], value: number, theorem: TheoremId, text: string): BoundReason {
+  return { bound, value, theorem, text };
+}
