@@ -1,0 +1,76 @@
+/**
+ * Pieces shared by the notation parsers: tokens that remember where they are
+ * in the code text, and the one way to report a mistake in a code.
+ */
+import { InputError } from '../errors.ts';
+import type { TextSpan } from '../diagnostics/diagnostic.ts';
+
+export const CODE_INVALID = 'code-invalid';
+
+export interface Token {
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
+}
+
+export function codeError(message: string, span: TextSpan, hints: readonly string[] = []): InputError {
+  return new InputError(CODE_INVALID, message, { start: span.start, end: span.end }, hints);
+}
+
+/** The whole text (for mistakes with no narrower place, such as an empty code). */
+export function wholeSpan(text: string): TextSpan {
+  return { start: 0, end: text.length };
+}
+
+/** The span from the start of `first` to the end of `last`. */
+export function spanBetween(first: TextSpan, last: TextSpan): TextSpan {
+  return { start: Math.min(first.start, last.start), end: Math.max(first.end, last.end) };
+}
+
+export function isSeparator(ch: string): boolean {
+  return ch === ',' || /\s/.test(ch);
+}
+
+/** Maximal runs of characters that are neither whitespace nor commas. */
+export function splitTokens(text: string): Token[] {
+  const tokens: Token[] = [];
+  let i = 0;
+  while (i < text.length) {
+    if (isSeparator(text[i]!)) {
+      i++;
+      continue;
+    }
+    const start = i;
+    while (i < text.length && !isSeparator(text[i]!)) i++;
+    tokens.push({ text: text.slice(start, i), start, end: i });
+  }
+  return tokens;
+}
+
+/** A token as quoted in a message; long tokens are shortened. */
+export function quote(text: string): string {
+  const shown = text.length > 24 ? `${text.slice(0, 20)}…` : text;
+  return `"${shown}"`;
+}
+
+const INTEGER = /^[+-]?\d+$/;
+
+/** The integer a token spells, or undefined when it is not a (safe) integer. */
+export function integerValue(text: string): number | undefined {
+  if (!INTEGER.test(text)) return undefined;
+  const value = Number(text);
+  return Number.isSafeInteger(value) ? value : undefined;
+}
+
+/** "1, 2 and 5" — for lists of tuple or crossing numbers in messages (long lists are cut). */
+export function listNumbers(numbers: readonly number[], limit = 8): string {
+  const shown = numbers.slice(0, limit).map(String);
+  if (numbers.length > limit) return `${shown.join(', ')} and ${numbers.length - limit} more`;
+  if (shown.length <= 1) return shown.join('');
+  return `${shown.slice(0, -1).join(', ')} and ${shown[shown.length - 1]}`;
+}
+
+/** "1 face", "3 faces". */
+export function plural(count: number, word: string): string {
+  return `${count} ${word}${count === 1 ? '' : 's'}`;
+}
