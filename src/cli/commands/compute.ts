@@ -60,7 +60,9 @@ export function plainSummary(position: number, code: string, r: DiagramReport): 
   const c = r.crossingNumber;
   const verdict = c.exact !== null ? `exactly ${c.exact}` : `between ${c.lower} and ${c.upper}`;
   lines.push(`  crossing number ${verdict}`);
-  for (const reason of c.reasons) lines.push(`    ${reason.bound} ${reason.value} [${reason.theorem}]: ${reason.text}`);
+  // Once a theorem fixes the value, the separate bounds add nothing for a reader; JSON keeps them all.
+  const shown = c.exact !== null ? c.reasons.filter((x) => x.bound === 'exact') : c.reasons;
+  for (const reason of shown) lines.push(`    ${reason.bound} ${reason.value} [${reason.theorem}]: ${reason.text}`);
   if (!r.chiralityFixed) lines.push('  note: this notation fixes the link only up to mirror image');
   return lines.join('\n');
 }
@@ -87,13 +89,21 @@ interface ComputeArgs {
   readonly json: boolean;
 }
 
+/** An argument that looks like a long or lettered option; codes such as `-1 2 -1` do not. */
+const OPTION_LIKE = /^--?[A-Za-z]/;
+
 function readArgs(args: Record<string, unknown>): ComputeArgs | string {
+  const codes = ((args['codes'] as unknown[] | undefined) ?? []).map(String);
+  const unknownOption = codes.find((code) => OPTION_LIKE.test(code));
+  if (unknownOption !== undefined) {
+    return `unknown option ${unknownOption}; the options of compute are --notation, --strands and --json.`;
+  }
   const strands = args['strands'] as number | undefined;
   if (strands !== undefined && !(Number.isInteger(strands) && strands >= 1)) {
     return `--strands needs a positive whole number of strands, not ${String(args['strands'])}.`;
   }
   return {
-    codes: ((args['codes'] as unknown[] | undefined) ?? []).map(String),
+    codes,
     notation: args['notation'] as Notation,
     strands,
     json: args['json'] === true,
@@ -105,7 +115,9 @@ export const computeCommand: CliCommand = {
   describe: 'Compute the invariants and diagram properties of each diagram code given',
   builder: (y: Argv) =>
     y
-      .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote it; put -- before a code that starts with -)' })
+      // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
+      .parserConfiguration({ 'unknown-options-as-args': true })
+      .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
       .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, describe: 'How the codes are written' })
       .option('strands', { type: 'number', describe: 'Braid words: the number of strands, when more than the largest generator + 1' })
       .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' }) as Argv,

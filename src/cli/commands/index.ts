@@ -1,5 +1,6 @@
 /** The registered commands, in the order `--help` lists them. */
 import type { Argv } from 'yargs';
+import { computeCommand } from './compute.ts';
 
 export interface CliCommand {
   readonly command: string;
@@ -9,4 +10,4 @@ export interface CliCommand {
   readonly run: (args: Record<string, unknown>) => Promise<number>;
 }
 
-export const commands: readonly CliCommand[] = [];
+export const commands: readonly CliCommand[] = [computeCommand];

@@ -1,0 +1,89 @@
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+
+function skeinproof(...args: string[]): { status: number | null; stdout: string; stderr: string } {
+  const result = spawnSync(process.execPath, ['bin/skeinproof.js', ...args], { cwd: root, encoding: 'utf8', timeout: 30_000 });
+  return { status: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+const jsonLines = (stdout: string): Record<string, unknown>[] =>
+  stdout.trim().split('\n').map((line) => JSON.parse(line) as Record<string, unknown>);
+
+const REQUIRED_KEYS = [
+  'notation', 'crossings', 'components', 'writhe', 'jones', 'bracket', 'span', 'bracketSpan', 'connected',
+  'reduced', 'alternating', 'adequate', 'nugatory', 'linking', 'chiralityFixed', 'crossingNumber',
+];
+
+describe('skeinproof compute --json', () => {
+  it('prints the right-handed trefoil from a PD code and from a braid word (values from memory: V = t + t^3 − t^4, <D> = A^-7 − A^-3 − A^5)', () => {
+    // (1,5,2,4) (3,1,4,6) (5,3,6,2): every over strand runs 4→5, 6→1, 2→3, i.e. slot 3 → slot 1, so all crossings are positive (checked by hand).
+    const { status, stdout, stderr } = skeinproof('compute', '--json', '(1,5,2,4) (3,1,4,6) (5,3,6,2)');
+    expect(stderr).toBe('');
+    expect(status).toBe(0);
+    const braidRun = skeinproof('compute', '--json', '--notation', 'braid', '1 1 1');
+    expect(braidRun.status).toBe(0);
+    for (const object of [...jsonLines(stdout), ...jsonLines(braidRun.stdout)]) {
+      for (const key of REQUIRED_KEYS) expect(object).toHaveProperty(key);
+      expect(object).toMatchObject({
+        crossings: 3,
+        components: 1,
+        writhe: 3,
+        jones: { variable: 't', terms: [[1, '1'], [3, '1'], [4, '-1']] },
+        bracket: { variable: 'A', terms: [[-7, '1'], [-3, '-1'], [5, '-1']] },
+        span: 3,
+        bracketSpan: 12,
+        connected: true,
+        reduced: true,
+        alternating: true,
+        adequate: true,
+        nugatory: [],
+        linking: [],
+        chiralityFixed: true,
+        crossingNumber: { lower: 3, upper: 3, exact: 3 },
+      });
+    }
+    expect(jsonLines(stdout)[0]!['notation']).toBe('pd');
+  });
+
+  it('gives half-integer exponents as JSON numbers for the Hopf link (from memory: V = −t^(1/2) − t^(5/2)) and the linking number +1', () => {
+    const { status, stdout } = skeinproof('compute', '--json', '--notation', 'braid', '1 1', '-1 -1');
+    expect(status).toBe(0);
+    const [positive, negative] = jsonLines(stdout);
+    expect(positive).toMatchObject({ jones: { terms: [[0.5, '-1'], [2.5, '-1']] }, linking: [{ components: [0, 1], value: 1 }] });
+    expect(negative).toMatchObject({ jones: { terms: [[-2.5, '-1'], [-0.5, '-1']] }, linking: [{ components: [0, 1], value: -1 }] });
+  });
+
+  it('exits 2 on an invalid code, still prints the valid ones, and reports the bad one as a JSON error line and on stderr without a stack trace', () => {
+    const { status, stdout, stderr } = skeinproof('compute', '--json', '--notation', 'braid', '1 1 1', '1 x 2', '1 -2 1 -2');
+    expect(status).toBe(2);
+    const lines = jsonLines(stdout);
+    expect(lines).toHaveLength(3);
+    expect(lines[0]).toMatchObject({ crossings: 3 });
+    expect(lines[1]).toMatchObject({ code: '1 x 2', notation: 'braid', error: { ruleId: expect.any(String), span: { start: 2, end: 3 } } });
+    expect(lines[2]).toMatchObject({ crossings: 4, span: 4 });
+    expect(stderr).toContain('code #2');
+    expect(stderr).toContain('"x"');
+    expect(stderr).not.toMatch(/\n\s+at /);
+    expect(stderr).not.toContain('InputError');
+  });
+});
+
+describe('skeinproof compute (plain)', () => {
+  it('summarises a kinked trefoil: nugatory crossing, bounds, negative leading generator accepted', () => {
+    const { status, stdout, stderr } = skeinproof('compute', '--notation', 'braid', '-1 -1 -1 -2');
+    expect(stderr).toBe('');
+    expect(status).toBe(0);
+    expect(stdout).toContain('4 crossings');
+    expect(stdout).toContain('nugatory');
+    expect(stdout).toContain('crossing number exactly 3');
+  });
+  it('rejects a malformed --strands and an unknown option with exit 2', () => {
+    expect(skeinproof('compute', '--notation', 'braid', '--strands', '0', '1 1').status).toBe(2);
+    const unknown = skeinproof('compute', '--jsno', '1 1');
+    expect(unknown.status).toBe(2);
+    expect(unknown.stderr).toContain('--jsno');
+  });
+});
