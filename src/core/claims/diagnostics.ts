@@ -1,0 +1,118 @@
+/**
+ * Turning verdicts and input errors into located diagnostics.
+ *
+ * Rule ids (our own):
+ *   claim-contradicted  error    the stated value is refuted by the computation
+ *   claim-unexplained   warning  accompanies a contradiction no common slip explains: recheck the value by hand
+ *   claim-undecided     warning  the bounds proven do not settle the claim (or the value is not computed)
+ *   claim-mirror-only   warning  the claim holds for the mirror image only, and the code (DT) cannot tell them apart
+ *   claim-unreadable    error    the claimed value cannot be read
+ *   claim-inapplicable  error    the claim makes no sense for this diagram (a linking number of a knot)
+ *   code-invalid        error    a diagram code cannot be parsed (raised by the notation parsers)
+ */
+import type { InputError } from '../errors.ts';
+import type { Diagnostic, SourceLocation, TextSpan } from '../diagnostics/diagnostic.ts';
+import type { ClaimKey, Judgement } from './api.ts';
+
+export const CLAIM_RULES = {
+  contradicted: 'claim-contradicted',
+  unexplained: 'claim-unexplained',
+  undecided: 'claim-undecided',
+  mirrorOnly: 'claim-mirror-only',
+  unreadable: 'claim-unreadable',
+  inapplicable: 'claim-inapplicable',
+  codeInvalid: 'code-invalid',
+} as const;
+
+export const CLAIM_NOUNS: Readonly<Record<ClaimKey, string>> = {
+  jones: 'Jones polynomial',
+  bracket: 'Kauffman bracket',
+  span: 'span of V',
+  'bracket-span': 'span of the bracket',
+  'min-degree': 'lowest degree of V',
+  'max-degree': 'highest degree of V',
+  writhe: 'writhe',
+  crossings: 'crossing count',
+  components: 'component count',
+  linking: 'linking number',
+  alternating: 'alternating',
+  reduced: 'reduced',
+  adequate: 'adequate',
+  'crossing-number': 'crossing number',
+  alexander: 'Alexander polynomial',
+  conway: 'Conway polynomial',
+  determinant: 'determinant',
+  signature: 'signature',
+};
+
+function claimData(j: Judgement): Record<string, unknown> {
+  return {
+    key: j.key,
+    verdict: j.verdict,
+    ...(j.diagnosis ? { diagnosis: { ...j.diagnosis } } : {}),
+    ...(j.theorem ? { theorem: j.theorem } : {}),
+  };
+}
+
+function where(location: SourceLocation | undefined) {
+  return location ? { location } : {};
+}
+
+/**
+ * The diagnostics for one judgement: none when it agrees plainly; an error
+ * when contradicted (plus a `claim-unexplained` warning when no slip explains
+ * it); a warning when undecided or agreeing only up to mirror image.
+ * `context` (e.g. "row 3, column V") prefixes the message.
+ */
+export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, context?: string): Diagnostic[] {
+  const noun = CLAIM_NOUNS[j.key];
+  const prefix = context ? `${context}: ` : '';
+  const shared = { ...where(location), claimed: j.claimed, computed: j.computed, data: claimData(j) };
+  if (j.verdict === 'agrees') {
+    if (!j.warning) return [];
+    return [{ severity: 'warning', ruleId: CLAIM_RULES.mirrorOnly, message: `${prefix}the ${noun} claimed holds only for the mirror image: ${j.warning}`, ...shared }];
+  }
+  if (j.verdict === 'undecided') {
+    return [{ severity: 'warning', ruleId: CLAIM_RULES.undecided, message: `${prefix}the ${noun} claim cannot be decided: ${j.reason}`, ...shared }];
+  }
+  const hints: string[] = [];
+  if (j.diagnosis && j.diagnosis.kind !== 'none') hints.push(`Likely slip (${j.diagnosis.kind}): ${j.diagnosis.detail}.`);
+  if (j.computed !== '') hints.push(`The computed value is ${j.computed}.`);
+  const error: Diagnostic = {
+    severity: 'error',
+    ruleId: CLAIM_RULES.contradicted,
+    message: `${prefix}the ${noun} claim is wrong: ${j.reason}`,
+    ...shared,
+    hints,
+  };
+  if (j.diagnosis?.kind !== 'none') return [error];
+  const unexplained: Diagnostic = {
+    severity: 'warning',
+    ruleId: CLAIM_RULES.unexplained,
+    message: `${prefix}no common slip explains the wrong ${noun}; recheck the whole value rather than one term or sign`,
+    ...shared,
+  };
+  return [error, unexplained];
+}
+
+/** A diagnostic for bad input (unreadable claim, invalid code), located through the caller's locator. */
+export function inputErrorDiagnostic(err: InputError, locate?: (span?: TextSpan) => SourceLocation, context?: string): Diagnostic {
+  const location = locate?.(err.span);
+  return {
+    severity: 'error',
+    ruleId: err.ruleId,
+    message: context ? `${context}: ${err.message}` : err.message,
+    ...where(location),
+    ...(err.hints.length > 0 ? { hints: [...err.hints] } : {}),
+  };
+}
+
+/** An invalid diagram code; `diagramId` names the diagram in the message. */
+export function invalidCodeDiagnostic(err: InputError, locateCode?: (span?: TextSpan) => SourceLocation, diagramId?: string): Diagnostic {
+  return inputErrorDiagnostic(err, locateCode, diagramId !== undefined ? `diagram \`${diagramId}\`` : undefined);
+}
+
+/** An unreadable claim; `context` (e.g. "row 3, column V") prefixes the message. */
+export function unreadableClaimDiagnostic(err: InputError, locate?: (span?: TextSpan) => SourceLocation, context?: string): Diagnostic {
+  return inputErrorDiagnostic(err, locate, context);
+}

@@ -1,0 +1,217 @@
+/**
+ * Judging a claimed Jones polynomial or Kauffman bracket: exact equality in
+ * the document's convention, and on a mismatch the first common slip that
+ * explains it, tried in a fixed order: mirror, negated, shifted,
+ * normalization, one-coefficient, swapped, none.
+ */
+import { Laurent } from '../poly/laurent.ts';
+import type { DiagramReport } from '../analyze/report.ts';
+import type { Convention, JonesVariable } from '../convention/convention.ts';
+import { bracketToConvention, conventionBracket, conventionJones, jonesLetter, jonesToConvention } from '../convention/convert.ts';
+import type { Diagnosis, JudgeContext, Judgement } from './api.ts';
+import { readPolynomial } from './latex-poly-parser.ts';
+import { polynomialLatex, styleOf } from './typeset.ts';
+
+export type PolynomialKey = 'jones' | 'bracket';
+
+const JONES_VARIABLES: readonly JonesVariable[] = ['t', 't-inverse', 'q', 'q-graded'];
+
+/** −t^{1/2} − t^{−1/2}: V of the unknot when every circle is counted, the Jones form of the loop value. */
+const JONES_LOOP_VALUE = Laurent.fromTerms([
+  [-0.5, -1n],
+  [0.5, -1n],
+]);
+
+/** A value the author may have written instead, in a given letter, with the sentence naming that slip. */
+interface Alternative {
+  readonly letter: string;
+  readonly value: Laurent;
+  readonly detail: string;
+}
+
+interface Subject {
+  readonly key: PolynomialKey;
+  readonly noun: string;
+  readonly letter: string;
+  readonly computed: Laurent;
+  readonly mirror: Laurent;
+  readonly mirrorSwap: string;
+  /** Slips of normalisation or convention, in any letter. */
+  readonly alternatives: readonly Alternative[];
+  readonly valueOf: (report: DiagramReport) => Laurent;
+}
+
+function jonesSubject(report: DiagramReport, convention: Convention): Subject {
+  const letter = jonesLetter(convention.jonesVariable);
+  const valueOf = (r: DiagramReport) => conventionJones(r.jones, convention);
+  const alternatives: Alternative[] = [];
+  for (const variable of JONES_VARIABLES) {
+    if (variable === convention.jonesVariable) continue;
+    // t ↔ t-inverse is the mirror, tried before.
+    if (jonesLetter(variable) === 't' && letter === 't') continue;
+    alternatives.push({
+      letter: jonesLetter(variable),
+      value: jonesToConvention(report.jones, variable),
+      detail: `the claim is V written in the convention jones=${variable}, but the document declares jones=${convention.jonesVariable}`,
+    });
+  }
+  alternatives.push({
+    letter,
+    value: jonesToConvention(report.jones.mul(JONES_LOOP_VALUE), convention.jonesVariable),
+    detail: 'the claim is V times −t^{1/2} − t^{−1/2}, the normalisation in which the unknot has that value instead of 1',
+  });
+  for (const normalization of ['unit', 'loop'] as const) {
+    const inA = bracketToConvention(report.bracket, normalization);
+    const atT = inA.substitutePower(-1 / 4);
+    if (atT.exponents.every((e) => Number.isInteger(2 * e))) {
+      alternatives.push({
+        letter,
+        value: jonesToConvention(atT, convention.jonesVariable),
+        detail: `the claim is the Kauffman bracket (bracket=${normalization}) at A = t^{−1/4} without the writhe factor (−A³)^{−w}, w = ${report.writhe}`,
+      });
+    }
+    alternatives.push({
+      letter: 'A',
+      value: inA,
+      detail: `the claim is the Kauffman bracket in A (bracket=${normalization}), not the Jones polynomial; V(t) = (−A³)^{−w}⟨D⟩ at A = t^{−1/4}`,
+    });
+  }
+  alternatives.push({
+    letter: 'A',
+    value: report.jones.substitutePower(-4),
+    detail: `the claim is V with t = A^{−4}; the document writes the Jones polynomial in ${letter}`,
+  });
+  return {
+    key: 'jones',
+    noun: 'Jones polynomial',
+    letter,
+    computed: valueOf(report),
+    mirror: conventionJones(report.jones.substitutePower(-1), convention),
+    mirrorSwap: `${letter} ↔ ${letter}⁻¹`,
+    alternatives,
+    valueOf,
+  };
+}
+
+function bracketSubject(report: DiagramReport, convention: Convention): Subject {
+  const normalization = convention.bracketNormalization;
+  const other = normalization === 'unit' ? 'loop' : 'unit';
+  const valueOf = (r: DiagramReport) => conventionBracket(r.bracket, convention);
+  const alternatives: Alternative[] = [
+    {
+      letter: 'A',
+      value: bracketToConvention(report.bracket, other),
+      detail:
+        other === 'loop'
+          ? 'the claim is the bracket normalised with ⟨O⟩ = −A² − A⁻² (bracket=loop), but the document declares ⟨O⟩ = 1 (bracket=unit)'
+          : 'the claim is the bracket normalised with ⟨O⟩ = 1 (bracket=unit), but the document declares ⟨O⟩ = −A² − A⁻² (bracket=loop)',
+    },
+    {
+      letter: 'A',
+      value: report.jones.substitutePower(-4),
+      detail: 'the claim is the Jones polynomial at t = A^{−4}, i.e. the bracket times (−A³)^{−w}, not the bracket itself',
+    },
+  ];
+  for (const variable of JONES_VARIABLES) {
+    alternatives.push({
+      letter: jonesLetter(variable),
+      value: jonesToConvention(report.jones, variable),
+      detail: `the claim is the Jones polynomial (jones=${variable}), not the Kauffman bracket`,
+    });
+  }
+  return {
+    key: 'bracket',
+    noun: 'Kauffman bracket',
+    letter: 'A',
+    computed: valueOf(report),
+    mirror: conventionBracket(report.bracket.substitutePower(-1), convention),
+    mirrorSwap: 'A ↔ A⁻¹',
+    alternatives,
+    valueOf,
+  };
+}
+
+/** The letters a claim may be written in: the expected one first; the others are read to diagnose a mix-up. */
+function readableLetters(subject: Subject): string[] {
+  const letters = [subject.letter];
+  for (const l of ['t', 'q', 'A']) if (!letters.includes(l)) letters.push(l);
+  return letters;
+}
+
+function monomialLatex(letter: string, k: number, negative: boolean): string {
+  return polynomialLatex(Laurent.monomial(k, negative ? -1n : 1n), letter, { order: 'ascending', halfPowers: 'power' });
+}
+
+function diagnose(claim: Laurent, claimLetter: string, subject: Subject, ctx: JudgeContext): Diagnosis {
+  const { computed, letter } = subject;
+  if (claimLetter !== letter) {
+    const hit = subject.alternatives.find((a) => a.letter === claimLetter && a.value.equals(claim));
+    if (hit) return { kind: 'normalization', detail: hit.detail };
+    return {
+      kind: 'none',
+      detail: `the claim is written in ${claimLetter}, but this document writes the ${subject.noun} in ${letter}, and it matches no other form of the value`,
+    };
+  }
+  if (claim.equals(subject.mirror)) return { kind: 'mirror', detail: `the claim is the value of the mirror image (${subject.mirrorSwap})` };
+  if (claim.equals(computed.neg())) return { kind: 'negated', detail: 'the claim is the computed value with every sign reversed' };
+  if (claim.termCount === computed.termCount && !claim.isZero) {
+    const k = claim.minDegree! - computed.minDegree!;
+    const shifted = computed.shift(k);
+    const sign = claim.equals(shifted) ? 1 : claim.equals(shifted.neg()) ? -1 : 0;
+    if (k !== 0 && sign !== 0) {
+      const factor = monomialLatex(letter, k, sign < 0);
+      return {
+        kind: 'shifted',
+        shift: k,
+        detail: `the claim is the computed value times ${factor}, the kind of factor a writhe or normalisation slip leaves`,
+      };
+    }
+  }
+  const normal = subject.alternatives.find((a) => a.letter === letter && a.value.equals(claim));
+  if (normal) return { kind: 'normalization', detail: normal.detail };
+  const difference = claim.sub(computed);
+  if (difference.termCount === 1) {
+    const exponent = difference.exponents[0]!;
+    const term = { exponent, computed: computed.coefficient(exponent).toString(), claimed: claim.coefficient(exponent).toString() };
+    const power = exponent === 0 ? 'the constant term' : `the coefficient of ${monomialLatex(letter, exponent, false)}`;
+    return {
+      kind: 'one-coefficient',
+      term,
+      detail: `only ${power} differs: computed ${term.computed}, claimed ${term.claimed}`,
+    };
+  }
+  for (const [id, other] of ctx.others ?? []) {
+    if (id === ctx.selfId) continue;
+    if (subject.valueOf(other).equals(claim)) {
+      return { kind: 'swapped', otherDiagram: id, detail: `the claim is the ${subject.noun} of diagram \`${id}\` of this document` };
+    }
+  }
+  return { kind: 'none', detail: 'no common slip (mirror image, sign, power shift, normalisation, one coefficient, another diagram) explains the difference' };
+}
+
+export function judgePolynomialClaim(key: PolynomialKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  const subject = key === 'jones' ? jonesSubject(report, ctx.convention) : bracketSubject(report, ctx.convention);
+  const read = readPolynomial(text, { variables: readableLetters(subject), what: `the ${subject.noun}` });
+  const claimLetter = read.variable ?? subject.letter;
+  const computedLatex = polynomialLatex(subject.computed, subject.letter, styleOf(ctx.convention));
+  const base = { key, claimed: text, computed: computedLatex };
+  if (claimLetter === subject.letter && read.value.equals(subject.computed)) {
+    return { ...base, verdict: 'agrees', reason: `the claim equals the computed ${subject.noun}` };
+  }
+  const diagnosis = diagnose(read.value, claimLetter, subject, ctx);
+  if (diagnosis.kind === 'mirror' && !report.chiralityFixed) {
+    return {
+      ...base,
+      verdict: 'agrees',
+      diagnosis,
+      reason: `the claim is the ${subject.noun} of the mirror image, which a DT code cannot tell apart from the diagram itself`,
+      warning: `a DT code fixes the knot only up to mirror image; the claim matches the mirror (${subject.mirrorSwap}), the code's own value is ${computedLatex}`,
+    };
+  }
+  return {
+    ...base,
+    verdict: 'contradicts',
+    diagnosis,
+    reason: `the claimed ${subject.noun} differs from the computed ${computedLatex}: ${diagnosis.detail}`,
+  };
+}
