@@ -39,20 +39,20 @@ export function computeCode(code: string, notation: Notation, options: ParseOpti
 
 const yesNo = (flag: boolean, yes: string, no: string): string => (flag ? yes : no);
 const signed = (k: number): string => (k > 0 ? `+${k}` : `${k}`);
+const count = (k: number, noun: string): string => `${k} ${noun}${k === 1 ? '' : 's'}`;
 
 /** The human summary of one analysed code: a heading line and indented facts. */
 export function plainSummary(position: number, code: string, r: DiagramReport): string {
   const lines: string[] = [];
   lines.push(`#${position} ${r.notation} ${JSON.stringify(code)}`);
-  const components = `${r.components} component${r.components === 1 ? '' : 's'}`;
-  lines.push(`  ${r.crossings} crossing${r.crossings === 1 ? '' : 's'}, ${components}, writhe ${signed(r.writhe)} (${r.positiveCrossings} positive, ${r.negativeCrossings} negative)`);
+  lines.push(`  ${count(r.crossings, 'crossing')}, ${count(r.components, 'component')}, writhe ${signed(r.writhe)} (${r.positiveCrossings} positive, ${r.negativeCrossings} negative)`);
   lines.push(`  Jones    V(t) = ${r.jones.toPlainString('t')}`);
   lines.push(`           span ${r.span}, degrees ${r.jonesMinDegree} to ${r.jonesMaxDegree}`);
   lines.push(`  bracket  <D> = ${r.bracket.toPlainString('A')}`);
   lines.push(`           span ${r.bracketSpan}, degrees ${r.bracketMinDegree} to ${r.bracketMaxDegree}  (unit normalisation <O> = 1)`);
   const adequacy = r.adequate ? 'adequate' : r.aAdequate ? 'A-adequate only' : r.bAdequate ? 'B-adequate only' : 'neither A- nor B-adequate';
   lines.push(`  diagram  ${yesNo(r.connected, 'connected', 'split into several pieces')}, ${yesNo(r.reduced, 'reduced', 'not reduced')}, ${yesNo(r.alternating, 'alternating', 'not alternating')}, ${adequacy}`);
-  lines.push(`           all-A state ${r.stateCircles.a} circles, all-B state ${r.stateCircles.b} circles`);
+  lines.push(`           all-A state ${count(r.stateCircles.a, 'circle')}, all-B state ${count(r.stateCircles.b, 'circle')}`);
   if (r.nugatory.length > 0) lines.push(`  nugatory crossing${r.nugatory.length === 1 ? '' : 's'} (from 0): ${r.nugatory.join(', ')}`);
   if (r.linking.length > 0) {
     lines.push(`  linking  ${r.linking.map((l) => `lk(${l.components[0]},${l.components[1]}) = ${signed(l.value)}`).join(', ')}`);
