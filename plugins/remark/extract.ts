@@ -1,0 +1,439 @@
+/**
+ * Finds skeinproof's carriers in a parsed Markdown tree (see ./syntax.ts):
+ * diagrams, claims, fill-ins and tables, each with locators into the file, and
+ * the edits a build makes to the text. Syntax problems become diagnostics; no
+ * value is computed here.
+ */
+import type { Code, InlineCode, Nodes, PhrasingContent, Root, Table, TableCell, Yaml } from 'mdast';
+import type { ContainerDirective, TextDirective } from 'mdast-util-directive';
+import { visit, SKIP } from 'unist-util-visit';
+import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
+import type { Diagnostic, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+import type { Notation } from '../../src/core/diagram/model.ts';
+import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
+import { alignValue, mapSpan, SourceText, type OffsetMap } from './source-text.ts';
+import {
+  CLAIM_KEYS,
+  DIAGRAM_FENCE_LANGUAGE,
+  FILL_KEYS,
+  NOTATION_NAMES,
+  REMARKS_COLUMN,
+  ROW_DIAGRAM_COLUMN,
+  ROW_NOTATION_COLUMN,
+  TABLE_DIRECTIVE,
+  TARGET_ATTRIBUTE,
+  columnName,
+  isClaimKey,
+  isFillKey,
+  isNotation,
+  splitInfoSettings,
+} from './syntax.ts';
+import { readFrontMatter, type ManuscriptSettings } from './front-matter.ts';
+
+/** A change the build makes to the text; `fill` refers to the fill-in whose typeset value goes there. */
+export interface TextEdit {
+  readonly start: number;
+  readonly end: number;
+  readonly replacement: { readonly text: string } | { readonly fill: number; readonly inTableCell: boolean };
+}
+
+/** What the tree transformer does to a node (the same changes as the text edits, on the tree). */
+export type NodeAction =
+  | { readonly kind: 'fill'; readonly fill: number }
+  | { readonly kind: 'unwrap' };
+
+export interface ExtractedManuscript {
+  readonly settings: ManuscriptSettings;
+  readonly diagrams: readonly DiagramEntry[];
+  readonly claims: readonly ClaimEntry[];
+  readonly fills: readonly FillEntry[];
+  readonly edits: readonly TextEdit[];
+  readonly actions: ReadonlyMap<Nodes, NodeAction>;
+  /** Problems in skeinproof's own markup (bad settings, unknown columns, …). */
+  readonly problems: readonly Diagnostic[];
+}
+
+export interface ExtractOptions {
+  /** Overrides the front matter's default notation. */
+  readonly notation?: Notation;
+}
+
+export function extractManuscript(tree: Root, source: SourceText, options: ExtractOptions = {}): ExtractedManuscript {
+  return new Extractor(tree, source, options).run();
+}
+
+class Extractor {
+  private readonly diagrams: DiagramEntry[] = [];
+  private readonly claims: ClaimEntry[] = [];
+  private readonly fills: FillEntry[] = [];
+  private readonly edits: TextEdit[] = [];
+  private readonly actions = new Map<Nodes, NodeAction>();
+  private readonly problems: Diagnostic[] = [];
+  private settings: ManuscriptSettings = { convention: {} };
+  private readonly text: string;
+
+  constructor(
+    private readonly tree: Root,
+    private readonly source: SourceText,
+    private readonly options: ExtractOptions,
+  ) {
+    this.text = source.text;
+  }
+
+  run(): ExtractedManuscript {
+    const yaml = this.tree.children.find((n): n is Yaml => n.type === 'yaml');
+    if (yaml) {
+      const read = readFrontMatter(yaml, this.source);
+      this.settings = read.settings;
+      this.problems.push(...read.problems);
+    }
+    if (this.options.notation) this.settings = { ...this.settings, notation: this.options.notation };
+    visit(this.tree, (node) => {
+      if (node.type === 'code' && node.lang === DIAGRAM_FENCE_LANGUAGE) this.diagramBlock(node);
+      else if (node.type === 'textDirective') return this.textDirective(node);
+      else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
+      return undefined;
+    });
+    return {
+      settings: this.settings,
+      diagrams: this.diagrams,
+      claims: this.claims,
+      fills: this.fills,
+      edits: [...this.edits].sort((a, b) => a.start - b.start || a.end - b.end),
+      actions: this.actions,
+      problems: this.problems,
+    };
+  }
+
+  private error(ruleId: string, message: string, start: number, end: number, hints?: string[]): void {
+    this.problems.push({ severity: 'error', ruleId, message, location: this.source.location(start, end), ...(hints ? { hints } : {}) });
+  }
+
+  private locator(map: OffsetMap, wholeStart: number, wholeEnd: number): Locator {
+    return (span?: TextSpan) => {
+      if (!span) return this.source.location(wholeStart, wholeEnd);
+      const mapped = mapSpan(map, span);
+      return this.source.location(mapped.start, mapped.end);
+    };
+  }
+
+  private fixedLocator(start: number, end: number): Locator {
+    return (span?: TextSpan) =>
+      span ? this.source.location(start + span.start, start + Math.max(span.end, span.start)) : this.source.location(start, end);
+  }
+
+  // ```skein id=… notation=… strands=… crossing-number=…
+  private diagramBlock(node: Code): void {
+    const [start, end] = offsets(node);
+    const firstLineEnd = lineEnd(this.text, start);
+    const meta = node.meta ?? '';
+    const metaStart = meta ? this.text.indexOf(meta, start) : firstLineEnd;
+    const { settings, problems } = splitInfoSettings(meta);
+    for (const p of problems) this.error('markup-invalid', `diagram block: ${p.message}`, metaStart + p.start, metaStart + p.end);
+
+    let id: string | undefined;
+    let idAt = start;
+    let notation: Notation | undefined = this.settings.notation;
+    let strands: number | undefined;
+    const seen = new Set<string>();
+    const headerClaims: { key: ClaimKey; value: string; at: number; end: number }[] = [];
+    for (const s of settings) {
+      const at = metaStart + s.keyStart;
+      if (seen.has(s.key)) {
+        this.error('markup-invalid', `diagram block: setting \`${s.key}\` is given twice; keep one`, at, metaStart + s.valueEnd);
+        continue;
+      }
+      seen.add(s.key);
+      if (s.key === 'id') {
+        id = s.value;
+        idAt = metaStart + s.valueStart;
+        if (!/^[A-Za-z0-9][\w.-]*$/.test(id)) {
+          this.error('markup-invalid', `diagram id \`${id}\` is not usable: an id starts with a letter or digit and has only letters, digits, '.', '_' and '-'`, idAt, metaStart + s.valueEnd);
+          id = undefined;
+        }
+      } else if (s.key === 'notation') {
+        if (isNotation(s.value)) notation = s.value;
+        else {
+          this.error('markup-invalid', `diagram block: unknown notation \`${s.value}\`: write one of ${NOTATION_NAMES.join(', ')}`, metaStart + s.valueStart, metaStart + s.valueEnd);
+          return;
+        }
+      } else if (s.key === 'strands') {
+        const n = Number(s.value);
+        if (!Number.isInteger(n) || n < 1) {
+          this.error('markup-invalid', `diagram block: strands=${s.value} is not a positive whole number of strands`, metaStart + s.valueStart, metaStart + s.valueEnd);
+        } else strands = n;
+      } else if (isClaimKey(s.key)) {
+        headerClaims.push({ key: s.key, value: s.value, at: metaStart + s.valueStart, end: metaStart + s.valueEnd });
+      } else {
+        this.error(
+          'markup-invalid',
+          `diagram block: unknown setting \`${s.key}\`: the settings are id, notation, strands and the claims ${CLAIM_KEYS.join(', ')}`,
+          at,
+          at + s.key.length,
+        );
+      }
+    }
+    if (id === undefined) {
+      if (!seen.has('id')) this.error('markup-invalid', 'diagram block has no id: add id=NAME after `skein` so the text can refer to it', start, firstLineEnd);
+      return;
+    }
+    if (notation === undefined) {
+      this.error('markup-invalid', `diagram \`${id}\` names no notation: add notation=pd|braid|gauss|dt, or set a default notation in the front matter`, start, firstLineEnd);
+      return;
+    }
+    const codeStart = firstLineEnd < end ? nextLineStart(this.text, firstLineEnd) : end;
+    const codeEnd = Math.max(codeStart, closingFenceStart(this.text, codeStart, end));
+    const map = alignValue(this.text, codeStart, codeEnd, node.value);
+    const headerAt = idAt;
+    this.diagrams.push({
+      id,
+      notation,
+      code: node.value,
+      ...(strands !== undefined ? { strands } : {}),
+      locateCode: this.locator(map, codeStart, codeEnd),
+      locateHeader: () => this.source.location(headerAt, headerAt + id!.length),
+    });
+    for (const c of headerClaims) {
+      this.claims.push({ target: id, key: c.key, text: c.value, locate: this.fixedLocator(c.at, c.end), context: `the header of diagram ${id}` });
+    }
+  }
+
+  // :jones{of=K} (fill-in) and :jones[$…$]{of=K} (claim)
+  private textDirective(node: TextDirective): typeof SKIP | undefined {
+    const target = node.attributes?.[TARGET_ATTRIBUTE];
+    if (target === undefined || target === null) return undefined;
+    const [start, end] = offsets(node);
+    const name = node.name;
+    if (target.trim() === '') {
+      this.error('markup-invalid', `\`:${name}\` has an empty \`${TARGET_ATTRIBUTE}\`: write the id of a diagram, e.g. {of=trefoil}`, start, end);
+      return SKIP;
+    }
+    const hasLabel = this.text[start + 1 + name.length] === '[';
+    if (!hasLabel) {
+      if (!isFillKey(name)) {
+        const why = isClaimKey(name)
+          ? `\`${name}\` is checked but not filled in: write your value as the label, e.g. :${name}[VALUE]{of=${target}}`
+          : `unknown value \`${name}\`: the values that can be filled in are ${FILL_KEYS.join(', ')}`;
+        this.error('markup-invalid', `\`:${name}{of=${target}}\`: ${why}`, start, end);
+        return SKIP;
+      }
+      this.addFill(target, name, this.fixedLocator(start, end), undefined, { start, end, replacement: { fill: this.fills.length, inTableCell: false } }, node);
+      return SKIP;
+    }
+    if (!isClaimKey(name)) {
+      const why =
+        name === 'statement'
+          ? 'a statement is only filled in: drop the label, :statement{of=…}'
+          : `unknown invariant \`${name}\`: the invariants a claim can be about are ${CLAIM_KEYS.join(', ')}`;
+      this.error('markup-invalid', `\`:${name}[…]\`: ${why}`, start, end);
+      return SKIP;
+    }
+    const labelStart = start + 1 + name.length + 1;
+    const labelEnd = matchingBracket(this.text, labelStart - 1, end);
+    const claim = this.readClaimText(node.children, labelStart, labelEnd);
+    this.claims.push({ target, key: name, text: claim.text, locate: claim.locate });
+    this.edits.push({ start, end: labelStart, replacement: { text: '' } }, { start: labelEnd, end, replacement: { text: '' } });
+    this.actions.set(node, { kind: 'unwrap' });
+    return SKIP;
+  }
+
+  /** The author's value: the inside of the math when the content is one math span, else the text as written. */
+  private readClaimText(children: readonly PhrasingContent[], from: number, to: number): { text: string; locate: Locator } {
+    const meaningful = children.filter((c) => !(c.type === 'text' && c.value.trim() === ''));
+    const only = meaningful.length === 1 ? meaningful[0]! : undefined;
+    if (only && only.type === 'inlineMath') {
+      const [ms, me] = offsets(only);
+      const fence = /^\$+/.exec(this.text.slice(ms, me))?.[0].length ?? 1;
+      const map = alignValue(this.text, ms + fence, me - fence, only.value);
+      return { text: only.value, locate: this.locator(map, ms, me) };
+    }
+    const raw = this.text.slice(from, to);
+    const lead = raw.length - raw.trimStart().length;
+    const trimmed = raw.trim();
+    return { text: trimmed, locate: this.fixedLocator(from + lead, from + lead + trimmed.length) };
+  }
+
+  private addFill(target: string, key: FillKey, locate: Locator, context: string | undefined, edit: TextEdit, node: Nodes): void {
+    this.actions.set(node, { kind: 'fill', fill: this.fills.length });
+    this.fills.push({ target, key, locate, ...(context ? { context } : {}) });
+    this.edits.push(edit);
+  }
+
+  // :::invariants{notation=…} | diagram | jones | … | :::
+  private tableDirective(node: ContainerDirective): void {
+    const [start, end] = offsets(node);
+    const tables = node.children.filter((c): c is Table => c.type === 'table');
+    if (tables.length === 0) {
+      this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\` holds no table: put a GFM table between the fences`, start, lineEnd(this.text, start));
+      return;
+    }
+    let notation = this.settings.notation;
+    const declared = node.attributes?.['notation'];
+    if (declared) {
+      if (isNotation(declared)) notation = declared;
+      else this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\`: unknown notation \`${declared}\`: write one of ${NOTATION_NAMES.join(', ')}`, start, lineEnd(this.text, start));
+    }
+    for (const table of tables) this.table(table, notation);
+    const first = offsets(node.children[0]!)[0];
+    const last = offsets(node.children[node.children.length - 1]!)[1];
+    this.edits.push({ start, end: first, replacement: { text: '' } }, { start: last, end, replacement: { text: '' } });
+    this.actions.set(node, { kind: 'unwrap' });
+  }
+
+  private table(table: Table, notation: Notation | undefined): void {
+    const [header, ...rows] = table.children;
+    if (!header) return;
+    const columns = header.children.map((cell) => {
+      const [s, e] = offsets(cell);
+      const content = cellContent(this.text, s, e);
+      return { name: columnName(this.text.slice(content.start, content.end)), start: content.start, end: content.end };
+    });
+    const diagramColumn = columns.findIndex((c) => c.name === ROW_DIAGRAM_COLUMN);
+    const notationColumn = columns.findIndex((c) => c.name === ROW_NOTATION_COLUMN);
+    const [tableStart] = offsets(table);
+    if (diagramColumn < 0) {
+      this.error('markup-invalid', `this table has no \`${ROW_DIAGRAM_COLUMN}\` column: add one naming each row's diagram (an id, or a code in backticks)`, tableStart, lineEnd(this.text, tableStart));
+      return;
+    }
+    const known = [ROW_DIAGRAM_COLUMN, ROW_NOTATION_COLUMN, REMARKS_COLUMN, ...CLAIM_KEYS];
+    columns.forEach((c) => {
+      if (!known.includes(c.name)) {
+        this.error('markup-invalid', `unknown table column \`${c.name}\`: the columns are ${known.join(', ')}`, c.start, c.end, [
+          `Rename the header, or call it \`${REMARKS_COLUMN}\` to keep free text there.`,
+        ]);
+      }
+    });
+    rows.forEach((row, r) => {
+      const rowNumber = r + 1;
+      const cells = row.children;
+      const rowStart = offsets(row)[0];
+      const diagramCell = cells[diagramColumn];
+      if (!diagramCell) {
+        this.error('markup-invalid', `table row ${rowNumber} has no \`${ROW_DIAGRAM_COLUMN}\` cell`, rowStart, lineEnd(this.text, rowStart));
+        return;
+      }
+      let rowNotation = notation;
+      const notationCell = notationColumn >= 0 ? cells[notationColumn] : undefined;
+      if (notationCell) {
+        const [s, e] = offsets(notationCell);
+        const c = cellContent(this.text, s, e);
+        const written = this.text.slice(c.start, c.end).trim();
+        if (written !== '') {
+          if (isNotation(written)) rowNotation = written;
+          else {
+            this.error('markup-invalid', `table row ${rowNumber}: unknown notation \`${written}\`: write one of ${NOTATION_NAMES.join(', ')}`, c.start, c.end);
+            return;
+          }
+        }
+      }
+      const rowDiagram = this.rowDiagram(diagramCell, rowNumber, rowNotation);
+      if (rowDiagram === undefined) return;
+      const { target, named } = rowDiagram;
+      columns.forEach((column, k) => {
+        if (k === diagramColumn || k === notationColumn || column.name === REMARKS_COLUMN || !isClaimKey(column.name)) return;
+        const context = named ? `table row ${rowNumber} (${target}), column ${column.name}` : `table row ${rowNumber}, column ${column.name}`;
+        const cell = cells[k];
+        if (!cell) {
+          this.error('markup-invalid', `${context}: the row has no cell here; add one (leave it empty to have it filled in)`, rowStart, lineEnd(this.text, rowStart));
+          return;
+        }
+        const [s, e] = offsets(cell);
+        const content = cellContent(this.text, s, e);
+        if (content.start === content.end) {
+          if (!isFillKey(column.name)) {
+            this.error('markup-invalid', `${context}: \`${column.name}\` cannot be filled in; write the value to have it checked`, content.innerStart, Math.max(content.innerEnd, content.innerStart + 1));
+            return;
+          }
+          const edit: TextEdit = { start: content.innerStart, end: content.innerEnd, replacement: { fill: this.fills.length, inTableCell: true } };
+          this.addFill(target, column.name, this.fixedLocator(content.innerStart, content.innerEnd), context, edit, cell);
+          return;
+        }
+        const claim = this.readClaimText(cell.children, content.start, content.end);
+        this.claims.push({ target, key: column.name, text: claim.text, locate: claim.locate, context });
+      });
+    });
+  }
+
+  /** The row's diagram: an id, a code in backticks, or an id followed by a code (which defines it). */
+  private rowDiagram(cell: TableCell, rowNumber: number, notation: Notation | undefined): { target: string; named: boolean } | undefined {
+    const [s, e] = offsets(cell);
+    const content = cellContent(this.text, s, e);
+    const code = cell.children.find((c): c is InlineCode => c.type === 'inlineCode');
+    if (!code) {
+      const id = this.text.slice(content.start, content.end).trim();
+      if (id === '') {
+        this.error('markup-invalid', `table row ${rowNumber} names no diagram: write an id or a code in backticks`, content.innerStart, content.innerEnd);
+        return undefined;
+      }
+      return { target: id, named: true };
+    }
+    const [cs, ce] = offsets(code);
+    const before = this.text.slice(content.start, cs).trim();
+    // An unnamed row's diagram gets an id no author can write (ids have no spaces).
+    const id = before !== '' ? before : `table row ${rowNumber} at line ${this.source.point(s).line}`;
+    if (notation === undefined) {
+      this.error('markup-invalid', `table row ${rowNumber}: the code's notation is not known: add a \`${ROW_NOTATION_COLUMN}\` column, {notation=…} on \`:::${TABLE_DIRECTIVE}\`, or a default in the front matter`, cs, ce);
+      return undefined;
+    }
+    const fence = /^`+/.exec(this.text.slice(cs, ce))?.[0].length ?? 1;
+    const map = alignValue(this.text, cs + fence, ce - fence, code.value);
+    const headerStart = before !== '' ? content.start : cs;
+    const headerEnd = before !== '' ? content.start + before.length : ce;
+    this.diagrams.push({
+      id,
+      notation,
+      code: code.value,
+      locateCode: this.locator(map, cs, ce),
+      locateHeader: () => this.source.location(headerStart, headerEnd),
+    });
+    return { target: id, named: before !== '' };
+  }
+}
+
+function offsets(node: Nodes): [number, number] {
+  return [node.position?.start.offset ?? 0, node.position?.end.offset ?? 0];
+}
+
+function lineEnd(text: string, from: number): number {
+  const m = /\r\n|\r|\n/.exec(text.slice(from));
+  return m ? from + m.index : text.length;
+}
+
+function nextLineStart(text: string, eol: number): number {
+  return text[eol] === '\r' && text[eol + 1] === '\n' ? eol + 2 : eol + 1;
+}
+
+/** The start of the closing fence line (or `end` when the block runs to the end of its container). */
+function closingFenceStart(text: string, from: number, end: number): number {
+  const body = text.slice(from, end);
+  const m = /(?:^|\r\n|\r|\n)[^\r\n]*(?:`{3,}|~{3,})[ \t]*$/.exec(body);
+  return m ? from + m.index : end;
+}
+
+/** The `]` closing the label opened at `open`, skipping escapes, nested brackets and math/code spans. */
+function matchingBracket(text: string, open: number, limit: number): number {
+  let depth = 0;
+  for (let i = open; i < limit; i++) {
+    const ch = text[i];
+    if (ch === '\\') i++;
+    else if (ch === '[') depth++;
+    else if (ch === ']' && --depth === 0) return i;
+  }
+  return limit;
+}
+
+/**
+ * A table cell's extent from mdast includes its pipes; `innerStart..innerEnd`
+ * is between the pipes, `start..end` the trimmed content.
+ */
+function cellContent(text: string, s: number, e: number): { innerStart: number; innerEnd: number; start: number; end: number } {
+  let innerStart = s;
+  let innerEnd = e;
+  if (text[innerStart] === '|') innerStart++;
+  if (innerEnd > innerStart && text[innerEnd - 1] === '|' && text[innerEnd - 2] !== '\\') innerEnd--;
+  let start = innerStart;
+  let end = innerEnd;
+  while (start < end && /\s/.test(text[start]!)) start++;
+  while (end > start && /\s/.test(text[end - 1]!)) end--;
+  return { innerStart, innerEnd, start, end };
+}

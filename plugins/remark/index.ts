@@ -1,0 +1,105 @@
+/**
+ * remark-skeinproof: checks and fills in a knot-theory manuscript inside a
+ * unified pipeline. Use it after remark-parse with remark-directive,
+ * remark-math, remark-gfm (tables) and remark-frontmatter (settings):
+ *
+ *   unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath)
+ *     .use(remarkDirective).use(remarkSkeinproof, { strict: true })
+ *
+ * Every problem becomes a vfile message with its position and rule id (fatal
+ * for errors); `file.data.skeinproof` holds the diagnostics, the computed
+ * reports and the text splices a byte-preserving build applies. With
+ * `fill: true` (the default) the tree itself is filled in for HTML output.
+ */
+import type { Root } from 'mdast';
+import type { VFile } from 'vfile';
+import type { Convention } from '../../src/core/convention/convention.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
+import type { Diagnostic } from '../../src/core/diagnostics/diagnostic.ts';
+import type { Notation } from '../../src/core/diagram/model.ts';
+import type { SessionResult } from '../../src/core/manuscript/api.ts';
+import { runSession } from '../../src/core/manuscript/session.ts';
+import { extractManuscript, type ExtractedManuscript } from './extract.ts';
+import { fillTree } from './fill-tree.ts';
+import type { ManuscriptSettings } from './front-matter.ts';
+import { SourceText } from './source-text.ts';
+import type { Splice } from './splice.ts';
+import { typesetMarkdown } from './typeset-markdown.ts';
+
+export interface SkeinproofOptions {
+  /** Overrides the convention the front matter declares, setting by setting. */
+  readonly convention?: Partial<Convention>;
+  /** Warnings fail the check; overrides the front matter's `strict`. */
+  readonly strict?: boolean;
+  /** Default notation for diagrams that name none; overrides the front matter. */
+  readonly notation?: Notation;
+  /** Replace fill-ins and claim markup in the tree (default true). */
+  readonly fill?: boolean;
+}
+
+export interface SkeinproofData {
+  readonly settings: ManuscriptSettings;
+  readonly convention: Convention;
+  readonly diagnostics: readonly Diagnostic[];
+  readonly failed: boolean;
+  readonly session: SessionResult;
+  readonly manuscript: ExtractedManuscript;
+  /** The build's text edits, by offsets into the file (fill-ins that could not be computed stay as written). */
+  readonly splices: readonly Splice[];
+}
+
+declare module 'vfile' {
+  interface DataMap {
+    skeinproof: SkeinproofData;
+  }
+}
+
+const DEFAULT_FILE_NAME = '<input>';
+
+export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
+  return function transformer(tree: Root, file: VFile): void {
+    const source = new SourceText(String(file.value ?? ''), file.path || DEFAULT_FILE_NAME);
+    const manuscript = extractManuscript(tree, source, options.notation ? { notation: options.notation } : {});
+    const convention: Convention = { ...DEFAULT_CONVENTION, ...manuscript.settings.convention, ...options.convention };
+    const strict = options.strict ?? manuscript.settings.strict ?? false;
+    const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict });
+    const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
+    const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error');
+    for (const d of diagnostics) reportOnFile(file, d);
+    const splices: Splice[] = [];
+    for (const edit of manuscript.edits) {
+      const r = edit.replacement;
+      if ('text' in r) splices.push({ start: edit.start, end: edit.end, text: r.text });
+      else {
+        const value = session.fills[r.fill];
+        if (value !== undefined) splices.push({ start: edit.start, end: edit.end, text: typesetMarkdown(value, r.inTableCell) });
+      }
+    }
+    file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices };
+    if (options.fill !== false) fillTree(tree, manuscript.actions, session.fills);
+  };
+}
+
+function reportOnFile(file: VFile, d: Diagnostic): void {
+  const loc = d.location;
+  const message = file.message(d.message, {
+    ruleId: d.ruleId,
+    source: 'skeinproof',
+    ...(loc ? { place: loc.end ? { start: loc.start, end: loc.end } : loc.start } : {}),
+  });
+  message.fatal = d.severity === 'error' ? true : d.severity === 'warning' ? false : undefined;
+  if (d.claimed !== undefined) message.actual = d.claimed;
+  if (d.computed !== undefined) message.expected = [d.computed];
+  if (d.hints && d.hints.length > 0) message.note = d.hints.join('\n');
+}
+
+function byPosition(a: Diagnostic, b: Diagnostic): number {
+  const pa = a.location?.start;
+  const pb = b.location?.start;
+  if (!pa || !pb) return pa ? -1 : pb ? 1 : 0;
+  return pa.line - pb.line || pa.column - pb.column;
+}
+
+export { extractManuscript } from './extract.ts';
+export { applySplices } from './splice.ts';
+export { SourceText } from './source-text.ts';

@@ -1,0 +1,114 @@
+/**
+ * Positions in the manuscript text: offsets ↔ 1-based line/column points, and
+ * the mapping from a node's parsed value back to the bytes it came from (a
+ * parser strips fence indentation, block-quote markers and math delimiters, so
+ * an offset into the value is not an offset into the file).
+ */
+import type { SourceLocation, SourcePoint, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+
+export class SourceText {
+  private readonly lineStarts: number[] = [0];
+
+  constructor(
+    readonly text: string,
+    readonly file: string,
+  ) {
+    for (let i = 0; i < text.length; i++) {
+      const ch = text.charCodeAt(i);
+      // \r\n, \n and a lone \r each end a line, as in CommonMark.
+      if (ch === 10 || (ch === 13 && text.charCodeAt(i + 1) !== 10)) this.lineStarts.push(i + 1);
+    }
+  }
+
+  point(offset: number): SourcePoint {
+    const clamped = Math.max(0, Math.min(offset, this.text.length));
+    let lo = 0;
+    let hi = this.lineStarts.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (this.lineStarts[mid]! <= clamped) lo = mid;
+      else hi = mid - 1;
+    }
+    return { line: lo + 1, column: clamped - this.lineStarts[lo]! + 1, offset: clamped };
+  }
+
+  location(start: number, end?: number): SourceLocation {
+    const loc: SourceLocation = { file: this.file, start: this.point(start) };
+    return end === undefined || end <= start ? loc : { ...loc, end: this.point(end) };
+  }
+}
+
+/** Maps offsets into a parsed value to offsets into the file. */
+export type OffsetMap = (valueOffset: number) => number;
+
+/**
+ * Aligns `value` with the file slice `[from, to)` it was parsed from, assuming
+ * the parser only deleted characters (prefixes, delimiters) and turned line
+ * endings into `\n` or a space. Each value line is matched to a source line as
+ * its suffix, which is exact for stripped indentation and quote markers; where
+ * that fails the characters are matched greedily.
+ */
+export function alignValue(source: string, from: number, to: number, value: string): OffsetMap {
+  const valueLines = value.split('\n');
+  const sourceLineStarts: number[] = [];
+  const sourceLineEnds: number[] = [];
+  let i = from;
+  sourceLineStarts.push(i);
+  for (; i < to; i++) {
+    const ch = source[i];
+    if (ch === '\n' || ch === '\r') {
+      sourceLineEnds.push(i);
+      if (ch === '\r' && source[i + 1] === '\n') i++;
+      sourceLineStarts.push(i + 1);
+    }
+  }
+  sourceLineEnds.push(to);
+
+  const starts: number[] = [];
+  if (valueLines.length === sourceLineStarts.length) {
+    valueLines.forEach((line, k) => {
+      const lineText = source.slice(sourceLineStarts[k], sourceLineEnds[k]);
+      starts.push(lineText.endsWith(line) ? sourceLineEnds[k]! - line.length : -1);
+    });
+  }
+  if (starts.length === valueLines.length && starts.every((s) => s >= 0)) {
+    const valueLineStarts: number[] = [];
+    let acc = 0;
+    for (const line of valueLines) {
+      valueLineStarts.push(acc);
+      acc += line.length + 1;
+    }
+    return (offset) => {
+      let k = valueLineStarts.length - 1;
+      while (k > 0 && valueLineStarts[k]! > offset) k--;
+      return starts[k]! + Math.min(offset - valueLineStarts[k]!, valueLines[k]!.length);
+    };
+  }
+  return greedyAlignment(source, from, to, value);
+}
+
+function greedyAlignment(source: string, from: number, to: number, value: string): OffsetMap {
+  const positions: number[] = [];
+  let j = from;
+  for (let k = 0; k < value.length; k++) {
+    const v = value[k]!;
+    let found = j;
+    while (found < to) {
+      const s = source[found]!;
+      if (s === v || ((v === ' ' || v === '\n') && (s === '\n' || s === '\r'))) break;
+      found++;
+    }
+    if (found >= to) found = j;
+    positions.push(found);
+    j = Math.min(found + 1, to);
+    if (source[found] === '\r' && source[found + 1] === '\n') j = found + 2;
+  }
+  return (offset) => (offset < positions.length ? positions[offset]! : offset === 0 ? from : positions[positions.length - 1]! + 1);
+}
+
+/** A span of a value, mapped to the file. */
+export function mapSpan(map: OffsetMap, span: TextSpan): { start: number; end: number } {
+  const start = map(span.start);
+  const end = span.end > span.start ? map(span.end - 1) + 1 : start;
+  return { start, end };
+}

@@ -1,0 +1,137 @@
+/**
+ * runSession: the format-independent pass over one manuscript (contract in
+ * ./api.ts). Markdown and LaTeX front ends both call it:
+ *
+ * 1. every diagram is parsed and analysed once; a duplicate id is an error at
+ *    the second header, a bad code an error inside the code;
+ * 2. every claim is judged against its diagram's report (unknown targets and
+ *    unreadable values are located errors);
+ * 3. every fill-in is typeset in the document's convention.
+ *
+ * It only sees entries, locators and a convention, never a file format, and
+ * reports everything it finds in one pass, in document order.
+ */
+import { analyzeDiagram } from '../analyze/analyze.ts';
+import type { DiagramReport } from '../analyze/report.ts';
+import { invalidCodeDiagnostic, judgeClaim, judgementToDiagnostics, typesetValue, unreadableClaimDiagnostic } from '../claims/index.ts';
+import type { Typeset } from '../claims/api.ts';
+import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
+import { isInputError } from '../errors.ts';
+import { parseDiagramCode } from '../notation/index.ts';
+import type { DiagramEntry, Locator, SessionInput, SessionResult } from './api.ts';
+
+export function runSession(input: SessionInput): SessionResult {
+  const diagnostics: Diagnostic[] = [];
+  const reports = new Map<string, DiagramReport>();
+  /** Ids whose code is invalid: claims about them are not judged (the code's error says why). */
+  const invalid = new Map<string, DiagramEntry>();
+  const firstHeader = new Map<string, SourceLocation>();
+
+  for (const entry of input.diagrams) {
+    const header = entry.locateHeader();
+    const earlier = firstHeader.get(entry.id);
+    if (earlier) {
+      diagnostics.push({
+        severity: 'error',
+        ruleId: 'id-duplicate',
+        message: `diagram id \`${entry.id}\` is already used at ${place(earlier)}; every diagram needs its own id, so rename this one`,
+        location: header,
+      });
+      continue;
+    }
+    firstHeader.set(entry.id, header);
+    try {
+      const diagram = parseDiagramCode(entry.code, entry.notation, entry.strands !== undefined ? { strands: entry.strands } : {});
+      reports.set(entry.id, analyzeDiagram(diagram));
+    } catch (e) {
+      if (!isInputError(e)) throw e;
+      invalid.set(entry.id, entry);
+      diagnostics.push(invalidCodeDiagnostic(e, entry.locateCode, entry.id));
+    }
+  }
+
+  const known = [...firstHeader.keys()];
+  const unknownTarget = (target: string, locate: Locator, what: string): Diagnostic => ({
+    severity: 'error',
+    ruleId: 'target-unknown',
+    message: `${what} refers to diagram \`${target}\`, but no diagram has that id`,
+    location: locate(),
+    hints: hintsForUnknown(target, known),
+  });
+  const skippedBecauseInvalid = (target: string, locate: Locator, what: string): Diagnostic => ({
+    severity: 'note',
+    ruleId: 'target-invalid',
+    message: `${what} about \`${target}\` is not checked: the code of \`${target}\` is invalid (${place(invalid.get(target)!.locateCode())})`,
+    location: locate(),
+  });
+
+  for (const claim of input.claims) {
+    const what = claim.context ? `the claim in ${claim.context}` : `the ${claim.key} claim`;
+    const report = reports.get(claim.target);
+    if (!report) {
+      diagnostics.push(invalid.has(claim.target) ? skippedBecauseInvalid(claim.target, claim.locate, what) : unknownTarget(claim.target, claim.locate, what));
+      continue;
+    }
+    try {
+      const judgement = judgeClaim(claim.key, claim.text, report, { convention: input.convention, others: reports, selfId: claim.target });
+      diagnostics.push(...judgementToDiagnostics(judgement, claim.locate(), claim.context));
+    } catch (e) {
+      if (!isInputError(e)) throw e;
+      diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, claim.context ?? `the ${claim.key} claimed for \`${claim.target}\``));
+    }
+  }
+
+  const fills: (Typeset | undefined)[] = input.fills.map((fill) => {
+    const what = fill.context ? `the fill-in in ${fill.context}` : `the ${fill.key} fill-in`;
+    const report = reports.get(fill.target);
+    if (!report) {
+      diagnostics.push(invalid.has(fill.target) ? skippedBecauseInvalid(fill.target, fill.locate, what) : unknownTarget(fill.target, fill.locate, what));
+      return undefined;
+    }
+    try {
+      return typesetValue(fill.key, report, input.convention);
+    } catch (e) {
+      if (!isInputError(e)) throw e;
+      diagnostics.push(unreadableClaimDiagnostic(e, fill.locate, fill.context ?? `the ${fill.key} of \`${fill.target}\``));
+      return undefined;
+    }
+  });
+
+  const ordered = diagnostics.map((d, i) => ({ d, i })).sort((a, b) => compareLocations(a.d.location, b.d.location) || a.i - b.i).map((x) => x.d);
+  const failed = ordered.some((d) => d.severity === 'error' || (input.strict === true && d.severity === 'warning'));
+  return { diagnostics: ordered, fills, reports, failed };
+}
+
+function place(loc: SourceLocation): string {
+  return `${loc.file}:${loc.start.line}:${loc.start.column}`;
+}
+
+function compareLocations(a: SourceLocation | undefined, b: SourceLocation | undefined): number {
+  if (!a || !b) return a ? -1 : b ? 1 : 0;
+  if (a.file !== b.file) return a.file < b.file ? -1 : 1;
+  return a.start.line - b.start.line || a.start.column - b.start.column;
+}
+
+/** Suggests the closest known id (edit distance at most 2), then lists the ids. */
+function hintsForUnknown(target: string, known: readonly string[]): string[] {
+  if (known.length === 0) return ['The document defines no diagram yet: add a `skein` block (or a LaTeX diagram) with this id.'];
+  const close = known
+    .map((id) => ({ id, d: editDistance(id.toLowerCase(), target.toLowerCase()) }))
+    .filter((x) => x.d <= 2)
+    .sort((a, b) => a.d - b.d)[0];
+  const hints = close ? [`Did you mean \`${close.id}\`?`] : [];
+  hints.push(`The diagram ids are: ${known.slice(0, 20).join(', ')}${known.length > 20 ? ', …' : ''}.`);
+  return hints;
+}
+
+function editDistance(a: string, b: string): number {
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= b.length; j++) {
+      cur.push(Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + (a[i - 1] === b[j - 1] ? 0 : 1)));
+    }
+    prev = cur;
+  }
+  return prev[b.length]!;
+}
