@@ -9,12 +9,15 @@
  * The turn of crossing c is ε_c = +1 when its even-labelled pass crosses its
  * odd-labelled pass from right to left, −1 otherwise. Call crossings a and b
  * interlaced when exactly one visit of b lies strictly between the two visits
- * of a. For a curve in the plane (Rosenstiehl's characterisation of planar
- * Gauss words, from memory; Gauss's evenness condition for the first part):
- *   – every crossing is interlaced with an even number of crossings;
- *   – two non-interlaced crossings are both interlaced with an even number of crossings;
- *   – two interlaced crossings a, b have ε_a = ε_b exactly when they are both
- *     interlaced with an odd number of crossings.
+ * of a. A curve in the plane satisfies (Rosenstiehl's characterisation of
+ * planar Gauss words, from memory):
+ *   – every crossing is interlaced with an even number of crossings (Gauss's
+ *     evenness condition; automatic for DT codes, since pairing each odd label
+ *     with an even one leaves an even number of visits between them);
+ *   – for two non-interlaced crossings, the number of crossings interlaced
+ *     with both is even;
+ *   – for two interlaced crossings a, b: ε_a = ε_b exactly when the number of
+ *     crossings interlaced with both is odd.
  * The last rule fixes every turn from one free choice per connected part of
  * the interlacement graph, by a breadth-first walk; a contradiction means no
  * planar curve has this code. The result is checked once more by Euler's
@@ -22,11 +25,11 @@
  */
 import { assembleDiagram, type RawCrossing } from '../diagram/assemble.ts';
 import type { LinkDiagram, Sign } from '../diagram/model.ts';
-import { codeError, plural, integerValue, quote, splitTokens, wholeSpan, type Token } from './common.ts';
+import { codeError, integerValue, quote, splitTokens, wholeSpan, type Token } from './common.ts';
 import { firstNonPlanarPiece } from './planarity.ts';
 
-/** Quadratic memory and cubic-over-32 time: several thousand crossings still take well under a second or so. */
-export const MAX_DT_ENTRIES = 5000;
+/** The interlacement test is cubic (over 32-bit words): 1500 entries take about half a second. */
+export const MAX_DT_ENTRIES = 2000;
 
 type PassEnd = 'oddIn' | 'oddOut' | 'evenIn' | 'evenOut';
 
@@ -39,9 +42,9 @@ export function parseDtCode(text: string): LinkDiagram {
   const entries = readEntries(tokens);
   const turns = realiseTurns(entries, tokens);
   const n = entries.length;
-  // Edge p runs from visit p to visit p+1 (edge 2n closes the loop back to visit 1).
-  const enter = (visit: number): number => (visit === 1 ? 2 * n : visit - 1);
-  const leave = (visit: number): number => visit;
+  // Edge p runs into visit p (edge 1 from visit 2n), so the assembled knot starts on the edge entering visit 1.
+  const enter = (visit: number): number => visit;
+  const leave = (visit: number): number => (visit === 2 * n ? 1 : visit + 1);
   const raw: RawCrossing[] = entries.map((entry, k) => {
     const odd = 2 * k + 1;
     const even = Math.abs(entry);
@@ -111,14 +114,6 @@ function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sig
     }
   }
   const describe = (k: number): string => `entry ${k + 1} (${quote(tokens[k]!.text)}: labels ${2 * k + 1} and ${Math.abs(entries[k]!)})`;
-  for (let a = 0; a < n; a++) {
-    if (neighbours[a]!.length % 2 !== 0) {
-      throw codeError(
-        `No planar knot diagram has this DT code: the crossing of ${describe(a)} is interlaced with ${plural(neighbours[a]!.length, 'crossing')} (each with one visit between labels ${first[a]} and ${last[a]}); in the plane that loop meets the rest of the knot an even number of times. Check this entry for a misprint.`,
-        tokens[a]!,
-      );
-    }
-  }
   const commonIsOdd = (a: number, b: number): boolean => {
     let parity = 0;
     const x = interlaced[a]!;
