@@ -80,8 +80,9 @@ describe('skeinproof compute (plain)', () => {
     expect(stdout).toContain('nugatory');
     expect(stdout).toContain('crossing number exactly 3');
   });
-  it('rejects a malformed --strands and an unknown option with exit 2', () => {
+  it('rejects a malformed or misplaced --strands and an unknown option with exit 2', () => {
     expect(skeinproof('compute', '--notation', 'braid', '--strands', '0', '1 1').status).toBe(2);
+    expect(skeinproof('compute', '--strands', '3', '(1,5,2,4) (3,1,4,6) (5,3,6,2)').stderr).toContain('braid words only');
     const unknown = skeinproof('compute', '--jsno', '1 1');
     expect(unknown.status).toBe(2);
     expect(unknown.stderr).toContain('--jsno');

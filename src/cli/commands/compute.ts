@@ -100,11 +100,15 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   }
   const strands = args['strands'] as number | undefined;
   if (strands !== undefined && !(Number.isInteger(strands) && strands >= 1)) {
-    return `--strands needs a positive whole number of strands, not ${String(args['strands'])}.`;
+    return `--strands needs a positive whole number of strands${Number.isNaN(strands) ? '' : `, not ${strands}`}.`;
+  }
+  const notation = args['notation'] as Notation;
+  if (strands !== undefined && notation !== 'braid') {
+    return `--strands applies to braid words only; add --notation braid or leave --strands out.`;
   }
   return {
     codes,
-    notation: args['notation'] as Notation,
+    notation,
     strands,
     json: args['json'] === true,
   };
