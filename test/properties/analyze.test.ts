@@ -78,6 +78,9 @@ describe('nugatory crossings and the upper bound', () => {
     expect(r.reduced).toBe(false);
     expect(r.alternating).toBe(false);
     expect(theorems(r, 'upper')).toEqual(['nugatory-removal']);
+    expect(theorems(r, 'lower')).toEqual(['kauffman-murasugi-thistlethwaite']);
+    // Not alternating, so no exact-value theorem applies: the value comes from the bounds meeting.
+    expect(theorems(r, 'exact')).toEqual(['nugatory-removal']);
     expect(r.crossingNumber).toMatchObject({ lower: 3, upper: 3, exact: 3 });
   });
   it('an all-nugatory diagram (1 2 3 on 4 strands) has crossing number 0 (an unknot)', () => {

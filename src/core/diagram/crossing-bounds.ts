@@ -23,11 +23,13 @@ export function crossingNumberBounds({ properties: p, jonesSpan }: CrossingBound
   const upper = nugatoryUpperBound(p);
   const exactReasons = theoremsFixingTheCrossingNumber(p);
   if (exactReasons.length === 0 && lower.value === upper.value) {
+    // Named after the upper bound: the diagram itself (less its nugatory crossings) is then minimal.
+    // The exact-value theorems keep their ids for the cases they decide on their own.
     exactReasons.push({
       bound: 'exact',
       value: upper.value,
-      theorem: lower.theorem,
-      text: `The lower bound ${lower.value} meets the upper bound ${upper.value}, so the crossing number is ${upper.value}.`,
+      theorem: upper.theorem,
+      text: `The lower bound ${lower.value} (${THEOREM_TITLES[lower.theorem]}) meets the upper bound ${upper.value}, so the crossing number is ${upper.value}.`,
     });
   }
   const reasons = [lower, upper, ...exactReasons];
@@ -40,6 +42,17 @@ export function crossingNumberBounds({ properties: p, jonesSpan }: CrossingBound
   }
   return { lower: exact, upper: exact, exact, reasons };
 }
+
+/** Short names for the lower-bound theorems, used inside reason sentences. */
+const THEOREM_TITLES: Readonly<Record<BoundReason['theorem'], string>> = {
+  'nugatory-removal': 'nugatory crossings removed',
+  'kauffman-murasugi-thistlethwaite': 'span V, Kauffman–Murasugi–Thistlethwaite',
+  menasco: 'span V for a link that is non-split by Menasco',
+  'linking-graph': 'span V for a link that is non-split by its linking numbers',
+  'split-span-bound': 'span V − (μ − 1) for a possibly split link',
+  'thistlethwaite-adequate': 'Thistlethwaite',
+  trivial: 'the crossing count',
+};
 
 function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
   if (p.components === 1) {
