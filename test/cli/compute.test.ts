@@ -56,6 +56,17 @@ describe('skeinproof compute --json', () => {
     expect(negative).toMatchObject({ jones: { terms: [[-2.5, '-1'], [-0.5, '-1']] }, linking: [{ components: [0, 1], value: -1 }] });
   });
 
+  it('marks DT codes as fixing the knot only up to mirror image; figure-eight 4 6 8 2 has V = t^-2 − t^-1 + 1 − t + t^2 (from memory)', () => {
+    const { status, stdout } = skeinproof('compute', '--json', '--notation', 'dt', '4 6 8 2');
+    expect(status).toBe(0);
+    expect(jsonLines(stdout)[0]).toMatchObject({
+      notation: 'dt',
+      chiralityFixed: false,
+      jones: { terms: [[-2, '1'], [-1, '-1'], [0, '1'], [1, '-1'], [2, '1']] },
+      crossingNumber: { exact: 4 },
+    });
+  });
+
   it('exits 2 on an invalid code, still prints the valid ones, and reports the bad one as a JSON error line and on stderr without a stack trace', () => {
     const { status, stdout, stderr } = skeinproof('compute', '--json', '--notation', 'braid', '1 1 1', '1 x 2', '1 -2 1 -2');
     expect(status).toBe(2);
