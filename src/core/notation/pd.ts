@@ -138,11 +138,11 @@ function checkLabelCounts(tuples: readonly PdTuple[]): void {
   for (const [label, list] of places) {
     if (list.length === 2) continue;
     const at = list.length === 1 ? list[0]!.token : list[2]!.token;
-    const where = listNumbers(list.map((p) => p.tuple));
+    const where = listNumbers([...new Set(list.map((p) => p.tuple))]);
     const message =
       list.length === 1
         ? `Edge label ${label} appears only once (tuple ${where}); every edge joins two crossing ends, so each label must appear exactly twice. Check for a typo in this tuple or a missing tuple.`
-        : `Edge label ${label} appears ${list.length} times (tuples ${where}); every edge joins exactly two crossing ends, so each label must appear exactly twice.`;
+        : `Edge label ${label} appears ${list.length} times (tuple${where.includes(' ') ? 's' : ''} ${where}); every edge joins exactly two crossing ends, so each label must appear exactly twice.`;
     if (!worst || at.start < worst.at.start) worst = { at, message };
   }
   if (worst) throw codeError(worst.message, worst.at);
@@ -182,15 +182,18 @@ function orient(tuples: readonly PdTuple[]): Sign[] {
     } while (x !== start);
     const unders = entries.filter((e) => (e & 1) === 0);
     if (unders.length > 0) {
-      // The first under-pass in tuple order sets the direction; every other one must agree.
-      const reference = unders.reduce((a, b) => (b < a ? b : a));
-      const conflict = unders.filter((e) => (e & 3) !== (reference & 3)).reduce<number | undefined>((a, b) => (a === undefined || b < a ? b : a), undefined);
+      // The direction most under-passes agree on is taken as meant (ties: the earliest tuple's); the first other one is at fault.
+      const forward = unders.filter((e) => (e & 3) === 0);
+      const backward = unders.filter((e) => (e & 3) === 2);
+      const earliest = unders.reduce((a, b) => (b < a ? b : a));
+      const majority = forward.length !== backward.length ? (forward.length > backward.length ? 0 : 2) : earliest & 3;
+      const reference = unders.filter((e) => (e & 3) === majority).reduce((a, b) => (b < a ? b : a));
+      const conflict = unders.filter((e) => (e & 3) !== majority).reduce<number | undefined>((a, b) => (a === undefined || b < a ? b : a), undefined);
       if (conflict !== undefined) {
         const [k, j] = [conflict >> 2, reference >> 2];
-        const [early, late] = k < j ? [k, j] : [j, k];
         throw codeError(
-          `Inconsistent orientation at tuple ${late + 1}: the strand through it passes under at tuples ${early + 1} and ${late + 1} in opposite directions (in every tuple the first entry is the incoming under-edge and the third entry the outgoing one). Check the order of the labels in tuple ${late + 1}: the incoming under-edge comes first, then counterclockwise.`,
-          tuples[late]!.span,
+          `Inconsistent orientation at tuple ${k + 1}: read from its first entry (incoming under-edge) to its third (outgoing), it sends the strand the opposite way to tuple ${j + 1}${forward.length + backward.length > 2 ? ' and most of the strand\'s other under-passes' : ''}. Check the order of the labels in tuple ${k + 1}: the incoming under-edge comes first, then the others counterclockwise.`,
+          tuples[k]!.span,
           ['Every component passes under each of its crossings in its direction of travel: in on the first entry of the tuple, out on the third.'],
         );
       }
