@@ -9,6 +9,7 @@
  */
 import { componentCount, indexDiagram, type LinkDiagram } from './model.ts';
 import { connectedPieces, faceStructure } from './faces.ts';
+import type { LinkingNumber } from '../analyze/report.ts';
 
 export type Smoothing = 'A' | 'B';
 
@@ -23,18 +24,12 @@ export function crossingSignCounts(d: LinkDiagram): SignCounts {
   return { positive, negative: d.crossings.length - positive };
 }
 
-export interface ComponentPairLinking {
-  /** 0-based component indices, i < j; free loops come after the components that meet crossings. */
-  readonly components: readonly [number, number];
-  readonly value: number;
-}
-
 /**
  * The linking number of every pair of components: half the signed count of
- * the crossings between them. Free loops are numbered after the components
- * listed in the model and link nothing.
+ * the crossings between them. Components are 0-based with i < j; free loops
+ * are numbered after the components listed in the model and link nothing.
  */
-export function linkingNumbers(d: LinkDiagram): ComponentPairLinking[] {
+export function linkingNumbers(d: LinkDiagram): LinkingNumber[] {
   const mu = componentCount(d);
   const { componentOf } = indexDiagram(d);
   // twice the linking number, indexed i·μ + j for i < j
@@ -46,7 +41,7 @@ export function linkingNumbers(d: LinkDiagram): ComponentPairLinking[] {
     const key = Math.min(under, over) * mu + Math.max(under, over);
     doubled.set(key, (doubled.get(key) ?? 0) + c.sign);
   }
-  const result: ComponentPairLinking[] = [];
+  const result: LinkingNumber[] = [];
   for (let i = 0; i < mu; i++) {
     for (let j = i + 1; j < mu; j++) {
       const twice = doubled.get(i * mu + j) ?? 0;
@@ -146,7 +141,7 @@ export interface DiagramProperties {
   readonly components: number;
   readonly signs: SignCounts;
   readonly writhe: number;
-  readonly linking: readonly ComponentPairLinking[];
+  readonly linking: readonly LinkingNumber[];
   readonly pieces: number;
   readonly connected: boolean;
   readonly nugatory: readonly number[];
