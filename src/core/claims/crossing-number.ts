@@ -109,11 +109,12 @@ export function judgeCrossingNumberClaim(text: string, report: DiagramReport): J
   const claimHigh = claim.relation === 'at-least' ? Infinity : claim.value;
   // The claim is an interval [claimLow, claimHigh]; the truth lies in [lower, upper].
   if (claimHigh < lower) {
-    const r = exact !== null ? exactReason : lowerReason;
+    // Cite the lower bound itself when it refutes the claim, else the theorem that made the value exact.
+    const r = lowerReason && lowerReason.value > claimHigh ? lowerReason : exactReason;
     return { ...base, ...withTheorem(r), verdict: 'contradicts', reason: `the crossing number is ${exact !== null ? exact : `at least ${lower}`}, so it is not ${said}${because(r)}` };
   }
   if (claimLow > upper) {
-    const r = exact !== null ? exactReason : upperReason;
+    const r = upperReason && upperReason.value < claimLow ? upperReason : exactReason;
     return { ...base, ...withTheorem(r), verdict: 'contradicts', reason: `the crossing number is ${exact !== null ? exact : `at most ${upper}`}, so it is not ${said}${because(r)}` };
   }
   if (claimLow <= lower && upper <= claimHigh) {

@@ -45,10 +45,10 @@ function jonesSubject(report: DiagramReport, convention: Convention): Subject {
   const letter = jonesLetter(convention.jonesVariable);
   const valueOf = (r: DiagramReport) => conventionJones(r.jones, convention);
   const alternatives: Alternative[] = [];
+  // Variables written with the document's own letter differ from it by the mirror (t ↔ t⁻¹) or, for
+  // q ↔ q-graded, by a global sign: those slips are named earlier, so only the other letter is listed.
   for (const variable of JONES_VARIABLES) {
-    if (variable === convention.jonesVariable) continue;
-    // t ↔ t-inverse is the mirror, tried before.
-    if (jonesLetter(variable) === 't' && letter === 't') continue;
+    if (jonesLetter(variable) === letter) continue;
     alternatives.push({
       letter: jonesLetter(variable),
       value: jonesToConvention(report.jones, variable),
@@ -60,19 +60,20 @@ function jonesSubject(report: DiagramReport, convention: Convention): Subject {
     value: jonesToConvention(report.jones.mul(JONES_LOOP_VALUE), convention.jonesVariable),
     detail: 'the claim is V times −t^{1/2} − t^{−1/2}, the normalisation in which the unknot has that value instead of 1',
   });
+  // With ⟨O⟩ = 1 the bracket at A = t^{−1/4} differs from V by ±t^{3w/4}, which `shifted` names; with the
+  // loop normalisation it carries the extra factor −t^{1/2} − t^{−1/2}.
+  const loopAtT = bracketToConvention(report.bracket, 'loop').substitutePower(-1 / 4);
+  if (loopAtT.exponents.every((e) => Number.isInteger(2 * e))) {
+    alternatives.push({
+      letter,
+      value: jonesToConvention(loopAtT, convention.jonesVariable),
+      detail: `the claim is the Kauffman bracket with ⟨O⟩ = −A² − A⁻² at A = t^{−1/4}, without the writhe factor (−A³)^{−w}, w = ${report.writhe}`,
+    });
+  }
   for (const normalization of ['unit', 'loop'] as const) {
-    const inA = bracketToConvention(report.bracket, normalization);
-    const atT = inA.substitutePower(-1 / 4);
-    if (atT.exponents.every((e) => Number.isInteger(2 * e))) {
-      alternatives.push({
-        letter,
-        value: jonesToConvention(atT, convention.jonesVariable),
-        detail: `the claim is the Kauffman bracket (bracket=${normalization}) at A = t^{−1/4} without the writhe factor (−A³)^{−w}, w = ${report.writhe}`,
-      });
-    }
     alternatives.push({
       letter: 'A',
-      value: inA,
+      value: bracketToConvention(report.bracket, normalization),
       detail: `the claim is the Kauffman bracket in A (bracket=${normalization}), not the Jones polynomial; V(t) = (−A³)^{−w}⟨D⟩ at A = t^{−1/4}`,
     });
   }
@@ -97,6 +98,7 @@ function bracketSubject(report: DiagramReport, convention: Convention): Subject 
   const normalization = convention.bracketNormalization;
   const other = normalization === 'unit' ? 'loop' : 'unit';
   const valueOf = (r: DiagramReport) => conventionBracket(r.bracket, convention);
+  // The Jones polynomial at t = A^{−4} is the bracket times (−A³)^{−w}: `shifted` names that slip.
   const alternatives: Alternative[] = [
     {
       letter: 'A',
@@ -105,11 +107,6 @@ function bracketSubject(report: DiagramReport, convention: Convention): Subject 
         other === 'loop'
           ? 'the claim is the bracket normalised with ⟨O⟩ = −A² − A⁻² (bracket=loop), but the document declares ⟨O⟩ = 1 (bracket=unit)'
           : 'the claim is the bracket normalised with ⟨O⟩ = 1 (bracket=unit), but the document declares ⟨O⟩ = −A² − A⁻² (bracket=loop)',
-    },
-    {
-      letter: 'A',
-      value: report.jones.substitutePower(-4),
-      detail: 'the claim is the Jones polynomial at t = A^{−4}, i.e. the bracket times (−A³)^{−w}, not the bracket itself',
     },
   ];
   for (const variable of JONES_VARIABLES) {

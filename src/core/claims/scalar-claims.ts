@@ -180,8 +180,8 @@ function propertyFact(key: PropertyKey, report: DiagramReport): { readonly holds
     case 'reduced': {
       const k = report.nugatory.length;
       if (k === 0) return { holds: true, why: 'no crossing is nugatory' };
-      const list = report.nugatory.map((c) => c + 1).join(', ');
-      return { holds: false, why: `crossing${k === 1 ? '' : 's'} ${list} (counting from 1 in the order of the code) ${k === 1 ? 'is' : 'are'} nugatory` };
+      const list = report.nugatory.join(', ');
+      return { holds: false, why: `crossing${k === 1 ? '' : 's'} ${list} (numbered from 0 in the order of the code) ${k === 1 ? 'is' : 'are'} nugatory` };
     }
     case 'adequate': {
       const { aAdequate, bAdequate } = report;

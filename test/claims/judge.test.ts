@@ -1,0 +1,209 @@
+/**
+ * Verdicts and slip diagnoses. Values from memory (Jones 1985; Kauffman 1987):
+ * V(positive trefoil) = t + t³ − t⁴, V(left trefoil) = −t⁻⁴ + t⁻³ + t⁻¹,
+ * V(4₁) = t⁻² − t⁻¹ + 1 − t + t², V(positive Hopf) = −t^{1/2} − t^{5/2},
+ * ⟨positive trefoil⟩ = A⁻⁷ − A⁻³ − A⁵ (⟨O⟩ = 1). Each slip value below is
+ * worked by hand from those.
+ */
+import { describe, expect, it } from 'vitest';
+import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
+import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
+import { parseDiagramCode } from '../../src/core/notation/index.ts';
+import { DEFAULT_CONVENTION, type Convention } from '../../src/core/convention/convention.ts';
+import { judgeClaim, type ClaimKey, type DiagramReport, type JudgeContext } from '../../src/core/claims/index.ts';
+import { InputError } from '../../src/core/errors.ts';
+import { Laurent } from '../../src/core/poly/laurent.ts';
+
+const rightTrefoil = analyzeDiagram(closeBraid([1, 1, 1], 2));
+const figureEight = analyzeDiagram(closeBraid([1, -2, 1, -2], 3));
+const positiveHopf = analyzeDiagram(closeBraid([1, 1], 2));
+const ctx: JudgeContext = { convention: DEFAULT_CONVENTION };
+const judge = (key: ClaimKey, text: string, report: DiagramReport = rightTrefoil, context: JudgeContext = ctx) => judgeClaim(key, text, report, context);
+
+describe('polynomial claims: exact equality', () => {
+  it('agrees with the correct Jones polynomial and gives no diagnosis', () => {
+    const j = judge('jones', 't + t^3 - t^4');
+    expect(j.verdict).toBe('agrees');
+    expect(j.diagnosis).toBeUndefined();
+    expect(j.computed).toBe('t + t^3 - t^4');
+  });
+  it('agrees with the correct bracket in any layout (descending, \\cdot, braces)', () => {
+    expect(judge('bracket', '-A^{5} - {A^{-3}} + 1\\cdot A^{-7}').verdict).toBe('agrees');
+  });
+});
+
+describe('slip diagnoses, each on its slip and not on a correct claim', () => {
+  const cases: { name: string; key: ClaimKey; claim: string; kind: string; report?: DiagramReport; check?: (d: NonNullable<ReturnType<typeof judge>['diagnosis']>) => void }[] = [
+    { name: 'mirror: the left trefoil value for the right trefoil', key: 'jones', claim: '-t^{-4}+t^{-3}+t^{-1}', kind: 'mirror' },
+    { name: 'mirror of the bracket (A ↔ A⁻¹)', key: 'bracket', claim: 'A^{7} - A^{3} - A^{-5}', kind: 'mirror' },
+    { name: 'negated', key: 'jones', claim: '-t - t^3 + t^4', kind: 'negated' },
+    { name: 'shifted by t', key: 'jones', claim: 't^2 + t^4 - t^5', kind: 'shifted', check: (d) => expect(d.shift).toBe(1) },
+    { name: 'shifted with a sign (−t^{-3/2})', key: 'jones', claim: '-t^{-1/2} - t^{3/2} + t^{5/2}', kind: 'shifted', check: (d) => expect(d.shift).toBe(-1.5) },
+    // (−A³)^{−w}⟨D⟩ with w = 3 is the bracket times −A^{-9}: Jones at t = A^{-4} given for the bracket.
+    { name: 'shifted: Jones at t = A^{-4} where the bracket was meant', key: 'bracket', claim: '-A^{-16} + A^{-12} + A^{-4}', kind: 'shifted', check: (d) => expect(d.shift).toBe(-9) },
+    { name: 'normalization: the loop bracket where ⟨O⟩ = 1 is declared', key: 'bracket', claim: '-A^{-9} + A^{-1} + A^{3} + A^{7}', kind: 'normalization' },
+    { name: 'normalization: V times −t^{1/2} − t^{−1/2}', key: 'jones', claim: '-t^{1/2} - t^{3/2} - t^{5/2} + t^{9/2}', kind: 'normalization' },
+    { name: 'normalization: the bracket where Jones was meant', key: 'jones', claim: 'A^{-7} - A^{-3} - A^{5}', kind: 'normalization' },
+    { name: 'normalization: Jones where the bracket was meant', key: 'bracket', claim: 't + t^3 - t^4', kind: 'normalization' },
+    { name: 'normalization: q where the document declares t', key: 'jones', claim: 'q^2 + q^6 - q^8', kind: 'normalization' },
+    {
+      name: 'one-coefficient: one sign wrong',
+      key: 'jones',
+      claim: 't + t^3 + t^4',
+      kind: 'one-coefficient',
+      check: (d) => expect(d.term).toEqual({ exponent: 4, computed: '-1', claimed: '1' }),
+    },
+    {
+      name: 'one-coefficient: a term left out',
+      key: 'jones',
+      claim: 't + t^3',
+      kind: 'one-coefficient',
+      check: (d) => expect(d.term).toEqual({ exponent: 4, computed: '-1', claimed: '0' }),
+    },
+    { name: 'none: nothing explains it', key: 'jones', claim: '1 + t^{10}', kind: 'none' },
+  ];
+  for (const c of cases) {
+    it(c.name, () => {
+      const j = judge(c.key, c.claim, c.report);
+      expect(j.verdict).toBe('contradicts');
+      expect(j.diagnosis?.kind).toBe(c.kind);
+      c.check?.(j.diagnosis!);
+    });
+  }
+  it('swapped: the figure-eight value stated for the trefoil, when the document has both', () => {
+    const others = new Map([
+      ['tref', rightTrefoil],
+      ['fig8', figureEight],
+    ]);
+    const claim = 't^{-2} - t^{-1} + 1 - t + t^2';
+    const j = judge('jones', claim, rightTrefoil, { convention: DEFAULT_CONVENTION, others, selfId: 'tref' });
+    expect(j.diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'fig8' });
+    // Without the other diagram in the document nothing explains it.
+    expect(judge('jones', claim).diagnosis?.kind).toBe('none');
+    // The diagram's own correct value is never "swapped" with itself.
+    const self = judge('jones', claim, figureEight, { convention: DEFAULT_CONVENTION, others, selfId: 'fig8' });
+    expect(self.verdict).toBe('agrees');
+    expect(self.diagnosis).toBeUndefined();
+  });
+  it('accepts a mirror value with a warning for a DT code, whose chirality is not fixed', () => {
+    const dt = analyzeDiagram(parseDiagramCode('4 6 2', 'dt'));
+    expect(dt.chiralityFixed).toBe(false);
+    const own = Laurent.fromTerms([[1, 1], [3, 1], [4, -1]]).equals(dt.jones) ? 't + t^3 - t^4' : '-t^{-4}+t^{-3}+t^{-1}';
+    const mirror = own === 't + t^3 - t^4' ? '-t^{-4}+t^{-3}+t^{-1}' : 't + t^3 - t^4';
+    const ownJudgement = judge('jones', own, dt);
+    expect(ownJudgement.verdict).toBe('agrees');
+    expect(ownJudgement.warning).toBeUndefined();
+    const mirrorJudgement = judge('jones', mirror, dt);
+    expect(mirrorJudgement.verdict).toBe('agrees');
+    expect(mirrorJudgement.warning).toMatch(/mirror/);
+    expect(mirrorJudgement.diagnosis?.kind).toBe('mirror');
+  });
+  it('judges in the declared convention: the q-graded Hopf link value (t^{1/2} = −q)', () => {
+    const convention: Convention = { ...DEFAULT_CONVENTION, jonesVariable: 'q-graded' };
+    expect(judge('jones', 'q + q^5', positiveHopf, { convention }).verdict).toBe('agrees');
+    // −q − q⁵ is the plain q form; in the q-graded document it is the negation.
+    expect(judge('jones', '-q - q^5', positiveHopf, { convention }).diagnosis?.kind).toBe('negated');
+  });
+  it('throws claim-unreadable for text it cannot read', () => {
+    expect(() => judge('jones', 't^{2')).toThrow(InputError);
+  });
+});
+
+describe('number and property claims', () => {
+  it('span, degrees, writhe, counts of the positive trefoil (span 3, degrees 1..4, writhe 3)', () => {
+    expect(judge('span', '3').verdict).toBe('agrees');
+    expect(judge('span', '4').verdict).toBe('contradicts');
+    expect(judge('min-degree', '1').verdict).toBe('agrees');
+    expect(judge('max-degree', '4').verdict).toBe('agrees');
+    expect(judge('writhe', '3').verdict).toBe('agrees');
+    expect(judge('crossings', '3').verdict).toBe('agrees');
+    expect(judge('components', '1').verdict).toBe('agrees');
+    expect(judge('bracket-span', '12').verdict).toBe('agrees');
+  });
+  it('names the mirror for a writhe of the wrong sign and the bracket span for span V', () => {
+    expect(judge('writhe', '-3').diagnosis?.kind).toBe('mirror');
+    expect(judge('writhe', '2').diagnosis).toBeUndefined();
+    expect(judge('span', '12').diagnosis?.kind).toBe('normalization');
+  });
+  it('reads half-integer degrees of the Hopf link: min degree 1/2, max 5/2', () => {
+    expect(judge('min-degree', '\\frac{1}{2}', positiveHopf).verdict).toBe('agrees');
+    expect(judge('max-degree', '5/2', positiveHopf).verdict).toBe('agrees');
+  });
+  it('linking number of the positive Hopf link is +1 (common practice); −1 is the other orientation', () => {
+    expect(judge('linking', '1', positiveHopf).verdict).toBe('agrees');
+    expect(judge('linking', '-1', positiveHopf).diagnosis?.kind).toBe('negated');
+    expect(() => judge('linking', '1')).toThrow(/two or more components/);
+  });
+  it('alternating / reduced / adequate as yes/no/true/false', () => {
+    expect(judge('alternating', 'yes').verdict).toBe('agrees');
+    expect(judge('reduced', 'True').verdict).toBe('agrees');
+    expect(judge('adequate', '\\text{no}').verdict).toBe('contradicts');
+    const nonReduced = analyzeDiagram(closeBraid([1, 1, 1, 2], 3));
+    const j = judge('reduced', 'yes', nonReduced);
+    expect(j.verdict).toBe('contradicts');
+    expect(j.reason).toMatch(/nugatory/);
+    expect(() => judge('alternating', 'maybe')).toThrow(/not a yes\/no answer/);
+  });
+  it('refuses a fractional writhe', () => {
+    expect(() => judge('writhe', '1/2')).toThrow(/integer/);
+  });
+});
+
+describe('crossing-number claims against proven bounds', () => {
+  it('reduced alternating (positive trefoil): exactly 3 by Kauffman–Murasugi–Thistlethwaite', () => {
+    const j = judge('crossing-number', '3');
+    expect(j.verdict).toBe('agrees');
+    expect(['kauffman-murasugi-thistlethwaite', 'thistlethwaite-adequate']).toContain(j.theorem);
+    expect(judge('crossing-number', '\\le 3').verdict).toBe('agrees');
+    expect(judge('crossing-number', '≥ 3').verdict).toBe('agrees');
+    expect(judge('crossing-number', '2').verdict).toBe('contradicts');
+    expect(judge('crossing-number', '>= 4').verdict).toBe('contradicts');
+    expect(judge('crossing-number', '< 3').verdict).toBe('contradicts');
+  });
+  it('non-reduced (trefoil with a nugatory kink): claiming 4 is refuted by removing the nugatory crossing', () => {
+    const report = analyzeDiagram(closeBraid([1, 1, 1, 2], 3));
+    const j = judge('crossing-number', '4', report);
+    expect(j.verdict).toBe('contradicts');
+    expect(j.theorem).toBe('nugatory-removal');
+    expect(judge('crossing-number', '3', report).verdict).toBe('agrees');
+  });
+  it('non-alternating adequate: the crossing count is exact by Thistlethwaite', () => {
+    const report = analyzeDiagram(closeBraid([-1, -1, -2, -2, -2, -1], 3));
+    expect(report.alternating).toBe(false);
+    expect(report.adequate && report.reduced).toBe(true);
+    const j = judge('crossing-number', '6', report);
+    expect(j.verdict).toBe('agrees');
+    expect(j.theorem).toBe('thistlethwaite-adequate');
+    const low = judge('crossing-number', '5', report);
+    expect(low.verdict).toBe('contradicts');
+  });
+  it('split diagram (two trefoils side by side): the span bound for possibly split links meets the crossing count', () => {
+    const report = analyzeDiagram(closeBraid([1, 1, 1, 3, 3, 3], 4));
+    expect(report.connected).toBe(false);
+    expect(judge('crossing-number', '6', report).verdict).toBe('agrees');
+    expect(judge('crossing-number', '7', report).verdict).toBe('contradicts');
+  });
+  it('undecided when the bounds do not meet, giving both bounds and why', () => {
+    const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));
+    const { lower, upper } = report.crossingNumber;
+    expect(lower).toBeLessThan(upper);
+    const j = judge('crossing-number', `${lower + 1}`, report);
+    expect(j.verdict).toBe('undecided');
+    expect(j.reason).toContain(`between ${lower} and ${upper}`);
+    expect(j.reason).toMatch(/not alternating/);
+    expect(judge('crossing-number', `\\le ${upper}`, report).verdict).toBe('agrees');
+    expect(judge('crossing-number', `\\geq ${lower}`, report).verdict).toBe('agrees');
+    expect(judge('crossing-number', `\\le ${upper - 1}`, report).verdict).toBe('undecided');
+    expect(judge('crossing-number', `at least ${upper + 1}`, report).verdict).toBe('contradicts');
+    expect(judge('crossing-number', `${lower - 1}`, report).verdict).toBe('contradicts');
+  });
+  it('refuses a crossing-number claim it cannot read, pointing past the relation', () => {
+    try {
+      judge('crossing-number', '\\le x');
+      throw new Error('not refused');
+    } catch (e) {
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).span).toEqual({ start: 4, end: 5 });
+    }
+  });
+});

@@ -1,0 +1,110 @@
+import { describe, expect, it } from 'vitest';
+import { readNumber, readPolynomial } from '../../src/core/claims/latex-poly-parser.ts';
+import { InputError } from '../../src/core/errors.ts';
+import { Laurent } from '../../src/core/poly/laurent.ts';
+
+const inT = { variables: ['t'], what: 'the Jones polynomial' };
+const read = (text: string, variables: readonly string[] = ['t']) => readPolynomial(text, { variables });
+const poly = (...terms: [number, number][]) => Laurent.fromTerms(terms);
+
+/** The InputError thrown for `text`, or a failure when none is thrown. */
+function refusal(text: string, options = inT): InputError {
+  try {
+    readPolynomial(text, options);
+  } catch (e) {
+    if (e instanceof InputError) return e;
+    throw e;
+  }
+  throw new Error(`expected \`${text}\` to be refused`);
+}
+
+describe('reading polynomials as authors type them in LaTeX math (forms: common practice of the trade)', () => {
+  const cases: [string, Laurent, string?][] = [
+    // V(left trefoil), from memory.
+    ['-t^{-4}+t^{-3}+t^{-1}', poly([-4, -1], [-3, 1], [-1, 1])],
+    // V(figure-eight), from memory.
+    ['t^{-2} - t^{-1} + 1 - t + t^2', poly([-2, 1], [-1, -1], [0, 1], [1, -1], [2, 1])],
+    // V(positive Hopf link), from memory.
+    ['-t^{1/2}-t^{5/2}', poly([0.5, -1], [2.5, -1])],
+    ['-\\sqrt{t} - t^{\\frac{5}{2}}', poly([0.5, -1], [2.5, -1])],
+    ['t^{\\frac52}', poly([2.5, 1])],
+    ['t^\\frac52', poly([2.5, 1])],
+    ['2t^3', poly([3, 2])],
+    ['-(t^{1/2}+t^{-1/2})', poly([-0.5, -1], [0.5, -1])],
+    ['(1-t)^2 t^{-1}', poly([-1, 1], [0, -2], [1, 1])],
+    ['\\left( 1 - t \\right)^{2} \\cdot t^{-1}', poly([-1, 1], [0, -2], [1, 1])],
+    ['t^{-1/2}', poly([-0.5, 1])],
+    ['t^{-\\frac{1}{2}}', poly([-0.5, 1])],
+    ['\\sqrt{t}^{3}', poly([1.5, 1])],
+    ['\\frac{1}{\\sqrt{t}}', poly([-0.5, 1])],
+    ['t^2', poly([2, 1])],
+    ['t^{23}', poly([23, 1])],
+    ['\\, t \\; + \\! {} 1 \\quad', poly([0, 1], [1, 1])],
+    ['t\\cdot t \\times 3', poly([2, 3])],
+    ['{t}^{2}+{}t', poly([1, 1], [2, 1])],
+    ['\\frac{t^3 - 1}{t}', poly([-1, -1], [2, 1])],
+    ['t − t^{2}', poly([1, 1], [2, -1])], // U+2212 minus sign
+    ['0', Laurent.zero],
+  ];
+  for (const [text, expected] of cases) {
+    it(`reads ${text}`, () => {
+      expect(read(text).value.equals(expected)).toBe(true);
+    });
+  }
+  it('reads brackets in A: -A^{-5} - A^{3}+A^{7}', () => {
+    const r = read('-A^{-5} - A^{3}+A^{7}', ['A']);
+    expect(r.variable).toBe('A');
+    expect(r.value.equals(poly([-5, -1], [3, -1], [7, 1]))).toBe(true);
+  });
+  it('reads q-polynomials: q^{-1}+q^{-3}+q^{-5}-q^{-9}', () => {
+    const r = read('q^{-1}+q^{-3}+q^{-5}-q^{-9}', ['q']);
+    expect(r.variable).toBe('q');
+    expect(r.value.equals(poly([-9, -1], [-5, 1], [-3, 1], [-1, 1]))).toBe(true);
+  });
+  it('reports no variable for a constant', () => {
+    expect(read('1').variable).toBeUndefined();
+  });
+  it('reads numbers for degrees and spans', () => {
+    expect(readNumber('-\\frac{5}{2}', 'the degree')).toEqual({ p: -5, q: 2 });
+    expect(readNumber('7', 'the span')).toEqual({ p: 7, q: 1 });
+    expect(readNumber('5/2', 'the degree')).toEqual({ p: 5, q: 2 });
+  });
+});
+
+describe('refusing unreadable claims with a located, compiler-style message', () => {
+  const cases: [string, string, number, number, RegExp][] = [
+    ['unbalanced brace', 't^{2', 2, 3, /unbalanced braces.*never closed/],
+    ['unbalanced group', '{t + 1', 0, 1, /unbalanced braces/],
+    ['extra closing brace', 't + 1}', 5, 6, /closes no/],
+    ['stray \\frac', 't + \\frac', 4, 9, /stray `\\frac`/],
+    ['non-integer coefficient', '1.5t + 1', 0, 3, /decimal `1.5`/],
+    ['unknown variable', 'x^2 + 1', 0, 1, /unknown variable `x`.*written in t/],
+    ['division by a non-monomial', '\\frac{1}{1+t}', 8, 13, /division by a non-monomial/],
+    ['negative power of a sum', '(1+t)^{-1}', 0, 10, /negative power of a sum/],
+    ['a third-power exponent', 't^{1/3}', 0, 7, /not a multiple of 1\/2/],
+    ['a digit after an exponent', 't^23', 3, 4, /put a multi-digit exponent in braces/],
+    ['an unbraced negative exponent', 't^-1', 1, 3, /must be braced/],
+    ['an unknown command', 't + \\alpha', 4, 10, /unknown command `\\alpha`/],
+    ['a fractional coefficient', '\\frac{t}{2}', 8, 11, /leaves a fraction/],
+    ['a double superscript', 't^2^3', 3, 4, /double superscript/],
+    ['an empty value', '   ', 0, 3, /empty/],
+    ['two variables', 't + A', 4, 5, /unknown variable `A`/],
+  ];
+  for (const [name, text, start, end, message] of cases) {
+    it(`refuses ${name}: ${text}`, () => {
+      const e = refusal(text);
+      expect(e.ruleId).toBe('claim-unreadable');
+      expect(e.span).toEqual({ start, end });
+      expect(e.message).toMatch(message);
+    });
+  }
+  it('refuses mixing two admitted variables', () => {
+    const e = refusal('t + A', { variables: ['t', 'A'], what: 'the Jones polynomial' });
+    expect(e.message).toMatch(/mixes the variables `t` and `A`/);
+    expect(e.span).toEqual({ start: 4, end: 5 });
+  });
+  it('refuses half powers of A, whose exponents are integers (Kauffman 1987, from memory)', () => {
+    const e = refusal('A^{1/2}', { variables: ['A'], what: 'the Kauffman bracket' });
+    expect(e.message).toMatch(/not an integer/);
+  });
+});
