@@ -162,7 +162,7 @@ describe('DT code errors', () => {
     expect(e1.span).toEqual({ start, end: start + interlacing.split(' ')[Number(token) - 1]!.length });
     const turning = '6 8 10 12 2 4';
     const e2 = parseError(turning, 'dt');
-    expect(e2.message).toMatch(/curve would have to turn both ways/);
+    expect(e2.message).toMatch(/cross itself both ways round/);
     expect(e2.message).toMatch(/entry \d+ \("\d+": labels \d+ and \d+\)/);
   });
   it('refuses more entries than the realisation supports, as a located error', () => {

@@ -125,7 +125,7 @@ function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sig
     for (let b = a + 1; b < n; b++) {
       if (!((interlaced[a]![b >>> 5]! >>> (b & 31)) & 1) && commonIsOdd(a, b)) {
         throw codeError(
-          `No planar knot diagram has this DT code: the crossings of ${describe(a)} and ${describe(b)} are not interlaced but share an odd number of interlaced crossings, which no plane curve allows. Check these entries for a misprint.`,
+          `No planar knot diagram has this DT code: the crossings of ${describe(a)} and ${describe(b)} are not interlaced, yet an odd number of other crossings are interlaced with both (one crossing is interlaced with another when exactly one of its visits lies between the other's two labels); no plane curve does that. Check these entries for a misprint.`,
           tokens[b]!,
         );
       }
@@ -147,7 +147,7 @@ function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sig
         } else if (turn[b] !== wanted) {
           const [x, y] = a < b ? [a, b] : [b, a];
           throw codeError(
-            `No planar knot diagram has this DT code: around the crossings of ${describe(x)} and ${describe(y)} the curve would have to turn both ways. Check the entries for a misprint.`,
+            `No planar knot diagram has this DT code: at the crossings of ${describe(x)} and ${describe(y)} the crossings interlaced with them force the curve to cross itself both ways round at once (one crossing is interlaced with another when exactly one of its visits lies between the other's two labels). Check the entries for a misprint.`,
             tokens[y]!,
           );
         }
