@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { connectedPieces } from '../../src/core/diagram/faces.ts';
-import { componentCount, indexDiagram, isOverSlot, type LinkDiagram } from '../../src/core/diagram/model.ts';
+import { componentCount, indexDiagram, isOverSlot, mirrorDiagram, type LinkDiagram } from '../../src/core/diagram/model.ts';
 import {
   diagramProperties,
   isAlternatingDiagram,
@@ -218,6 +218,23 @@ describe('state circles and adequacy', () => {
       }
     }
     expect(checked).toBeGreaterThan(80);
+  });
+});
+
+describe('mirror images', () => {
+  it('switching every crossing swaps the all-A and all-B states and A-/B-adequacy, negates linking numbers, keeps nugatory crossings and alternation (common practice)', () => {
+    const random = rng(16);
+    for (let k = 0; k < 60; k++) {
+      const d = k % 2 === 0 ? randomReducedAlternating(random, 5 + (k % 17)) : randomDiagram(random, 20, 5);
+      const p = diagramProperties(d);
+      const m = diagramProperties(mirrorDiagram(d));
+      expect(m.stateCircles).toEqual({ a: p.stateCircles.b, b: p.stateCircles.a });
+      expect([m.aAdequate, m.bAdequate]).toEqual([p.bAdequate, p.aAdequate]);
+      expect(m.linking.map((l) => l.value)).toEqual(p.linking.map((l) => -l.value || 0));
+      expect(m.nugatory).toEqual(p.nugatory);
+      expect(m.alternating).toBe(p.alternating);
+      expect(m.writhe + p.writhe).toBe(0);
+    }
   });
 });
 
