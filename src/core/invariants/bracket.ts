@@ -263,14 +263,17 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     }
 
     // Phase 2: accumulate every contribution into its target.
-    const nextPolys: StatePoly[] = nextKeys.map((_, t) => {
+    // One zeroed slab for all targets: far cheaper than an allocation per limb.
+    let slabSize = 0;
+    for (let t = 0; t < nextKeys.length; t++) slabSize += ((tHi[t]! - tLo[t]!) / step + 1) * tLimbs[t]!;
+    const slab = new Float64Array(slabSize);
+    const nextPolys: StatePoly[] = new Array(nextKeys.length);
+    for (let t = 0, at = 0; t < nextKeys.length; t++) {
       const length = (tHi[t]! - tLo[t]!) / step + 1;
-      return {
-        lo: tLo[t]!,
-        limbs: Array.from({ length: tLimbs[t]! }, () => new Float64Array(length)),
-        bound: tBound[t]!,
-      };
-    });
+      const limbs: Float64Array[] = new Array(tLimbs[t]!);
+      for (let j = 0; j < limbs.length; j++, at += length) limbs[j] = slab.subarray(at, at + length);
+      nextPolys[t] = { lo: tLo[t]!, limbs, bound: tBound[t]! };
+    }
     for (let s = 0; s < stateCount; s++) {
       const source = polys[s]!;
       for (let smoothing = 0; smoothing < 2; smoothing++) {
