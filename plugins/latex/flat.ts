@@ -1,0 +1,55 @@
+/**
+ * The flat copy: the manuscript with every \input and \include spliced in,
+ * every fill-in replaced by its value and every piece of skeinproof markup
+ * replaced by plain LaTeX, so it compiles without the package. Bytes outside
+ * the replaced spans are copied as written.
+ */
+import type { Typeset } from '../../src/core/claims/api.ts';
+import type { LatexDocument, LatexFill, Splice } from './reader.ts';
+import type { SourceFile } from './source-file.ts';
+
+export function flatText(doc: LatexDocument, values: readonly (Typeset | undefined)[]): string {
+  return flatFile(doc, doc.main, values);
+}
+
+function flatFile(doc: LatexDocument, file: SourceFile, values: readonly (Typeset | undefined)[]): string {
+  const splices = [...(doc.splices.get(file) ?? [])].sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+  let out = '';
+  let at = 0;
+  for (const s of splices) {
+    if (s.span.start < at) continue; // inside a span already replaced
+    out += file.text.slice(at, s.span.start) + replacement(doc, file, s, values);
+    at = s.span.end;
+  }
+  return out + file.text.slice(at);
+}
+
+function replacement(doc: LatexDocument, file: SourceFile, s: Splice, values: readonly (Typeset | undefined)[]): string {
+  switch (s.kind) {
+    case 'text':
+      return s.text;
+    case 'include': {
+      let body = flatFile(doc, s.file, values);
+      // TeX ends every line, the last one too; without this a final comment would swallow what follows.
+      if (!body.endsWith('\n')) body += '\n';
+      return s.command === 'include' ? `\\clearpage\n${body}\\clearpage\n` : body;
+    }
+    case 'fill': {
+      const value = values[s.fill];
+      if (value === undefined) return file.text.slice(s.span.start, s.span.end);
+      return fillText(doc.fills[s.fill]!, value, file.text.slice(s.span.start, s.span.end));
+    }
+  }
+}
+
+function fillText(fill: LatexFill, value: Typeset, written: string): string {
+  const t = fill.target;
+  if (t.kind === 'macro') {
+    if (value.kind === 'math') return t.math ? value.latex : `$${value.latex}$`;
+    return t.math ? `\\mbox{${value.text}}` : value.text;
+  }
+  // An empty cell: the value goes after its first space; what followed (spaces, a comment) stays after it.
+  const inCell = value.kind === 'math' ? `$${value.latex}$` : value.text;
+  const rest = written.startsWith(' ') ? written.slice(1) : written;
+  return ` ${inCell}${rest === '' ? ' ' : rest}`;
+}

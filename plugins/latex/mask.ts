@@ -1,0 +1,105 @@
+/**
+ * The first pass over a LaTeX file: blanks out what TeX never reads as
+ * commands, keeping every offset and line break where it was.
+ *
+ * - A comment runs from an unescaped `%` to the end of its line (`\%` is a
+ *   percent sign, `\\%` a line break followed by a comment).
+ * - The bodies of verbatim environments and of `\verb` / `\lstinline` are
+ *   printed as typed, so nothing inside them is markup.
+ *
+ * Later passes scan the masked text, so a `\skeinjones` inside a comment or a
+ * verbatim listing is never mistaken for a fill-in.
+ */
+
+/** Environments whose bodies TeX reads verbatim. */
+export const VERBATIM_ENVIRONMENTS: ReadonlySet<string> = new Set([
+  'verbatim',
+  'verbatim*',
+  'Verbatim',
+  'Verbatim*',
+  'BVerbatim',
+  'LVerbatim',
+  'lstlisting',
+  'minted',
+  'comment',
+]);
+
+/** Inline verbatim commands: the argument is delimited by a repeated character (or braces for \lstinline). */
+const INLINE_VERBATIM: ReadonlySet<string> = new Set(['verb', 'lstinline']);
+
+/** Returns a text of the same length: comments and verbatim bodies replaced by spaces, line breaks kept. */
+export function maskLatex(source: string): string {
+  const out = source.split('');
+  const blank = (from: number, to: number): void => {
+    for (let k = from; k < to; k++) if (out[k] !== '\n' && out[k] !== '\r') out[k] = ' ';
+  };
+  let i = 0;
+  while (i < source.length) {
+    const ch = source[i]!;
+    if (ch === '%') {
+      const end = lineEnd(source, i);
+      blank(i, end);
+      i = end;
+      continue;
+    }
+    if (ch !== '\\') {
+      i++;
+      continue;
+    }
+    const name = controlWord(source, i + 1);
+    if (name === undefined) {
+      i += 2; // a control symbol such as \% or \\ : its character is not markup
+      continue;
+    }
+    const afterName = i + 1 + name.length;
+    if (INLINE_VERBATIM.has(name)) {
+      i = skipInlineVerbatim(source, afterName, blank);
+      continue;
+    }
+    if (name === 'begin') {
+      const env = /^\s*\{([A-Za-z*]+)\}/.exec(source.slice(afterName, afterName + 64));
+      if (env && VERBATIM_ENVIRONMENTS.has(env[1]!)) {
+        const bodyStart = afterName + env[0].length;
+        const closing = `\\end{${env[1]}}`;
+        const close = source.indexOf(closing, bodyStart);
+        const bodyEnd = close < 0 ? source.length : close;
+        blank(bodyStart, bodyEnd);
+        i = close < 0 ? source.length : close + closing.length;
+        continue;
+      }
+    }
+    i = afterName;
+  }
+  return out.join('');
+}
+
+/** The letters of a control word starting at `at`, or undefined for a control symbol. */
+export function controlWord(text: string, at: number): string | undefined {
+  let k = at;
+  while (k < text.length && isLetter(text.charCodeAt(k))) k++;
+  return k === at ? undefined : text.slice(at, k);
+}
+
+function isLetter(code: number): boolean {
+  return (code >= 65 && code <= 90) || (code >= 97 && code <= 122);
+}
+
+function lineEnd(text: string, from: number): number {
+  const nl = text.indexOf('\n', from);
+  const end = nl < 0 ? text.length : nl;
+  return end > from && text[end - 1] === '\r' ? end - 1 : end;
+}
+
+function skipInlineVerbatim(text: string, at: number, blank: (from: number, to: number) => void): number {
+  let k = at;
+  if (text[k] === '*') k++;
+  const open = text[k];
+  if (open === undefined || open === '\n') return k;
+  const close = open === '{' ? '}' : open;
+  const end = text.indexOf(close, k + 1);
+  const line = lineEnd(text, k + 1);
+  // TeX stops \verb at the end of the line; an unterminated one is TeX's error to report.
+  const stop = end < 0 || end > line ? line : end + 1;
+  blank(k, stop);
+  return stop;
+}

@@ -1,0 +1,444 @@
+/**
+ * Reads a LaTeX manuscript and the files it \input s or \include s into the
+ * entries the manuscript pass checks (diagrams, claims, fill-ins), the
+ * document's convention settings, located problems with the markup, and the
+ * splices that turn each file into its flat copy.
+ *
+ * File access goes through `LatexFileSystem`, so the reader itself never
+ * touches the disk and tests can hand it files from memory.
+ */
+import { dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
+import type { Notation } from '../../src/core/diagram/model.ts';
+import type { Convention } from '../../src/core/convention/convention.ts';
+import { readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
+import type { Diagnostic, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
+import { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
+import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
+import { NOTATIONS } from '../../src/core/notation/index.ts';
+import { readKeyValues, splitTopLevel, trim, slice } from './key-values.ts';
+import { maskLatex } from './mask.ts';
+import { scanLatex, type Arg, type ScanItem, type Span } from './scanner.ts';
+import { SourceFile } from './source-file.ts';
+import { splitTabular } from './tabular.ts';
+
+export interface LatexFileSystem {
+  /** The text of the file, or undefined when there is none. */
+  read(absolutePath: string): string | undefined;
+  /** The path with symbolic links resolved; identity when not given. */
+  realpath?(absolutePath: string): string;
+}
+
+/** Where a fill-in's value goes: a macro of a named diagram, or an empty cell of a skein table. */
+export type FillTarget =
+  | { readonly kind: 'macro'; readonly id: string; readonly key: FillKey; readonly math: boolean }
+  | { readonly kind: 'cell'; readonly table: number; readonly row: number; readonly column: number; readonly raw: Arg };
+
+export interface LatexFill {
+  readonly entry: FillEntry;
+  readonly target: FillTarget;
+}
+
+/** A replacement in one file for the flat copy. */
+export type Splice =
+  | { readonly kind: 'text'; readonly span: Span; readonly text: string }
+  | { readonly kind: 'fill'; readonly span: Span; readonly fill: number }
+  | { readonly kind: 'include'; readonly span: Span; readonly file: SourceFile; readonly command: 'input' | 'include' };
+
+export interface LatexDocument {
+  readonly main: SourceFile;
+  /** Every file read, the manuscript first. */
+  readonly files: readonly SourceFile[];
+  readonly diagrams: readonly DiagramEntry[];
+  readonly claims: readonly ClaimEntry[];
+  readonly fills: readonly LatexFill[];
+  /** What \skeinconvention declares. */
+  readonly convention: Partial<Convention>;
+  /** Problems with the markup itself, located in the file where they are. */
+  readonly diagnostics: readonly Diagnostic[];
+  readonly splices: ReadonlyMap<SourceFile, readonly Splice[]>;
+}
+
+/** Keys of \begin{skeincode}{…} besides the claim keys. */
+const CODE_KEYS = ['id', 'notation', 'strands'] as const;
+const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
+/** Characters a diagram code may contain that plain LaTeX would not print as typed. */
+const SPECIAL_IN_CODE = /[\^_&#$~]/g;
+
+export function readLatexManuscript(mainPath: string, fs: LatexFileSystem): LatexDocument {
+  return new ManuscriptReader(mainPath, fs).read();
+}
+
+class ManuscriptReader {
+  private readonly root: string;
+  private readonly files: SourceFile[] = [];
+  private readonly diagrams: DiagramEntry[] = [];
+  private readonly claims: ClaimEntry[] = [];
+  private readonly fills: LatexFill[] = [];
+  private readonly diagnostics: Diagnostic[] = [];
+  private readonly splices = new Map<SourceFile, Splice[]>();
+  private convention: Partial<Convention> = {};
+  private conventionAt: SourceFile | undefined;
+  private tables = 0;
+
+  constructor(
+    private readonly mainPath: string,
+    private readonly fs: LatexFileSystem,
+  ) {
+    this.root = dirname(this.real(resolve(mainPath)));
+  }
+
+  read(): LatexDocument {
+    const absolute = resolve(this.mainPath);
+    const text = this.fs.read(absolute);
+    const main = new SourceFile(this.mainPath, absolute, text ?? '');
+    if (text === undefined) {
+      this.error(main, { start: 0, end: 0 }, 'file-unreadable', `cannot read ${this.mainPath}: the file does not exist`);
+    } else {
+      this.visit(main, [absolute]);
+    }
+    return {
+      main,
+      files: this.files,
+      diagrams: this.diagrams,
+      claims: this.claims,
+      fills: this.fills,
+      convention: this.convention,
+      diagnostics: this.diagnostics,
+      splices: this.splices,
+    };
+  }
+
+  private real(path: string): string {
+    return this.fs.realpath ? this.fs.realpath(path) : path;
+  }
+
+  private visit(file: SourceFile, open: readonly string[]): void {
+    this.files.push(file);
+    const splices: Splice[] = [];
+    this.splices.set(file, splices);
+    const scan = scanLatex(maskLatex(file.text));
+    for (const p of scan.problems) this.error(file, p.span, p.ruleId, p.message);
+    for (const item of scan.items) this.item(file, item, splices, open);
+  }
+
+  private item(file: SourceFile, item: ScanItem, splices: Splice[], open: readonly string[]): void {
+    switch (item.kind) {
+      case 'code':
+        return this.code(file, item, splices);
+      case 'fill':
+        return this.fill(file, item, splices);
+      case 'claim':
+        return this.claim(file, item, splices);
+      case 'convention':
+        return this.conventionSettings(file, item, splices);
+      case 'input':
+        return this.input(file, item, splices, open);
+      case 'package':
+        return this.usePackage(item, splices);
+      case 'table':
+        return this.table(file, item, splices);
+    }
+  }
+
+  private code(file: SourceFile, item: Extract<ScanItem, { kind: 'code' }>, splices: Splice[]): void {
+    const options = this.keyValues(file, item.options, [...CODE_KEYS, ...CLAIM_KEYS], '\\begin{skeincode}');
+    const id = this.validId(file, options.get('id'), item.beginSpan, '\\begin{skeincode}{…}', 'id=trefoil');
+    const notation = this.validNotation(file, options.get('notation'), item.beginSpan);
+    const strands = this.validStrands(file, options.get('strands'));
+    splices.push({ kind: 'text', span: item.beginSpan, text: '\\begin{flushleft}\\ttfamily' });
+    for (const m of item.body.text.matchAll(SPECIAL_IN_CODE)) {
+      const at = item.body.start + m.index;
+      splices.push({ kind: 'text', span: { start: at, end: at + 1 }, text: `\\string${m[0]}` });
+    }
+    splices.push({ kind: 'text', span: item.endSpan, text: '\\end{flushleft}' });
+    if (id === undefined || notation === undefined || strands === null) return;
+    const code = trim(item.body);
+    const idValue = options.get('id')!;
+    this.diagrams.push({
+      id,
+      notation,
+      code: code.text,
+      ...(strands !== undefined ? { strands } : {}),
+      locateCode: locatorFor(file, code),
+      locateHeader: locatorFor(file, idValue),
+    });
+    for (const [key, value] of options) {
+      if (!isClaimKey(key) || value === undefined) continue;
+      this.addClaim(file, id, key, value, undefined);
+    }
+  }
+
+  private fill(file: SourceFile, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[]): void {
+    const id = this.validId(file, trim(item.id), item.span, `\\${item.macro}`, `\\${item.macro}{trefoil}`);
+    let key: FillKey | undefined;
+    if (typeof item.key === 'string') key = item.key as FillKey;
+    else {
+      const written = trim(item.key);
+      if (isFillKey(written.text)) key = written.text;
+      else {
+        this.error(
+          file,
+          written,
+          'latex-key-unknown',
+          `\`${written.text}\` is not a value skeinproof can fill in: write one of ${FILL_KEYS.join(', ')}`,
+        );
+      }
+    }
+    if (id === undefined || key === undefined) return;
+    splices.push({ kind: 'fill', span: item.span, fill: this.fills.length });
+    this.fills.push({ entry: { target: id, key, locate: locatorFor(file, item.span) }, target: { kind: 'macro', id, key, math: item.math } });
+  }
+
+  private claim(file: SourceFile, item: Extract<ScanItem, { kind: 'claim' }>, splices: Splice[]): void {
+    splices.push({ kind: 'text', span: item.span, text: file.text.slice(item.value.start, item.value.end) });
+    const id = this.validId(file, trim(item.id), item.span, '\\skeinclaim', '\\skeinclaim{trefoil}{jones}{…}');
+    const key = trim(item.key);
+    if (!isClaimKey(key.text)) {
+      this.error(file, key, 'latex-key-unknown', `\`${key.text}\` is not a claim skeinproof can check: write one of ${CLAIM_KEYS.join(', ')}`);
+      return;
+    }
+    if (id !== undefined) this.addClaim(file, id, key.text, item.value, undefined);
+  }
+
+  private addClaim(file: SourceFile, target: string, key: ClaimKey, value: Arg, context: string | undefined): void {
+    const text = withoutMathDelimiters(value);
+    this.claims.push({ target, key, text: text.text, locate: locatorFor(file, text), ...(context !== undefined ? { context } : {}) });
+  }
+
+  private conventionSettings(file: SourceFile, item: Extract<ScanItem, { kind: 'convention' }>, splices: Splice[]): void {
+    splices.push({ kind: 'text', span: item.span, text: '' });
+    if (this.conventionAt) {
+      this.error(
+        file,
+        item.span,
+        'latex-convention-twice',
+        `the convention is already declared in ${this.conventionAt.displayPath}: declare it once, with every setting in one \\skeinconvention{…}`,
+      );
+      return;
+    }
+    this.conventionAt = file;
+    const record: Record<string, string> = {};
+    const spans: Record<string, SettingSpans> = {};
+    for (const kv of readKeyValues(item.settings)) {
+      if (kv.value === undefined) {
+        this.error(file, kv.keySpan, 'convention-invalid', `convention setting \`${kv.key}\` has no value: write it as key=value, e.g. jones=q`);
+        continue;
+      }
+      record[kv.key] = kv.value.text;
+      spans[kv.key] = { key: kv.keySpan, value: kv.value };
+    }
+    const read = readConventionSettings(record, spans);
+    if (read.ok) this.convention = read.settings;
+    else for (const e of read.errors) this.error(file, e.span ?? item.span, e.ruleId, e.message);
+  }
+
+  private input(file: SourceFile, item: Extract<ScanItem, { kind: 'input' }>, splices: Splice[], open: readonly string[]): void {
+    const written = trim(item.path).text;
+    const command = `\\${item.command}{${written}}`;
+    // TeX looks for name.tex first; \include always appends .tex.
+    const name = item.command === 'include' || extname(written) === '' ? `${written}.tex` : written;
+    const absolute = resolve(dirname(file.absolutePath), name);
+    const inside = relative(this.root, this.real(absolute));
+    if (isAbsolute(written) || inside.startsWith('..') || isAbsolute(inside)) {
+      this.error(
+        file,
+        item.path,
+        'latex-input-outside',
+        `${command} reads a file outside the paper's directory ${this.root}: skeinproof only follows files inside it; move the file there and name it by a relative path`,
+      );
+      return;
+    }
+    if (open.includes(absolute)) {
+      this.error(file, item.path, 'latex-input-cycle', `${command} includes a file that is already being read (${name}): remove the circular \\${item.command}`);
+      return;
+    }
+    const text = this.fs.read(absolute);
+    if (text === undefined) {
+      this.error(file, item.path, 'latex-input-missing', `${command}: there is no file ${name} in ${dirname(absolute)}; correct the name or add the file`);
+      return;
+    }
+    const included = new SourceFile(join(dirname(file.displayPath), name), absolute, text);
+    splices.push({ kind: 'include', span: item.span, file: included, command: item.command });
+    this.visit(included, [...open, absolute]);
+  }
+
+  private usePackage(item: Extract<ScanItem, { kind: 'package' }>, splices: Splice[]): void {
+    const others = item.list.text
+      .split(',')
+      .map((p) => p.trim())
+      .filter((p) => p !== '' && p !== 'skeinproof');
+    if (others.length === 0) splices.push({ kind: 'text', span: item.span, text: '' });
+    else splices.push({ kind: 'text', span: item.list, text: others.join(',') });
+  }
+
+  private table(file: SourceFile, item: Extract<ScanItem, { kind: 'table' }>, splices: Splice[]): void {
+    const table = ++this.tables;
+    splices.push({ kind: 'text', span: item.beginSpan, text: '' });
+    splices.push({ kind: 'text', span: item.endSpan, text: '' });
+    const head = this.tableHead(file, item.options);
+    const columns = splitTopLevel(item.columns, ',').map(trim);
+    const idColumns = columns.flatMap((c, i) => (c.text === 'id' ? [i + 1] : []));
+    let valid = idColumns.length === 1;
+    if (idColumns.length !== 1) {
+      this.error(
+        file,
+        item.columns,
+        'latex-table-malformed',
+        `a skein table needs exactly one \`id\` column (it has ${idColumns.length}): name the column holding the diagram ids \`id\``,
+      );
+    }
+    for (const c of columns) {
+      if (c.text === 'id' || c.text === '-' || isClaimKey(c.text) || isFillKey(c.text)) continue;
+      valid = false;
+      this.error(
+        file,
+        c,
+        'latex-key-unknown',
+        `\`${c.text}\` is not a column skeinproof knows: write \`id\`, \`-\` for a free column, or one of ${[...new Set([...CLAIM_KEYS, ...FILL_KEYS])].join(', ')}`,
+      );
+    }
+    if (!valid) return;
+    const idColumn = idColumns[0]!;
+    for (const row of splitTabular(item.body)) {
+      if (row.number <= head) continue;
+      if (row.cells.every((c) => c.content.text === '')) continue;
+      const place = `skein table ${table}, row ${row.number}`;
+      const multi = row.cells.find((c) => c.content.text.includes('\\multicolumn'));
+      if (multi) {
+        this.error(file, multi.content, 'latex-table-malformed', `${place}: a skein table cannot hold \\multicolumn; give every column its own cell`);
+        continue;
+      }
+      if (row.cells.length < columns.length) {
+        const last = row.cells[row.cells.length - 1]!;
+        this.error(
+          file,
+          last.raw,
+          'latex-table-malformed',
+          `${place} has ${row.cells.length} cell${row.cells.length === 1 ? '' : 's'} but the table names ${columns.length} columns: add the missing \`&\` separators (an empty cell is filled in)`,
+        );
+        continue;
+      }
+      const idCell = row.cells[idColumn - 1]!.content;
+      if (idCell.text === '') {
+        this.error(file, row.cells[idColumn - 1]!.raw, 'latex-id-missing', `${place} names no diagram: write its id in column ${idColumn}`);
+        continue;
+      }
+      const id = this.validId(file, idCell, idCell, place, 'trefoil');
+      if (id === undefined) continue;
+      columns.forEach((column, i) => {
+        const key = column.text;
+        if (key === 'id' || key === '-') return;
+        const cell = row.cells[i]!;
+        const context = `${place}, column ${i + 1}`;
+        if (cell.content.text === '') {
+          if (!isFillKey(key)) {
+            this.error(file, cell.raw, 'latex-cell-empty', `${context} is empty, but skeinproof does not typeset \`${key}\`: write the value to have it checked`);
+            return;
+          }
+          this.fills.push({
+            entry: { target: id, key, locate: locatorFor(file, cell.raw), context },
+            target: { kind: 'cell', table, row: row.number, column: i + 1, raw: cell.raw },
+          });
+          splices.push({ kind: 'fill', span: cell.raw, fill: this.fills.length - 1 });
+          return;
+        }
+        if (!isClaimKey(key)) {
+          this.error(file, cell.content, 'latex-cell-filled', `${context}: the \`${key}\` column is filled in by skeinproof; leave its cells empty`);
+          return;
+        }
+        this.addClaim(file, id, key, cell.content, context);
+      });
+    }
+  }
+
+  private tableHead(file: SourceFile, options: Arg | undefined): number {
+    if (!options) return 1;
+    let head = 1;
+    for (const kv of readKeyValues(options)) {
+      if (kv.key !== 'head') {
+        this.error(file, kv.keySpan, 'latex-key-unknown', `\`${kv.key}\` is not an option of skeintable: the only option is head=N, the number of header rows`);
+        continue;
+      }
+      if (kv.value === undefined || !/^\d+$/.test(kv.value.text)) {
+        this.error(file, kv.value ?? kv.keySpan, 'latex-option-invalid', 'head must be a whole number of header rows, e.g. head=1');
+        continue;
+      }
+      head = Number(kv.value.text);
+    }
+    return head;
+  }
+
+  /** Reads key=value options, reporting unknown and repeated keys. */
+  private keyValues(file: SourceFile, list: Arg, known: readonly string[], where: string): Map<string, Arg | undefined> {
+    const result = new Map<string, Arg | undefined>();
+    for (const kv of readKeyValues(list)) {
+      if (!known.includes(kv.key)) {
+        this.error(file, kv.keySpan, 'latex-key-unknown', `\`${kv.key}\` is not a key of ${where}: the keys are ${known.join(', ')}`);
+        continue;
+      }
+      if (result.has(kv.key)) {
+        this.error(file, kv.keySpan, 'latex-key-repeated', `\`${kv.key}\` is given twice in ${where}: keep one`);
+        continue;
+      }
+      if (kv.value === undefined || kv.value.text === '') {
+        this.error(file, kv.keySpan, 'latex-option-invalid', `\`${kv.key}\` in ${where} has no value: write ${kv.key}=…`);
+        continue;
+      }
+      result.set(kv.key, kv.value);
+    }
+    return result;
+  }
+
+  private validId(file: SourceFile, id: Arg | undefined, at: Span, where: string, example: string): string | undefined {
+    if (id === undefined || id.text === '') {
+      this.error(file, at, 'latex-id-missing', `${where} names no diagram: give it an id, e.g. ${example}`);
+      return undefined;
+    }
+    if (!ID_PATTERN.test(id.text)) {
+      this.error(
+        file,
+        id,
+        'latex-id-invalid',
+        `\`${id.text}\` cannot be a diagram id: ids are letters, digits and the characters _ . : + - (starting with a letter or digit)`,
+      );
+      return undefined;
+    }
+    return id.text;
+  }
+
+  private validNotation(file: SourceFile, value: Arg | undefined, at: Span): Notation | undefined {
+    if (value === undefined) {
+      this.error(file, at, 'latex-notation-missing', `\\begin{skeincode}{…} does not say how the code is written: add notation=${NOTATIONS.join('|')}`);
+      return undefined;
+    }
+    const notation = NOTATIONS.find((n) => n === value.text.toLowerCase());
+    if (!notation) this.error(file, value, 'latex-notation-unknown', `\`${value.text}\` is not a notation: write one of ${NOTATIONS.join(', ')}`);
+    return notation;
+  }
+
+  /** The strand count, undefined when absent, null when invalid (already reported). */
+  private validStrands(file: SourceFile, value: Arg | undefined): number | undefined | null {
+    if (value === undefined) return undefined;
+    if (/^\d+$/.test(value.text) && Number(value.text) >= 1) return Number(value.text);
+    this.error(file, value, 'latex-option-invalid', `strands must be a positive whole number (the braid's strand count), not \`${value.text}\``);
+    return null;
+  }
+
+  private error(file: SourceFile, span: Span, ruleId: string, message: string): void {
+    this.diagnostics.push({ severity: 'error', ruleId, message, location: file.location(span.start, span.end) });
+  }
+}
+
+/** A locator for spans of `arg`'s text, in its file. */
+function locatorFor(file: SourceFile, arg: Span): Locator {
+  return (span?: TextSpan) => (span ? file.location(arg.start + span.start, arg.start + span.end) : file.location(arg.start, arg.end));
+}
+
+/** `$…$` or `\(…\)` around a claimed value are typesetting, not part of the value. */
+function withoutMathDelimiters(value: Arg): Arg {
+  const v = trim(value);
+  if (/^\$[^$]/.test(v.text) && /[^$]\$$/.test(v.text)) return trim(slice(v, 1, v.text.length - 1));
+  if (v.text.startsWith('\\(') && v.text.endsWith('\\)')) return trim(slice(v, 2, v.text.length - 2));
+  return v;
+}

@@ -1,0 +1,397 @@
+/**
+ * The second pass over one LaTeX file (after ./mask.ts blanked comments and
+ * verbatim bodies): finds skeinproof's markup, \input/\include and
+ * \usepackage{skeinproof}, with exact offsets, and knows at each fill-in
+ * whether TeX is in math mode there (the flat copy needs it).
+ *
+ * Math mode is tracked the way TeX switches it: `$…$`, `$$…$$`, `\(…\)`,
+ * `\[…\]`, the display environments, and text inside math through \text,
+ * \mbox and their relatives.
+ */
+import { controlWord } from './mask.ts';
+
+/** A braced or bracketed argument: `text` is its inside (masked), `start`/`end` the inside's offsets. */
+export interface Arg {
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
+}
+
+export interface Span {
+  readonly start: number;
+  readonly end: number;
+}
+
+/** Fill-in shortcuts and the key each one stands for. */
+export const FILL_SHORTCUTS: Readonly<Record<string, string>> = {
+  skeinjones: 'jones',
+  skeinbracket: 'bracket',
+  skeinspan: 'span',
+  skeinwrithe: 'writhe',
+  skeinstatement: 'statement',
+};
+
+export type ScanItem =
+  | { readonly kind: 'code'; readonly span: Span; readonly beginSpan: Span; readonly endSpan: Span; readonly options: Arg; readonly body: Arg }
+  | { readonly kind: 'fill'; readonly span: Span; readonly macro: string; readonly id: Arg; readonly key: Arg | string; readonly math: boolean }
+  | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg }
+  | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
+  | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg }
+  | { readonly kind: 'package'; readonly span: Span; readonly list: Arg }
+  | {
+      readonly kind: 'table';
+      readonly beginSpan: Span;
+      readonly endSpan: Span;
+      readonly options: Arg | undefined;
+      readonly columns: Arg;
+      /** Between `\begin{tabular}{…}` and `\end{tabular}`. */
+      readonly body: Arg;
+    };
+
+export interface ScanProblem {
+  readonly ruleId: string;
+  readonly message: string;
+  readonly span: Span;
+  readonly hints?: readonly string[];
+}
+
+export interface ScanResult {
+  readonly items: readonly ScanItem[];
+  readonly problems: readonly ScanProblem[];
+}
+
+const MATH_ENVIRONMENTS: ReadonlySet<string> = new Set(
+  ['equation', 'align', 'gather', 'multline', 'flalign', 'alignat', 'eqnarray', 'displaymath', 'math'].flatMap((n) => [n, `${n}*`]),
+);
+
+/** Commands whose braced argument is text even inside math. */
+const TEXT_IN_MATH: ReadonlySet<string> = new Set([
+  'text', 'mbox', 'hbox', 'fbox', 'textrm', 'textit', 'textbf', 'textsf', 'texttt', 'textup', 'textsl', 'textnormal', 'intertext', 'shortintertext',
+]);
+
+/** What closes the innermost open group or mode. */
+type Closer = '}' | '$' | '$$' | '\\)' | '\\]' | `env:${string}`;
+
+interface Frame {
+  readonly math: boolean;
+  readonly closer: Closer;
+}
+
+export function scanLatex(text: string): ScanResult {
+  return new Scanner(text).run();
+}
+
+class Scanner {
+  private readonly items: ScanItem[] = [];
+  private readonly problems: ScanProblem[] = [];
+  private readonly stack: Frame[] = [];
+  private pendingText = false;
+  private pos = 0;
+
+  constructor(private readonly text: string) {}
+
+  run(): ScanResult {
+    const t = this.text;
+    while (this.pos < t.length) {
+      const ch = t[this.pos]!;
+      if (ch === '\\') this.command();
+      else if (ch === '$') this.dollar();
+      else if (ch === '{') {
+        this.stack.push({ math: this.pendingText ? false : this.inMath(), closer: '}' });
+        this.pendingText = false;
+        this.pos++;
+      } else if (ch === '}') {
+        if (this.top()?.closer === '}') this.stack.pop();
+        this.pos++;
+      } else {
+        if (!/\s/.test(ch)) this.pendingText = false;
+        this.pos++;
+      }
+    }
+    return { items: this.items, problems: this.problems };
+  }
+
+  private inMath(): boolean {
+    return this.top()?.math ?? false;
+  }
+
+  private top(): Frame | undefined {
+    return this.stack[this.stack.length - 1];
+  }
+
+  private toggle(closer: Closer): void {
+    if (this.top()?.closer === closer) this.stack.pop();
+    else this.stack.push({ math: true, closer });
+  }
+
+  private dollar(): void {
+    if (this.text[this.pos + 1] === '$') {
+      this.toggle('$$');
+      this.pos += 2;
+    } else {
+      this.toggle('$');
+      this.pos++;
+    }
+  }
+
+  private command(): void {
+    const start = this.pos;
+    const name = controlWord(this.text, start + 1);
+    if (name === undefined) {
+      const symbol = this.text[start + 1];
+      if (symbol === '(' || symbol === '[') this.stack.push({ math: true, closer: symbol === '(' ? '\\)' : '\\]' });
+      else if ((symbol === ')' || symbol === ']') && this.top()?.closer === `\\${symbol}`) this.stack.pop();
+      this.pos = start + 2;
+      return;
+    }
+    this.pos = start + 1 + name.length;
+    if (this.inMath() && TEXT_IN_MATH.has(name)) {
+      this.pendingText = true;
+      return;
+    }
+    this.pendingText = false;
+    switch (name) {
+      case 'begin':
+        return this.begin(start);
+      case 'end':
+        return this.end(start);
+      case 'input':
+      case 'include':
+        return this.input(start, name);
+      case 'usepackage':
+      case 'RequirePackage':
+        return this.usePackage(start);
+      case 'skeinconvention':
+        return this.convention(start);
+      case 'skeinvalue':
+        return this.fill(start, name, undefined);
+      case 'skeinclaim':
+        return this.claim(start);
+      default:
+        if (name in FILL_SHORTCUTS) this.fill(start, name, FILL_SHORTCUTS[name]!);
+    }
+  }
+
+  private begin(start: number): void {
+    const env = this.group(this.pos);
+    if (!env) return;
+    this.pos = env.next;
+    const name = env.arg.text.trim();
+    if (name === 'skeincode') return this.codeEnvironment(start);
+    if (name === 'skeintable') return this.tableEnvironment(start);
+    if (MATH_ENVIRONMENTS.has(name)) this.stack.push({ math: true, closer: `env:${name}` });
+  }
+
+  private end(start: number): void {
+    const env = this.group(this.pos);
+    if (!env) return;
+    this.pos = env.next;
+    const name = env.arg.text.trim();
+    if (this.top()?.closer === `env:${name}`) this.stack.pop();
+    else if (name === 'skeincode' || name === 'skeintable') {
+      this.problem('latex-environment-unopened', `\\end{${name}} closes no \\begin{${name}}: remove it, or add the \\begin{${name}}{…} it belongs to`, { start, end: env.next });
+    }
+  }
+
+  private codeEnvironment(start: number): void {
+    const options = this.group(this.pos);
+    if (!options) {
+      this.problem(
+        'latex-argument-missing',
+        '\\begin{skeincode} needs its options in braces right after it, e.g. \\begin{skeincode}{id=trefoil, notation=braid}',
+        { start, end: this.pos },
+      );
+      return;
+    }
+    const closing = '\\end{skeincode}';
+    const close = this.text.indexOf(closing, options.next);
+    if (close < 0) {
+      this.problem('latex-environment-unclosed', '\\begin{skeincode} is never closed: add \\end{skeincode} after the code', { start, end: options.next });
+      this.pos = options.next;
+      return;
+    }
+    const endSpan = { start: close, end: close + closing.length };
+    this.items.push({
+      kind: 'code',
+      span: { start, end: endSpan.end },
+      beginSpan: { start, end: options.next },
+      endSpan,
+      options: options.arg,
+      body: { text: this.text.slice(options.next, close), start: options.next, end: close },
+    });
+    this.pos = endSpan.end;
+  }
+
+  private tableEnvironment(start: number): void {
+    const options = this.bracket(this.pos);
+    const after = options ? options.next : this.pos;
+    const columns = this.group(after);
+    if (!columns) {
+      this.problem(
+        'latex-argument-missing',
+        '\\begin{skeintable} needs its column keys in braces, e.g. \\begin{skeintable}{id, jones, crossing-number}',
+        { start, end: after },
+      );
+      this.pos = after;
+      return;
+    }
+    const beginSpan = { start, end: columns.next };
+    this.pos = columns.next;
+    const tabular = /^\s*\\begin\s*\{(tabular\*?)\}/.exec(this.text.slice(columns.next, columns.next + 400));
+    if (!tabular) {
+      this.problem('latex-table-malformed', 'a skein table must hold a tabular: put \\begin{tabular}{…} right after \\begin{skeintable}{…}', beginSpan);
+      return;
+    }
+    let at = columns.next + tabular[0].length;
+    if (tabular[1] === 'tabular*') at = this.group(at)?.next ?? at;
+    at = this.bracket(at)?.next ?? at;
+    const spec = this.group(at);
+    if (!spec) {
+      this.problem('latex-table-malformed', `\\begin{${tabular[1]}} needs its column specification in braces`, { start: columns.next, end: at });
+      return;
+    }
+    const bodyEnd = this.matchingEnd(spec.next, tabular[1]!);
+    const closing = bodyEnd === undefined ? null : /^\s*\\end\s*\{skeintable\}/.exec(this.text.slice(bodyEnd.end, bodyEnd.end + 400));
+    if (bodyEnd === undefined || !closing) {
+      this.problem(
+        'latex-environment-unclosed',
+        bodyEnd === undefined
+          ? `the tabular of this skein table is never closed: add \\end{${tabular[1]}} and then \\end{skeintable}`
+          : 'this skein table is never closed: put \\end{skeintable} right after \\end{tabular}',
+        beginSpan,
+      );
+      return;
+    }
+    const endStart = bodyEnd.end + closing[0].indexOf('\\');
+    this.items.push({
+      kind: 'table',
+      beginSpan,
+      endSpan: { start: endStart, end: bodyEnd.end + closing[0].length },
+      options: options?.arg,
+      columns: columns.arg,
+      body: { text: this.text.slice(spec.next, bodyEnd.start), start: spec.next, end: bodyEnd.start },
+    });
+    // The cells are scanned as ordinary text too, so fill-ins in free columns are found.
+    this.pos = spec.next;
+  }
+
+  /** The `\end{name}` matching an already opened `\begin{name}`, counting nested ones. */
+  private matchingEnd(from: number, name: string): Span | undefined {
+    const pattern = /\\(begin|end)\s*\{([^}]*)\}/g;
+    pattern.lastIndex = from;
+    let depth = 1;
+    for (let m = pattern.exec(this.text); m; m = pattern.exec(this.text)) {
+      if (m[2]!.trim() !== name) continue;
+      depth += m[1] === 'begin' ? 1 : -1;
+      if (depth === 0) return { start: m.index, end: m.index + m[0].length };
+    }
+    return undefined;
+  }
+
+  private input(start: number, command: 'input' | 'include'): void {
+    const braced = this.group(this.pos);
+    if (braced) {
+      this.items.push({ kind: 'input', span: { start, end: braced.next }, command, path: braced.arg });
+      this.pos = braced.next;
+      return;
+    }
+    // \input also takes a bare file name ending at a space or the end of the line.
+    const bare = command === 'input' ? /^[ \t]*([^\s{}\\%]+)/.exec(this.text.slice(this.pos, this.pos + 1000)) : null;
+    if (!bare) {
+      this.problem('latex-argument-missing', `\\${command} needs a file name, e.g. \\${command}{sections/examples}`, { start, end: this.pos });
+      return;
+    }
+    const pathStart = this.pos + bare[0].length - bare[1]!.length;
+    const end = this.pos + bare[0].length;
+    this.items.push({ kind: 'input', span: { start, end }, command, path: { text: bare[1]!, start: pathStart, end } });
+    this.pos = end;
+  }
+
+  private usePackage(start: number): void {
+    const options = this.bracket(this.pos);
+    const list = this.group(options ? options.next : this.pos);
+    if (!list) return;
+    this.pos = list.next;
+    if (list.arg.text.split(',').some((p) => p.trim() === 'skeinproof')) {
+      this.items.push({ kind: 'package', span: { start, end: list.next }, list: list.arg });
+    }
+  }
+
+  private convention(start: number): void {
+    const settings = this.requiredGroups(start, '\\skeinconvention', ['settings'], 'e.g. \\skeinconvention{jones=q, order=descending}');
+    if (settings) this.items.push({ kind: 'convention', span: { start, end: this.pos }, settings: settings[0]! });
+  }
+
+  private fill(start: number, macro: string, fixedKey: string | undefined): void {
+    const math = this.inMath();
+    if (fixedKey !== undefined) {
+      const args = this.requiredGroups(start, `\\${macro}`, ['diagram id'], `e.g. \\${macro}{trefoil}`);
+      if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: fixedKey, math });
+      return;
+    }
+    const args = this.requiredGroups(start, `\\${macro}`, ['diagram id', 'key'], `e.g. \\${macro}{trefoil}{jones}`);
+    if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: args[1]!, math });
+  }
+
+  private claim(start: number): void {
+    const args = this.requiredGroups(start, '\\skeinclaim', ['diagram id', 'key', 'value'], 'e.g. \\skeinclaim{trefoil}{jones}{t + t^3 - t^4}');
+    if (args) this.items.push({ kind: 'claim', span: { start, end: this.pos }, id: args[0]!, key: args[1]!, value: args[2]! });
+  }
+
+  /** Reads the braced arguments a macro needs; reports the first one missing. */
+  private requiredGroups(start: number, macro: string, names: readonly string[], example: string): Arg[] | undefined {
+    const args: Arg[] = [];
+    for (const name of names) {
+      const g = this.group(this.pos);
+      if (!g) {
+        this.problem(
+          'latex-argument-missing',
+          `${macro} takes ${names.length} braced argument${names.length > 1 ? 's' : ''} (${names.join(', ')}), but the ${name} is missing here: ${example}`,
+          { start, end: this.pos },
+        );
+        return undefined;
+      }
+      args.push(g.arg);
+      this.pos = g.next;
+    }
+    return args;
+  }
+
+  /** A `{…}` group after optional white space, balanced and respecting escapes; undefined if none starts here. */
+  private group(at: number): { arg: Arg; next: number } | undefined {
+    return this.delimited(at, '{', '}');
+  }
+
+  private bracket(at: number): { arg: Arg; next: number } | undefined {
+    return this.delimited(at, '[', ']');
+  }
+
+  private delimited(at: number, open: string, close: string): { arg: Arg; next: number } | undefined {
+    const t = this.text;
+    let k = at;
+    while (k < t.length && (t[k] === ' ' || t[k] === '\t' || t[k] === '\n' || t[k] === '\r')) {
+      if (t[k] === '\n' && /^[ \t\r]*\n/.test(t.slice(k + 1, k + 200))) return undefined; // a blank line ends the command
+      k++;
+    }
+    if (t[k] !== open) return undefined;
+    let braces = 0;
+    for (let j = k + 1; j < t.length; j++) {
+      const c = t[j]!;
+      if (c === '\\') j++;
+      else if (c === '{') braces++;
+      else if (c === '}') {
+        if (braces === 0 && close === '}') return { arg: { text: t.slice(k + 1, j), start: k + 1, end: j }, next: j + 1 };
+        braces--;
+        if (braces < 0) break;
+      } else if (c === close && braces === 0) return { arg: { text: t.slice(k + 1, j), start: k + 1, end: j }, next: j + 1 };
+    }
+    if (open === '{') {
+      this.problem('latex-brace-unbalanced', 'this `{` is never closed: add the matching `}`', { start: k, end: k + 1 });
+    }
+    return undefined;
+  }
+
+  private problem(ruleId: string, message: string, span: Span): void {
+    this.problems.push({ ruleId, message, span });
+  }
+}

@@ -1,0 +1,88 @@
+/**
+ * The LaTeX format: reads the manuscript and what it \input s
+ * (plugins/latex/reader.ts), runs the manuscript pass, and builds either the
+ * sidecar `paper.skein.tex` that \usepackage{skeinproof} reads, or with -o a
+ * flat copy that needs no package.
+ */
+import { readFileSync, realpathSync } from 'node:fs';
+import { basename } from 'node:path';
+import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
+import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
+import { runSession } from '../../core/manuscript/session.ts';
+import type { SessionResult } from '../../core/manuscript/api.ts';
+import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '../../../plugins/latex/reader.ts';
+import { flatText } from '../../../plugins/latex/flat.ts';
+import { sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
+import type { FormatOptions, FormatResult, ManuscriptFormat } from './types.ts';
+
+const diskFiles: LatexFileSystem = {
+  read(path) {
+    try {
+      return readFileSync(path, 'utf8');
+    } catch {
+      return undefined;
+    }
+  },
+  realpath(path) {
+    try {
+      return realpathSync(path);
+    } catch {
+      return path;
+    }
+  },
+};
+
+interface Checked {
+  readonly doc: LatexDocument;
+  readonly session: SessionResult;
+  readonly diagnostics: readonly Diagnostic[];
+  readonly failed: boolean;
+}
+
+function checkManuscript(path: string, options: FormatOptions): Checked {
+  const doc = readLatexManuscript(path, diskFiles);
+  const session = runSession({
+    diagrams: doc.diagrams,
+    claims: doc.claims,
+    fills: doc.fills.map((f) => f.entry),
+    convention: { ...DEFAULT_CONVENTION, ...doc.convention, ...options.convention },
+    ...(options.strict ? { strict: true } : {}),
+  });
+  const diagnostics = inDocumentOrder([...doc.diagnostics, ...session.diagnostics], doc);
+  const failed = session.failed || doc.diagnostics.some((d) => d.severity === 'error');
+  return { doc, session, diagnostics, failed };
+}
+
+/** By file in the order the files were read, then line and column; unlocated ones first. */
+function inDocumentOrder(diagnostics: Diagnostic[], doc: LatexDocument): Diagnostic[] {
+  const fileRank = new Map(doc.files.map((f, i) => [f.displayPath, i]));
+  const rank = (d: Diagnostic): [number, number, number] =>
+    d.location ? [fileRank.get(d.location.file) ?? doc.files.length, d.location.start.line, d.location.start.column] : [-1, 0, 0];
+  return diagnostics
+    .map((d) => ({ d, r: rank(d) }))
+    .sort((a, b) => a.r[0] - b.r[0] || a.r[1] - b.r[1] || a.r[2] - b.r[2])
+    .map((x) => x.d);
+}
+
+function inputsOf(doc: LatexDocument): string[] {
+  return doc.files.map((f) => f.absolutePath);
+}
+
+export const latexFormat: ManuscriptFormat = {
+  name: 'latex',
+  extensions: ['.tex', '.ltx'],
+
+  async check(path, options): Promise<FormatResult> {
+    const { doc, diagnostics, failed } = checkManuscript(path, options);
+    return { diagnostics, outputs: [], inputs: inputsOf(doc), failed };
+  },
+
+  async build(path, options): Promise<FormatResult> {
+    const { doc, session, diagnostics, failed } = checkManuscript(path, options);
+    const output =
+      options.output !== undefined
+        ? { path: options.output, content: flatText(doc, session.fills) }
+        : { path: sidecarPath(path), content: sidecarText(basename(path), doc.fills, session.fills) };
+    return { diagnostics, outputs: [output], inputs: inputsOf(doc), failed };
+  },
+};
