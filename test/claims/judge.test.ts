@@ -8,9 +8,10 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
+import type { DiagramReport } from '../../src/core/analyze/report.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../src/core/convention/convention.ts';
-import { judgeClaim, type ClaimKey, type DiagramReport, type JudgeContext } from '../../src/core/claims/index.ts';
+import { judgeClaim, type ClaimKey, type JudgeContext } from '../../src/core/claims/index.ts';
 import { InputError } from '../../src/core/errors.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 

@@ -164,12 +164,12 @@ export function crossingNumberStatement(report: DiagramReport, convention: Conve
         return `The diagram has ${crossingsPhrase} and is reduced, adequate and connected, so by Thistlethwaite's theorem on adequate diagrams its crossing number is $${exact}$.`;
       default:
         return `Here ${spanPhrase}, which bounds the crossing number below by $${lower}$, and the diagram has ${crossingsPhrase}${
-          k > 0 ? `, $${k}$ of them nugatory,` : ''
+          k > 0 ? `, $${k}$ of them nugatory,` : ','
         } which bounds it above by $${upper}$; the bounds meet, so the crossing number is $${exact}$.`;
     }
   }
   const lowerReason = reasonFor(report, 'lower');
   const lowerSource = lowerReason ? THEOREM_NAMES[lowerReason.theorem] : 'the span of $V$';
-  const upperSource = k > 0 ? `removing its $${k}$ nugatory crossing${k === 1 ? '' : 's'}` : `the diagram's own ${crossingsPhrase}`;
+  const upperSource = k > 0 ? `removing its $${k}$ nugatory crossing${k === 1 ? '' : 's'}` : `the diagram itself, with ${crossingsPhrase},`;
   return `Here ${spanPhrase}, so by ${lowerSource} the crossing number is at least $${lower}$, and ${upperSource} shows it is at most $${upper}$. The bounds do not meet: ${gapExplanation(report)}.`;
 }

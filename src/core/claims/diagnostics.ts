@@ -70,10 +70,10 @@ export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, 
   const shared = { ...where(location), claimed: j.claimed, computed: j.computed, data: claimData(j) };
   if (j.verdict === 'agrees') {
     if (!j.warning) return [];
-    return [{ severity: 'warning', ruleId: CLAIM_RULES.mirrorOnly, message: `${prefix}the ${noun} claimed holds only for the mirror image: ${j.warning}`, ...shared }];
+    return [{ severity: 'warning', ruleId: CLAIM_RULES.mirrorOnly, message: `${prefix}${noun} holds only up to mirror image: ${j.warning}`, ...shared }];
   }
   if (j.verdict === 'undecided') {
-    return [{ severity: 'warning', ruleId: CLAIM_RULES.undecided, message: `${prefix}the ${noun} claim cannot be decided: ${j.reason}`, ...shared }];
+    return [{ severity: 'warning', ruleId: CLAIM_RULES.undecided, message: `${prefix}${noun} claim undecided: ${j.reason}`, ...shared }];
   }
   const hints: string[] = [];
   if (j.diagnosis && j.diagnosis.kind !== 'none') hints.push(`Likely slip (${j.diagnosis.kind}): ${j.diagnosis.detail}.`);
@@ -81,7 +81,7 @@ export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, 
   const error: Diagnostic = {
     severity: 'error',
     ruleId: CLAIM_RULES.contradicted,
-    message: `${prefix}the ${noun} claim is wrong: ${j.reason}`,
+    message: `${prefix}wrong ${noun}: ${j.reason}`,
     ...shared,
     hints,
   };

@@ -209,6 +209,6 @@ export function judgePolynomialClaim(key: PolynomialKey, text: string, report: D
     ...base,
     verdict: 'contradicts',
     diagnosis,
-    reason: `the claimed ${subject.noun} differs from the computed ${computedLatex}: ${diagnosis.detail}`,
+    reason: `the claim differs from the computed value ${computedLatex}; ${diagnosis.detail}`,
   };
 }

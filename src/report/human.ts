@@ -1,0 +1,80 @@
+/**
+ * The human-readable reporter: `file:line:col: severity: message [rule]`,
+ * then the source line with a caret under the span, then the claimed and
+ * computed values and hints. Colour (ANSI) only when the caller asks for it,
+ * e.g. because stdout is a terminal.
+ */
+import type { Diagnostic, Severity, SourceLocation } from '../core/diagnostics/diagnostic.ts';
+import { countDiagnostics } from './exit-status.ts';
+
+export interface HumanReportOptions {
+  readonly color?: boolean;
+  /** The text of each file, for the source excerpt; files absent here get no excerpt. */
+  readonly sources?: ReadonlyMap<string, string>;
+}
+
+const SEVERITY_COLOR: Readonly<Record<Severity, string>> = { error: '31', warning: '33', note: '36' };
+
+function paint(text: string, code: string, color: boolean): string {
+  return color ? `\u001b[${code}m${text}\u001b[0m` : text;
+}
+
+function place(location: SourceLocation): string {
+  return `${location.file}:${location.start.line}:${location.start.column}`;
+}
+
+function sourceLine(text: string, line: number): string | undefined {
+  const lines = text.split(/\r\n|\n|\r/);
+  return lines[line - 1];
+}
+
+/**
+ * The excerpt under a located diagnostic: the line, and a caret line that
+ * keeps tabs so the caret stays under the span. Columns are 1-based UTF-16
+ * units; the end point lies just after the span. A span running past its
+ * first line is underlined to the end of that line; a bare point gets one caret.
+ */
+export function excerpt(location: SourceLocation, text: string, caretColor?: string): string[] {
+  const line = sourceLine(text, location.start.line);
+  if (line === undefined) return [];
+  const start = Math.min(Math.max(location.start.column, 1), line.length + 1);
+  const end = !location.end
+    ? start + 1
+    : location.end.line === location.start.line
+      ? Math.min(location.end.column, line.length + 1)
+      : line.length + 1;
+  const width = Math.max(1, end - start);
+  const padding = line.slice(0, start - 1).replace(/[^\t]/g, ' ');
+  const gutter = String(location.start.line);
+  const blank = ' '.repeat(gutter.length);
+  const marker = `^${'~'.repeat(width - 1)}`;
+  return [` ${gutter} | ${line}`, ` ${blank} | ${padding}${caretColor ? paint(marker, caretColor, true) : marker}`];
+}
+
+export function formatDiagnostic(d: Diagnostic, options: HumanReportOptions = {}): string {
+  const color = options.color === true;
+  const severityText = paint(d.severity, `1;${SEVERITY_COLOR[d.severity]}`, color);
+  const head = d.location ? `${paint(place(d.location), '1', color)}: ` : 'skeinproof: ';
+  const lines = [`${head}${severityText}: ${d.message} ${paint(`[${d.ruleId}]`, '2', color)}`];
+  const source = d.location ? options.sources?.get(d.location.file) : undefined;
+  const gutterWidth = d.location ? String(d.location.start.line).length : 0;
+  if (d.location && source !== undefined) lines.push(...excerpt(d.location, source, color ? `1;${SEVERITY_COLOR[d.severity]}` : undefined));
+  const note = (label: string, value: string) => lines.push(` ${' '.repeat(gutterWidth)} = ${label}: ${value}`);
+  if (d.claimed !== undefined && d.severity !== 'note') note('claimed', d.claimed);
+  if (d.computed !== undefined && d.computed !== '' && d.severity !== 'note') note('computed', d.computed);
+  for (const hint of d.hints ?? []) note('hint', hint);
+  return lines.join('\n');
+}
+
+export function summaryLine(diagnostics: readonly Diagnostic[]): string {
+  const { errors, warnings, notes } = countDiagnostics(diagnostics);
+  if (errors + warnings + notes === 0) return 'no problems found';
+  const part = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+  return [part(errors, 'error'), part(warnings, 'warning'), ...(notes > 0 ? [part(notes, 'note')] : [])].join(', ');
+}
+
+/** All diagnostics, each followed by a blank line, then the summary line. */
+export function formatHumanReport(diagnostics: readonly Diagnostic[], options: HumanReportOptions = {}): string {
+  const blocks = diagnostics.map((d) => formatDiagnostic(d, options));
+  return [...blocks.map((b) => `${b}\n`), summaryLine(diagnostics)].join('\n') + '\n';
+}

@@ -1,0 +1,32 @@
+/**
+ * The rule catalogue: every rule id skeinproof reports, with a one-line
+ * description for SARIF and for the documentation. Ids not listed here (a
+ * front end may add its own) get a generic description.
+ */
+export interface RuleDescription {
+  readonly id: string;
+  readonly description: string;
+}
+
+export const RULES: readonly RuleDescription[] = [
+  { id: 'claim-contradicted', description: 'A value stated in the manuscript contradicts the value computed from its diagram code.' },
+  { id: 'claim-unexplained', description: 'A contradicted value that no common slip (mirror, sign, shift, normalisation, one coefficient, another diagram) explains.' },
+  { id: 'claim-undecided', description: 'The proven bounds do not settle a stated crossing number (or the value is not computed).' },
+  { id: 'claim-mirror-only', description: 'A stated value matches only the mirror image, which a DT code cannot tell apart.' },
+  { id: 'claim-unreadable', description: 'A stated value cannot be read as a polynomial, number or yes/no answer.' },
+  { id: 'claim-inapplicable', description: 'A claim that does not apply to its diagram, such as a linking number of a knot.' },
+  { id: 'code-invalid', description: 'A diagram code (PD, DT, Gauss code or braid word) cannot be parsed into a diagram.' },
+  { id: 'convention-invalid', description: 'A convention setting names an unknown key or value.' },
+  { id: 'fill-unsupported', description: 'A value asked to be typeset is not computed by this version.' },
+  { id: 'target-unknown', description: 'A claim or fill-in names a diagram the manuscript does not define.' },
+  { id: 'target-invalid', description: 'A claim or fill-in is skipped because its diagram code is invalid.' },
+  { id: 'id-duplicate', description: 'Two diagrams of the manuscript share one id.' },
+  { id: 'file-unreadable', description: 'An input file cannot be read.' },
+  { id: 'front-matter-invalid', description: 'The manuscript front matter cannot be read.' },
+  { id: 'markup-invalid', description: 'The markup around a diagram, claim or fill-in is malformed.' },
+  { id: 'math-untypeset', description: 'A formula cannot be typeset.' },
+];
+
+export function ruleDescription(id: string): string {
+  return RULES.find((r) => r.id === id)?.description ?? `Reported by skeinproof under the rule ${id}.`;
+}
