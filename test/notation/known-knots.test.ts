@@ -152,6 +152,26 @@ describe('DT conventions and the chirality chosen', () => {
   });
 });
 
+describe('one-crossing PD codes (curls)', () => {
+  it('reads a curl with writhe +1 as bracket -A^3 and one with writhe -1 as -A^-3 (from memory: Kauffman 1987)', () => {
+    for (const [code, w] of [['(1,1,2,2)', 1], ['(2,2,1,1)', 1], ['(0,0,1,1)', 1], ['(1,2,2,1)', -1], ['(2,1,1,2)', -1]] as const) {
+      const d = parseDiagramCode(code, 'pd');
+      expect(writhe(d)).toBe(w);
+      expect(bracketByStateSum(d).equals(poly([[3 * w, -1]]))).toBe(true);
+    }
+  });
+});
+
+describe('crossing order', () => {
+  it('keeps the crossings in the order the code gives them', () => {
+    // Tuple order (PD), generator order (braid), ascending crossing number (Gauss), entry order (DT).
+    expect(parseDiagramCode('(1,1,2,2) (3,4,4,3)', 'pd').crossings.map((c) => c.sign)).toEqual([1, -1]);
+    expect(parseDiagramCode('1 -1', 'braid').crossings.map((c) => c.sign)).toEqual([1, -1]);
+    expect(parseDiagramCode('(o9- u9-) (o2+ u2+)', 'gauss').crossings.map((c) => c.sign)).toEqual([1, -1]);
+    expect(parseDiagramCode('-4 6 2', 'dt').crossings[0]!.sign).toBe(-1);
+  });
+});
+
 describe('PD orientation of components that only pass over', () => {
   it('orients a two-edge over-only component so that its crossing in the earliest tuple is positive', () => {
     // The closure of σ1 σ1⁻¹: one circle lies over the other at both crossings.
