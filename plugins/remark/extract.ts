@@ -291,10 +291,6 @@ class Extractor {
     const diagramColumn = columns.findIndex((c) => c.name === ROW_DIAGRAM_COLUMN);
     const notationColumn = columns.findIndex((c) => c.name === ROW_NOTATION_COLUMN);
     const [tableStart] = offsets(table);
-    if (diagramColumn < 0) {
-      this.error('markup-invalid', `this table has no \`${ROW_DIAGRAM_COLUMN}\` column: add one naming each row's diagram (an id, or a code in backticks)`, tableStart, lineEnd(this.text, tableStart));
-      return;
-    }
     const known = [ROW_DIAGRAM_COLUMN, ROW_NOTATION_COLUMN, REMARKS_COLUMN, ...CLAIM_KEYS];
     columns.forEach((c) => {
       if (!known.includes(c.name)) {
@@ -303,6 +299,10 @@ class Extractor {
         ]);
       }
     });
+    if (diagramColumn < 0) {
+      this.error('markup-invalid', `this table has no \`${ROW_DIAGRAM_COLUMN}\` column: add one naming each row's diagram (an id, or a code in backticks)`, tableStart, lineEnd(this.text, tableStart));
+      return;
+    }
     rows.forEach((row, r) => {
       const rowNumber = r + 1;
       const cells = row.children;

@@ -27,6 +27,12 @@ export interface FormatResult {
   readonly outputs: readonly OutputFile[];
   /** Every file read, for watch mode (the manuscript and what it includes). */
   readonly inputs: readonly string[];
+  /**
+   * True when the check fails: an error, or a warning under strictness set on
+   * the command line or by the document itself. When absent, commands derive
+   * it from the diagnostics and the command-line --strict.
+   */
+  readonly failed?: boolean;
 }
 
 export interface ManuscriptFormat {

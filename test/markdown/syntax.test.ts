@@ -1,0 +1,198 @@
+/**
+ * Each Markdown syntax form of skeinproof, its output and the position of each
+ * error. Known values: the positive trefoil (closure of σ₁³) has
+ * V = t + t³ − t⁴ and ⟨D⟩ = A⁻⁷ − A⁻³ − A⁵; the figure-eight (σ₁σ₂⁻¹)²
+ * has V = t⁻² − t⁻¹ + 1 − t + t² (from memory, standard tables).
+ */
+import { describe, expect, it } from 'vitest';
+import { placed, positionOf, processMarkdown } from './helpers.ts';
+
+const TREFOIL = '```skein id=tref notation=braid\n1 1 1\n```\n';
+const FIGURE_EIGHT = '```skein id=fig8 notation=braid\n1 -2 1 -2\n```\n';
+
+describe('diagram blocks', () => {
+  it('accepts id, notation, strands and header claims', async () => {
+    const r = await processMarkdown('```skein id=k notation=braid strands=3 crossing-number=3 writhe=3\n1 1 1\n```\n');
+    expect(r.diagnostics).toEqual([]);
+  });
+
+  it('judges a header claim and points at its value', async () => {
+    const text = '```skein id=k notation=braid writhe=2\n1 1 1\n```\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error claim-contradicted ${positionOf(text, '2\n')}`]);
+    expect(r.diagnostics[0]!.message).toContain('diagram k');
+  });
+
+  it('reports a missing id, an unknown setting and an unknown notation where they are written', async () => {
+    const text = '```skein notation=braid\n1\n```\n\n```skein id=a colour=red notation=braid\n1 1 1\n```\n\n```skein id=b notation=morse\n1\n```\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([
+      'error markup-invalid 1:1',
+      `error markup-invalid ${positionOf(text, 'colour')}`,
+      `error markup-invalid ${positionOf(text, 'morse')}`,
+    ]);
+    expect(r.diagnostics[1]!.message).toMatch(/unknown setting `colour`/);
+  });
+
+  it('takes the default notation from the front matter', async () => {
+    const r = await processMarkdown('---\nskeinproof:\n  notation: braid\n---\n\n```skein id=k\n1 1 1\n```\n\n:jones{of=k}\n');
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built.endsWith('$t + t^3 - t^4$\n')).toBe(true);
+  });
+
+  it('locates an error inside the code, also in a block quote', async () => {
+    const text = '> ```skein id=k notation=braid\n> 1 x 1\n> ```\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error code-invalid ${positionOf(text, 'x')}`]);
+  });
+
+  it('reports a duplicated id at the second header, naming the first', async () => {
+    const text = TREFOIL + '\n' + TREFOIL.replace('1 1 1', '1 1 1 1 1');
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual(['error id-duplicate 5:13']);
+    expect(r.diagnostics[0]!.message).toContain('doc.md:1:13');
+  });
+});
+
+describe('fill-ins', () => {
+  it('replaces each fill-in by its typeset value and nothing else', async () => {
+    const text = `${TREFOIL}\nV = :jones{of=tref}, bracket :bracket{of=tref}, span :span{of=tref}, writhe :writhe{of=tref}.\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toBe(`${TREFOIL}\nV = $t + t^3 - t^4$, bracket $A^{-7} - A^{-3} - A^5$, span $3$, writhe $3$.\n`);
+  });
+
+  it('writes the crossing-number statement as prose naming the theorem', async () => {
+    const r = await processMarkdown(`${FIGURE_EIGHT}\n:statement{of=fig8}\n`);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toMatch(/Kauffman–Murasugi–Thistlethwaite/);
+    expect(r.built).toMatch(/crossing number is \$4\$/);
+  });
+
+  it('leaves directives that are not ours alone', async () => {
+    const text = `${TREFOIL}\nA :span[word]{.note} and :jones without target.\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toBe(text);
+  });
+
+  it('reports an unknown target with a suggestion, at the directive', async () => {
+    const text = `${TREFOIL}\nSee :jones{of=tre}.\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error target-unknown ${positionOf(text, ':jones')}`]);
+    expect(r.diagnostics[0]!.hints?.[0]).toBe('Did you mean `tref`?');
+    expect(r.built).toBe(text);
+  });
+
+  it('refuses a fill-in of a value that is only checked', async () => {
+    const text = `${TREFOIL}\n:alternating{of=tref}\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, ':alternating')}`]);
+  });
+});
+
+describe('prose claims', () => {
+  it('keeps the author text and drops only the markup', async () => {
+    const text = `${TREFOIL}\nWe find :jones[$t+t^3-t^4$]{of=tref} here.\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toBe(`${TREFOIL}\nWe find $t+t^3-t^4$ here.\n`);
+  });
+
+  it('points a contradicted claim at the math the author wrote', async () => {
+    const text = `${TREFOIL}\nWe find :jones[$t^{-1}+t^{-3}-t^{-4}$]{of=tref} here.\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error claim-contradicted ${positionOf(text, '$t^{-1}')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/mirror/);
+    expect(r.failed).toBe(true);
+  });
+
+  it('points an unreadable claim inside its math', async () => {
+    const text = `${TREFOIL}\nWe find :jones[$t + t^{3$]{of=tref}.\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics.map((d) => d.ruleId)).toEqual(['claim-unreadable']);
+    const col = r.diagnostics[0]!.location!.start.column;
+    const line = text.split('\n')[4]!;
+    expect(line.slice(col - 1)).toMatch(/^\{3\$/);
+  });
+
+  it('reads a claim written without math', async () => {
+    const r = await processMarkdown(`${TREFOIL}\nIt has :crossings[3]{of=tref} crossings and is :alternating[yes]{of=tref}.\n`);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toContain('It has 3 crossings and is yes.');
+  });
+});
+
+describe('tables', () => {
+  const table = (rows: string) => `${TREFOIL}${FIGURE_EIGHT}\n:::invariants{notation=braid}\n| diagram | jones | crossing number | remarks |\n|---|---|---|---|\n${rows}:::\n`;
+
+  it('fills empty cells, checks filled ones and removes the fences', async () => {
+    const text = table('| tref | | $3$ | ok |\n| fig8 | $t^{-2}-t^{-1}+1-t+t^2$ | | |\n');
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toBe(
+      `${TREFOIL}${FIGURE_EIGHT}\n| diagram | jones | crossing number | remarks |\n|---|---|---|---|\n| tref | $t + t^3 - t^4$ | $3$ | ok |\n| fig8 | $t^{-2}-t^{-1}+1-t+t^2$ | $4$ | |\n`,
+    );
+  });
+
+  it('points a wrong cell at the cell and names row and column', async () => {
+    const text = table('| tref | | $3$ | |\n| fig8 | | $5$ | |\n');
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error claim-contradicted ${positionOf(text, '$5$')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/^table row 2 \(fig8\), column crossing-number/);
+  });
+
+  it('defines diagrams by code in a row, named or not', async () => {
+    const text = table('| `1 1 1 1 1` | | | |\n| cinq `1 1 1 1 1` | $t^2+t^4-t^5+t^6-t^8$ | | |\n');
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics.filter((d) => d.severity === 'error'))).toEqual([`error claim-contradicted ${positionOf(text, '$t^2+t^4')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/^table row 2 \(cinq\), column jones/);
+    // T(2,5): t² + t⁴ − t⁵ + t⁶ − t⁷ (Jones' formula for torus knots).
+    expect(r.built).toContain('| `1 1 1 1 1` | $t^2 + t^4 - t^5 + t^6 - t^7$ | $5$ | |');
+  });
+
+  it('reports an unknown column at its header and an invalid row code at the code', async () => {
+    const text = `:::invariants{notation=braid}\n| diagram | colour |\n|---|---|\n| \`1 0 1\` | red |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, 'colour')}`, `error code-invalid ${positionOf(text, '0')}`]);
+  });
+
+  it('needs a diagram column', async () => {
+    const text = `:::invariants\n| knot | jones |\n|---|---|\n| a | |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual(['error markup-invalid 2:1', 'error markup-invalid 2:3']);
+  });
+});
+
+describe('front matter', () => {
+  it('sets the convention: q and descending order', async () => {
+    const text = `---\nskeinproof:\n  convention: { jones: q, order: descending }\n---\n\n${TREFOIL}\n:jones{of=tref}\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    // t = q²: t + t³ − t⁴ becomes q² + q⁶ − q⁸, written from the top degree.
+    expect(r.built.endsWith('$-q^8 + q^6 + q^2$\n')).toBe(true);
+  });
+
+  it('accepts the one-line form of the convention', async () => {
+    const r = await processMarkdown(`---\nskeinproof:\n  convention: "jones=t-inverse"\n---\n\n${TREFOIL}\n:jones{of=tref}\n`);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toContain('$-t^{-4} + t^{-3} + t^{-1}$');
+  });
+
+  it('locates a bad convention value and an unknown setting', async () => {
+    const text = `---\nskeinproof:\n  convention: { jones: x }\n  colour: blue\n---\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error convention-invalid ${positionOf(text, 'x }')}`, `error front-matter-invalid ${positionOf(text, 'colour')}`]);
+  });
+
+  it('makes warnings fail under strict', async () => {
+    // A DT code fixes a knot only up to mirror image: the mirror value is accepted with a warning.
+    const body = '```skein id=k notation=dt\n4 6 2\n```\n\n:jones[$t^{-1}+t^{-3}-t^{-4}$]{of=k}\n';
+    const lax = await processMarkdown(body);
+    expect(lax.diagnostics.map((d) => d.severity)).toEqual(['warning']);
+    expect(lax.failed).toBe(false);
+    const strict = await processMarkdown(`---\nskeinproof:\n  strict: true\n---\n${body}`);
+    expect(strict.failed).toBe(true);
+    expect((await processMarkdown(body, { strict: true })).failed).toBe(true);
+  });
+});
