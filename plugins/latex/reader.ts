@@ -62,6 +62,12 @@ export interface LatexDocument {
 /** Keys of \begin{skeincode}{…} besides the claim keys. */
 const CODE_KEYS = ['id', 'notation', 'strands'] as const;
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
+/**
+ * What the package provides for typeset values, in plain LaTeX for the flat
+ * copy: statements write operators such as span with \operatorname, which
+ * amsmath defines properly when the document loads it.
+ */
+const VALUE_SUPPORT = '\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}';
 /** Characters a diagram code may contain that plain LaTeX would not print as typed. */
 const SPECIAL_IN_CODE = /[\^_&#$~]/g;
 
@@ -135,7 +141,7 @@ class ManuscriptReader {
       case 'input':
         return this.input(file, item, splices, open);
       case 'package':
-        return this.usePackage(item, splices);
+        return this.usePackage(file, item, splices);
       case 'table':
         return this.table(file, item, splices);
     }
@@ -263,13 +269,13 @@ class ManuscriptReader {
     this.visit(included, [...open, absolute]);
   }
 
-  private usePackage(item: Extract<ScanItem, { kind: 'package' }>, splices: Splice[]): void {
+  private usePackage(file: SourceFile, item: Extract<ScanItem, { kind: 'package' }>, splices: Splice[]): void {
     const others = item.list.text
       .split(',')
       .map((p) => p.trim())
       .filter((p) => p !== '' && p !== 'skeinproof');
-    if (others.length === 0) splices.push({ kind: 'text', span: item.span, text: '' });
-    else splices.push({ kind: 'text', span: item.list, text: others.join(',') });
+    const kept = others.length === 0 ? '' : `${file.text.slice(item.span.start, item.list.start)}${others.join(',')}}`;
+    splices.push({ kind: 'text', span: item.span, text: kept + VALUE_SUPPORT });
   }
 
   private table(file: SourceFile, item: Extract<ScanItem, { kind: 'table' }>, splices: Splice[]): void {

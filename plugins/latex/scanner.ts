@@ -87,6 +87,8 @@ class Scanner {
   private readonly stack: Frame[] = [];
   private pendingText = false;
   private pos = 0;
+  /** Where the \end{skeintable} of each table already read starts: reaching it there is no stray \end. */
+  private readonly tableEnds = new Set<number>();
 
   constructor(private readonly text: string) {}
 
@@ -188,6 +190,7 @@ class Scanner {
     this.pos = env.next;
     const name = env.arg.text.trim();
     if (this.top()?.closer === `env:${name}`) this.stack.pop();
+    else if (name === 'skeintable' && this.tableEnds.has(start)) return;
     else if (name === 'skeincode' || name === 'skeintable') {
       this.problem('latex-environment-unopened', `\\end{${name}} closes no \\begin{${name}}: remove it, or add the \\begin{${name}}{…} it belongs to`, { start, end: env.next });
     }
@@ -263,6 +266,7 @@ class Scanner {
       return;
     }
     const endStart = bodyEnd.end + closing[0].indexOf('\\');
+    this.tableEnds.add(endStart);
     this.items.push({
       kind: 'table',
       beginSpan,
