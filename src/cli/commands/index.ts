@@ -1,6 +1,9 @@
 /** The registered commands, in the order `--help` lists them. */
 import type { Argv } from 'yargs';
 import { computeCommand } from './compute.ts';
+import { checkCommand } from './check.ts';
+import { buildCommand } from './build.ts';
+import { watchCommand } from './watch.ts';
 
 export interface CliCommand {
   readonly command: string;
@@ -10,4 +13,4 @@ export interface CliCommand {
   readonly run: (args: Record<string, unknown>) => Promise<number>;
 }
 
-export const commands: readonly CliCommand[] = [computeCommand];
+export const commands: readonly CliCommand[] = [computeCommand, checkCommand, buildCommand, watchCommand];

@@ -1,0 +1,74 @@
+/**
+ * `skeinproof build FILE -o OUT`: check the manuscript and write it with every
+ * fill-in typeset (Markdown spliced byte for byte, or a standalone HTML page).
+ * Nothing is written when the check fails unless --force-write asks; the input
+ * is never overwritten; each output appears whole or not at all.
+ */
+import type { Argv } from 'yargs';
+import { OutputRefused, writeFileAtomic } from '../write-atomic.ts';
+import type { FormatOptions } from '../formats/types.ts';
+import { EXIT_USAGE, exitStatusFor, formatOf, manuscriptOptions, readManuscriptArgs, reportDiagnostics, resultFailed, usage, type ManuscriptArgs } from './check.ts';
+import type { CliCommand } from './index.ts';
+
+export interface BuildArgs extends ManuscriptArgs {
+  readonly forceWrite: boolean;
+}
+
+export function buildOptions(y: Argv): Argv {
+  return manuscriptOptions(y)
+    .option('output', { alias: 'o', type: 'string', describe: 'Where to write (default: NAME.filled.md, or NAME.html with --html, beside the input)' })
+    .option('html', { type: 'boolean', default: false, describe: 'Write a standalone HTML page (implied by an -o ending in .html)' })
+    .option('allow-html', { type: 'boolean', default: false, describe: 'Pass raw HTML in the manuscript through to the page (otherwise it is shown as text)' })
+    .option('force-write', { type: 'boolean', default: false, describe: 'Write the output even when the check fails' }) as Argv;
+}
+
+export function readBuildArgs(raw: Record<string, unknown>): BuildArgs | string {
+  const args = readManuscriptArgs(raw);
+  if (typeof args === 'string') return args;
+  const output = raw['output'];
+  if (output !== undefined && (typeof output !== 'string' || output === '')) return '-o needs a file name';
+  const options: FormatOptions = {
+    ...args.options,
+    ...(typeof output === 'string' ? { output } : {}),
+    html: raw['html'] === true,
+    allowHtml: raw['allow-html'] === true,
+  };
+  return { ...args, options, forceWrite: raw['force-write'] === true };
+}
+
+/** One build of one manuscript: report on stderr, say on stdout what was written. Returns the exit status. */
+export async function buildOnce(path: string, args: BuildArgs): Promise<number> {
+  const format = formatOf(path);
+  if (typeof format === 'string') return usage(format);
+  const result = await format.build(path, args.options);
+  const strict = args.options.strict === true;
+  const failed = resultFailed(result, strict);
+  if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict, process.stderr.isTTY === true));
+  const status = exitStatusFor(result.diagnostics, failed, strict);
+  if (failed && !args.forceWrite) {
+    if (result.outputs.length > 0) process.stderr.write('skeinproof: nothing written because the check failed; fix the errors above, or pass --force-write\n');
+    return status;
+  }
+  for (const output of result.outputs) {
+    try {
+      await writeFileAtomic(output.path, output.content, { protect: result.inputs });
+    } catch (e) {
+      const reason = e instanceof OutputRefused ? e.message : `cannot write ${output.path}: ${(e as Error).message}`;
+      process.stderr.write(`skeinproof: ${reason}\n`);
+      return EXIT_USAGE;
+    }
+    process.stdout.write(`wrote ${output.path}\n`);
+  }
+  return status;
+}
+
+export const buildCommand: CliCommand = {
+  command: 'build <file>',
+  describe: 'Check a manuscript and write it with every fill-in typeset (Markdown, or HTML with --html)',
+  builder: (y: Argv) => buildOptions(y.positional('file', { type: 'string', describe: 'The manuscript' })),
+  run: async (raw) => {
+    const args = readBuildArgs(raw);
+    if (typeof args === 'string') return usage(args);
+    return buildOnce(String(raw['file']), args);
+  },
+};

@@ -1,0 +1,115 @@
+/**
+ * `skeinproof check FILE…`: read each manuscript, compute every diagram once,
+ * judge every claim, and report all problems of all files in one run.
+ *
+ * Also holds what `build` and `watch` share with it: the manuscript options,
+ * reading them from the command line, and reporting diagnostics.
+ */
+import { readFileSync } from 'node:fs';
+import type { Argv } from 'yargs';
+import type { Convention } from '../../core/convention/convention.ts';
+import { parseConventionText } from '../../core/convention/settings.ts';
+import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
+import { EXIT_BAD_INPUT, EXIT_FAILED_CHECK, exitStatus, formatHumanReport, formatJsonReport, formatSarif } from '../../report/index.ts';
+import { formatFor, knownExtensions } from '../formats/registry.ts';
+import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/types.ts';
+import type { CliCommand } from './index.ts';
+
+export const EXIT_USAGE = EXIT_BAD_INPUT;
+
+export const REPORT_FORMATS = ['text', 'json', 'sarif'] as const;
+export type ReportFormat = (typeof REPORT_FORMATS)[number];
+
+export interface ManuscriptArgs {
+  readonly report: ReportFormat;
+  readonly options: FormatOptions;
+}
+
+/** The options every manuscript command takes. */
+export function manuscriptOptions(y: Argv): Argv {
+  return y
+    .option('format', { choices: REPORT_FORMATS, default: 'text', describe: 'How problems are reported: text for people, json or sarif for tools' })
+    .option('strict', { type: 'boolean', default: false, describe: 'Warnings (undecided or mirror-only claims) fail too' })
+    .option('convention', {
+      type: 'string',
+      describe: 'Override the document\'s convention, e.g. "jones=q,order=descending" (keys: jones, bracket, order, half-powers, signature)',
+    }) as Argv;
+}
+
+/** The shared options, or a usage message. */
+export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArgs | string {
+  let convention: Partial<Convention> | undefined;
+  if (typeof args['convention'] === 'string') {
+    const read = parseConventionText(args['convention']);
+    if (!read.ok) return `--convention: ${read.errors.map((e) => e.message).join('; ')}`;
+    convention = read.settings;
+  }
+  return {
+    report: args['format'] as ReportFormat,
+    options: { ...(convention ? { convention } : {}), strict: args['strict'] === true },
+  };
+}
+
+/** The format that reads `path`, or a usage message naming the extensions known. */
+export function formatOf(path: string): ManuscriptFormat | string {
+  return (
+    formatFor(path) ??
+    `cannot tell what kind of manuscript ${path} is from its extension; the known extensions are ${knownExtensions().join(', ')}`
+  );
+}
+
+/** True when the result fails the check (the format decides, knowing the document's own strictness). */
+export function resultFailed(result: FormatResult, strict: boolean): boolean {
+  return result.failed ?? result.diagnostics.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
+}
+
+/** The exit status: the reporters' rule, and 1 at least when the document's own strictness fails it. */
+export function exitStatusFor(diagnostics: readonly Diagnostic[], failed: boolean, strict: boolean): number {
+  const status = exitStatus(diagnostics, { strict });
+  return failed && status === 0 ? EXIT_FAILED_CHECK : status;
+}
+
+/** The report of all diagnostics; the human one quotes the file texts under each message. */
+export function reportDiagnostics(diagnostics: readonly Diagnostic[], format: ReportFormat, files: readonly string[], strict: boolean, color: boolean): string {
+  if (format === 'json') return formatJsonReport(diagnostics, { strict });
+  if (format === 'sarif') return formatSarif(diagnostics);
+  const sources = new Map<string, string>();
+  for (const f of files) {
+    try {
+      sources.set(f, readFileSync(f, 'utf8'));
+    } catch {
+      // An unreadable file is already a diagnostic of its own.
+    }
+  }
+  return formatHumanReport(diagnostics, { sources, color });
+}
+
+export function usage(message: string): number {
+  process.stderr.write(`skeinproof: ${message}\nRun 'skeinproof --help' for the commands and options.\n`);
+  return EXIT_USAGE;
+}
+
+export const checkCommand: CliCommand = {
+  command: 'check <files..>',
+  describe: 'Check every value stated in the manuscripts against the diagram codes, reporting every problem',
+  builder: (y: Argv) =>
+    manuscriptOptions(y.positional('files', { type: 'string', array: true, describe: 'Markdown (or LaTeX) manuscripts' })),
+  run: async (raw) => {
+    const args = readManuscriptArgs(raw);
+    if (typeof args === 'string') return usage(args);
+    const files = ((raw['files'] as unknown[] | undefined) ?? []).map(String);
+    const formats = files.map(formatOf);
+    const unknown = formats.find((f): f is string => typeof f === 'string');
+    if (unknown !== undefined) return usage(unknown);
+    const diagnostics: Diagnostic[] = [];
+    let failed = false;
+    for (const [i, path] of files.entries()) {
+      const result = await (formats[i] as ManuscriptFormat).check(path, args.options);
+      diagnostics.push(...result.diagnostics);
+      failed ||= resultFailed(result, args.options.strict === true);
+    }
+    const strict = args.options.strict === true;
+    process.stdout.write(reportDiagnostics(diagnostics, args.report, files, strict, process.stdout.isTTY === true));
+    return exitStatusFor(diagnostics, failed, strict);
+  },
+};

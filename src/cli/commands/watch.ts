@@ -1,0 +1,57 @@
+/**
+ * `skeinproof watch FILE`: build once, then again whenever the manuscript (or
+ * a file it reads) changes, until interrupted. Editors often save by writing a
+ * new file and renaming it, so the directories are watched, not the files.
+ */
+import { watch, type FSWatcher } from 'node:fs';
+import { basename, dirname, resolve } from 'node:path';
+import type { Argv } from 'yargs';
+import { buildOnce, buildOptions, readBuildArgs } from './build.ts';
+import { formatOf, usage } from './check.ts';
+import type { CliCommand } from './index.ts';
+
+/** Saves arrive as bursts of events; one rebuild per burst. */
+const DEBOUNCE_MS = 150;
+
+export const watchCommand: CliCommand = {
+  command: 'watch <file>',
+  describe: 'Check and build a manuscript, then again on every change (Ctrl-C stops)',
+  builder: (y: Argv) => buildOptions(y.positional('file', { type: 'string', describe: 'The manuscript' })),
+  run: async (raw) => {
+    const args = readBuildArgs(raw);
+    if (typeof args === 'string') return usage(args);
+    const path = String(raw['file']);
+    const format = formatOf(path);
+    if (typeof format === 'string') return usage(format);
+    const watched = new Set([resolve(path)]);
+    const watchers: FSWatcher[] = [];
+    let timer: NodeJS.Timeout | undefined;
+    let running: Promise<void> = Promise.resolve();
+
+    const rebuild = (why: string): void => {
+      running = running.then(async () => {
+        process.stdout.write(`--- ${new Date().toISOString().slice(11, 19)} ${why}\n`);
+        await buildOnce(path, args);
+        process.stdout.write(`--- watching ${path} (Ctrl-C stops)\n`);
+      });
+    };
+    const onEvent = (dir: string) => (_event: string, name: string | Buffer | null) => {
+      if (name !== null && !watched.has(resolve(dir, String(name)))) return;
+      clearTimeout(timer);
+      timer = setTimeout(() => rebuild(`${path} changed, rebuilding`), DEBOUNCE_MS);
+    };
+    for (const dir of new Set([...watched].map((f) => dirname(f)))) watchers.push(watch(dir, onEvent(dir)));
+    rebuild(`building ${basename(path)}`);
+
+    await new Promise<void>((done) => {
+      const stop = (): void => {
+        clearTimeout(timer);
+        for (const w of watchers) w.close();
+        void running.then(done);
+      };
+      process.once('SIGINT', stop);
+      process.once('SIGTERM', stop);
+    });
+    return 0;
+  },
+};
