@@ -167,7 +167,7 @@ function orient(tuples: readonly PdTuple[]): Sign[] {
     }
   }
   const through = (x: number): number => (x & ~3) | ((x + 2) & 3);
-  // entrySlot[x] is set for the slots where the chosen direction enters a crossing.
+  // entered[x] is set for the slots where the chosen direction enters a crossing.
   const entered = new Uint8Array(slotCount);
   const passageSeen = new Uint8Array(2 * tuples.length);
   for (let start = 0; start < slotCount; start++) {
