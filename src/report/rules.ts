@@ -14,6 +14,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'claim-undecided', description: 'The proven bounds do not settle a stated crossing number (or the value is not computed).' },
   { id: 'claim-mirror-only', description: 'A stated value matches only the mirror image, which a DT code cannot tell apart.' },
   { id: 'claim-unreadable', description: 'A stated value cannot be read as a polynomial, number or yes/no answer.' },
+  { id: 'claim-malformed', description: 'A command-line claim is not of the form KEY=VALUE with a known key.' },
   { id: 'claim-inapplicable', description: 'A claim that does not apply to its diagram, such as a linking number of a knot.' },
   { id: 'code-invalid', description: 'A diagram code (PD, DT, Gauss code or braid word) cannot be parsed into a diagram.' },
   { id: 'convention-invalid', description: 'A convention setting names an unknown key or value.' },

@@ -47,7 +47,7 @@ describe('human reporter', () => {
     expect(caretLine.slice(caretAt)).toBe(`^${'~'.repeat(claimText.length - 1)}`);
     expect(text).toContain('= claimed: t + t^3 + t^4');
     expect(text).toContain('= computed: t + t^3 - t^4');
-    expect(text).toMatch(/hint: Likely slip \(one-coefficient\)/);
+    expect(text).toContain('= hint: Correct that one coefficient to -1.');
   });
   it('keeps tabs in the caret padding and underlines one character for a point location', () => {
     const d: Diagnostic = { severity: 'warning', ruleId: 'claim-undecided', message: 'm', location: { file: 'notes.md', start: { line: 4, column: 8 } } };

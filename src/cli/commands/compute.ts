@@ -14,6 +14,11 @@ import type { Notation } from '../../core/diagram/model.ts';
 import { isInputError, type InputError } from '../../core/errors.ts';
 import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notation/index.ts';
 import { computeJson, invalidCodeJson } from '../compute-json.ts';
+import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
+import { parseConventionText } from '../../core/convention/settings.ts';
+import type { Diagnostic, SourceLocation, TextSpan } from '../../core/diagnostics/diagnostic.ts';
+import { judgeClaim, judgementToDiagnostics, parseClaimAssignment, unreadableClaimDiagnostic, type ClaimAssignment } from '../../core/claims/index.ts';
+import { exitStatus, formatDiagnostic, judgementJson, unreadableClaimJson, type JudgementJson, type UnreadableClaimJson } from '../../report/index.ts';
 import type { CliCommand } from './index.ts';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
@@ -87,6 +92,53 @@ interface ComputeArgs {
   readonly notation: Notation;
   readonly strands?: number;
   readonly json: boolean;
+  /** `--claim KEY=VALUE`, judged against every code given. */
+  readonly claims: readonly ClaimAssignment[];
+  readonly convention: Convention;
+  readonly strict: boolean;
+}
+
+interface ClaimsOutcome {
+  readonly json: readonly (JudgementJson | UnreadableClaimJson)[];
+  readonly diagnostics: readonly Diagnostic[];
+  /** Plain output: one verdict line per claim, then the diagnostics with their excerpts. */
+  readonly plain: string;
+}
+
+/**
+ * Judges every claim about one code. Each claim is located in a virtual file
+ * `<code N claim M>` whose only line is the claim as typed, so the human
+ * reporter can put its caret under the offending part of the value.
+ */
+function judgeCodeClaims(position: number, report: DiagramReport, others: ReadonlyMap<string, DiagramReport>, args: ComputeArgs, color: boolean): ClaimsOutcome {
+  const json: (JudgementJson | UnreadableClaimJson)[] = [];
+  const diagnostics: Diagnostic[] = [];
+  const lines = ['  claims'];
+  const blocks: string[] = [];
+  args.claims.forEach((claim, k) => {
+    const file = `<code ${position} claim ${k + 1}>`;
+    const locate = (span?: TextSpan): SourceLocation => ({
+      file,
+      start: { line: 1, column: claim.valueOffset + 1 + (span?.start ?? 0) },
+      end: { line: 1, column: claim.valueOffset + 1 + (span?.end ?? claim.value.length) },
+    });
+    let found: Diagnostic[];
+    try {
+      const judgement = judgeClaim(claim.key, claim.value, report, { convention: args.convention, others, selfId: `<code ${position}>` });
+      json.push(judgementJson(judgement));
+      lines.push(`    ${claim.key} = ${claim.value.trim()}: ${judgement.verdict}${judgement.diagnosis ? ` (${judgement.diagnosis.kind})` : ''}`);
+      found = judgementToDiagnostics(judgement, locate());
+    } catch (error) {
+      if (!isInputError(error)) throw error;
+      json.push(unreadableClaimJson(claim.key, claim.value, error));
+      lines.push(`    ${claim.key} = ${claim.value.trim()}: unreadable`);
+      found = [unreadableClaimDiagnostic(error, locate)];
+    }
+    diagnostics.push(...found);
+    const sources = new Map([[file, claim.text]]);
+    for (const d of found) blocks.push(formatDiagnostic(d, { color, sources }));
+  });
+  return { json, diagnostics, plain: [...lines, ...blocks.map((b) => `${b}`)].join('\n') };
 }
 
 /** An argument that looks like a long or lettered option; codes such as `-1 2 -1` do not. */
@@ -96,7 +148,7 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   const codes = ((args['codes'] as unknown[] | undefined) ?? []).map(String);
   const unknownOption = codes.find((code) => OPTION_LIKE.test(code));
   if (unknownOption !== undefined) {
-    return `unknown option ${unknownOption}; the options of compute are --notation, --strands and --json.`;
+    return `unknown option ${unknownOption}; the options of compute are --notation, --strands, --json, --claim, --convention and --strict.`;
   }
   const strands = args['strands'] as number | undefined;
   if (strands !== undefined && !(Number.isInteger(strands) && strands >= 1)) {
@@ -106,11 +158,30 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   if (strands !== undefined && notation !== 'braid') {
     return `--strands applies to braid words only; add --notation braid or leave --strands out.`;
   }
+  const claimTexts = ([] as unknown[]).concat(args['claim'] ?? []).map(String);
+  const claims: ClaimAssignment[] = [];
+  for (const text of claimTexts) {
+    try {
+      claims.push(parseClaimAssignment(text));
+    } catch (error) {
+      if (!isInputError(error)) throw error;
+      return `--claim: ${error.message}.`;
+    }
+  }
+  let convention = DEFAULT_CONVENTION;
+  if (typeof args['convention'] === 'string') {
+    const read = parseConventionText(args['convention']);
+    if (!read.ok) return `--convention: ${read.errors.map((e) => e.message).join('; ')}.`;
+    convention = { ...DEFAULT_CONVENTION, ...read.settings };
+  }
   return {
     codes,
     notation,
     strands,
     json: args['json'] === true,
+    claims,
+    convention,
+    strict: args['strict'] === true,
   };
 }
 
@@ -124,7 +195,11 @@ export const computeCommand: CliCommand = {
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
       .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, describe: 'How the codes are written' })
       .option('strands', { type: 'number', describe: 'Braid words: the number of strands, when more than the largest generator + 1' })
-      .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' }) as Argv,
+      .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' })
+      // Not `array: true`, which would swallow the codes that follow; repeating the flag collects the claims.
+      .option('claim', { type: 'string', describe: 'Check a stated value, KEY=VALUE (repeatable), e.g. jones=t+t^3-t^4 or crossing-number=<=7' })
+      .option('convention', { type: 'string', describe: 'How claims are read and values written, e.g. "jones=q,bracket=loop" (keys: jones, bracket, order, half-powers, signature)' })
+      .option('strict', { type: 'boolean', default: false, describe: 'With --claim: warnings (undecided or mirror-only claims) fail too' }) as Argv,
   run: async (raw) => {
     const args = readArgs(raw);
     if (typeof args === 'string') {
@@ -133,17 +208,26 @@ export const computeCommand: CliCommand = {
     }
     const parseOptions: ParseOptions = args.strands === undefined ? {} : { strands: args.strands };
     let anyInvalid = false;
-    args.codes.forEach((code, i) => {
+    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions));
+    // Every analysed code, so a claim equal to another code's value is diagnosed as swapped.
+    const reports = new Map(outcomes.flatMap((o, i) => (o.ok ? [[`<code ${i + 1}>`, o.report] as const] : [])));
+    const claimDiagnostics: Diagnostic[] = [];
+    const color = process.stdout.isTTY === true;
+    outcomes.forEach((outcome, i) => {
       const position = i + 1;
-      const outcome = computeCode(code, args.notation, parseOptions);
+      const code = outcome.code;
       if (outcome.ok) {
-        process.stdout.write(args.json ? `${JSON.stringify(computeJson(code, outcome.report))}\n` : `${plainSummary(position, code, outcome.report)}\n\n`);
+        const claims = args.claims.length > 0 ? judgeCodeClaims(position, outcome.report, reports, args, color) : undefined;
+        claimDiagnostics.push(...(claims?.diagnostics ?? []));
+        const json = claims ? { ...computeJson(code, outcome.report), claims: claims.json } : computeJson(code, outcome.report);
+        const plain = claims ? `${plainSummary(position, code, outcome.report)}\n${claims.plain}` : plainSummary(position, code, outcome.report);
+        process.stdout.write(args.json ? `${JSON.stringify(json)}\n` : `${plain}\n\n`);
         return;
       }
       anyInvalid = true;
       process.stderr.write(`${invalidCodeMessage(position, code, outcome.notation, outcome.error)}\n`);
       if (args.json) process.stdout.write(`${JSON.stringify(invalidCodeJson(code, outcome.notation, outcome.error))}\n`);
     });
-    return anyInvalid ? EXIT_INVALID_INPUT : EXIT_ALL_VALID;
+    return anyInvalid ? EXIT_INVALID_INPUT : Math.max(EXIT_ALL_VALID, exitStatus(claimDiagnostics, { strict: args.strict }));
   },
 };

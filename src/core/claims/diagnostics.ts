@@ -12,7 +12,7 @@
  */
 import type { InputError } from '../errors.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../diagnostics/diagnostic.ts';
-import type { ClaimKey, Judgement } from './api.ts';
+import type { ClaimKey, DiagnosisKind, Judgement } from './api.ts';
 
 export const CLAIM_RULES = {
   contradicted: 'claim-contradicted',
@@ -45,6 +45,17 @@ export const CLAIM_NOUNS: Readonly<Record<ClaimKey, string>> = {
   signature: 'signature',
 };
 
+/** What to do about each slip, one sentence; the slip itself is named in the message. */
+const FIX_HINTS: Readonly<Record<DiagnosisKind, (j: Judgement) => string | undefined>> = {
+  mirror: () => 'Check the handedness: either the code or the value belongs to the mirror image.',
+  negated: () => 'Check the overall sign of the value.',
+  shifted: () => 'Recheck the writhe factor (−A³)^{−w} and the normalisation of the unknot.',
+  normalization: () => 'Rewrite the value in the convention the document declares, or declare the convention it is written in.',
+  'one-coefficient': (j) => (j.diagnosis?.term ? `Correct that one coefficient to ${j.diagnosis.term.computed}.` : undefined),
+  swapped: (j) => `The value belongs to \`${j.diagnosis?.otherDiagram}\`: check which diagram the claim is attached to.`,
+  none: () => undefined,
+};
+
 function claimData(j: Judgement): Record<string, unknown> {
   return {
     key: j.key,
@@ -75,9 +86,8 @@ export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, 
   if (j.verdict === 'undecided') {
     return [{ severity: 'warning', ruleId: CLAIM_RULES.undecided, message: `${prefix}${noun} claim undecided: ${j.reason}`, ...shared }];
   }
-  const hints: string[] = [];
-  if (j.diagnosis && j.diagnosis.kind !== 'none') hints.push(`Likely slip (${j.diagnosis.kind}): ${j.diagnosis.detail}.`);
-  if (j.computed !== '') hints.push(`The computed value is ${j.computed}.`);
+  const hint = j.diagnosis ? FIX_HINTS[j.diagnosis.kind](j) : undefined;
+  const hints = hint ? [hint] : [];
   const error: Diagnostic = {
     severity: 'error',
     ruleId: CLAIM_RULES.contradicted,

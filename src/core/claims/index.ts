@@ -13,6 +13,7 @@ import { crossingNumberFill, crossingNumberStatement } from './crossing-number.t
 
 export type * from './api.ts';
 export { judgeClaim, CLAIM_KEYS, isClaimKey } from './judge.ts';
+export { parseClaimAssignment, type ClaimAssignment } from './assignment.ts';
 export {
   judgementToDiagnostics,
   inputErrorDiagnostic,

@@ -51,7 +51,7 @@ export function judgeClaim(key: ClaimKey, text: string, report: DiagramReport, c
   }
 }
 
-/** Every claim key with the words an author may use for it (for front ends that map labels to keys). */
+/** Every claim key, for front ends that map labels to keys and for messages listing them. */
 export const CLAIM_KEYS: readonly ClaimKey[] = [
   'jones', 'bracket', 'span', 'bracket-span', 'min-degree', 'max-degree', 'writhe', 'crossings', 'components', 'linking',
   'alternating', 'reduced', 'adequate', 'crossing-number', 'alexander', 'conway', 'determinant', 'signature',

@@ -1,0 +1,93 @@
+/**
+ * `compute --claim`: claims about codes given on the command line. Values from
+ * memory (Jones 1985): V(positive trefoil) = t + t³ − t⁴, V(4₁) = t⁻² − t⁻¹ + 1 − t + t²,
+ * V(positive Hopf) = −t^{1/2} − t^{5/2}.
+ */
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+
+function skeinproof(...args: string[]): { status: number | null; stdout: string; stderr: string } {
+  const result = spawnSync(process.execPath, ['bin/skeinproof.js', ...args], { cwd: root, encoding: 'utf8', timeout: 30_000 });
+  return { status: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+const claimsOf = (stdout: string): Record<string, unknown>[][] =>
+  stdout
+    .trim()
+    .split('\n')
+    .map((line) => (JSON.parse(line) as { claims: Record<string, unknown>[] }).claims);
+
+describe('skeinproof compute --claim', () => {
+  it('adds the verdicts with their diagnoses to the JSON object and exits 1 on a contradiction', () => {
+    const run = skeinproof(
+      'compute', '--json', '-n', 'braid', '1 1 1',
+      '--claim', 'jones=t + t^3 - t^4',
+      '--claim', 'jones=-t^{-4}+t^{-3}+t^{-1}',
+      '--claim', 'span=3',
+      '--claim', 'alternating=yes',
+      '--claim', 'crossing-number=\\le 3',
+    );
+    expect(run.stderr).toBe('');
+    expect(run.status).toBe(1);
+    const [claims] = claimsOf(run.stdout);
+    expect(claims!.map((c) => [c['key'], c['verdict']])).toEqual([
+      ['jones', 'agrees'],
+      ['jones', 'contradicts'],
+      ['span', 'agrees'],
+      ['alternating', 'agrees'],
+      ['crossing-number', 'agrees'],
+    ]);
+    expect(claims![0]).toMatchObject({ claimed: 't + t^3 - t^4', diagnosis: null });
+    expect(claims![1]).toMatchObject({ diagnosis: { kind: 'mirror' } });
+    expect(typeof claims![1]!['reason']).toBe('string');
+  });
+  it('exits 0 when every claim agrees', () => {
+    const run = skeinproof('compute', '-n', 'braid', '1 -2 1 -2', '--claim', 'jones=t^{-2} - t^{-1} + 1 - t + t^2', '--claim', 'writhe=0');
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('jones = t^{-2} - t^{-1} + 1 - t + t^2: agrees');
+  });
+  it('prints the human report with a caret under the wrong value in plain mode', () => {
+    const run = skeinproof('compute', '-n', 'braid', '1 1 1', '--claim', 'jones=t+t^3+t^4');
+    expect(run.status).toBe(1);
+    const lines = run.stdout.split('\n');
+    const head = lines.findIndex((l) => l.startsWith('<code 1 claim 1>:1:7: error: wrong Jones polynomial'));
+    expect(head).toBeGreaterThan(0);
+    expect(lines[head + 1]).toBe(' 1 | jones=t+t^3+t^4');
+    expect(lines[head + 2]).toBe('   |       ^~~~~~~~~');
+    expect(run.stdout).not.toContain('\u001b['); // not a terminal: no colour
+  });
+  it('reads claims in the convention given with --convention (t = q², so V(Hopf) = −q − q⁵)', () => {
+    const run = skeinproof('compute', '--json', '-n', 'braid', '1 1', '--convention', 'jones=q', '--claim', 'jones=-q-q^5');
+    expect(run.status).toBe(0);
+    expect(claimsOf(run.stdout)[0]![0]).toMatchObject({ verdict: 'agrees', computed: '-q - q^5' });
+  });
+  it('warns on an undecided crossing number, and fails on it only with --strict', () => {
+    const args = ['compute', '-n', 'braid', '1 -2 2 1 -2 1', '--claim', 'crossing-number=4'];
+    const plain = skeinproof(...args);
+    expect(plain.status).toBe(0);
+    expect(plain.stdout).toMatch(/warning: crossing number claim undecided: .*between 3 and 6/);
+    expect(skeinproof(...args, '--strict').status).toBe(1);
+  });
+  it('exits 2 for an unreadable claim and points at the bad character', () => {
+    const run = skeinproof('compute', '-n', 'braid', '1 1 1', '--claim', 'jones=t + x');
+    expect(run.status).toBe(2);
+    expect(run.stdout).toContain('<code 1 claim 1>:1:11: error: unknown variable `x`');
+  });
+  it('exits 2 with a usage message for an unknown key or convention', () => {
+    const badKey = skeinproof('compute', '-n', 'braid', '1 1 1', '--claim', 'colour=red');
+    expect(badKey.status).toBe(2);
+    expect(badKey.stderr).toMatch(/unknown claim key `colour`/);
+    const badConvention = skeinproof('compute', '-n', 'braid', '1 1 1', '--convention', 'order=sideways');
+    expect(badConvention.status).toBe(2);
+    expect(badConvention.stderr).toMatch(/ascending, descending/);
+  });
+  it('names another code of the same run as the source of a swapped value', () => {
+    const run = skeinproof('compute', '--json', '-n', 'braid', '1 1 1', '1 -2 1 -2', '--claim', 'jones=t + t^3 - t^4');
+    const [first, second] = claimsOf(run.stdout);
+    expect(first![0]).toMatchObject({ verdict: 'agrees' });
+    expect(second![0]).toMatchObject({ verdict: 'contradicts', diagnosis: { kind: 'swapped', otherDiagram: '<code 1>' } });
+  });
+});
