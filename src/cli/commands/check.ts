@@ -102,14 +102,16 @@ export const checkCommand: CliCommand = {
     const unknown = formats.find((f): f is string => typeof f === 'string');
     if (unknown !== undefined) return usage(unknown);
     const diagnostics: Diagnostic[] = [];
+    const read = new Set(files);
     let failed = false;
     for (const [i, path] of files.entries()) {
       const result = await (formats[i] as ManuscriptFormat).check(path, args.options);
       diagnostics.push(...result.diagnostics);
+      for (const input of result.inputs) read.add(input); // included files, so their lines can be quoted
       failed ||= resultFailed(result, args.options.strict === true);
     }
     const strict = args.options.strict === true;
-    process.stdout.write(reportDiagnostics(diagnostics, args.report, files, strict, process.stdout.isTTY === true));
+    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict, process.stdout.isTTY === true));
     return exitStatusFor(diagnostics, failed, strict);
   },
 };

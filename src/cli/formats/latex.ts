@@ -64,8 +64,9 @@ function inDocumentOrder(diagnostics: Diagnostic[], doc: LatexDocument): Diagnos
     .map((x) => x.d);
 }
 
+/** The files read, named as in the diagnostics (so reporters can quote their lines). */
 function inputsOf(doc: LatexDocument): string[] {
-  return doc.files.map((f) => f.absolutePath);
+  return doc.files.map((f) => f.displayPath);
 }
 
 export const latexFormat: ManuscriptFormat = {
