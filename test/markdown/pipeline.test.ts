@@ -14,6 +14,7 @@ import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
 import remarkStringify from 'remark-stringify';
+import type { Root } from 'mdast';
 import { unified } from 'unified';
 import { VFile } from 'vfile';
 import { describe, expect, it } from 'vitest';
@@ -44,10 +45,10 @@ function base() {
 async function html(markdown: string, skein: boolean): Promise<string> {
   const p = skein ? base().use(remarkSkeinproof) : base();
   const file = new VFile({ value: markdown, path: 'doc.md' });
-  const tree = await p.run(p.parse(file), file);
-  (tree as { children: { type: string }[] }).children = (tree as { children: { type: string }[] }).children.filter((n) => n.type !== 'yaml');
-  const hast = await unified().use(remarkRehype).use(rehypeKatex).run(tree as never, file);
-  return unified().use(rehypeStringify).stringify(hast as never);
+  const tree = (await p.run(p.parse(file), file)) as Root;
+  tree.children = tree.children.filter((n) => n.type !== 'yaml');
+  const hast = await unified().use(remarkRehype).use(rehypeKatex).run(tree, file);
+  return unified().use(rehypeStringify).stringify(hast);
 }
 
 describe('in a unified pipeline', () => {

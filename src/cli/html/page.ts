@@ -33,10 +33,11 @@ export interface RenderedPage {
 }
 
 const PAGE_STYLE = `body{margin:0;background:#fdfdfb;color:#1d1d1f;font:17px/1.55 Georgia,"Times New Roman",serif}
-main{max-width:46rem;margin:2.5rem auto;padding:0 1.25rem}
+main{max-width:52rem;margin:2.5rem auto;padding:0 1.25rem}
 table{border-collapse:collapse;margin:1rem 0}
 th,td{border:1px solid #c8c8c0;padding:.3rem .6rem;text-align:left;vertical-align:top}
 th{background:#f0efe8}
+td .katex{white-space:nowrap}
 pre{background:#f4f3ee;padding:.6rem .8rem;overflow-x:auto}
 code{font-size:.92em}`;
 

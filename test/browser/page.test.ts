@@ -1,0 +1,79 @@
+/**
+ * The built HTML page in a real browser (Debian's chromium through
+ * playwright-core): KaTeX has typeset the computed polynomials, no formula
+ * failed, the fonts came from the page itself, and raw HTML stayed text.
+ * Values from memory (standard tables): positive trefoil V = t + t³ − t⁴,
+ * figure-eight V = t⁻² − t⁻¹ + 1 − t + t².
+ */
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { chromium, type Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { markdownFormat } from '../../src/cli/formats/markdown.ts';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const ARTIFACTS = join(ROOT, 'test-artifacts');
+const CHROMIUM = '/usr/bin/chromium';
+const available = existsSync(CHROMIUM);
+if (!available) console.log(`browser tests skipped: ${CHROMIUM} is missing (CI installs it via .ci/run; locally: apt-get install chromium)`);
+
+let browser: Browser | undefined;
+beforeAll(async () => {
+  if (!available) return;
+  browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'] });
+}, 30_000);
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function buildPage(sample: string, name: string, allowHtml = false): Promise<string> {
+  const out = join(ARTIFACTS, name);
+  const result = await markdownFormat.build(sample, { output: out, html: true, allowHtml });
+  expect(result.diagnostics.filter((d) => d.severity !== 'note')).toEqual([]);
+  mkdirSync(ARTIFACTS, { recursive: true });
+  writeFileSync(out, result.outputs[0]!.content);
+  return out;
+}
+
+describe.skipIf(!available)('the HTML page in chromium', () => {
+  it('shows the typeset polynomials with KaTeX and its inlined fonts, no errors, no network', async () => {
+    const path = await buildPage(join(ROOT, 'samples/twists-and-weaves.md'), 'twists-and-weaves.html');
+    const page = await browser!.newPage();
+    const requests: string[] = [];
+    page.on('request', (r) => requests.push(r.url()));
+    await page.goto(pathToFileURL(path).href);
+    const tex = await page.$$eval('.katex annotation[encoding="application/x-tex"]', (nodes) => nodes.map((n) => n.textContent ?? ''));
+    expect(tex).toContain('t + t^3 - t^4');
+    expect(tex).toContain('t^{-2} - t^{-1} + 1 - t + t^2');
+    // The rendered glyphs, not only the annotation: KaTeX's visible HTML for the trefoil.
+    const visible = await page.$$eval('.katex-html', (nodes) => nodes.map((n) => (n.textContent ?? '').replace(/\s+/g, '')));
+    expect(visible).toContain('t+t3−t4');
+    expect(await page.locator('.katex-error').count()).toBe(0);
+    const loaded = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.family);
+    });
+    expect(loaded.some((f) => f.replace(/"/g, '') === 'KaTeX_Main')).toBe(true);
+    expect(requests.filter((u) => !u.startsWith('file:') && !u.startsWith('data:'))).toEqual([]);
+    const table = await page.$$eval('table tr', (rows) => rows.length);
+    expect(table).toBe(11);
+    await page.screenshot({ path: join(ARTIFACTS, 'twists-and-weaves.png'), fullPage: true });
+    await page.close();
+  }, 30_000);
+
+  it('shows raw HTML as text unless allowed', async () => {
+    const sample = join(ARTIFACTS, 'raw-html.md');
+    mkdirSync(ARTIFACTS, { recursive: true });
+    writeFileSync(sample, '```skein id=k notation=braid\n1 1 1\n```\n\n<b id="raw">bold</b> and :jones{of=k}\n');
+    for (const allowHtml of [false, true]) {
+      const path = await buildPage(sample, `raw-html-${allowHtml}.html`, allowHtml);
+      const page = await browser!.newPage();
+      await page.goto(pathToFileURL(path).href);
+      expect(await page.locator('#raw').count()).toBe(allowHtml ? 1 : 0);
+      if (!allowHtml) expect(await page.locator('main').textContent()).toContain('<b id="raw">bold</b>');
+      expect(await page.locator('.katex').count()).toBe(1);
+      await page.close();
+    }
+  }, 30_000);
+});
