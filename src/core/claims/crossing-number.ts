@@ -102,7 +102,7 @@ export function judgeCrossingNumberClaim(text: string, report: DiagramReport): J
   const exactReason = reasonFor(report, 'exact');
   const base = { key: 'crossing-number' as const, claimed: text, computed: boundsText(report) };
   const said = describeClaim(claim);
-  const because = (r: BoundReason | undefined): string => (r ? ` (${THEOREM_NAMES[r.theorem]}): ${r.text}` : '');
+  const because = (r: BoundReason | undefined): string => (r ? `, by ${THEOREM_NAMES[r.theorem]}. ${r.text}` : '');
   const withTheorem = (r: BoundReason | undefined) => (r ? { theorem: r.theorem } : {});
 
   const claimLow = claim.relation === 'at-most' ? -Infinity : claim.value;
