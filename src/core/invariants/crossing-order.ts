@@ -9,7 +9,8 @@
  * walk is cheap to simulate, so it is run from several starting crossings and
  * with two tie-breaks (oldest boundary contact first, which grows a compact
  * blob, and newest first, which sweeps), and the order with the smallest
- * widest boundary wins.
+ * widest boundary wins. Wide diagrams, whose contraction is expensive, earn a
+ * longer search (up to every starting crossing).
  */
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 
@@ -22,9 +23,16 @@ export interface ContractionPlan {
   readonly maxWidth: number;
 }
 
-/** Work budget for the simulations (scan steps), so planning stays negligible next to contraction. */
-const PLANNING_BUDGET = 3e7;
-const MAX_STARTS = 24;
+/** Starts tried on every diagram (fewer when n² would make planning itself slow). */
+const MIN_STARTS = 24;
+const BASE_BUDGET = 3e7;
+/**
+ * Further starts are tried while planning has cost (in scan steps) less than
+ * this fraction of the estimated contraction work of the best order so far:
+ * a wide diagram is worth a longer search, a narrow one is not.
+ */
+const SEARCH_FRACTION = 0.04;
+const MAX_BUDGET = 2e8;
 
 type TieBreak = 'oldest' | 'newest';
 
@@ -32,11 +40,12 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
   const n = d.crossings.length;
   if (n === 0) return { order: [], widths: [], maxWidth: 0 };
   const neighbours = neighbourTable(d);
-  const starts = Math.max(1, Math.min(MAX_STARTS, n, Math.floor(PLANNING_BUDGET / (2 * n * n))));
+  const runCost = 2 * n * n; // two greedy walks, each scanning all crossings per pick
+  const minimumStarts = Math.max(1, Math.min(MIN_STARTS, n, Math.floor(BASE_BUDGET / runCost)));
   let best: ContractionPlan | undefined;
   let bestCost = Infinity;
-  for (let s = 0; s < starts; s++) {
-    const start = Math.floor((s * n) / starts);
+  let spent = 0;
+  for (const start of startOrder(n, minimumStarts)) {
     for (const tieBreak of ['oldest', 'newest'] as const) {
       const order = greedyOrder(neighbours, n, start, tieBreak);
       const widths = boundaryWidths(d, order);
@@ -47,8 +56,19 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
         bestCost = cost;
       }
     }
+    spent += runCost;
+    const tried = spent / runCost;
+    if (tried >= minimumStarts && spent + runCost > Math.min(MAX_BUDGET, SEARCH_FRACTION * bestCost)) break;
   }
   return best!;
+}
+
+/** `first` evenly spread starting crossings, then every other crossing. */
+function* startOrder(n: number, first: number): Generator<number> {
+  const spread = new Set<number>();
+  for (let s = 0; s < first; s++) spread.add(Math.floor((s * n) / first));
+  yield* spread;
+  for (let c = 0; c < n; c++) if (!spread.has(c)) yield c;
 }
 
 /** Boundary width after each absorption when the crossings are absorbed in `order`. */
@@ -75,9 +95,9 @@ function neighbourTable(d: LinkDiagram): Int32Array {
   return Int32Array.from(opposite, (slot) => slot >> 2);
 }
 
-/** Roughly proportional to the work: states grow about like 2^width. */
+/** Roughly proportional to the contraction work: states grow about like 2^width, polynomials like the step. */
 function orderCost(widths: readonly number[]): number {
-  return widths.reduce((s, w) => s + 2 ** Math.min(w, 1000), 0);
+  return widths.reduce((s, w, k) => s + 2 ** Math.min(w, 1000) * (k + 1), 0);
 }
 
 function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak: TieBreak): number[] {
