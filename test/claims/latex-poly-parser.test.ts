@@ -45,6 +45,7 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     ['\\frac{t^3 - 1}{t}', poly([-1, -1], [2, 1])],
     ['t − t^{2}', poly([1, 1], [2, -1])], // U+2212 minus sign
     ['0', Laurent.zero],
+    ['t + t^3 - t^4.', poly([1, 1], [3, 1], [4, -1])], // sentence punctuation closing the formula
   ];
   for (const [text, expected] of cases) {
     it(`reads ${text}`, () => {
@@ -89,6 +90,7 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
     ['a double superscript', 't^2^3', 3, 4, /double superscript/],
     ['an empty value', '   ', 0, 3, /empty/],
     ['two variables', 't + A', 4, 5, /unknown variable `A`/],
+    ['a full stop inside the value', 't. + 1', 1, 2, /unexpected character `.`/],
   ];
   for (const [name, text, start, end, message] of cases) {
     it(`refuses ${name}: ${text}`, () => {

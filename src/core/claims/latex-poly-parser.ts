@@ -90,6 +90,9 @@ function tokenize(text: string): Token[] {
         tokens.push(TIMES_COMMANDS.has(name) ? { kind: 'op', text: '*', start: i, end: j } : { kind: 'command', text: name, start: i, end: j });
       }
       i = j;
+    } else if ('.,;'.includes(ch) && text.slice(i + 1).trim() === '') {
+      // Sentence punctuation closing the formula (`… - t^4.`) is not part of the value.
+      break;
     } else if ('+-*/^_()[]{}'.includes(ch)) {
       tokens.push({ kind: 'op', text: ch, start: i, end: i + 1 });
       i++;
@@ -329,12 +332,7 @@ class PolynomialParser {
     const allowed = this.options.variables;
     if (!allowed.includes(t.text)) {
       const expected = allowed[0] ?? 't';
-      fail(
-        `unknown variable \`${t.text}\`: ${this.what()} in this document is written in ${expected}${
-          allowed.length > 1 ? ` (or ${allowed.slice(1).join(', ')})` : ''
-        }; write it in ${expected} or declare another convention`,
-        t,
-      );
+      fail(`unknown variable \`${t.text}\`: ${this.what()} in this document is written in ${expected}; write it in ${expected} or declare another convention`, t);
     }
     if (this.variable && this.variable.text !== t.text)
       fail(`the value mixes the variables \`${this.variable.text}\` and \`${t.text}\`: write it in one variable`, t);

@@ -62,8 +62,9 @@ export function bracketFromConvention(written: Laurent, normalization: BracketNo
   if (normalization === 'unit') return written;
   try {
     return written.divExact(LOOP_VALUE);
-  } catch {
-    return undefined;
+  } catch (error) {
+    if (error instanceof RangeError) return undefined; // not divisible
+    throw error;
   }
 }
 
