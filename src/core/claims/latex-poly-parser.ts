@@ -510,7 +510,6 @@ class PolynomialParser {
     }
     const product = (scaled * r.p) / r.q / den;
     if (Math.abs(product) > MAX_EXPONENT) fail(`the exponent ${product} is too large to be meant`, whole);
-    if (!Number.isInteger(product * den)) fail(this.latticeMessage(variable, rational(scaled * r.p, r.q * den)), whole);
     return Laurent.monomial(product, coefficient);
   }
 
