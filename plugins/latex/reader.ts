@@ -103,6 +103,8 @@ class ManuscriptReader {
     } else {
       this.visit(main, [absolute]);
     }
+    const fileRank = new Map(this.files.map((f, i) => [f.displayPath, i]));
+    const rank = (d: Diagnostic): number => fileRank.get(d.location!.file) ?? 0;
     return {
       main,
       files: this.files,
@@ -110,7 +112,7 @@ class ManuscriptReader {
       claims: this.claims,
       fills: this.fills,
       convention: this.convention,
-      diagnostics: this.diagnostics,
+      diagnostics: [...this.diagnostics].sort((a, b) => rank(a) - rank(b) || a.location!.start.offset! - b.location!.start.offset!),
       splices: this.splices,
     };
   }
@@ -244,7 +246,8 @@ class ManuscriptReader {
     const command = `\\${item.command}{${written}}`;
     // TeX looks for name.tex first; \include always appends .tex.
     const name = item.command === 'include' || extname(written) === '' ? `${written}.tex` : written;
-    const absolute = resolve(dirname(file.absolutePath), name);
+    // TeX looks for the file from the directory it runs in (the manuscript's), not from the including file's.
+    const absolute = resolve(dirname(resolve(this.mainPath)), name);
     const inside = relative(this.root, this.real(absolute));
     if (isAbsolute(written) || inside.startsWith('..') || isAbsolute(inside)) {
       this.error(
@@ -264,7 +267,7 @@ class ManuscriptReader {
       this.error(file, item.path, 'latex-input-missing', `${command}: there is no file ${name} in ${dirname(absolute)}; correct the name or add the file`);
       return;
     }
-    const included = new SourceFile(join(dirname(file.displayPath), name), absolute, text);
+    const included = new SourceFile(join(dirname(this.mainPath), name), absolute, text);
     splices.push({ kind: 'include', span: item.span, file: included, command: item.command });
     this.visit(included, [...open, absolute]);
   }

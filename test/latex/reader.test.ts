@@ -1,0 +1,240 @@
+/**
+ * The LaTeX reader on manuscripts held in memory: what it extracts, where it
+ * says each problem is (line:column counted by hand in the test text), how it
+ * follows \input and refuses paths leaving the paper's directory, and the
+ * flat copy's bytes.
+ */
+import { describe, expect, it } from 'vitest';
+import { readLatexManuscript, type LatexDocument } from '../../plugins/latex/reader.ts';
+import { flatText } from '../../plugins/latex/flat.ts';
+import { sidecarText } from '../../plugins/latex/sidecar.ts';
+import { runSession } from '../../src/core/manuscript/session.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
+import { memoryFiles } from './support.ts';
+
+function read(files: Record<string, string>, main = 'paper.tex'): LatexDocument {
+  return readLatexManuscript(`/paper/${main}`, memoryFiles(files));
+}
+
+/** Each diagnostic as `rule@file:line:column`, file relative to /paper. */
+function places(doc: LatexDocument): string[] {
+  return doc.diagnostics.map((d) => `${d.ruleId}@${d.location!.file.replace('/paper/', '')}:${d.location!.start.line}:${d.location!.start.column}`);
+}
+
+const PREAMBLE = '\\documentclass{article}\n\\usepackage{skeinproof}\n\\begin{document}\n';
+
+describe('what the reader extracts', () => {
+  it('diagrams, option claims, prose claims, fill-ins and the convention', () => {
+    const doc = read({
+      'paper.tex':
+        '\\documentclass{article}\n\\usepackage{skeinproof}\n\\skeinconvention{jones=q, order=descending}\n\\begin{document}\n' +
+        '\\begin{skeincode}{id=tre, notation=braid, jones={t+t^3-t^4}, crossing-number=3}\n1 1 1\n\\end{skeincode}\n' +
+        'V is \\skeinjones{tre}, claim \\skeinclaim{tre}{writhe}{$3$} and $\\skeinvalue{tre}{span}$.\n\\end{document}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.convention).toEqual({ jonesVariable: 'q', termOrder: 'descending' });
+    expect(doc.diagrams.map((d) => [d.id, d.notation, d.code])).toEqual([['tre', 'braid', '1 1 1']]);
+    expect(doc.claims.map((c) => [c.target, c.key, c.text])).toEqual([
+      ['tre', 'jones', 't+t^3-t^4'],
+      ['tre', 'crossing-number', '3'],
+      ['tre', 'writhe', '3'],
+    ]);
+    expect(doc.fills.map((f) => f.target)).toEqual([
+      { kind: 'macro', id: 'tre', key: 'jones', math: false },
+      { kind: 'macro', id: 'tre', key: 'span', math: true },
+    ]);
+    // Positions: the code starts on line 6, the writhe claim's `3` (inside $…$) on line 8.
+    expect(doc.diagrams[0]!.locateCode().start).toMatchObject({ line: 6, column: 1 });
+    expect(doc.claims[2]!.locate().start).toMatchObject({ line: 8, column: 56 });
+  });
+
+  it('reads skein tables: empty cells are fill-ins, filled cells claims, header rows skipped', () => {
+    const doc = read({
+      'paper.tex':
+        PREAMBLE +
+        '\\begin{skeintable}[head=2]{id, -, jones, crossing-number}\n\\begin{tabular}{llll}\n' +
+        'Id & Name & $V$ & $c$ \\\\\n & & & \\\\\n\\hline\nk1 & trefoil & & 3 \\\\\nk2 & eight & $t^2$ & \\\\\n\\end{tabular}\n\\end{skeintable}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.fills.map((f) => f.target.kind === 'cell' && [f.entry.target, f.entry.key, f.target.row, f.target.column])).toEqual([
+      ['k1', 'jones', 3, 3],
+      ['k2', 'crossing-number', 4, 4],
+    ]);
+    expect(doc.claims.map((c) => [c.target, c.key, c.text, c.context])).toEqual([
+      ['k1', 'crossing-number', '3', 'skein table 1, row 3, column 4'],
+      ['k2', 'jones', 't^2', 'skein table 1, row 4, column 3'],
+    ]);
+    // The claim `3` of k1 is on line 9 (1-based), column 18.
+    expect(doc.claims[0]!.locate().start).toMatchObject({ line: 9, column: 18 });
+  });
+});
+
+describe('located errors in the markup', () => {
+  it('reports every problem of a bad document in one pass, each where it is written', () => {
+    const doc = read({
+      'paper.tex': [
+        '\\documentclass{article}', // 1
+        '\\usepackage{skeinproof}', // 2
+        '\\begin{document}', // 3
+        '\\begin{skeincode}{notation=braid}', // 4: no id
+        '1 1 1',
+        '\\end{skeincode}',
+        '\\begin{skeincode}{id=a, notation=knotty}', // 7: unknown notation at column 34
+        '1',
+        '\\end{skeincode}',
+        '\\begin{skeincode}{id=b, notation=pd, colour=red, id=c}', // 10: unknown key col 38, repeated id col 50
+        '(1,1,2,2)',
+        '\\end{skeincode}',
+        '\\begin{skeincode}{id=d}', // 13: no notation
+        '1',
+        '\\end{skeincode}',
+        '\\begin{skeincode}{id=e f, notation=braid, strands=two}', // 16: bad id col 22, bad strands col 51
+        '1',
+        '\\end{skeincode}',
+        'See \\skeinvalue{b}{colour} and \\skeinclaim{b}{knottedness}{3}.', // 19: fill key col 20, claim key col 47
+        '\\skeinjones{}', // 20: fill without id
+        '\\begin{skeincode}{id=z, notation=braid}', // 21: never closed
+        '1 1',
+      ].join('\n'),
+    });
+    expect(places(doc)).toEqual([
+      'latex-id-missing@paper.tex:4:1',
+      'latex-notation-unknown@paper.tex:7:34',
+      'latex-key-unknown@paper.tex:10:38',
+      'latex-key-repeated@paper.tex:10:50',
+      'latex-notation-missing@paper.tex:13:1',
+      'latex-id-invalid@paper.tex:16:22',
+      'latex-option-invalid@paper.tex:16:51',
+      'latex-key-unknown@paper.tex:19:20',
+      'latex-key-unknown@paper.tex:19:47',
+      'latex-id-missing@paper.tex:20:1',
+      'latex-environment-unclosed@paper.tex:21:1',
+    ]);
+    for (const d of doc.diagnostics) expect(d.severity).toBe('error');
+    expect(doc.diagnostics[2]!.message).toContain('the keys are id, notation, strands, jones');
+    expect(doc.diagrams.map((d) => d.id)).toEqual(['b']);
+  });
+
+  it('reports malformed skein tables where the fault is', () => {
+    const doc = read({
+      'paper.tex': [
+        PREAMBLE + '\\begin{skeintable}{id, jonez}', // line 4: unknown column at col 24
+        '\\begin{tabular}{ll}',
+        'a & b \\\\',
+        '\\end{tabular}',
+        '\\end{skeintable}',
+        '\\begin{skeintable}{id, statement, alternating, span}', // line 9
+        '\\begin{tabular}{llll}',
+        'Id & S & A & span \\\\', // header
+        'k & says & & 3 \\\\', // line 12: filled statement at col 5, the empty alternating cell's space at col 11
+        '\\multicolumn{2}{c}{x} & y \\\\', // line 13
+        'k & \\\\', // line 14: too few cells
+        ' & & yes & \\\\', // line 15: no id (the row's cells start after its leading space)
+        '\\end{tabular}',
+        '\\end{skeintable}',
+        '\\begin{skeintable}{id}', // line 18: no tabular
+        'text',
+      ].join('\n'),
+    });
+    expect(places(doc)).toEqual([
+      'latex-key-unknown@paper.tex:4:24',
+      'latex-cell-filled@paper.tex:12:5',
+      'latex-cell-empty@paper.tex:12:11',
+      'latex-table-malformed@paper.tex:13:1',
+      'latex-table-malformed@paper.tex:14:4',
+      'latex-id-missing@paper.tex:15:2',
+      'latex-table-malformed@paper.tex:18:1',
+    ]);
+  });
+
+  it('a bad convention setting is located at its key or value', () => {
+    const doc = read({ 'paper.tex': '\\skeinconvention{jones=w, colour=blue}\n\\skeinconvention{order=ascending}\n' });
+    expect(places(doc)).toEqual(['convention-invalid@paper.tex:1:24', 'convention-invalid@paper.tex:1:27', 'latex-convention-twice@paper.tex:2:1']);
+  });
+});
+
+describe('\\input and \\include', () => {
+  it('follows included files and locates their entries and errors in them', () => {
+    const doc = read({
+      'paper.tex': PREAMBLE + '\\input{sections/one}\n\\include{two}\n\\end{document}\n',
+      'sections/one.tex': '% one\n\\begin{skeincode}{id=k, notation=dt}\n4 6 2\n\\end{skeincode}\n\\input{sections/deeper.tex}\n',
+      'sections/deeper.tex': 'x\n  \\skeinclaim{k}{jones}{t}\n',
+      'two.tex': '\\begin{skeincode}{id=m, notation=pd, wrong=1}\n(1,1,2,2)\n\\end{skeincode}\n',
+    });
+    expect(doc.files.map((f) => f.displayPath)).toEqual(['/paper/paper.tex', '/paper/sections/one.tex', '/paper/sections/deeper.tex', '/paper/two.tex']);
+    expect(doc.diagrams[0]!.locateCode().start).toMatchObject({ line: 3, column: 1 });
+    expect(doc.diagrams[0]!.locateCode().file).toBe('/paper/sections/one.tex');
+    const claim = doc.claims[0]!.locate();
+    expect([claim.file, claim.start.line, claim.start.column]).toEqual(['/paper/sections/deeper.tex', 2, 25]);
+    expect(places(doc)).toEqual(['latex-key-unknown@two.tex:1:38']);
+  });
+
+  it('refuses paths that leave the paper directory, by .. or absolute path or link', () => {
+    const files = memoryFiles({
+      'paper.tex': PREAMBLE + '\\input{../secret}\n\\include{sub/../../x}\n\\input{/etc/passwd}\n\\input{link}\n',
+      'link.tex': 'linked',
+    });
+    const doc = readLatexManuscript('/paper/paper.tex', {
+      ...files,
+      realpath: (p) => (p === '/paper/link.tex' ? '/elsewhere/link.tex' : p),
+    });
+    expect(places(doc)).toEqual([
+      'latex-input-outside@paper.tex:4:8',
+      'latex-input-outside@paper.tex:5:10',
+      'latex-input-outside@paper.tex:6:8',
+      'latex-input-outside@paper.tex:7:8',
+    ]);
+    expect(doc.diagnostics[0]!.message).toContain("outside the paper's directory");
+    expect(doc.files).toHaveLength(1);
+  });
+
+  it('reports missing and circular includes without reading on', () => {
+    const doc = read({
+      'paper.tex': '\\input{none}\n\\input{a}\n',
+      'a.tex': '\\input{paper}\n',
+    });
+    expect(places(doc)).toEqual(['latex-input-missing@paper.tex:1:8', 'latex-input-cycle@a.tex:1:8']);
+  });
+});
+
+describe('building', () => {
+  const PAPER =
+    '\\documentclass{article}\n\\usepackage{amsmath,skeinproof}\n\\skeinconvention{order=descending}\n\\begin{document}\n' +
+    '\\begin{skeincode}{id=h, notation=braid, writhe=2}\n1 1% Hopf\n\\end{skeincode}\n' +
+    'Values: \\skeinjones{h}, $w = \\skeinwrithe{h}$, claimed \\skeinclaim{h}{crossing-number}{$2$}.\n' +
+    '\\begin{skeintable}{id, span}\n\\begin{tabular}{ll}\nId & span\\\\\nh & \\\\\n\\end{tabular}\n\\end{skeintable}\n\\end{document}\n';
+
+  function build() {
+    const doc = read({ 'paper.tex': PAPER });
+    const session = runSession({
+      diagrams: doc.diagrams,
+      claims: doc.claims,
+      fills: doc.fills.map((f) => f.entry),
+      convention: { ...DEFAULT_CONVENTION, ...doc.convention },
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(session.diagnostics).toEqual([]);
+    return { doc, session };
+  }
+
+  it('the flat copy changes only the replaced spans', () => {
+    const { doc, session } = build();
+    // The positive Hopf link (closure of σ₁²): V = −t^{1/2} − t^{5/2} (from memory), span 2, writhe 2.
+    expect(flatText(doc, session.fills)).toBe(
+      '\\documentclass{article}\n\\usepackage{amsmath}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}\n\n\\begin{document}\n' +
+        '\\begin{flushleft}\\ttfamily\n1 1% Hopf\n\\end{flushleft}\n' +
+        'Values: $-t^{5/2} - t^{1/2}$, $w = 2$, claimed $2$.\n' +
+        '\n\\begin{tabular}{ll}\nId & span\\\\\nh & $2$ \\\\\n\\end{tabular}\n\n\\end{document}\n',
+    );
+  });
+
+  it('the sidecar holds one definition per value, named as the package reads them', () => {
+    const { doc, session } = build();
+    expect(sidecarText('paper.tex', doc.fills, session.fills).split('\n').slice(2)).toEqual([
+      '\\skein@value{h}{jones}{m}{-t^{5/2} - t^{1/2}}',
+      '\\skein@value{h}{writhe}{m}{2}',
+      '\\skein@cell{1}{2}{2}{m}{2}',
+      '',
+    ]);
+  });
+});
