@@ -1,0 +1,251 @@
+/**
+ * Exact polynomial determinants by modular evaluation: det(t·A − B) for
+ * sparse integer matrices A, B is computed modulo word-sized primes at many
+ * points t, interpolated, and lifted by the Chinese remainder theorem until
+ * the product of the primes exceeds twice a proven bound on the coefficients.
+ *
+ * Primes stay below 2^26 so that a product of two residues is below 2^52 and
+ * exact in a double; no coefficient ever passes through a float.
+ */
+import type { SparseMatrix } from './sparse-matrix.ts';
+
+const PRIME_CEILING = 1 << 26;
+
+function isPrime(p: number): boolean {
+  if (p < 2) return false;
+  for (let d = 2; d * d <= p; d++) if (p % d === 0) return false;
+  return true;
+}
+
+const primeCache: number[] = [];
+/** The k-th prime below 2^26, counting down. */
+function prime(k: number): number {
+  let p = primeCache.length === 0 ? PRIME_CEILING : primeCache[primeCache.length - 1]!;
+  while (primeCache.length <= k) {
+    p--;
+    while (!isPrime(p)) p--;
+    primeCache.push(p);
+  }
+  return primeCache[k]!;
+}
+
+function mulMod(a: number, b: number, p: number): number {
+  return (a * b) % p;
+}
+
+function powMod(base: number, exponent: number, p: number): number {
+  let result = 1;
+  let b = base % p;
+  let e = exponent;
+  while (e > 0) {
+    if (e & 1) result = mulMod(result, b, p);
+    b = mulMod(b, b, p);
+    e = Math.floor(e / 2);
+  }
+  return result;
+}
+
+function invMod(a: number, p: number): number {
+  return powMod(((a % p) + p) % p, p - 2, p);
+}
+
+function reduce(v: bigint, p: number): number {
+  const r = Number(v % BigInt(p));
+  return r < 0 ? r + p : r;
+}
+
+/**
+ * A reusable banded eliminator: the pencil t·A − B in an order with lower
+ * bandwidth `lower`, evaluated and reduced row by row with partial pivoting
+ * inside the band.
+ */
+class BandedPencil {
+  private readonly size: number;
+  private readonly entries: { i: number; j: number; a: number; b: number }[];
+  private readonly lower: number;
+  private readonly work: Float64Array;
+  private readonly lastColumn: Int32Array;
+  constructor(a: SparseMatrix, b: SparseMatrix, private readonly p: number) {
+    this.size = a.size;
+    const merged = new Map<number, { i: number; j: number; a: number; b: number }>();
+    const put = (m: SparseMatrix, which: 'a' | 'b'): void =>
+      m.rows.forEach((row, i) =>
+        row.forEach((v, j) => {
+          const key = i * this.size + j;
+          const e = merged.get(key) ?? { i, j, a: 0, b: 0 };
+          e[which] = reduce(v, p);
+          merged.set(key, e);
+        }),
+      );
+    put(a, 'a');
+    put(b, 'b');
+    this.entries = [...merged.values()];
+    this.lower = this.entries.reduce((w, e) => Math.max(w, e.i - e.j), 0);
+    this.work = new Float64Array(this.size * this.size);
+    this.lastColumn = new Int32Array(this.size);
+  }
+
+  determinantAt(t: number): number {
+    const { size: n, p, work: m } = this;
+    m.fill(0);
+    this.lastColumn.fill(-1);
+    for (const e of this.entries) {
+      m[e.i * n + e.j] = (mulMod(t, e.a, p) - e.b + p) % p;
+      if (e.j > this.lastColumn[e.i]!) this.lastColumn[e.i] = e.j;
+    }
+    let det = 1;
+    for (let k = 0; k < n; k++) {
+      const rowLimit = Math.min(n - 1, k + this.lower);
+      let pivotRow = -1;
+      for (let i = k; i <= rowLimit; i++) {
+        if (m[i * n + k] !== 0) {
+          pivotRow = i;
+          break;
+        }
+      }
+      if (pivotRow < 0) return 0;
+      if (pivotRow !== k) {
+        for (let j = k; j < n; j++) {
+          const tmp = m[k * n + j]!;
+          m[k * n + j] = m[pivotRow * n + j]!;
+          m[pivotRow * n + j] = tmp;
+        }
+        const tmpLast = this.lastColumn[k]!;
+        this.lastColumn[k] = this.lastColumn[pivotRow]!;
+        this.lastColumn[pivotRow] = tmpLast;
+        det = p - det;
+      }
+      const pivot = m[k * n + k]!;
+      det = mulMod(det, pivot, p);
+      const inverse = invMod(pivot, p);
+      const colLimit = this.lastColumn[k]!;
+      for (let i = k + 1; i <= rowLimit; i++) {
+        const below = m[i * n + k]!;
+        if (below === 0) continue;
+        const factor = mulMod(below, inverse, p);
+        const ri = i * n;
+        const rk = k * n;
+        for (let j = k + 1; j <= colLimit; j++) {
+          const above = m[rk + j]!;
+          if (above !== 0) m[ri + j] = (m[ri + j]! - mulMod(factor, above, p) + p) % p;
+        }
+        m[ri + k] = 0;
+        if (colLimit > this.lastColumn[i]!) this.lastColumn[i] = colLimit;
+      }
+    }
+    return det % p;
+  }
+}
+
+/** Coefficients (ascending) of the polynomial of degree < xs.length through the points, modulo p (Newton form). */
+function interpolate(xs: readonly number[], ys: readonly number[], p: number): number[] {
+  const n = xs.length;
+  const c = [...ys];
+  for (let k = 1; k < n; k++) {
+    for (let i = n - 1; i >= k; i--) {
+      const num = (c[i]! - c[i - 1]! + p) % p;
+      const den = (xs[i]! - xs[i - k]! + p) % p;
+      c[i] = mulMod(num, invMod(den, p), p);
+    }
+  }
+  // Expand the Newton form into ordinary coefficients.
+  const coeffs = new Array<number>(n).fill(0);
+  for (let k = n - 1; k >= 0; k--) {
+    // coeffs ← coeffs·(x − xs[k]) + c[k]
+    for (let i = n - 1; i >= 1; i--) coeffs[i] = (coeffs[i - 1]! - mulMod(coeffs[i]!, xs[k]!, p) + p) % p;
+    coeffs[0] = (c[k]! - mulMod(coeffs[0]!, xs[k]!, p) + p) % p;
+  }
+  return coeffs;
+}
+
+/**
+ * A proven bound on the coefficients of det(t·A − B): each coefficient is at
+ * most the maximum of |det| on the unit circle, which Hadamard's inequality
+ * bounds by the product of the row norms there. Returned squared, exactly.
+ */
+export function squaredCoefficientBound(a: SparseMatrix, b: SparseMatrix): bigint {
+  let bound = 1n;
+  for (let i = 0; i < a.size; i++) {
+    // |t·a_ij − b_ij|² summed over j ≤ Σ (a_ij² + b_ij²) + 2·|Σ a_ij b_ij| for |t| = 1.
+    let squares = 0n;
+    let cross = 0n;
+    const rowA = a.rows[i]!;
+    const rowB = b.rows[i]!;
+    rowA.forEach((v, j) => {
+      squares += v * v;
+      cross += v * (rowB.get(j) ?? 0n);
+    });
+    rowB.forEach((v) => (squares += v * v));
+    bound *= squares + 2n * (cross < 0n ? -cross : cross);
+  }
+  return bound;
+}
+
+export interface PencilDeterminant {
+  /** Coefficients of det(t·A − B), ascending, degree ≤ size. */
+  readonly coefficients: bigint[];
+  readonly primes: number;
+}
+
+/**
+ * det(t·A − B) exactly. When `reciprocal` is given (±1), the caller asserts
+ * det(t⁻¹·A − B) = reciprocal · t^(−size) · det(t·A − B), which halves the
+ * evaluations; the result is verified at a fresh prime and point either way.
+ */
+export function pencilDeterminant(a: SparseMatrix, b: SparseMatrix, reciprocal?: 1 | -1): PencilDeterminant {
+  const n = a.size;
+  const limit = 4n * squaredCoefficientBound(a, b); // need M² > 4·bound²
+  let modulus = 1n;
+  let lifted = new Array<bigint>(n + 1).fill(0n);
+  let k = 0;
+  while (modulus * modulus <= limit) {
+    const p = prime(k++);
+    const residues = coefficientsModPrime(a, b, p, reciprocal);
+    // Incremental CRT: x ≡ lifted (mod modulus), x ≡ r (mod p).
+    const pBig = BigInt(p);
+    const inverse = BigInt(invMod(Number(modulus % pBig), p));
+    lifted = lifted.map((x, i) => {
+      const r = BigInt(residues[i]!);
+      let step = ((r - (x % pBig)) * inverse) % pBig;
+      if (step < 0n) step += pBig;
+      return x + modulus * step;
+    });
+    modulus *= pBig;
+  }
+  const half = modulus / 2n;
+  const coefficients = lifted.map((x) => (x > half ? x - modulus : x));
+  // Verification at a fresh prime and a point not used for interpolation.
+  const p = prime(k);
+  const t = 7919 % p;
+  const direct = new BandedPencil(a, b, p).determinantAt(t);
+  let value = 0;
+  for (let i = coefficients.length - 1; i >= 0; i--) value = (mulMod(value, t, p) + reduce(coefficients[i]!, p)) % p;
+  if (value !== direct) throw new Error('internal: modular determinant failed its verification');
+  return { coefficients, primes: k };
+}
+
+function coefficientsModPrime(a: SparseMatrix, b: SparseMatrix, p: number, reciprocal?: 1 | -1): number[] {
+  const n = a.size;
+  const pencil = new BandedPencil(a, b, p);
+  const xs: number[] = [];
+  const ys: number[] = [];
+  const used = new Set<number>();
+  for (let t = 2; xs.length < n + 1; t++) {
+    if (used.has(t)) continue;
+    const value = pencil.determinantAt(t);
+    xs.push(t);
+    ys.push(value);
+    used.add(t);
+    if (reciprocal !== undefined && xs.length < n + 1) {
+      const inverse = invMod(t, p);
+      if (!used.has(inverse)) {
+        // det(t⁻¹A − B) = ± t^(−n) det(tA − B)
+        const scaled = mulMod(value, powMod(inverse, n, p), p);
+        xs.push(inverse);
+        ys.push(reciprocal === 1 ? scaled : (p - scaled) % p);
+        used.add(inverse);
+      }
+    }
+  }
+  return interpolate(xs, ys, p);
+}
