@@ -172,6 +172,9 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
   let keys: string[] = [''];
   let partners = new Uint16Array(0);
   let polys: StatePoly[] = [{ lo: 0, limbs: [Float64Array.of(1)], bound: 1 }];
+  // Two slabs take turns: the sources of one step live in one, its targets in the other.
+  let sourceSlab = new Float64Array(0);
+  let spareSlab = new Float64Array(0);
   const dStride = 4 / step; // index distance between the terms A^(2l−4j) of d^l
 
   for (let k = 0; k < steps.length; k++) {
@@ -263,10 +266,12 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     }
 
     // Phase 2: accumulate every contribution into its target.
-    // One zeroed slab for all targets: far cheaper than an allocation per limb.
+    // One zeroed slab for all targets, reused across steps: far cheaper than fresh arrays.
     let slabSize = 0;
     for (let t = 0; t < nextKeys.length; t++) slabSize += ((tHi[t]! - tLo[t]!) / step + 1) * tLimbs[t]!;
-    const slab = new Float64Array(slabSize);
+    if (spareSlab.length < slabSize) spareSlab = new Float64Array(Math.ceil(slabSize * 1.25));
+    else spareSlab.fill(0, 0, slabSize);
+    const slab = spareSlab;
     const nextPolys: StatePoly[] = new Array(nextKeys.length);
     for (let t = 0, at = 0; t < nextKeys.length; t++) {
       const length = (tHi[t]! - tLo[t]!) / step + 1;
@@ -288,6 +293,8 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     keys = nextKeys;
     partners = nextPartners;
     polys = nextPolys;
+    spareSlab = sourceSlab;
+    sourceSlab = slab;
   }
 
   if (keys.length !== 1 || keys[0] !== '') throw new Error('internal: contraction ended with an open boundary');
