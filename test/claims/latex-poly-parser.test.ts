@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { readNumber, readPolynomial } from '../../src/core/claims/latex-poly-parser.ts';
 import { InputError } from '../../src/core/errors.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
@@ -108,5 +109,26 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
   it('refuses half powers of A, whose exponents are integers (Kauffman 1987, from memory)', () => {
     const e = refusal('A^{1/2}', { variables: ['A'], what: 'the Kauffman bracket' });
     expect(e.message).toMatch(/not an integer/);
+  });
+});
+
+describe('robustness (fast-check): any text is either read or refused with an InputError inside the text', () => {
+  const pieces = ['t', 'A', 'q', 'x', '1', '2', '9', '0', '+', '-', '^', '{', '}', '(', ')', '/', '\\frac', '\\sqrt', '\\cdot', '\\left(', '\\right)', '\\,', ' ', '.', '5', '_', '[', ']', '\\alpha', '{}', '^{64}', '^{-1}', '^{1/2}'];
+  it('never throws anything else, and spans stay within the text', () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom(...pieces), { maxLength: 24 }), (parts) => {
+        const text = parts.join('');
+        try {
+          readPolynomial(text, { variables: ['t', 'A'] });
+        } catch (e) {
+          expect(e).toBeInstanceOf(InputError);
+          const span = (e as InputError).span!;
+          expect(span.start).toBeGreaterThanOrEqual(0);
+          expect(span.end).toBeLessThanOrEqual(text.length);
+          expect(span.start).toBeLessThanOrEqual(span.end);
+        }
+      }),
+      { numRuns: 3000 },
+    );
   });
 });

@@ -32,6 +32,8 @@ export function exponentDenominator(variable: string): number {
 
 /** The largest natural power of a sum we expand; higher ones are surely typos. */
 const MAX_EXPANDED_POWER = 64;
+/** … and the widest expansion, in units of the variable's exponent. */
+const MAX_EXPANDED_SPAN = 4096;
 const MAX_EXPONENT = 100000;
 
 type TokenKind = 'number' | 'letter' | 'op' | 'command' | 'end';
@@ -483,9 +485,12 @@ class PolynomialParser {
     const r = exponent.value;
     const whole = { start: base.start, end: exponent.end };
     if (r.q === 1 && r.p >= 0) {
-      if (base.value.termCount > 1 && r.p > MAX_EXPANDED_POWER)
+      const b = base.value;
+      if (b.termCount > 1 && (r.p > MAX_EXPANDED_POWER || b.span * r.p > MAX_EXPANDED_SPAN))
         fail(`the power ${r.p} of a sum is too large to expand: write the polynomial out`, exponent);
-      return base.value.pow(r.p);
+      const reach = Math.max(Math.abs(b.minDegree ?? 0), Math.abs(b.maxDegree ?? 0)) * r.p;
+      if (reach > MAX_EXPONENT) fail(`the exponent ${reach} is too large to be meant`, whole);
+      return b.pow(r.p);
     }
     const b = base.value;
     if (b.isZero) fail(`zero cannot be raised to the power ${formatRational(r)}`, whole);
