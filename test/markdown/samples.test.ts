@@ -83,3 +83,11 @@ describe('the sample with planted slips', () => {
     expectGolden('twists-and-weaves-slips.filled.md', readFileSync(out, 'utf8'));
   });
 });
+
+describe('the README', () => {
+  it('quotes the failing check verbatim', () => {
+    const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
+    const golden = readFileSync(join(ROOT, 'test/golden/markdown/twists-and-weaves-slips.check.txt'), 'utf8');
+    expect(readme).toContain('````text\n' + golden + '````');
+  });
+});
