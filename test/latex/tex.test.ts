@@ -1,0 +1,165 @@
+/**
+ * Real TeX: the package and the sample are compiled with pdflatex (the
+ * reference for what LaTeX accepts and typesets) before preprocessing and
+ * after each way of building, and the PDF is read back with pdftotext.
+ * Every run happens in a temporary copy.
+ */
+import { copyFileSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { latexFormat } from '../../src/cli/formats/latex.ts';
+import { readLatexManuscript } from '../../plugins/latex/reader.ts';
+import { runSession } from '../../src/core/manuscript/session.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
+import {
+  NO_TEX_REASON,
+  PACKAGE_FILE,
+  SAMPLES,
+  asPdfText,
+  copyInto,
+  hasPdflatex,
+  packageWarnings,
+  pdflatex,
+  removeDir,
+  squeeze,
+  tempDir,
+  unwrapLog,
+} from './support.ts';
+
+if (!hasPdflatex) console.warn(`test/latex/tex.test.ts skipped: ${NO_TEX_REASON}`);
+
+const dirs: string[] = [];
+function workDir(prefix: string, withPackage: boolean): string {
+  const dir = tempDir(prefix);
+  dirs.push(dir);
+  if (withPackage) copyFileSync(PACKAGE_FILE, join(dir, 'skeinproof.sty'));
+  return dir;
+}
+afterAll(() => dirs.forEach(removeDir));
+
+/** The values a build fills in, as computed by the pipeline, for looking them up in the PDF. */
+function computedValues(path: string) {
+  const files = { read: (p: string) => readFileSync(p, 'utf8'), realpath: (p: string) => realpathSync(p) };
+  const doc = readLatexManuscript(path, files);
+  const session = runSession({
+    diagrams: doc.diagrams,
+    claims: doc.claims,
+    fills: doc.fills.map((f) => f.entry),
+    convention: { ...DEFAULT_CONVENTION, ...doc.convention },
+  });
+  return { doc, values: session.fills };
+}
+
+/** A typeset statement as pdftotext shows it: math delimiters and \operatorname gone. */
+function statementAsPdfText(text: string): string {
+  return asPdfText(text.replace(/\\operatorname\{([^}]*)\}/g, '$1').replace(/\$/g, ''));
+}
+
+function expectEveryValueIn(pdfText: string, path: string): void {
+  const { values } = computedValues(path);
+  const found = squeeze(pdfText);
+  for (const v of values) {
+    expect(v).toBeDefined();
+    const shown = v!.kind === 'math' ? asPdfText(v!.latex) : statementAsPdfText(v!.text);
+    expect(found, `PDF text should contain ${shown}`).toContain(shown);
+  }
+}
+
+async function build(dir: string, output?: string): Promise<void> {
+  const result = await latexFormat.build(join(dir, 'rope-atlas.tex'), output ? { output: join(dir, output) } : {});
+  expect(result.failed).toBe(false);
+  for (const o of result.outputs) writeFileSync(o.path, o.content);
+}
+
+describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
+  it('loads cleanly in a minimal document', () => {
+    const dir = workDir('minimal', true);
+    writeFileSync(join(dir, 'min.tex'), '\\documentclass{article}\n\\usepackage{skeinproof}\n\\begin{document}\nPlain text.\n\\end{document}\n');
+    const run = pdflatex(dir, 'min.tex');
+    expect(run.ok).toBe(true);
+    expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+    expect(run.text).toContain('Plain text.');
+  });
+
+  it('compiles the sample before preprocessing: placeholders and one warning per missing value', () => {
+    const dir = workDir('raw', true);
+    copyInto(dir, SAMPLES);
+    rmSync(join(dir, 'slips'), { recursive: true });
+    const run = pdflatex(dir, 'rope-atlas.tex');
+    expect(run.ok).toBe(true);
+    const { doc } = computedValues(join(dir, 'rope-atlas.tex'));
+    const expected = doc.fills.map((f) =>
+      f.target.kind === 'macro'
+        ? `Value \`${f.target.key}' of \`${f.target.id}' is not computed yet`
+        : `Value \`${f.entry.key}' of row ${f.target.row} of skein table ${f.target.table} is not computed yet`,
+    );
+    const warnings = packageWarnings(run.log, 'skeinproof');
+    const perValue = warnings.filter((w) => w.startsWith('Value'));
+    expect(perValue.map((w) => w.replace(/ on input line \d+\.$/, ''))).toEqual(expected);
+    expect(warnings.some((w) => w.startsWith('Some computed values are missing'))).toBe(true);
+    expect(squeeze(run.text)).toContain('??lanyard:jones');
+    expect(squeeze(run.text)).toContain('??coil:statement');
+  });
+
+  it('after `build` the sidecar fills every value: no warnings, the computed values in the PDF', async () => {
+    const dir = workDir('sidecar', true);
+    copyInto(dir, SAMPLES);
+    await build(dir);
+    const run = pdflatex(dir, 'rope-atlas.tex');
+    expect(run.ok).toBe(true);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    // Published values (from memory): the positive trefoil t + t³ − t⁴, here in descending order.
+    expect(squeeze(run.text)).toContain(asPdfText('-t^4 + t^3 + t'));
+    expect(squeeze(run.text)).toContain(squeeze('crossing number is 5.'));
+    expectEveryValueIn(run.text, join(dir, 'rope-atlas.tex'));
+  });
+
+  it('the flat copy compiles without the package and shows the same values', async () => {
+    const dir = workDir('flat', false);
+    copyInto(dir, SAMPLES);
+    await build(dir, 'flat.tex');
+    const run = pdflatex(dir, 'flat.tex');
+    expect(run.ok).toBe(true);
+    expect(run.log).not.toContain('skeinproof.sty');
+    expect(squeeze(run.text)).toContain(asPdfText('-t^4 + t^3 + t'));
+    expect(squeeze(run.text)).toContain(squeeze('crossing number is 5.'));
+    expectEveryValueIn(run.text, join(dir, 'rope-atlas.tex'));
+  });
+
+  it('TeX and the reader count the rows and cells of a skein table alike', async () => {
+    // Header rows, \\[skip], rules before and after rows, a comment in a cell, a last row without \\.
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeincode}{id=b, notation=braid}\n1 -2 1 -2\n\\end{skeincode}',
+      '\\begin{skeincode}{id=c, notation=braid}\n1 1 1 1 1\n\\end{skeincode}',
+      '\\begin{skeintable}[head=2]{id, jones, crossings}',
+      '\\begin{tabular}{|l|p{6cm}|c|}\\hline',
+      'Id & $V$ & $n$ \\\\ \\hline',
+      '(first) & & (third) \\\\[3pt]\\hline\\hline',
+      'a & % the computed value goes here',
+      ' & \\\\ \\cline{1-2}',
+      'b & & 4\\\\',
+      'c & & ',
+      '\\end{tabular}',
+      '\\end{skeintable}',
+      '\\end{document}',
+    ].join('\n');
+    for (const flat of [false, true]) {
+      const dir = workDir('rows', !flat);
+      writeFileSync(join(dir, 'rows.tex'), paper);
+      const result = await latexFormat.build(join(dir, 'rows.tex'), flat ? { output: join(dir, 'rows-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) writeFileSync(o.path, o.content);
+      const run = pdflatex(dir, flat ? 'rows-flat.tex' : 'rows.tex');
+      expect(run.ok).toBe(true);
+      expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+      const text = squeeze(run.text);
+      // Jones polynomials from memory: trefoil, figure-eight, cinquefoil; crossings of the braids 3 and 5.
+      for (const v of ['t + t^3 - t^4', 't^{-2} - t^{-1} + 1 - t + t^2', 't^2 + t^4 - t^5 + t^6 - t^7']) expect(text).toContain(asPdfText(v));
+      expect(text).not.toContain('??');
+    }
+  });
+});
