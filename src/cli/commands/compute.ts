@@ -138,7 +138,7 @@ function judgeCodeClaims(position: number, report: DiagramReport, others: Readon
     const sources = new Map([[file, claim.text]]);
     for (const d of found) blocks.push(formatDiagnostic(d, { color, sources }));
   });
-  return { json, diagnostics, plain: [...lines, ...blocks.map((b) => `${b}`)].join('\n') };
+  return { json, diagnostics, plain: [...lines, ...blocks].join('\n') };
 }
 
 /** An argument that looks like a long or lettered option; codes such as `-1 2 -1` do not. */
