@@ -44,7 +44,7 @@ export interface SkeinproofData {
   readonly failed: boolean;
   readonly session: SessionResult;
   readonly manuscript: ExtractedManuscript;
-  /** The build's text edits, by offsets into the file (fill-ins that could not be computed stay as written). */
+  /** The build's text edits, by offsets into the file text as given (fill-ins that could not be computed stay as written). */
   readonly splices: readonly Splice[];
 }
 
@@ -58,7 +58,10 @@ const DEFAULT_FILE_NAME = '<input>';
 
 export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
   return function transformer(tree: Root, file: VFile): void {
-    const source = new SourceText(String(file.value ?? ''), file.path || DEFAULT_FILE_NAME);
+    const raw = typeof file.value === 'string' ? file.value : new TextDecoder().decode(file.value ?? new Uint8Array());
+    // micromark skips a leading byte order mark, so node offsets count from after it.
+    const bom = raw.startsWith('\uFEFF') ? 1 : 0;
+    const source = new SourceText(raw.slice(bom), file.path || DEFAULT_FILE_NAME);
     const manuscript = extractManuscript(tree, source, options.notation ? { notation: options.notation } : {});
     const convention: Convention = { ...DEFAULT_CONVENTION, ...manuscript.settings.convention, ...options.convention };
     const strict = options.strict ?? manuscript.settings.strict ?? false;
@@ -69,10 +72,12 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
     const splices: Splice[] = [];
     for (const edit of manuscript.edits) {
       const r = edit.replacement;
-      if ('text' in r) splices.push({ start: edit.start, end: edit.end, text: r.text });
+      const start = edit.start + bom;
+      const end = edit.end + bom;
+      if ('text' in r) splices.push({ start, end, text: r.text });
       else {
         const value = session.fills[r.fill];
-        if (value !== undefined) splices.push({ start: edit.start, end: edit.end, text: typesetMarkdown(value, r.inTableCell) });
+        if (value !== undefined) splices.push({ start, end, text: typesetMarkdown(value, r.inTableCell) });
       }
     }
     file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices };

@@ -196,3 +196,14 @@ describe('front matter', () => {
     expect((await processMarkdown(body, { strict: true })).failed).toBe(true);
   });
 });
+
+describe('file encodings', () => {
+  it('keeps positions and bytes right with a byte order mark and CRLF line ends', async () => {
+    const text = '\uFEFF```skein id=k notation=braid\r\n1 x 1\r\n```\r\n\r\nA :writhe{of=q} and :jones[$t$]{of=k}\r\n';
+    const r = await processMarkdown(text);
+    // Columns as an editor shows them: the mark is not a character of line 1.
+    expect(placed(r.diagnostics)).toEqual(['error code-invalid 2:3', 'error target-unknown 5:3', 'note target-invalid 5:28']);
+    const ok = '\uFEFF```skein id=k notation=braid\r\n1 1 1\r\n```\r\n\r\nA :writhe{of=k} and :jones[$t+t^3-t^4$]{of=k}\r\n';
+    expect((await processMarkdown(ok)).built).toBe('\uFEFF```skein id=k notation=braid\r\n1 1 1\r\n```\r\n\r\nA $3$ and $t+t^3-t^4$\r\n');
+  });
+});
