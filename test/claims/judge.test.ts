@@ -105,6 +105,19 @@ describe('slip diagnoses, each on its slip and not on a correct claim', () => {
     // −q − q⁵ is the plain q form; in the q-graded document it is the negation.
     expect(judge('jones', '-q - q^5', positiveHopf, { convention }).diagnosis?.kind).toBe('negated');
   });
+  it('diagnoses a value written in another declared convention as normalization', () => {
+    const qDocument: Convention = { ...DEFAULT_CONVENTION, jonesVariable: 'q' };
+    const inT = judge('jones', 't + t^3 - t^4', rightTrefoil, { convention: qDocument });
+    expect(inT.verdict).toBe('contradicts');
+    expect(inT.diagnosis?.kind).toBe('normalization');
+    expect(inT.diagnosis?.detail).toMatch(/jones=t/);
+    const loopDocument: Convention = { ...DEFAULT_CONVENTION, bracketNormalization: 'loop' };
+    const unit = judge('bracket', 'A^{-7} - A^{-3} - A^{5}', rightTrefoil, { convention: loopDocument });
+    expect(unit.diagnosis?.kind).toBe('normalization');
+    expect(unit.diagnosis?.detail).toMatch(/bracket=unit/);
+    // A value in a foreign variable that matches no form of the invariant is unexplained.
+    expect(judge('jones', 't + t^5', rightTrefoil, { convention: qDocument }).diagnosis?.kind).toBe('none');
+  });
   it('throws claim-unreadable for text it cannot read', () => {
     expect(() => judge('jones', 't^{2')).toThrow(InputError);
   });
