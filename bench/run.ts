@@ -132,7 +132,7 @@ async function main(): Promise<void> {
   // Other families.
   for (const n of [100, 200]) bench(`alternating, 4-strand closure, shuffled`, 'built directly', alternatingBraidClosure(n, 4, n), spanCheck);
   bench('alternating, 8-strand closure, shuffled', 'built directly', alternatingBraidClosure(8, 8, 300), spanCheck);
-  bench('alternating, 10-strand closure, shuffled', 'built directly', alternatingBraidClosure(10, 10, 120), spanCheck);
+  bench('alternating, 9-strand closure, shuffled', 'built directly', alternatingBraidClosure(9, 9, 300), spanCheck);
   const randomWord = randomBraidWord(rng(42), 6, 400);
   bench('random 6-strand braid closure, shuffled', 'built directly', shuffleDiagram(closeBraid(randomWord, 6), rng(43)), valueAtOneCheck);
   let chain = closeBraid([1, 1, 1], 2);
