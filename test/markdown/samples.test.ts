@@ -15,11 +15,12 @@ const SLIPS = 'samples/twists-and-weaves-slips.md';
 const work = mkdtempSync(join(tmpdir(), 'skeinproof-samples-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-function lineOf(file: string, needle: string): number {
+/** `line:column` of `token` on the first line of `file` that contains `lineNeedle`. */
+function placeOf(file: string, lineNeedle: string, token: string): string {
   const lines = readFileSync(join(ROOT, file), 'utf8').split('\n');
-  const i = lines.findIndex((l) => l.includes(needle));
-  if (i < 0) throw new Error(`${needle} not in ${file}`);
-  return i + 1;
+  const i = lines.findIndex((l) => l.includes(lineNeedle));
+  if (i < 0 || !lines[i]!.includes(token)) throw new Error(`${lineNeedle} / ${token} not in ${file}`);
+  return `${i + 1}:${lines[i]!.indexOf(token) + 1}`;
 }
 
 describe('the clean sample', () => {
@@ -50,17 +51,17 @@ describe('the sample with planted slips', () => {
     const r = skeinproof(['check', '--format', 'json', SLIPS]);
     // An invalid code is unusable input: exit status 2 (README `markdown`).
     expect(r.status).toBe(2);
-    const report = JSON.parse(r.stdout) as { diagnostics: { severity: string; ruleId: string; location: { start: { line: number } } }[] };
-    const errors = report.diagnostics.filter((d) => d.severity === 'error').map((d) => `${d.ruleId}@${d.location.start.line}`);
+    const report = JSON.parse(r.stdout) as { diagnostics: { severity: string; ruleId: string; location: { start: { line: number; column: number } } }[] };
+    const errors = report.diagnostics.filter((d) => d.severity === 'error').map((d) => `${d.ruleId}@${d.location.start.line}:${d.location.start.column}`);
     expect(errors).toEqual([
-      `claim-contradicted@${lineOf(SLIPS, 'id=twist-5 crossing-number=6')}`, // above the diagram's own 5 crossings
-      `claim-contradicted@${lineOf(SLIPS, 't^{-1} + t^{-3} - t^{-4}')}`, // the mirror image's polynomial
-      `claim-contradicted@${lineOf(SLIPS, 't^{3} + t^{5} - t^{6}')}`, // every exponent shifted by one
-      `code-invalid@${lineOf(SLIPS, '(6,4,1,7)')}`, // edge label 7 where 3 belongs
-      `id-duplicate@${lineOf(SLIPS, 'id=weave-2-pd notation=dt')}`, // the second use of the id
-      `claim-contradicted@${lineOf(SLIPS, '1 + t + t^{2}')}`, // the sign of t dropped
-      `claim-unreadable@${lineOf(SLIPS, 't^{3$')}`, // an unclosed brace
-      `claim-contradicted@${lineOf(SLIPS, '| weave-4 | $8$')}`, // crossing number 6 below span 8
+      `claim-contradicted@${placeOf(SLIPS, 'id=twist-5 crossing-number=6', '6')}`, // above the diagram's own 5 crossings
+      `claim-contradicted@${placeOf(SLIPS, 't^{-1} + t^{-3} - t^{-4}', '$t^{-1}')}`, // the mirror image's polynomial
+      `claim-contradicted@${placeOf(SLIPS, 't^{3} + t^{5} - t^{6}', '$t^{3}')}`, // every exponent shifted by one
+      `code-invalid@${placeOf(SLIPS, '(6,4,1,7)', '3,5)')}`, // label 3 left alone once 7 replaced it
+      `id-duplicate@${placeOf(SLIPS, 'id=weave-2-pd notation=dt', 'weave-2-pd')}`, // the second use of the id
+      `claim-contradicted@${placeOf(SLIPS, '1 + t + t^{2}', '$t^{-2}')}`, // the sign of t dropped
+      `claim-unreadable@${placeOf(SLIPS, 't^{3$', '{3$')}`, // an unclosed brace
+      `claim-contradicted@${placeOf(SLIPS, '| weave-4 | $8$', '$6$')}`, // crossing number 6 below span 8
     ]);
     expect(report.diagnostics.filter((d) => d.severity === 'warning')).toEqual([]);
   });

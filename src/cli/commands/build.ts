@@ -36,18 +36,25 @@ export function readBuildArgs(raw: Record<string, unknown>): BuildArgs | string 
   return { ...args, options, forceWrite: raw['force-write'] === true };
 }
 
-/** One build of one manuscript: report on stderr, say on stdout what was written. Returns the exit status. */
-export async function buildOnce(path: string, args: BuildArgs): Promise<number> {
+export interface BuildOutcome {
+  readonly status: number;
+  /** The files the build read (for watch). */
+  readonly inputs: readonly string[];
+}
+
+/** One build of one manuscript: report on stderr, say on stdout what was written. */
+export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOutcome> {
   const format = formatOf(path);
-  if (typeof format === 'string') return usage(format);
+  if (typeof format === 'string') return { status: usage(format), inputs: [path] };
   const result = await format.build(path, args.options);
   const strict = args.options.strict === true;
   const failed = resultFailed(result, strict);
   if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict, process.stderr.isTTY === true));
   const status = exitStatusFor(result.diagnostics, failed, strict);
+  const inputs = result.inputs;
   if (failed && !args.forceWrite) {
     if (result.outputs.length > 0) process.stderr.write('skeinproof: nothing written because the check failed; fix the errors above, or pass --force-write\n');
-    return status;
+    return { status, inputs };
   }
   for (const output of result.outputs) {
     try {
@@ -55,11 +62,11 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<number> 
     } catch (e) {
       const reason = e instanceof OutputRefused ? e.message : `cannot write ${output.path}: ${(e as Error).message}`;
       process.stderr.write(`skeinproof: ${reason}\n`);
-      return EXIT_USAGE;
+      return { status: EXIT_USAGE, inputs };
     }
     process.stdout.write(`wrote ${output.path}\n`);
   }
-  return status;
+  return { status, inputs };
 }
 
 export const buildCommand: CliCommand = {
@@ -69,6 +76,6 @@ export const buildCommand: CliCommand = {
   run: async (raw) => {
     const args = readBuildArgs(raw);
     if (typeof args === 'string') return usage(args);
-    return buildOnce(String(raw['file']), args);
+    return (await buildOnce(String(raw['file']), args)).status;
   },
 };

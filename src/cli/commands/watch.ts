@@ -1,7 +1,8 @@
 /**
  * `skeinproof watch FILE`: build once, then again whenever the manuscript (or
- * a file it reads) changes, until interrupted. Editors often save by writing a
- * new file and renaming it, so the directories are watched, not the files.
+ * a file it reads, as the last build reported) changes, until interrupted.
+ * Editors often save by writing a new file and renaming it, so the
+ * directories are watched, not the files.
  */
 import { watch, type FSWatcher } from 'node:fs';
 import { basename, dirname, resolve } from 'node:path';
@@ -23,30 +24,37 @@ export const watchCommand: CliCommand = {
     const path = String(raw['file']);
     const format = formatOf(path);
     if (typeof format === 'string') return usage(format);
-    const watched = new Set([resolve(path)]);
-    const watchers: FSWatcher[] = [];
+    const watched = new Set<string>([resolve(path)]);
+    const watchers = new Map<string, FSWatcher>();
     let timer: NodeJS.Timeout | undefined;
     let running: Promise<void> = Promise.resolve();
 
-    const rebuild = (why: string): void => {
-      running = running.then(async () => {
-        process.stdout.write(`--- ${new Date().toISOString().slice(11, 19)} ${why}\n`);
-        await buildOnce(path, args);
-        process.stdout.write(`--- watching ${path} (Ctrl-C stops)\n`);
-      });
-    };
     const onEvent = (dir: string) => (_event: string, name: string | Buffer | null) => {
       if (name !== null && !watched.has(resolve(dir, String(name)))) return;
       clearTimeout(timer);
       timer = setTimeout(() => rebuild(`${path} changed, rebuilding`), DEBOUNCE_MS);
     };
-    for (const dir of new Set([...watched].map((f) => dirname(f)))) watchers.push(watch(dir, onEvent(dir)));
+    const watchDirectoriesOf = (files: readonly string[]): void => {
+      for (const f of files) watched.add(resolve(f));
+      for (const dir of new Set([...watched].map((f) => dirname(f)))) {
+        if (!watchers.has(dir)) watchers.set(dir, watch(dir, onEvent(dir)));
+      }
+    };
+    const rebuild = (why: string): void => {
+      running = running.then(async () => {
+        process.stdout.write(`--- ${new Date().toISOString().slice(11, 19)} ${why}\n`);
+        const outcome = await buildOnce(path, args);
+        watchDirectoriesOf(outcome.inputs);
+        process.stdout.write(`--- watching ${path} (Ctrl-C stops)\n`);
+      });
+    };
+    watchDirectoriesOf([path]);
     rebuild(`building ${basename(path)}`);
 
     await new Promise<void>((done) => {
       const stop = (): void => {
         clearTimeout(timer);
-        for (const w of watchers) w.close();
+        for (const w of watchers.values()) w.close();
         void running.then(done);
       };
       process.once('SIGINT', stop);
