@@ -32,7 +32,8 @@ export const watchCommand: CliCommand = {
     const onEvent = (dir: string) => (_event: string, name: string | Buffer | null) => {
       if (name !== null && !watched.has(resolve(dir, String(name)))) return;
       clearTimeout(timer);
-      timer = setTimeout(() => rebuild(`${path} changed, rebuilding`), DEBOUNCE_MS);
+      const changed = name === null ? path : String(name);
+      timer = setTimeout(() => rebuild(`${changed} changed, rebuilding`), DEBOUNCE_MS);
     };
     const watchDirectoriesOf = (files: readonly string[]): void => {
       for (const f of files) watched.add(resolve(f));
