@@ -1,0 +1,122 @@
+/**
+ * Both LaTeX samples end to end: the clean atlas passes, the planted-slips
+ * copy fails with exactly its six slips at their lines, the built sidecar and
+ * flat copy match golden files byte for byte (SKEINPROOF_UPDATE_GOLDEN=1
+ * rewrites them; review the diff), and the sample's values are the published
+ * ones for these knots.
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { latexFormat } from '../../src/cli/formats/latex.ts';
+import { readLatexManuscript } from '../../plugins/latex/reader.ts';
+import { runSession } from '../../src/core/manuscript/session.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
+import { Laurent } from '../../src/core/poly/laurent.ts';
+import { REPO, SAMPLES, copyInto, removeDir, tempDir } from './support.ts';
+
+const CLEAN = join(SAMPLES, 'rope-atlas.tex');
+const SLIPS = join(SAMPLES, 'slips/rope-atlas.tex');
+const GOLDEN = join(import.meta.dirname, 'golden');
+
+function expectGolden(name: string, actual: string): void {
+  const path = join(GOLDEN, name);
+  if (process.env['SKEINPROOF_UPDATE_GOLDEN'] === '1') {
+    writeFileSync(path, actual);
+    return;
+  }
+  if (!existsSync(path)) throw new Error(`golden file ${path} is missing; run with SKEINPROOF_UPDATE_GOLDEN=1 to create it`);
+  expect(actual).toBe(readFileSync(path, 'utf8'));
+}
+
+const dirs: string[] = [];
+afterAll(() => dirs.forEach(removeDir));
+
+describe('the clean sample', () => {
+  it('passes check with nothing to report', async () => {
+    const result = await latexFormat.check(CLEAN, {});
+    expect(result.diagnostics).toEqual([]);
+    expect(result.failed).toBe(false);
+    expect(result.inputs).toEqual([CLEAN, join(SAMPLES, 'sections/atlas-table.tex')]);
+  });
+
+  it('builds the golden sidecar and the golden flat copy', async () => {
+    const sidecar = await latexFormat.build(CLEAN, {});
+    expect(sidecar.outputs.map((o) => o.path)).toEqual([join(SAMPLES, 'rope-atlas.skein.tex')]);
+    expectGolden('rope-atlas.skein.tex', String(sidecar.outputs[0]!.content));
+    const flat = await latexFormat.build(CLEAN, { output: join(SAMPLES, 'flat.tex') });
+    expectGolden('rope-atlas.flat.tex', String(flat.outputs[0]!.content));
+  });
+
+  it('uses the values published for these knots', () => {
+    const files = { read: (p: string) => readFileSync(p, 'utf8'), realpath: (p: string) => realpathSync(p) };
+    const doc = readLatexManuscript(CLEAN, files);
+    const { reports } = runSession({ diagrams: doc.diagrams, claims: [], fills: [], convention: DEFAULT_CONVENTION });
+    const poly = (terms: [number, number][]) => Laurent.fromTerms(terms);
+    // Jones polynomials from memory (standard knot tables; the table's chirality may be the mirror, t ↔ 1/t).
+    const known: [string, Laurent, 'exact' | 'up to mirror'][] = [
+      ['lanyard', poly([[1, 1], [3, 1], [4, -1]]), 'exact'], // right-handed trefoil
+      ['lanyard-mirror', poly([[-1, 1], [-3, 1], [-4, -1]]), 'exact'], // left-handed trefoil
+      ['heaving', poly([[-2, 1], [-1, -1], [0, 1], [1, -1], [2, 1]]), 'exact'], // figure-eight
+      ['heaving-pd', poly([[-2, 1], [-1, -1], [0, 1], [1, -1], [2, 1]]), 'exact'],
+      ['coil', poly([[2, 1], [4, 1], [5, -1], [6, 1], [7, -1]]), 'exact'], // 5_1, closure of σ₁⁵
+      ['netmaker', poly([[-1, 1], [-2, -1], [-3, 2], [-4, -1], [-5, 1], [-6, -1]]), 'up to mirror'], // 5_2
+      ['stevedore', poly([[-4, 1], [-3, -1], [-2, 1], [-1, -2], [0, 2], [1, -1], [2, 1]]), 'up to mirror'], // 6_1
+      ['hitch-a', poly([[-5, 1], [-4, -2], [-3, 2], [-2, -2], [-1, 2], [0, -1], [1, 1]]), 'up to mirror'], // 6_2
+      ['hitch-b', poly([[-3, -1], [-2, 2], [-1, -2], [0, 3], [1, -2], [2, 2], [3, -1]]), 'exact'], // 6_3, amphichiral
+      ['grommets', poly([[0.5, -1], [2.5, -1]]), 'exact'], // positive Hopf link
+      ['loop', Laurent.one, 'exact'], // the unknot
+    ];
+    expect(doc.diagrams).toHaveLength(known.length);
+    for (const [id, jones, how] of known) {
+      const computed = reports.get(id)!.jones;
+      const matches = computed.equals(jones) || (how === 'up to mirror' && computed.equals(jones.substitutePower(-1)));
+      expect(matches, `${id}: ${computed.toPlainString('t')}`).toBe(true);
+    }
+  });
+});
+
+describe('the planted-slips sample', () => {
+  it('fails with exactly its six slips, at the lines where they are', async () => {
+    const result = await latexFormat.check(SLIPS, {});
+    expect(result.failed).toBe(true);
+    const at = (d: (typeof result.diagnostics)[number]) => `${d.severity} ${d.ruleId} ${relative(SAMPLES, d.location!.file)}:${d.location!.start.line}`;
+    expect(result.diagnostics.filter((d) => d.severity !== 'note').map(at)).toEqual([
+      'error claim-contradicted slips/rope-atlas.tex:29', // wrong sign: writhe 3 for a negative trefoil
+      'error claim-contradicted slips/rope-atlas.tex:50', // the mirror image's Jones polynomial
+      'error claim-contradicted slips/rope-atlas.tex:57', // crossing number at most 4 against span 5
+      'error code-invalid slips/rope-atlas.tex:74', // a PD label used once
+      'error claim-unreadable slips/sections/atlas-table.tex:12', // an unbalanced bracket
+      'error claim-contradicted slips/sections/atlas-table.tex:15', // crossing number 7 for a 6-crossing diagram
+    ]);
+    const [sign, mirror, span, , , count] = result.diagnostics.filter((d) => d.severity === 'error');
+    expect(sign!.computed).toBe('-3');
+    expect(mirror!.message).toContain('mirror image');
+    expect(span!.message).toContain('span');
+    expect(count!.message).toContain('6 crossings');
+    // What depends on the invalid code is noted, not judged.
+    expect(result.diagnostics.filter((d) => d.severity === 'note').every((d) => d.ruleId === 'target-invalid')).toBe(true);
+  });
+});
+
+describe('the command line on the samples', () => {
+  it('`build` writes the golden sidecar beside the paper and `build -o` the flat copy; the slips fail check', () => {
+    const dir = tempDir('cli');
+    dirs.push(dir);
+    copyInto(dir, SAMPLES);
+    const cli = (...args: string[]) => spawnSync(process.execPath, [join(REPO, 'bin/skeinproof.js'), ...args], { cwd: dir, encoding: 'utf8' });
+    const sidecar = cli('build', 'rope-atlas.tex');
+    expect(sidecar.status).toBe(0);
+    expectGolden('rope-atlas.skein.tex', readFileSync(join(dir, 'rope-atlas.skein.tex'), 'utf8'));
+    const flat = cli('build', 'rope-atlas.tex', '-o', 'flat.tex');
+    expect(flat.status).toBe(0);
+    expectGolden('rope-atlas.flat.tex', readFileSync(join(dir, 'flat.tex'), 'utf8'));
+    expect(readFileSync(join(dir, 'rope-atlas.tex'), 'utf8')).toBe(readFileSync(CLEAN, 'utf8'));
+    rmSync(join(dir, 'slips/rope-atlas.skein.tex'), { force: true });
+    const slips = cli('check', 'slips/rope-atlas.tex');
+    expect(slips.status).toBe(2); // an invalid code is among the slips
+    expect(slips.stdout).toContain('slips/sections/atlas-table.tex:15:56: error');
+    expect(slips.stdout).toContain('6 errors');
+  });
+});
