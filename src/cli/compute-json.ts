@@ -11,7 +11,7 @@ import type { TextSpan } from '../core/diagnostics/diagnostic.ts';
 import type { Laurent } from '../core/poly/laurent.ts';
 
 export interface PolynomialJson {
-  readonly variable: 't' | 'A';
+  readonly variable: 't' | 'A' | 'z';
   /** [exponent, coefficient] by ascending exponent, zero terms left out. */
   readonly terms: readonly (readonly [number, string])[];
 }
@@ -51,6 +51,14 @@ export interface ComputeJson {
   readonly chiralityFixed: boolean;
   readonly crossingNumber: CrossingNumberJson;
   readonly boundaryWidth: number;
+  /** Δ(t) in Conway's normalisation (half-integer exponents for an even number of components). */
+  readonly alexander: PolynomialJson;
+  /** ∇(z), with Δ(t) = ∇(t^{1/2} − t^{−1/2}). */
+  readonly conway: PolynomialJson;
+  /** det(L) = |Δ(−1)|, a decimal string (it can exceed 2^53). */
+  readonly determinant: string;
+  /** σ(L) with σ(positive trefoil) = −2, whatever the document convention. */
+  readonly signature: number;
 }
 
 export interface InvalidCodeJson {
@@ -103,6 +111,10 @@ export function computeJson(code: string, r: DiagramReport): ComputeJson {
       reasons: r.crossingNumber.reasons.map((x) => ({ bound: x.bound, value: x.value, theorem: x.theorem, text: x.text })),
     },
     boundaryWidth: r.boundaryWidth,
+    alexander: polynomialJson(r.classical.alexander, 't'),
+    conway: polynomialJson(r.classical.conway, 'z'),
+    determinant: r.classical.determinant.toString(),
+    signature: r.classical.signature,
   };
 }
 

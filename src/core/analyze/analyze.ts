@@ -8,13 +8,17 @@ import { diagramProperties } from '../diagram/properties.ts';
 import { crossingNumberBounds } from '../diagram/crossing-bounds.ts';
 import { kauffmanBracket } from '../invariants/bracket.ts';
 import { jonesFromBracket } from '../invariants/jones.ts';
+import { classicalInvariants } from '../invariants/classical/index.ts';
+import type { ClassicalInvariants } from '../invariants/classical/index.ts';
 import type { DiagramReport } from './report.ts';
 
 export function analyzeDiagram(d: LinkDiagram): DiagramReport {
+  // The classical invariants cost seconds on diagrams of hundreds of crossings: computed on first read.
+  let classical: ClassicalInvariants | undefined;
   const properties = diagramProperties(d);
   const { bracket, boundaryWidth } = kauffmanBracket(d);
   const jones = jonesFromBracket(bracket, properties.writhe);
-  return {
+  const report: Omit<DiagramReport, 'classical'> = {
     diagram: d,
     notation: d.notation,
     crossings: properties.crossings,
@@ -44,4 +48,8 @@ export function analyzeDiagram(d: LinkDiagram): DiagramReport {
     crossingNumber: crossingNumberBounds({ properties, jonesSpan: jones.span }),
     boundaryWidth,
   };
+  return Object.defineProperty(report, 'classical', {
+    enumerable: true,
+    get: () => (classical ??= classicalInvariants(d)),
+  }) as DiagramReport;
 }

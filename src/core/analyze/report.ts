@@ -4,6 +4,7 @@
  */
 import type { Laurent } from '../poly/laurent.ts';
 import type { LinkDiagram, Notation } from '../diagram/model.ts';
+import type { ClassicalInvariants } from '../invariants/classical/index.ts';
 
 /** Theorems a bound can rest on; the claims layer names them in its verdicts. */
 export type TheoremId =
@@ -70,4 +71,6 @@ export interface DiagramReport {
   readonly crossingNumber: CrossingNumberBounds;
   /** Largest open boundary (edge ends) the tangle contraction reached. */
   readonly boundaryWidth: number;
+  /** Alexander and Conway polynomials, determinant, signature (σ(positive trefoil) = −2) and genus bounds. */
+  readonly classical: ClassicalInvariants;
 }
