@@ -89,6 +89,14 @@ describe('tangle contraction against the state-sum definition (Kauffman 1987)', 
     expect(kauffmanBracket(closeBraid([], 4)).bracket.equals(LOOP_VALUE.pow(3))).toBe(true);
   });
 
+  it('refuses a crossing order that is not a permutation, and the empty diagram', () => {
+    const d = closeBraid([1, 1, 1], 2);
+    expect(() => kauffmanBracket(d, [0, 1])).toThrow(RangeError);
+    expect(() => kauffmanBracket(d, [0, 1, 1])).toThrow(RangeError);
+    expect(() => kauffmanBracket(d, [0, 1, 3])).toThrow(RangeError);
+    expect(() => kauffmanBracket({ ...closeBraid([], 1), freeLoops: 0 })).toThrow(RangeError);
+  });
+
   it('reports the widest boundary the planned order reaches', () => {
     const d = randomReducedAlternating(rng(3), 12, 4);
     expect(kauffmanBracket(d).boundaryWidth).toBe(planContraction(d).maxWidth);

@@ -281,12 +281,18 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     }
     for (let s = 0; s < stateCount; s++) {
       const source = polys[s]!;
-      for (let smoothing = 0; smoothing < 2; smoothing++) {
-        const target = nextPolys[contributionTarget[2 * s + smoothing]!]!;
-        const loops = contributionLoops[2 * s + smoothing]!;
-        const offset = (source.lo + (smoothing === 0 ? 1 : -1) - 2 * loops - target.lo) / step;
-        for (let j = 0; j < source.limbs.length; j++) {
-          addTimesLoopPower(target.limbs[j]!, source.limbs[j]!, offset, loops, dStride);
+      const targetA = nextPolys[contributionTarget[2 * s]!]!;
+      const targetB = nextPolys[contributionTarget[2 * s + 1]!]!;
+      const loopsA = contributionLoops[2 * s]!;
+      const loopsB = contributionLoops[2 * s + 1]!;
+      const offsetA = (source.lo + 1 - 2 * loopsA - targetA.lo) / step;
+      const offsetB = (source.lo - 1 - 2 * loopsB - targetB.lo) / step;
+      for (let j = 0; j < source.limbs.length; j++) {
+        if (loopsA <= 1 && loopsB <= 1) {
+          addBothSmoothings(source.limbs[j]!, targetA.limbs[j]!, offsetA, loopsA, targetB.limbs[j]!, offsetB, loopsB, dStride);
+        } else {
+          addTimesLoopPower(targetA.limbs[j]!, source.limbs[j]!, offsetA, loopsA, dStride);
+          addTimesLoopPower(targetB.limbs[j]!, source.limbs[j]!, offsetB, loopsB, dStride);
         }
       }
     }
@@ -328,6 +334,55 @@ function addTimesLoopPower(target: Float64Array, source: Float64Array, offset: n
       const factor = sign * row[m]!;
       const o = offset + m * stride;
       for (let i = 0; i < n; i++) target[o + i]! += factor * source[i]!;
+    }
+  }
+}
+
+/**
+ * Both smoothings of one source in a single pass (the common case: at most one
+ * loop closes on each side), reading the source once instead of twice.
+ * `targetA` and `targetB` may be the same array.
+ */
+function addBothSmoothings(
+  source: Float64Array,
+  targetA: Float64Array,
+  offsetA: number,
+  loopsA: number,
+  targetB: Float64Array,
+  offsetB: number,
+  loopsB: number,
+  stride: number,
+): void {
+  const n = source.length;
+  const a2 = offsetA + stride;
+  const b2 = offsetB + stride;
+  if (loopsA === 0 && loopsB === 0) {
+    for (let i = 0; i < n; i++) {
+      const v = source[i]!;
+      targetA[offsetA + i]! += v;
+      targetB[offsetB + i]! += v;
+    }
+  } else if (loopsA === 1 && loopsB === 0) {
+    for (let i = 0; i < n; i++) {
+      const v = source[i]!;
+      targetA[offsetA + i]! -= v;
+      targetA[a2 + i]! -= v;
+      targetB[offsetB + i]! += v;
+    }
+  } else if (loopsA === 0) {
+    for (let i = 0; i < n; i++) {
+      const v = source[i]!;
+      targetA[offsetA + i]! += v;
+      targetB[offsetB + i]! -= v;
+      targetB[b2 + i]! -= v;
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const v = source[i]!;
+      targetA[offsetA + i]! -= v;
+      targetA[a2 + i]! -= v;
+      targetB[offsetB + i]! -= v;
+      targetB[b2 + i]! -= v;
     }
   }
 }
