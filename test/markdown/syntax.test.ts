@@ -207,3 +207,40 @@ describe('file encodings', () => {
     expect((await processMarkdown(ok)).built).toBe('\uFEFF```skein id=k notation=braid\r\n1 1 1\r\n```\r\n\r\nA $3$ and $t+t^3-t^4$\r\n');
   });
 });
+
+describe('more error positions', () => {
+  it('info strings: a setting without value, an unclosed quote, a repeated setting, a bad strands count', async () => {
+    const text = '```skein id=a notation=braid loose\n1 1 1\n```\n\n```skein id=b notation=braid jones="t + t^3\n1 1 1\n```\n\n```skein id=c notation=braid id=d strands=0\n1 1 1\n```\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([
+      `error markup-invalid ${positionOf(text, 'loose')}`,
+      `error markup-invalid ${positionOf(text, 'jones=')}`,
+      `error markup-invalid ${positionOf(text, 'id=d')}`,
+      `error markup-invalid ${positionOf(text, '0\n')}`,
+    ]);
+  });
+
+  it('front matter: invalid YAML, a non-boolean strict and an unknown notation', async () => {
+    const broken = await processMarkdown('---\nskeinproof: [unclosed\n---\n');
+    expect(broken.diagnostics.map((d) => [d.ruleId, d.location?.start.line])).toEqual([['front-matter-invalid', 2]]);
+    const text = '---\nskeinproof:\n  strict: maybe\n  notation: morse\n---\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error front-matter-invalid ${positionOf(text, 'maybe')}`, `error front-matter-invalid ${positionOf(text, 'morse')}`]);
+  });
+
+  it('tables: a notation column per row, and an unknown notation in it', async () => {
+    // PD and DT codes of the trefoil: V = t + t^3 - t^4 for this PD code (common practice: the PD code (1,5,2,4)(3,1,4,6)(5,3,6,2)
+    // is a trefoil); a DT code fixes it up to mirror image only.
+    const text = ':::invariants\n| diagram | notation | crossings |\n|---|---|---|\n| `(1,5,2,4) (3,1,4,6) (5,3,6,2)` | pd | |\n| `4 6 2` | dt | $3$ |\n| `4 6 2` | morse | |\n:::\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, 'morse')}`]);
+    expect(r.built).toContain('| `(1,5,2,4) (3,1,4,6) (5,3,6,2)` | pd | $3$ |');
+  });
+
+  it('a table row without a cell for a column', async () => {
+    const text = '```skein id=k notation=braid\n1 1 1\n```\n\n:::invariants\n| diagram | writhe | span |\n|---|---|---|\n| k | $3$ |\n:::\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, '| k')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/table row 1 \(k\), column span/);
+  });
+});
