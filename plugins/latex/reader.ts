@@ -86,6 +86,8 @@ class ManuscriptReader {
   private convention: Partial<Convention> = {};
   private conventionAt: SourceFile | undefined;
   private tables = 0;
+  /** Set at \begin{document}: the preamble is over. */
+  private inBody = false;
 
   constructor(
     private readonly mainPath: string,
@@ -146,6 +148,9 @@ class ManuscriptReader {
         return this.usePackage(file, item, splices);
       case 'table':
         return this.table(file, item, splices);
+      case 'document':
+        this.inBody = true;
+        return;
     }
   }
 
@@ -216,6 +221,15 @@ class ManuscriptReader {
 
   private conventionSettings(file: SourceFile, item: Extract<ScanItem, { kind: 'convention' }>, splices: Splice[]): void {
     splices.push({ kind: 'text', span: item.span, text: '' });
+    if (this.inBody) {
+      this.error(
+        file,
+        item.span,
+        'latex-convention-misplaced',
+        '\\skeinconvention comes after \\begin{document}, where LaTeX no longer allows it: move it into the preamble',
+      );
+      return;
+    }
     if (this.conventionAt) {
       this.error(
         file,

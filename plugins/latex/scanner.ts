@@ -38,6 +38,8 @@ export type ScanItem =
   | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
   | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg }
   | { readonly kind: 'package'; readonly span: Span; readonly list: Arg }
+  /** `\begin{document}`: the preamble ends here. */
+  | { readonly kind: 'document'; readonly span: Span }
   | {
       readonly kind: 'table';
       readonly beginSpan: Span;
@@ -181,6 +183,7 @@ class Scanner {
     const name = env.arg.text.trim();
     if (name === 'skeincode') return this.codeEnvironment(start);
     if (name === 'skeintable') return this.tableEnvironment(start);
+    if (name === 'document') this.items.push({ kind: 'document', span: { start, end: env.next } });
     if (MATH_ENVIRONMENTS.has(name)) this.stack.push({ math: true, closer: `env:${name}` });
   }
 

@@ -147,6 +147,12 @@ describe('located errors in the markup', () => {
     ]);
   });
 
+  it('\\skeinconvention after \\begin{document} is refused (LaTeX allows it only in the preamble)', () => {
+    const doc = read({ 'paper.tex': '\\input{pre}\n\\begin{document}\n\\skeinconvention{order=ascending}\n', 'pre.tex': '\\skeinconvention{jones=q}\n' });
+    expect(places(doc)).toEqual(['latex-convention-misplaced@paper.tex:3:1']);
+    expect(doc.convention).toEqual({ jonesVariable: 'q' });
+  });
+
   it('a bad convention setting is located at its key or value', () => {
     const doc = read({ 'paper.tex': '\\skeinconvention{jones=w, colour=blue}\n\\skeinconvention{order=ascending}\n' });
     expect(places(doc)).toEqual(['convention-invalid@paper.tex:1:24', 'convention-invalid@paper.tex:1:27', 'latex-convention-twice@paper.tex:2:1']);
@@ -225,6 +231,18 @@ describe('building', () => {
         '\\begin{flushleft}\\ttfamily\n1 1% Hopf\n\\end{flushleft}\n' +
         'Values: $-t^{5/2} - t^{1/2}$, $w = 2$, claimed $2$.\n' +
         '\n\\begin{tabular}{ll}\nId & span\\\\\nh & $2$ \\\\\n\\end{tabular}\n\n\\end{document}\n',
+    );
+  });
+
+  it('the flat copy splices included files in place, \\include between page breaks', () => {
+    const doc = read({
+      'paper.tex': 'A\\input{one}B\n\\include{two}\nC\n',
+      'one.tex': 'one % no newline at the end',
+      'two.tex': '\\begin{skeincode}{id=k, notation=braid}\n1 1 1\n\\end{skeincode}\n$\\skeinwrithe{k}$\n',
+    });
+    const session = runSession({ diagrams: doc.diagrams, claims: [], fills: doc.fills.map((f) => f.entry), convention: DEFAULT_CONVENTION });
+    expect(flatText(doc, session.fills)).toBe(
+      'Aone % no newline at the end\nB\n\\clearpage\n\\begin{flushleft}\\ttfamily\n1 1 1\n\\end{flushleft}\n$3$\n\\clearpage\n\nC\n',
     );
   });
 
