@@ -3,13 +3,13 @@
  * DiagramReport in the document's convention, diagnose the slip, and typeset
  * computed values. Types are in ./api.ts.
  */
-import { InputError } from '../errors.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { FillKey, Typeset } from './api.ts';
 import { bracketLatex, jonesLatex, numberLatex } from './typeset.ts';
 import { conventionJones } from '../convention/convert.ts';
 import { crossingNumberFill, crossingNumberStatement } from './crossing-number.ts';
+import { classicalFill } from './classical-claims.ts';
 
 export type * from './api.ts';
 export { judgeClaim, CLAIM_KEYS, isClaimKey } from './judge.ts';
@@ -35,10 +35,7 @@ export function isFillKey(word: string): word is FillKey {
   return (FILL_KEYS as readonly string[]).includes(word);
 }
 
-/**
- * The typeset value of `key` for the report, in the convention. Throws an
- * InputError `fill-unsupported` for values this version does not compute.
- */
+/** The typeset value of `key` for the report, in the convention. */
 export function typesetValue(key: FillKey, report: DiagramReport, convention: Convention): Typeset {
   switch (key) {
     case 'jones':
@@ -61,6 +58,6 @@ export function typesetValue(key: FillKey, report: DiagramReport, convention: Co
     case 'conway':
     case 'determinant':
     case 'signature':
-      throw new InputError('fill-unsupported', `the ${key} is not computed by this version of skeinproof, so it cannot be filled in; write the value by hand`);
+      return classicalFill(key, report, convention);
   }
 }

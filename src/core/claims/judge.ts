@@ -8,14 +8,7 @@ import type { ClaimKey, JudgeContext, Judgement } from './api.ts';
 import { judgePolynomialClaim } from './polynomial-claims.ts';
 import { judgeNumberClaim, judgePropertyClaim } from './scalar-claims.ts';
 import { judgeCrossingNumberClaim } from './crossing-number.ts';
-
-/** Claim keys whose values skeinproof does not compute yet: such claims are `undecided`, never silently passed. */
-const NOT_COMPUTED: Readonly<Partial<Record<ClaimKey, string>>> = {
-  alexander: 'the Alexander polynomial',
-  conway: 'the Conway polynomial',
-  determinant: 'the determinant',
-  signature: 'the signature',
-};
+import { judgeClassicalClaim } from './classical-claims.ts';
 
 export function judgeClaim(key: ClaimKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
   switch (key) {
@@ -41,13 +34,7 @@ export function judgeClaim(key: ClaimKey, text: string, report: DiagramReport, c
     case 'conway':
     case 'determinant':
     case 'signature':
-      return {
-        key,
-        claimed: text,
-        verdict: 'undecided',
-        computed: '',
-        reason: `${NOT_COMPUTED[key]} is not computed by this version of skeinproof, so the claim is not checked`,
-      };
+      return judgeClassicalClaim(key, text, report, ctx);
   }
 }
 

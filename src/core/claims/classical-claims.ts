@@ -1,0 +1,190 @@
+/**
+ * Claims about the classical invariants: the Alexander polynomial (Conway's
+ * symmetric normalisation), the Conway polynomial, the determinant and the
+ * signature, and their typeset values.
+ *
+ * Diagnoses, tried in this order:
+ * - alexander, conway: negated (for an even number of components this is also
+ *   the mirror image's value), shifted (times ±t^k: an unnormalised Δ),
+ *   normalization (Δ written for ∇ or ∇ for Δ), one-coefficient, swapped, none.
+ *   `mirror` does not apply on its own: the mirror image has the same Δ for a knot
+ *   and −Δ (already `negated`) for an even number of components.
+ * - determinant: negated (the sign of Δ(−1) kept), swapped, none.
+ * - signature: mirror (−σ: the mirror image, or the other sign convention),
+ *   swapped, none.
+ */
+import { InputError } from '../errors.ts';
+import type { DiagramReport } from '../analyze/report.ts';
+import type { Convention } from '../convention/convention.ts';
+import { signatureInConvention } from '../invariants/classical/signature.ts';
+import { Laurent } from '../poly/laurent.ts';
+import type { Diagnosis, JudgeContext, Judgement, Typeset } from './api.ts';
+import { readNumber, readPolynomial, UNREADABLE } from './latex-poly-parser.ts';
+import { numberLatex, polynomialLatex, styleOf } from './typeset.ts';
+
+export type ClassicalKey = 'alexander' | 'conway' | 'determinant' | 'signature';
+
+const NOUNS: Readonly<Record<ClassicalKey, string>> = {
+  alexander: 'Alexander polynomial',
+  conway: 'Conway polynomial',
+  determinant: 'determinant',
+  signature: 'signature',
+};
+
+type PolynomialKey = 'alexander' | 'conway';
+
+const LETTER: Readonly<Record<PolynomialKey, string>> = { alexander: 't', conway: 'z' };
+
+function polynomialOf(key: PolynomialKey, report: DiagramReport): Laurent {
+  return key === 'alexander' ? report.classical.alexander : report.classical.conway;
+}
+
+export function classicalLatex(key: ClassicalKey, report: DiagramReport, convention: Convention): string {
+  switch (key) {
+    case 'alexander':
+    case 'conway':
+      return polynomialLatex(polynomialOf(key, report), LETTER[key], styleOf(convention));
+    case 'determinant':
+      return report.classical.determinant.toString();
+    case 'signature':
+      return numberLatex(signatureInConvention(report.classical.signature, convention.signatureSign));
+  }
+}
+
+export function classicalFill(key: ClassicalKey, report: DiagramReport, convention: Convention): Typeset {
+  return { kind: 'math', latex: classicalLatex(key, report, convention) };
+}
+
+export function judgeClassicalClaim(key: ClassicalKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  return key === 'alexander' || key === 'conway' ? judgePolynomial(key, text, report, ctx) : judgeInteger(key, text, report, ctx);
+}
+
+function swappedWith(
+  ctx: JudgeContext,
+  matches: (other: DiagramReport) => boolean,
+  noun: string,
+): Diagnosis | undefined {
+  for (const [id, other] of ctx.others ?? []) {
+    if (id !== ctx.selfId && matches(other)) {
+      return { kind: 'swapped', otherDiagram: id, detail: `the claim is the ${noun} of diagram \`${id}\` of this document` };
+    }
+  }
+  return undefined;
+}
+
+function judgePolynomial(key: PolynomialKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  const letter = LETTER[key];
+  const otherKey: PolynomialKey = key === 'alexander' ? 'conway' : 'alexander';
+  const noun = NOUNS[key];
+  const read = readPolynomial(text, { variables: [letter, LETTER[otherKey]], what: `the ${noun}` });
+  const claim = read.value;
+  const computed = polynomialOf(key, report);
+  const computedLatex = polynomialLatex(computed, letter, styleOf(ctx.convention));
+  const base = { key, claimed: text, computed: computedLatex };
+  const claimLetter = read.variable ?? letter;
+  if (claimLetter === letter && claim.equals(computed)) return { ...base, verdict: 'agrees', reason: `the claim equals the computed ${noun}` };
+  const diagnosis = diagnosePolynomial(key, claim, claimLetter, report, ctx);
+  return { ...base, verdict: 'contradicts', diagnosis, reason: `the claim differs from the computed value ${computedLatex}; ${diagnosis.detail}` };
+}
+
+function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: string, report: DiagramReport, ctx: JudgeContext): Diagnosis {
+  const letter = LETTER[key];
+  const computed = polynomialOf(key, report);
+  if (claimLetter !== letter) {
+    const otherKey: PolynomialKey = key === 'alexander' ? 'conway' : 'alexander';
+    if (claim.equals(polynomialOf(otherKey, report))) {
+      return {
+        kind: 'normalization',
+        detail:
+          key === 'alexander'
+            ? 'the claim is the Conway polynomial ∇(z); the Alexander polynomial is Δ(t) = ∇(t^{1/2} − t^{−1/2})'
+            : 'the claim is the Alexander polynomial Δ(t); the Conway polynomial ∇(z) satisfies Δ(t) = ∇(t^{1/2} − t^{−1/2})',
+      };
+    }
+    return { kind: 'none', detail: `the claim is written in ${claimLetter}, but the ${NOUNS[key]} is written in ${letter}, and it matches no other form of the value` };
+  }
+  if (!computed.isZero && claim.equals(computed.neg())) {
+    const evenLink = report.components % 2 === 0;
+    return {
+      kind: 'negated',
+      detail: evenLink
+        ? 'the claim is the computed value with every sign reversed, which is also the value of the mirror image (a link with an even number of components)'
+        : 'the claim is the computed value with every sign reversed',
+    };
+  }
+  if (!computed.isZero && claim.termCount === computed.termCount && !claim.isZero) {
+    const k = claim.minDegree! - computed.minDegree!;
+    const shifted = computed.shift(k);
+    const sign = claim.equals(shifted) ? 1 : claim.equals(shifted.neg()) ? -1 : 0;
+    if (k !== 0 && sign !== 0) {
+      const factor = polynomialLatex(Laurent.monomial(k, sign), letter, { order: 'ascending', halfPowers: 'power' });
+      return {
+        kind: 'shifted',
+        shift: k,
+        detail:
+          key === 'alexander'
+            ? `the claim is the computed value times ${factor}: Δ is fixed only up to ±t^k until it is normalised symmetric with Δ(1) = 1 (Conway's normalisation), which this document uses`
+            : `the claim is the computed value times ${factor}`,
+      };
+    }
+  }
+  const difference = claim.sub(computed);
+  if (difference.termCount === 1) {
+    const exponent = difference.exponents[0]!;
+    const term = { exponent, computed: computed.coefficient(exponent).toString(), claimed: claim.coefficient(exponent).toString() };
+    const power =
+      exponent === 0
+        ? 'the constant term'
+        : `the coefficient of ${polynomialLatex(Laurent.monomial(exponent), letter, { order: 'ascending', halfPowers: 'power' })}`;
+    return { kind: 'one-coefficient', term, detail: `only ${power} differs: computed ${term.computed}, claimed ${term.claimed}` };
+  }
+  return (
+    swappedWith(ctx, (other) => polynomialOf(key, other).equals(claim), NOUNS[key]) ?? {
+      kind: 'none',
+      detail: 'no common slip (sign, power of the variable, Alexander for Conway, one coefficient, another diagram) explains the difference',
+    }
+  );
+}
+
+function readInteger(text: string, noun: string): bigint {
+  const r = readNumber(text, `the ${noun}`);
+  if (r.q !== 1) throw new InputError(UNREADABLE, `the ${noun} is an integer, but the claim is ${r.p}/${r.q}`, { start: 0, end: text.length });
+  return BigInt(r.p);
+}
+
+function judgeInteger(key: 'determinant' | 'signature', text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  const noun = NOUNS[key];
+  const claimed = readInteger(text, noun);
+  const valueOf = (r: DiagramReport): bigint =>
+    key === 'determinant' ? r.classical.determinant : BigInt(signatureInConvention(r.classical.signature, ctx.convention.signatureSign));
+  const value = valueOf(report);
+  const computed = value.toString();
+  const base = { key, claimed: text, computed };
+  if (claimed === value) return { ...base, verdict: 'agrees', reason: `the ${noun} is ${computed}` };
+  let diagnosis: Diagnosis | undefined;
+  if (claimed === -value) {
+    diagnosis =
+      key === 'determinant'
+        ? { kind: 'negated', detail: 'the claim is the negative of the determinant, which is |Δ(−1)| and never negative' }
+        : {
+            kind: 'mirror',
+            detail: `the claim is −σ: the signature of the mirror image, or the signature in the other sign convention (this document gives the positive trefoil σ = ${ctx.convention.signatureSign === 'negative' ? '−2' : '+2'})`,
+          };
+  }
+  diagnosis ??= swappedWith(ctx, (other) => valueOf(other) === claimed, noun);
+  if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) {
+    return {
+      ...base,
+      verdict: 'agrees',
+      diagnosis,
+      reason: `the claim is the ${noun} of the mirror image, which a DT code cannot tell apart from the diagram itself`,
+      warning: `a DT code fixes the knot only up to mirror image; the claim ${claimed} matches the mirror, the code's own ${noun} is ${computed}`,
+    };
+  }
+  return {
+    ...base,
+    verdict: 'contradicts',
+    ...(diagnosis ? { diagnosis } : {}),
+    reason: `the ${noun} is ${computed}, not ${claimed}${diagnosis ? `: ${diagnosis.detail}` : ''}`,
+  };
+}

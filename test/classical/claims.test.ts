@@ -1,0 +1,66 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
+import type { DiagramReport } from '../../src/core/analyze/report.ts';
+import { DEFAULT_CONVENTION, type Convention } from '../../src/core/convention/convention.ts';
+import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
+import { judgeClaim, readPolynomial, typesetValue, type ClaimKey } from '../../src/core/claims/index.ts';
+
+const trefoil = analyzeDiagram(closeBraid([1, 1, 1], 2));
+const figureEight = analyzeDiagram(closeBraid([1, -2, 1, -2], 3));
+const hopf = analyzeDiagram(closeBraid([1, 1], 2));
+const dtTrefoil: DiagramReport = analyzeDiagram({ ...closeBraid([1, 1, 1], 2), chiralityFixed: false });
+
+function judge(key: ClaimKey, text: string, report: DiagramReport, convention: Convention = DEFAULT_CONVENTION, others?: Map<string, DiagramReport>) {
+  return judgeClaim(key, text, report, { convention, others, selfId: 'self' });
+}
+
+describe('claims about the classical invariants', () => {
+  it('accept the worked values: trefoil Δ = t − 1 + t⁻¹, ∇ = 1 + z², det 3, σ = −2 (from memory)', () => {
+    expect(judge('alexander', 't^{-1} - 1 + t', trefoil).verdict).toBe('agrees');
+    expect(judge('conway', '1 + z^2', trefoil).verdict).toBe('agrees');
+    expect(judge('determinant', '3', trefoil).verdict).toBe('agrees');
+    expect(judge('signature', '-2', trefoil).verdict).toBe('agrees');
+    expect(judge('alexander', '-t^{-1} + 3 - t', figureEight).verdict).toBe('agrees');
+    expect(judge('alexander', 't^{1/2} - t^{-1/2}', hopf).verdict).toBe('agrees');
+  });
+  it('read the signature in the document convention: signature=positive gives the positive trefoil +2', () => {
+    const positive = { ...DEFAULT_CONVENTION, signatureSign: 'positive' as const };
+    expect(judge('signature', '2', trefoil, positive).verdict).toBe('agrees');
+    const slip = judge('signature', '-2', trefoil, positive);
+    expect(slip.verdict).toBe('contradicts');
+    expect(slip.diagnosis?.kind).toBe('mirror');
+  });
+  it('name an unnormalised Alexander polynomial as shifted (t² − t + 1 for the trefoil)', () => {
+    const j = judge('alexander', 't^2 - t + 1', trefoil);
+    expect(j.verdict).toBe('contradicts');
+    expect(j.diagnosis).toMatchObject({ kind: 'shifted', shift: 1 });
+  });
+  it('name a negated Δ, the Conway polynomial given for Δ, and one wrong coefficient', () => {
+    expect(judge('alexander', '-t^{-1} + 1 - t', trefoil).diagnosis?.kind).toBe('negated');
+    expect(judge('alexander', '1 + z^2', trefoil).diagnosis?.kind).toBe('normalization');
+    expect(judge('conway', 't^{-1} - 1 + t', trefoil).diagnosis?.kind).toBe('normalization');
+    const one = judge('alexander', '-t^{-1} + 5 - t', figureEight);
+    expect(one.diagnosis).toMatchObject({ kind: 'one-coefficient', term: { exponent: 0, computed: '3', claimed: '5' } });
+  });
+  it('name the value of another diagram of the document as swapped', () => {
+    const others = new Map([['eight', figureEight]]);
+    expect(judge('determinant', '5', trefoil, DEFAULT_CONVENTION, others).diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'eight' });
+    expect(judge('alexander', '-t^{-1} + 3 - t', trefoil, DEFAULT_CONVENTION, others).diagnosis?.kind).toBe('swapped');
+  });
+  it('accept the mirror signature of a DT code with a warning', () => {
+    const j = judge('signature', '2', dtTrefoil);
+    expect(j.verdict).toBe('agrees');
+    expect(j.warning).toMatch(/mirror/);
+  });
+  it('refuse a fractional determinant as unreadable', () => {
+    expect(() => judge('determinant', '3/2', trefoil)).toThrow(/integer/);
+  });
+  it('typeset values that read back to the same polynomial, and the signature in the convention', () => {
+    const alexander = typesetValue('alexander', hopf, DEFAULT_CONVENTION);
+    expect(alexander).toEqual({ kind: 'math', latex: '-t^{-1/2} + t^{1/2}' });
+    if (alexander.kind === 'math') expect(readPolynomial(alexander.latex, { variables: ['t'] }).value.equals(hopf.classical.alexander)).toBe(true);
+    expect(typesetValue('conway', trefoil, DEFAULT_CONVENTION)).toEqual({ kind: 'math', latex: '1 + z^2' });
+    expect(typesetValue('determinant', figureEight, DEFAULT_CONVENTION)).toEqual({ kind: 'math', latex: '5' });
+    expect(typesetValue('signature', trefoil, { ...DEFAULT_CONVENTION, signatureSign: 'positive' })).toEqual({ kind: 'math', latex: '2' });
+  });
+});
