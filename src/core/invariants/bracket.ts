@@ -163,13 +163,46 @@ function binomialRow(l: number): number[] {
   return row;
 }
 
+/**
+ * A canonical key for a matching given as partner positions. Non-crossing
+ * matchings (the only kind a disk-shaped region produces) are fixed by which
+ * ends open an arc, so their key is that bit pattern as a number: cheap to
+ * build and to hash. Crossing matchings (a region with holes, or a non-planar
+ * code) fall back to a string of the partner positions; numbers and strings
+ * never collide as Map keys.
+ */
+type MatchingKey = number | string;
+
+/** The key of the empty matching (width 0): the bit pattern with no bits. */
+const EMPTY_MATCHING = 1;
+
+function matchingKey(partner: Uint16Array, width: number, stack: Int32Array): MatchingKey {
+  if (width <= 52) {
+    let key = 1; // a leading 1 keeps the pattern's length
+    let depth = 0;
+    let nonCrossing = true;
+    for (let i = 0; i < width && nonCrossing; i++) {
+      const p = partner[i]!;
+      if (p > i) {
+        stack[depth++] = p;
+        key = key * 2 + 1;
+      } else {
+        nonCrossing = depth > 0 && stack[--depth] === i;
+        key = key * 2;
+      }
+    }
+    if (nonCrossing) return key;
+  }
+  return String.fromCharCode.apply(null, partner as unknown as number[]);
+}
+
 const A_SLOT_PARTNER = [1, 0, 3, 2];
 const B_SLOT_PARTNER = [3, 2, 1, 0];
 
 /** Runs the contraction with exponents stored at the given step; undefined if a state mixes classes mod `step`. */
 function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined {
   // The empty tangle: one (empty) matching with value 1.
-  let keys: string[] = [''];
+  let keys: MatchingKey[] = [EMPTY_MATCHING];
   let partners = new Uint16Array(0);
   let polys: StatePoly[] = [{ lo: 0, limbs: [Float64Array.of(1)], bound: 1 }];
   // Two slabs take turns: the sources of one step live in one, its targets in the other.
@@ -185,11 +218,12 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     const { joins, layout, compact } = plan;
     const scratch = new Int32Array(w + 4);
     const codes = new Uint16Array(w2);
+    const stack = new Int32Array(w2);
     const stateCount = keys.length;
 
     // Phase 1: the target matching and loop count of every (state, smoothing).
-    const targetIndex = new Map<string, number>();
-    const nextKeys: string[] = [];
+    const targetIndex = new Map<MatchingKey, number>();
+    const nextKeys: MatchingKey[] = [];
     let nextPartners = new Uint16Array(Math.max(16, 4 * w2));
     const contributionTarget = new Int32Array(2 * stateCount);
     const contributionLoops = new Int32Array(2 * stateCount);
@@ -217,7 +251,7 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
           }
         }
         for (let i = 0; i < w2; i++) codes[i] = compact[scratch[layout[i]!]!]!;
-        const key = String.fromCharCode.apply(null, codes as unknown as number[]);
+        const key = matchingKey(codes, w2, stack);
         if (isLast) loops--; // ⟨O⟩ = 1: the final picture's first circle is free
         let t = targetIndex.get(key);
         const base = source.lo + (smoothing === 0 ? 1 : -1) - 2 * loops;
@@ -303,7 +337,7 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     sourceSlab = slab;
   }
 
-  if (keys.length !== 1 || keys[0] !== '') throw new Error('internal: contraction ended with an open boundary');
+  if (keys.length !== 1 || keys[0] !== EMPTY_MATCHING) throw new Error('internal: contraction ended with an open boundary');
   const final = polys[0]!;
   const length = final.limbs[0]!.length;
   const dense: bigint[] = new Array(length);
