@@ -5,7 +5,9 @@
  *   (Jones 1987, Hecke algebra representations of braid groups);
  * - the figure-eight, Borromean rings, 8₁₈ and positive Hopf link values (from memory, standard tables),
  *   with 8₁₈'s determinant |V(−1)| = 45 (from memory);
- * - a braid closure's writhe is the exponent sum of its word (common practice).
+ * - a braid closure's writhe is the exponent sum of its word (common practice);
+ * - the determinant is |V(−1)|, evaluated with t^{1/2} = i (common practice), and for the Borromean rings
+ *   is 16 (from memory).
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -101,5 +103,26 @@ describe('the clean sample agrees with published values', async () => {
       checked++;
     }
     expect(checked).toBe(10);
+  });
+
+  it('every determinant is |V(-1)| of the Jones polynomial in its row', () => {
+    let checked = 0;
+    for (const [id, row] of table) {
+      const v = poly(row['jones']!);
+      // t^e at t^{1/2} = i is i^{2e}.
+      let re = 0;
+      let im = 0;
+      for (const [e, c] of v) {
+        const k = (((2 * e) % 4) + 4) % 4;
+        if (k === 0) re += c;
+        else if (k === 1) im += c;
+        else if (k === 2) re -= c;
+        else im -= c;
+      }
+      expect(row['determinant'], id).toBe(`$${Math.hypot(re, im)}$`);
+      checked++;
+    }
+    expect(checked).toBe(10);
+    expect(table.get('weave-3')!['determinant']).toBe('$16$');
   });
 });
