@@ -8,6 +8,7 @@ import { kauffmanBracket, LOOP_VALUE } from '../../src/core/invariants/bracket.t
 import { planContraction } from '../../src/core/invariants/crossing-order.ts';
 import { bracketByStateSum } from '../../src/core/invariants/state-sum.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
+import { InputError } from '../../src/core/errors.ts';
 import { randomDiagram, randomInt, randomReducedAlternating, rng } from '../support/random-diagrams.ts';
 
 // The state sum over all 2^n states is the definition of the bracket
@@ -95,6 +96,14 @@ describe('tangle contraction against the state-sum definition (Kauffman 1987)', 
     expect(() => kauffmanBracket(d, [0, 1, 1])).toThrow(RangeError);
     expect(() => kauffmanBracket(d, [0, 1, 3])).toThrow(RangeError);
     expect(() => kauffmanBracket({ ...closeBraid([], 1), freeLoops: 0 })).toThrow(RangeError);
+  });
+
+  it('refuses, as an explained input error, an order whose boundary would outgrow memory', () => {
+    const random = rng(19);
+    const d = randomReducedAlternating(random, 300, 6);
+    const attempt = (): unknown => kauffmanBracket(d, randomOrder(d.crossings.length, random));
+    expect(attempt).toThrow(InputError);
+    expect(attempt).toThrow(/edge ends open at once/);
   });
 
   it('reports the widest boundary the planned order reaches', () => {

@@ -28,6 +28,7 @@
 import { Laurent } from '../poly/laurent.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import { indexDiagram } from '../diagram/model.ts';
+import { InputError } from '../errors.ts';
 import { planContraction } from './crossing-order.ts';
 
 export interface BracketResult {
@@ -44,6 +45,13 @@ export const LOOP_VALUE = Laurent.fromTerms([
 ]);
 
 /**
+ * Beyond this many open edge ends the matchings alone (about 2^width / width^1.5
+ * of them) outgrow any machine; refusing up front beats running out of memory
+ * after minutes.
+ */
+export const MAX_BOUNDARY_WIDTH = 28;
+
+/**
  * ⟨D⟩ by tangle contraction. `order` (a permutation of the crossing indices)
  * overrides the planned absorption order; the value does not depend on it,
  * only the work does.
@@ -57,12 +65,22 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[]): Brac
   const chosen = order ?? planContraction(d).order;
   checkPermutation(chosen, n);
   const steps = planSteps(d, chosen);
+  const boundaryWidth = Math.max(...steps.map((s) => s.newWidth));
+  if (boundaryWidth > MAX_BOUNDARY_WIDTH) {
+    throw new InputError(
+      'diagram-too-wide',
+      `this ${n}-crossing diagram cannot be cut into pieces small enough for the bracket computation: ` +
+        `the best crossing order found keeps ${boundaryWidth} edge ends open at once, and beyond ${MAX_BOUNDARY_WIDTH} ` +
+        'the work and memory grow past what any machine has. Give a diagram of the same link with fewer crossings, ' +
+        'or one drawn as a braid closure on fewer strands.',
+    );
+  }
   // Planar diagrams keep all exponents of one state in one class mod 4; a
   // virtual (non-planar) input can break that, and is then redone with step 2.
   const contracted = contract(steps, 4) ?? contract(steps, 2);
   if (!contracted) throw new Error('internal: bracket contraction failed with exponent step 2');
   const bracket = d.freeLoops > 0 ? contracted.mul(LOOP_VALUE.pow(d.freeLoops)) : contracted;
-  return { bracket, boundaryWidth: Math.max(...steps.map((s) => s.newWidth)) };
+  return { bracket, boundaryWidth };
 }
 
 function checkPermutation(order: readonly number[], n: number): void {
