@@ -178,3 +178,4 @@ async function main(): Promise<void> {
 }
 
 await main();
+await import('./classical.ts').then((classical) => classical.runClassicalBench());

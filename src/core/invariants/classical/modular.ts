@@ -126,8 +126,9 @@ class BandedPencil {
         const ri = i * n;
         const rk = k * n;
         for (let j = k + 1; j <= colLimit; j++) {
-          const above = m[rk + j]!;
-          if (above !== 0) m[ri + j] = (m[ri + j]! - mulMod(factor, above, p) + p) % p;
+          // |m − f·a| < 2^52, so one remainder suffices.
+          const reduced = (m[ri + j]! - factor * m[rk + j]!) % p;
+          m[ri + j] = reduced < 0 ? reduced + p : reduced;
         }
         m[ri + k] = 0;
         if (colLimit > this.lastColumn[i]!) this.lastColumn[i] = colLimit;
