@@ -48,8 +48,9 @@ function fillText(fill: LatexFill, value: Typeset, written: string): string {
     if (value.kind === 'math') return t.math ? value.latex : `$${value.latex}$`;
     return t.math ? `\\mbox{${value.text}}` : value.text;
   }
-  // An empty cell: the value goes after its first space; what followed (spaces, a comment) stays after it.
+  // An empty cell: a comment or \cellcolor it holds stays before the value; blank cells get it after their first space.
   const inCell = value.kind === 'math' ? `$${value.latex}$` : value.text;
-  const rest = written.startsWith(' ') ? written.slice(1) : written;
-  return ` ${inCell}${rest === '' ? ' ' : rest}`;
+  const held = written.slice(0, t.valueAt - t.raw.start);
+  const at = held.trim() === '' ? (written.startsWith(' ') ? 1 : 0) : held.length;
+  return `${written.slice(0, at)}${inCell}${written.slice(at) || ' '}`;
 }

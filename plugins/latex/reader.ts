@@ -32,7 +32,15 @@ export interface LatexFileSystem {
 /** Where a fill-in's value goes: a macro of a named diagram, or an empty cell of a skein table. */
 export type FillTarget =
   | { readonly kind: 'macro'; readonly id: string; readonly key: FillKey; readonly math: boolean }
-  | { readonly kind: 'cell'; readonly table: number; readonly row: number; readonly column: number; readonly raw: Arg };
+  | {
+      readonly kind: 'cell';
+      readonly table: number;
+      readonly row: number;
+      readonly column: number;
+      /** The whole cell, and the offset in it where the value goes (after spaces, comments and \cellcolor). */
+      readonly raw: Arg;
+      readonly valueAt: number;
+    };
 
 export interface LatexFill {
   readonly entry: FillEntry;
@@ -361,7 +369,7 @@ class ManuscriptReader {
           }
           this.fills.push({
             entry: { target: id, key, locate: locatorFor(file, cell.raw), context },
-            target: { kind: 'cell', table, row: row.number, column: i + 1, raw: cell.raw },
+            target: { kind: 'cell', table, row: row.number, column: i + 1, raw: cell.raw, valueAt: cell.content.start },
           });
           splices.push({ kind: 'fill', span: cell.raw, fill: this.fills.length - 1 });
           return;

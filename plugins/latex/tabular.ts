@@ -15,7 +15,7 @@ export interface TableCell {
   readonly column: number;
   /** The cell between its separators, spaces included. */
   readonly raw: Arg;
-  /** The cell without surrounding spaces. */
+  /** The cell without surrounding spaces and leading \cellcolor (which typesets nothing); empty cells are filled here. */
   readonly content: Arg;
 }
 
@@ -25,7 +25,7 @@ export interface TableRow {
   readonly cells: readonly TableCell[];
 }
 
-/** Commands that draw between rows and take these arguments: `[` optional, `(` trim, `{` required. */
+/** Commands that act between rows (TeX reads them as \noalign) and take these arguments: `[` optional, `(` trim, `{` required. */
 const RULES: Readonly<Record<string, string>> = {
   hline: '',
   cline: '{',
@@ -36,6 +36,7 @@ const RULES: Readonly<Record<string, string>> = {
   cmidrule: '[({',
   addlinespace: '[',
   noalign: '{',
+  rowcolor: '[{', // colortbl: a \noalign before the row
 };
 
 export function splitTabular(body: Arg): TableRow[] {
@@ -45,7 +46,7 @@ export function splitTabular(body: Arg): TableRow[] {
     const content = skipRules(segment.arg);
     const isLast = k === segments.length - 1;
     if (isLast && !segment.terminated && content.text.trim() === '') return;
-    const cells = splitCells(content).map((raw, i) => ({ column: i + 1, raw, content: trim(raw) }));
+    const cells = splitCells(content).map((raw, i) => ({ column: i + 1, raw, content: withoutDecorations(trim(raw)) }));
     rows.push({ number: rows.length + 1, cells });
   });
   return rows;
@@ -104,6 +105,12 @@ function skipRules(segment: Arg): Arg {
     }
   }
   return slice(segment, k, t.length);
+}
+
+/** colortbl's \cellcolor[model]{colour} paints the cell but typesets nothing in it. */
+function withoutDecorations(cell: Arg): Arg {
+  const m = /^\\cellcolor\s*(\[[^\]]*\])?\s*\{[^}]*\}/.exec(cell.text);
+  return m ? withoutDecorations(trim(slice(cell, m[0].length, cell.text.length))) : cell;
 }
 
 function splitCells(row: Arg): Arg[] {

@@ -164,6 +164,12 @@ describe('tabular cells (TeX alignment: & ends a cell, \\\\ a row)', () => {
     expect(body('a & b \\\\ c & d \\\\ \n').map((r) => r.number)).toEqual([1, 2]);
     expect(body('a \\\\ \\\\ b \\\\').map((r) => r.cells.length)).toEqual([1, 1, 1]);
   });
+  it('colortbl: \\rowcolor opens a row like a rule, \\cellcolor typesets nothing in its cell', () => {
+    expect(cells('\\rowcolor[gray]{0.9} a & \\cellcolor{red} \\\\ b & \\cellcolor[rgb]{1,0,0} 3 \\\\')).toEqual([
+      ['a', ''],
+      ['b', '3'],
+    ]);
+  });
   it('a comment in a cell is not part of it', () => {
     expect(cells('a & % b & c\n d \\\\')).toEqual([['a', 'd']]);
   });

@@ -162,4 +162,35 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       expect(text).not.toContain('??');
     }
   });
+
+  it('fills tables coloured with colortbl and tables of a set width (tabular*)', async () => {
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage[table]{xcolor}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeincode}{id=b, notation=braid}\n1 -2 1 -2\n\\end{skeincode}',
+      '\\begin{skeintable}{id, jones, crossings}',
+      '\\begin{tabular*}{0.9\\linewidth}{@{\\extracolsep{\\fill}}l>{\\bfseries}cr}',
+      'Id & $V$ & $n$ \\\\',
+      '\\rowcolor{gray!20} a & & 3 \\\\',
+      'b & \\cellcolor{red!10} & \\cellcolor{blue!10}4 \\\\',
+      '\\end{tabular*}',
+      '\\end{skeintable}',
+      '\\end{document}',
+    ].join('\n');
+    for (const flat of [false, true]) {
+      const dir = workDir('colour', !flat);
+      writeFileSync(join(dir, 'colour.tex'), paper);
+      const result = await latexFormat.build(join(dir, 'colour.tex'), flat ? { output: join(dir, 'colour-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) writeFileSync(o.path, o.content);
+      const run = pdflatex(dir, flat ? 'colour-flat.tex' : 'colour.tex');
+      expect(run.ok).toBe(true);
+      expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+      // Trefoil and figure-eight knot (from memory).
+      for (const v of ['t + t^3 - t^4', 't^{-2} - t^{-1} + 1 - t + t^2']) expect(squeeze(run.text)).toContain(asPdfText(v));
+    }
+  });
 });
