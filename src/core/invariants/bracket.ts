@@ -65,7 +65,7 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[]): Brac
   const chosen = order ?? planContraction(d).order;
   checkPermutation(chosen, n);
   const steps = planSteps(d, chosen);
-  const boundaryWidth = Math.max(...steps.map((s) => s.newWidth));
+  const boundaryWidth = steps.reduce((m, s) => Math.max(m, s.newWidth), 0);
   if (boundaryWidth > MAX_BOUNDARY_WIDTH) {
     throw new InputError(
       'diagram-too-wide',

@@ -49,7 +49,7 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
     for (const tieBreak of ['oldest', 'newest'] as const) {
       const order = greedyOrder(neighbours, n, start, tieBreak);
       const widths = boundaryWidths(d, order);
-      const maxWidth = Math.max(...widths);
+      const maxWidth = widths.reduce((m, w) => Math.max(m, w), 0);
       const cost = orderCost(widths);
       if (!best || maxWidth < best.maxWidth || (maxWidth === best.maxWidth && cost < bestCost)) {
         best = { order, widths, maxWidth };
