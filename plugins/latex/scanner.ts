@@ -91,6 +91,8 @@ class Scanner {
   private pos = 0;
   /** Where the \end{skeintable} of each table already read starts: reaching it there is no stray \end. */
   private readonly tableEnds = new Set<number>();
+  /** Set when an argument's `{` was reported unclosed, so the caller does not also call it missing. */
+  private unclosedReported = false;
 
   constructor(private readonly text: string) {}
 
@@ -140,6 +142,7 @@ class Scanner {
 
   private command(): void {
     const start = this.pos;
+    this.unclosedReported = false;
     const name = controlWord(this.text, start + 1);
     if (name === undefined) {
       const symbol = this.text[start + 1];
@@ -200,16 +203,20 @@ class Scanner {
   }
 
   private codeEnvironment(start: number): void {
+    const closing = '\\end{skeincode}';
     const options = this.group(this.pos);
     if (!options) {
-      this.problem(
-        'latex-argument-missing',
-        '\\begin{skeincode} needs its options in braces right after it, e.g. \\begin{skeincode}{id=trefoil, notation=braid}',
+      const bracketed = this.bracket(this.pos) !== undefined;
+      this.missing(
+        bracketed
+          ? '\\begin{skeincode} takes its options in braces, not brackets (a PD code may itself start with a bracket): write \\begin{skeincode}{id=…, notation=…}'
+          : '\\begin{skeincode} needs its options in braces right after it, e.g. \\begin{skeincode}{id=trefoil, notation=braid}',
         { start, end: this.pos },
       );
+      const close = this.text.indexOf(closing, this.pos);
+      if (close >= 0) this.pos = close + closing.length; // its \end belongs to this environment, not a stray one
       return;
     }
-    const closing = '\\end{skeincode}';
     const close = this.text.indexOf(closing, options.next);
     if (close < 0) {
       this.problem('latex-environment-unclosed', '\\begin{skeincode} is never closed: add \\end{skeincode} after the code', { start, end: options.next });
@@ -233,8 +240,7 @@ class Scanner {
     const after = options ? options.next : this.pos;
     const columns = this.group(after);
     if (!columns) {
-      this.problem(
-        'latex-argument-missing',
+      this.missing(
         '\\begin{skeintable} needs its column keys in braces, e.g. \\begin{skeintable}{id, jones, crossing-number}',
         { start, end: after },
       );
@@ -305,7 +311,7 @@ class Scanner {
     // \input also takes a bare file name ending at a space or the end of the line.
     const bare = command === 'input' ? /^[ \t]*([^\s{}\\%]+)/.exec(this.text.slice(this.pos, this.pos + 1000)) : null;
     if (!bare) {
-      this.problem('latex-argument-missing', `\\${command} needs a file name, e.g. \\${command}{sections/examples}`, { start, end: this.pos });
+      this.missing(`\\${command} needs a file name, e.g. \\${command}{sections/examples}`, { start, end: this.pos });
       return;
     }
     const pathStart = this.pos + bare[0].length - bare[1]!.length;
@@ -351,8 +357,7 @@ class Scanner {
     for (const name of names) {
       const g = this.group(this.pos);
       if (!g) {
-        this.problem(
-          'latex-argument-missing',
+        this.missing(
           `${macro} takes ${names.length} braced argument${names.length > 1 ? 's' : ''} (${names.join(', ')}), but the ${name} is missing here: ${example}`,
           { start, end: this.pos },
         );
@@ -394,11 +399,18 @@ class Scanner {
     }
     if (open === '{') {
       this.problem('latex-brace-unbalanced', 'this `{` is never closed: add the matching `}`', { start: k, end: k + 1 });
+      this.unclosedReported = true;
     }
     return undefined;
   }
 
   private problem(ruleId: string, message: string, span: Span): void {
     this.problems.push({ ruleId, message, span });
+  }
+
+  /** A missing argument, unless it is missing because its `{` was never closed (already reported). */
+  private missing(message: string, span: Span): void {
+    if (this.unclosedReported) this.unclosedReported = false;
+    else this.problem('latex-argument-missing', message, span);
   }
 }

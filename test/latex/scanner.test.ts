@@ -104,6 +104,15 @@ describe('arguments', () => {
     expect(problems[0]!.span.start).toBe(text.indexOf('\\skeinclaim'));
     expect(problems[0]!.message).toContain('value is missing');
   });
+  it('an argument whose brace never closes is one problem, at the brace', () => {
+    const text = 'ok \\skeinclaim{a}{jones}{t + (t';
+    expect(scan(text).problems.map((p) => [p.ruleId, p.span.start])).toEqual([['latex-brace-unbalanced', text.lastIndexOf('{')]]);
+  });
+  it('options in brackets get their own explanation, and the environment\'s \\end is not called stray', () => {
+    const { problems } = scan('\\begin{skeincode}[id=a, notation=pd]\n[1,1,2,2]\n\\end{skeincode}');
+    expect(problems.map((p) => p.ruleId)).toEqual(['latex-argument-missing']);
+    expect(problems[0]!.message).toContain('in braces, not brackets');
+  });
   it('an unclosed skeincode environment is located at its \\begin', () => {
     const text = 'intro\n\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n';
     const { problems, items } = scan(text);
