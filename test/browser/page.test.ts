@@ -58,6 +58,10 @@ describe.skipIf(!available)('the HTML page in chromium', () => {
     expect(requests.filter((u) => !u.startsWith('file:') && !u.startsWith('data:'))).toEqual([]);
     const table = await page.$$eval('table tr', (rows) => rows.length);
     expect(table).toBe(11);
+    const captions = await page.$$eval('figure.skein-diagram figcaption', (nodes) => nodes.map((n) => n.textContent));
+    expect(captions).toHaveLength(14);
+    expect(captions[0]).toBe('twist-2 (braid word)');
+    expect(captions).toContain('weave-3-gauss (Gauss code)');
     await page.screenshot({ path: join(ARTIFACTS, 'twists-and-weaves.png'), fullPage: true });
     await page.close();
   }, 30_000);

@@ -85,6 +85,7 @@ export const markdownFormat: ManuscriptFormat = {
         title: data.settings.title ?? basename(path, extname(path)),
         allowHtml: options.allowHtml === true,
         path: output,
+        ...(data.settings.notation ? { defaultNotation: data.settings.notation } : {}),
       });
       outputs.push({ path: output, content: page.html });
       for (const p of page.mathProblems) {

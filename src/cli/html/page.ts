@@ -13,7 +13,10 @@ import remarkFrontmatter from 'remark-frontmatter';
 import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
-import remarkRehype from 'remark-rehype';
+import remarkRehype, { defaultHandlers } from 'remark-rehype';
+import type { Element } from 'hast';
+import type { Code } from 'mdast';
+import { DIAGRAM_FENCE_LANGUAGE, splitInfoSettings } from '../../../plugins/remark/syntax.ts';
 import { unified } from 'unified';
 import { visit } from 'unist-util-visit';
 import { VFile } from 'vfile';
@@ -24,6 +27,8 @@ export interface PageOptions {
   readonly allowHtml?: boolean;
   /** The name used in messages about the page's math. */
   readonly path?: string;
+  /** The notation of diagram blocks that name none (the front matter's), for their captions. */
+  readonly defaultNotation?: string;
 }
 
 export interface RenderedPage {
@@ -37,8 +42,11 @@ main{max-width:52rem;margin:2.5rem auto;padding:0 1.25rem}
 table{border-collapse:collapse;margin:1rem 0}
 th,td{border:1px solid #c8c8c0;padding:.3rem .6rem;text-align:left;vertical-align:top}
 th{background:#f0efe8}
-td .katex{white-space:nowrap}
+td .katex,td code{white-space:nowrap}
 pre{background:#f4f3ee;padding:.6rem .8rem;overflow-x:auto}
+figure.skein-diagram{margin:1rem 0}
+figure.skein-diagram figcaption{font-size:.85em;color:#55554f}
+figure.skein-diagram pre{margin:.2rem 0 0}
 code{font-size:.92em}`;
 
 const CONTENT_SECURITY_POLICY = "default-src 'none'; style-src 'unsafe-inline'; font-src data:; img-src 'self' data:";
@@ -60,7 +68,7 @@ export async function renderHtmlPage(markdown: string, options: PageOptions): Pr
         });
       }
     })
-    .use(remarkRehype, { allowDangerousHtml: allow })
+    .use(remarkRehype, { allowDangerousHtml: allow, handlers: { code: diagramFigure(options.defaultNotation) } })
     .use(rehypeKatex, { strict: 'ignore', trust: false })
     .use(rehypeStringify, { allowDangerousHtml: allow });
   const body = String(await processor.process(file));
@@ -87,6 +95,28 @@ ${body}
     mathProblems: file.messages.map((m) => ({ message: m.reason, ...(m.line ? { line: m.line } : {}), ...(m.column ? { column: m.column } : {}) })),
   };
 }
+
+type CodeHandler = (typeof defaultHandlers)['code'];
+
+/** A diagram block becomes a figure captioned with its id and notation, so readers can tell the codes apart. */
+const diagramFigure = (defaultNotation: string | undefined): CodeHandler => (state, node: Code) => {
+  const block = defaultHandlers.code(state, node);
+  if (node.lang !== DIAGRAM_FENCE_LANGUAGE) return block;
+  const settings = new Map(splitInfoSettings(node.meta ?? '').settings.map((s) => [s.key, s.value]));
+  const id = settings.get('id');
+  if (id === undefined) return block;
+  const notation = settings.get('notation') ?? defaultNotation;
+  const caption = notation ? `${id} (${NOTATION_CAPTIONS[notation] ?? notation})` : id;
+  const figure: Element = {
+    type: 'element',
+    tagName: 'figure',
+    properties: { className: ['skein-diagram'], id: `diagram-${id}` },
+    children: [{ type: 'element', tagName: 'figcaption', properties: {}, children: [{ type: 'text', value: caption }] }, block],
+  };
+  return figure;
+};
+
+const NOTATION_CAPTIONS: Readonly<Record<string, string>> = { pd: 'PD code', dt: 'DT code', gauss: 'Gauss code', braid: 'braid word' };
 
 function escapeHtml(text: string): string {
   return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
