@@ -48,7 +48,7 @@ describe('the package file and the reader', () => {
   });
 
   it('define the same fill-in shortcuts', () => {
-    const defined = [...sty.matchAll(/\\newcommand\*\\(skein[a-z]+)\[1\]\{\\skein@fill\{#1\}\{([a-z-]+)\}\}/g)].map((m) => [m[1], m[2]]);
+    const defined = [...sty.matchAll(/\\DeclareRobustCommand\*\\(skein[a-z]+)\[1\]\{\\skein@fill\{#1\}\{([a-z-]+)\}\}/g)].map((m) => [m[1], m[2]]);
     expect(Object.fromEntries(defined)).toEqual(FILL_SHORTCUTS);
   });
 });
