@@ -5,8 +5,8 @@
  * whether TeX is in math mode there (the flat copy needs it).
  *
  * Math mode is tracked the way TeX switches it: `$…$`, `$$…$$`, `\(…\)`,
- * `\[…\]`, the display environments, and text inside math through \text,
- * \mbox and their relatives.
+ * `\[…\]`, the display environments, \ensuremath, and text inside math
+ * through \text, \mbox and their relatives.
  */
 import { controlWord } from './mask.ts';
 
@@ -87,7 +87,8 @@ class Scanner {
   private readonly items: ScanItem[] = [];
   private readonly problems: ScanProblem[] = [];
   private readonly stack: Frame[] = [];
-  private pendingText = false;
+  /** The mode the next `{` opens, after \text-like (text) or \ensuremath (math) commands. */
+  private pendingMode: boolean | undefined;
   private pos = 0;
   /** Where the \end{skeintable} of each table already read starts: reaching it there is no stray \end. */
   private readonly tableEnds = new Set<number>();
@@ -103,14 +104,14 @@ class Scanner {
       if (ch === '\\') this.command();
       else if (ch === '$') this.dollar();
       else if (ch === '{') {
-        this.stack.push({ math: this.pendingText ? false : this.inMath(), closer: '}' });
-        this.pendingText = false;
+        this.stack.push({ math: this.pendingMode ?? this.inMath(), closer: '}' });
+        this.pendingMode = undefined;
         this.pos++;
       } else if (ch === '}') {
         if (this.top()?.closer === '}') this.stack.pop();
         this.pos++;
       } else {
-        if (!/\s/.test(ch)) this.pendingText = false;
+        if (!/\s/.test(ch)) this.pendingMode = undefined;
         this.pos++;
       }
     }
@@ -153,10 +154,14 @@ class Scanner {
     }
     this.pos = start + 1 + name.length;
     if (this.inMath() && TEXT_IN_MATH.has(name)) {
-      this.pendingText = true;
+      this.pendingMode = false;
       return;
     }
-    this.pendingText = false;
+    if (name === 'ensuremath') {
+      this.pendingMode = true;
+      return;
+    }
+    this.pendingMode = undefined;
     switch (name) {
       case 'begin':
         return this.begin(start);

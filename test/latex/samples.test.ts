@@ -74,6 +74,13 @@ describe('the clean sample', () => {
       const matches = computed.equals(jones) || (how === 'up to mirror' && computed.equals(jones.substitutePower(-1)));
       expect(matches, `${id}: ${computed.toPlainString('t')}`).toBe(true);
     }
+    // Crossing numbers from the knot tables (from memory): 3_1, 4_1, 5_1, 5_2, 6_1, 6_2, 6_3, the Hopf link, the unknot.
+    const crossingNumbers: Record<string, number> = {
+      lanyard: 3, 'lanyard-mirror': 3, heaving: 4, 'heaving-pd': 4, coil: 5, netmaker: 5, stevedore: 6, 'hitch-a': 6, 'hitch-b': 6, grommets: 2, loop: 0,
+    };
+    for (const [id, c] of Object.entries(crossingNumbers)) expect(reports.get(id)!.crossingNumber.exact, id).toBe(c);
+    // Kauffman bracket of the left-handed trefoil with <O> = 1: A^7 - A^3 - A^{-5} (from memory; the mirror of A^{-7} - A^{-3} - A^5).
+    expect(reports.get('lanyard-mirror')!.bracket.equals(poly([[7, 1], [3, -1], [-5, -1]]))).toBe(true);
   });
 });
 

@@ -73,6 +73,7 @@ describe('math modes', () => {
       '$\\text{see \\skeinjones{h}}$',
       '\\$ \\skeinjones{i}',
       '$x$ \\skeinjones{j}',
+      '\\ensuremath{\\skeinjones{k}}',
     ].join('\n');
     expect(fills(text)).toEqual([
       { id: 'a', math: false },
@@ -85,6 +86,7 @@ describe('math modes', () => {
       { id: 'h', math: false },
       { id: 'i', math: false },
       { id: 'j', math: false },
+      { id: 'k', math: true },
     ]);
   });
 });
