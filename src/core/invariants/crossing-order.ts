@@ -23,7 +23,9 @@ export interface ContractionPlan {
   readonly maxWidth: number;
 }
 
-/** Starts tried on every diagram (fewer when n² would make planning itself slow). */
+/** Rough work units per crossing of one greedy walk (heap operations and the width simulation). */
+const RUN_COST_PER_CROSSING = 64;
+/** Starts tried on every diagram (fewer when a huge n would make planning itself slow). */
 const MIN_STARTS = 24;
 const BASE_BUDGET = 3e7;
 /**
@@ -40,7 +42,7 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
   const n = d.crossings.length;
   if (n === 0) return { order: [], widths: [], maxWidth: 0 };
   const neighbours = neighbourTable(d);
-  const runCost = 2 * n * n; // two greedy walks, each scanning all crossings per pick
+  const runCost = 2 * n * RUN_COST_PER_CROSSING; // two greedy walks
   const minimumStarts = Math.max(1, Math.min(MIN_STARTS, n, Math.floor(BASE_BUDGET / runCost)));
   let best: ContractionPlan | undefined;
   let bestCost = Infinity;
@@ -48,7 +50,7 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
   for (const start of startOrder(n, minimumStarts)) {
     for (const tieBreak of ['oldest', 'newest'] as const) {
       const order = greedyOrder(neighbours, n, start, tieBreak);
-      const widths = boundaryWidths(d, order);
+      const widths = widthsAlong(neighbours, order);
       const maxWidth = widths.reduce((m, w) => Math.max(m, w), 0);
       const cost = orderCost(widths);
       if (!best || maxWidth < best.maxWidth || (maxWidth === best.maxWidth && cost < bestCost)) {
@@ -73,26 +75,31 @@ function* startOrder(n: number, first: number): Generator<number> {
 
 /** Boundary width after each absorption when the crossings are absorbed in `order`. */
 export function boundaryWidths(d: LinkDiagram, order: readonly number[]): number[] {
-  const neighbours = neighbourTable(d);
-  const absorbed = new Uint8Array(d.crossings.length);
-  const widths: number[] = [];
+  return widthsAlong(neighbourTable(d), order);
+}
+
+function widthsAlong(neighbours: Int32Array, order: readonly number[]): number[] {
+  const absorbed = new Uint8Array(neighbours.length >> 2);
+  const widths: number[] = new Array(order.length);
   let width = 0;
-  for (const c of order) {
+  order.forEach((c, k) => {
     absorbed[c] = 1;
     for (let q = 0; q < 4; q++) {
       const other = neighbours[4 * c + q]!;
       if (other === c) continue; // a kink: both ends meet inside this crossing
       width += absorbed[other] ? -1 : 1;
     }
-    widths.push(width);
-  }
+    widths[k] = width;
+  });
   return widths;
 }
 
 /** For slot 4c+q, the crossing at the other end of its edge. */
 function neighbourTable(d: LinkDiagram): Int32Array {
   const { opposite } = indexDiagram(d);
-  return Int32Array.from(opposite, (slot) => slot >> 2);
+  const neighbours = new Int32Array(opposite.length);
+  for (let s = 0; s < opposite.length; s++) neighbours[s] = opposite[s]! >> 2;
+  return neighbours;
 }
 
 /** Roughly proportional to the contraction work: states grow about like 2^width, polynomials like the step. */
@@ -100,23 +107,50 @@ function orderCost(widths: readonly number[]): number {
   return widths.reduce((s, w, k) => s + 2 ** Math.min(w, 1000) * (k + 1), 0);
 }
 
+/** Priority keys pack (connected?, growth, contact time, index) into one exact double; this bounds n. */
+const KEY_FIELD = 2 ** 21;
+
+/**
+ * One greedy walk. The next crossing is the one with the smallest key:
+ * touching the region before not touching it, then least growth, then the
+ * tie-break on contact time, then the lowest index. A binary heap with lazy
+ * deletion keeps each pick logarithmic: a crossing's stale entries are
+ * skipped when its key has changed since they were pushed.
+ */
 function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak: TieBreak): number[] {
+  if (n >= KEY_FIELD) throw new RangeError(`crossing order: ${n} crossings is more than the planner supports (${KEY_FIELD - 1})`);
   const absorbed = new Uint8Array(n);
-  // connections[c]: slots of c whose edge leads into the absorbed region.
   const connections = new Int32Array(n);
   // growth[c]: how much absorbing c would widen the boundary (4 − kink slots − 2·connections).
   const growth = new Int32Array(n);
-  // touched[c]: the absorption step at which c first (oldest) or last (newest) met the region.
-  const touched = new Float64Array(n).fill(Infinity);
+  const currentKey = new Float64Array(n);
+  const heap = new KeyHeap();
+  const keyOf = (c: number, touchedAt: number): number => {
+    const connected = connections[c]! > 0;
+    const contact = !connected ? 0 : tieBreak === 'oldest' ? touchedAt : KEY_FIELD - 1 - touchedAt;
+    return (((connected ? 0 : 1) * 16 + growth[c]! + 4) * KEY_FIELD + contact) * KEY_FIELD + c;
+  };
+  const firstTouch = new Int32Array(n).fill(-1);
   for (let c = 0; c < n; c++) {
     let open = 0;
     for (let q = 0; q < 4; q++) if (neighbours[4 * c + q] !== c) open++;
     growth[c] = open;
+    currentKey[c] = keyOf(c, 0);
+    if (c !== start) heap.push(currentKey[c]!);
   }
   const order: number[] = [];
   let next = start;
   for (let stepIndex = 0; stepIndex < n; stepIndex++) {
-    if (stepIndex > 0) next = pickNext(absorbed, connections, growth, touched, tieBreak);
+    if (stepIndex > 0) {
+      for (;;) {
+        const key = heap.pop();
+        const c = key % KEY_FIELD;
+        if (!absorbed[c] && currentKey[c] === key) {
+          next = c;
+          break;
+        }
+      }
+    }
     absorbed[next] = 1;
     order.push(next);
     for (let q = 0; q < 4; q++) {
@@ -124,40 +158,48 @@ function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak:
       if (other === next || absorbed[other]) continue;
       connections[other]!++;
       growth[other]! -= 2;
-      if (tieBreak === 'newest' || touched[other] === Infinity) touched[other] = stepIndex;
+      if (firstTouch[other]! < 0) firstTouch[other] = stepIndex;
+      currentKey[other] = keyOf(other, tieBreak === 'oldest' ? firstTouch[other]! : stepIndex);
+      heap.push(currentKey[other]!);
     }
   }
   return order;
 }
 
-function pickNext(
-  absorbed: Uint8Array,
-  connections: Int32Array,
-  growth: Int32Array,
-  touched: Float64Array,
-  tieBreak: TieBreak,
-): number {
-  let best = -1;
-  for (let c = 0; c < absorbed.length; c++) {
-    if (absorbed[c]) continue;
-    if (best < 0) {
-      best = c;
-      continue;
+/** A binary min-heap of numbers. */
+class KeyHeap {
+  private items: number[] = [];
+
+  push(key: number): void {
+    const items = this.items;
+    let i = items.length;
+    items.push(key);
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      if (items[parent]! <= key) break;
+      items[i] = items[parent]!;
+      i = parent;
     }
-    // A crossing touching the region always beats a fresh start elsewhere.
-    const connectedC = connections[c]! > 0;
-    const connectedBest = connections[best]! > 0;
-    if (connectedC !== connectedBest) {
-      if (connectedC) best = c;
-      continue;
-    }
-    if (growth[c]! !== growth[best]!) {
-      if (growth[c]! < growth[best]!) best = c;
-      continue;
-    }
-    const earlier = touched[c]! < touched[best]!;
-    const later = touched[c]! > touched[best]! && touched[c] !== Infinity;
-    if (tieBreak === 'oldest' ? earlier : later) best = c;
+    items[i] = key;
   }
-  return best;
+
+  pop(): number {
+    const items = this.items;
+    const top = items[0]!;
+    const last = items.pop()!;
+    if (items.length > 0) {
+      let i = 0;
+      for (;;) {
+        const left = 2 * i + 1;
+        if (left >= items.length) break;
+        const right = left + 1;
+        const child = right < items.length && items[right]! < items[left]! ? right : left;
+        if (items[child]! >= last) break;
+        items[i] = items[child]!;
+        i = child;
+      }
+      items[i] = last;
+    }
+    return top;
+  }
 }
