@@ -166,7 +166,7 @@ class ManuscriptReader {
     const options = this.keyValues(file, item.options, [...CODE_KEYS, ...CLAIM_KEYS], '\\begin{skeincode}');
     const id = this.validId(file, options.get('id'), item.beginSpan, '\\begin{skeincode}{…}', 'id=trefoil');
     const notation = this.validNotation(file, options.get('notation'), item.beginSpan);
-    const strands = this.validStrands(file, options.get('strands'));
+    const strands = this.validStrands(file, options.get('strands'), notation);
     splices.push({ kind: 'text', span: item.beginSpan, text: '\\begin{flushleft}\\ttfamily' });
     for (const m of item.body.text.matchAll(SPECIAL_IN_CODE)) {
       const at = item.body.start + m.index;
@@ -350,7 +350,7 @@ class ManuscriptReader {
         );
         continue;
       }
-      const idCell = row.cells[idColumn - 1]!.content;
+      const idCell = plainId(row.cells[idColumn - 1]!.content);
       if (idCell.text === '') {
         this.error(file, row.cells[idColumn - 1]!.raw, 'latex-id-missing', `${place} names no diagram: write its id in column ${idColumn}`);
         continue;
@@ -449,8 +449,12 @@ class ManuscriptReader {
   }
 
   /** The strand count, undefined when absent, null when invalid (already reported). */
-  private validStrands(file: SourceFile, value: Arg | undefined): number | undefined | null {
+  private validStrands(file: SourceFile, value: Arg | undefined, notation: Notation | undefined): number | undefined | null {
     if (value === undefined) return undefined;
+    if (notation !== undefined && notation !== 'braid') {
+      this.error(file, value, 'latex-option-invalid', `strands applies to braid words only; a ${notation} code fixes its own strands: remove strands=${value.text}`);
+      return null;
+    }
     if (/^\d+$/.test(value.text) && Number(value.text) >= 1) return Number(value.text);
     this.error(file, value, 'latex-option-invalid', `strands must be a positive whole number (the braid's strand count), not \`${value.text}\``);
     return null;
@@ -464,6 +468,12 @@ class ManuscriptReader {
 /** A locator for spans of `arg`'s text, in its file. */
 function locatorFor(file: SourceFile, arg: Span): Locator {
   return (span?: TextSpan) => (span ? file.location(arg.start + span.start, arg.start + span.end) : file.location(arg.start, arg.end));
+}
+
+/** An id cell may set the id in a font (`\texttt{trefoil}`); the id is what the command holds. */
+function plainId(cell: Arg): Arg {
+  const m = /^\\(texttt|textbf|textit|textsf|textrm|textsc|emph)\s*\{([^{}]*)\}$/.exec(cell.text);
+  return m ? trim(slice(cell, cell.text.indexOf('{') + 1, cell.text.length - 1)) : cell;
 }
 
 /** `$…$` or `\(…\)` around a claimed value are typesetting, not part of the value. */

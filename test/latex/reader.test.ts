@@ -53,7 +53,7 @@ describe('what the reader extracts', () => {
       'paper.tex':
         PREAMBLE +
         '\\begin{skeintable}[head=2]{id, -, jones, crossing-number}\n\\begin{tabular}{llll}\n' +
-        'Id & Name & $V$ & $c$ \\\\\n & & & \\\\\n\\hline\nk1 & trefoil & & 3 \\\\\nk2 & eight & $t^2$ & \\\\\n\\end{tabular}\n\\end{skeintable}\n',
+        'Id & Name & $V$ & $c$ \\\\\n & & & \\\\\n\\hline\nk1 & trefoil & & 3 \\\\\n\\texttt{k2} & eight & $t^2$ & \\\\\n\\end{tabular}\n\\end{skeintable}\n',
     });
     expect(doc.diagnostics).toEqual([]);
     expect(doc.fills.map((f) => f.target.kind === 'cell' && [f.entry.target, f.entry.key, f.target.row, f.target.column])).toEqual([
@@ -151,6 +151,12 @@ describe('located errors in the markup', () => {
     const doc = read({ 'paper.tex': '\\input{pre}\n\\begin{document}\n\\skeinconvention{order=ascending}\n', 'pre.tex': '\\skeinconvention{jones=q}\n' });
     expect(places(doc)).toEqual(['latex-convention-misplaced@paper.tex:3:1']);
     expect(doc.convention).toEqual({ jonesVariable: 'q' });
+  });
+
+  it('strands belongs to braid words only', () => {
+    const doc = read({ 'paper.tex': '\\begin{skeincode}{id=k, notation=dt, strands=3}\n4 6 2\n\\end{skeincode}\n' });
+    expect(places(doc)).toEqual(['latex-option-invalid@paper.tex:1:46']);
+    expect(doc.diagrams).toEqual([]);
   });
 
   it('a bad convention setting is located at its key or value', () => {
