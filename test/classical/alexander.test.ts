@@ -7,6 +7,8 @@ import { alexanderFromSeifertMatrix, conwayFromAlexander } from '../../src/core/
 import { classicalInvariants } from '../../src/core/invariants/classical/index.ts';
 import { seifertSurface } from '../../src/core/invariants/classical/seifert.ts';
 import { toDense } from '../../src/core/invariants/classical/sparse-matrix.ts';
+import { jonesPolynomial } from '../../src/core/invariants/jones.ts';
+import { linkingNumbers } from '../../src/core/diagram/properties.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 import { randomDiagram, randomInt, rng } from '../support/random-diagrams.ts';
 import { equalUpToUnit, foxAlexander, laurentDeterminant } from './support.ts';
@@ -133,6 +135,29 @@ describe('Alexander and Conway polynomials: identities on random diagrams', () =
       const b = randomDiagram(random, 7, 3);
       if (a.crossings.length === 0 || b.crossings.length === 0) continue;
       expect(alexander(connectedSum(a, b)).equals(alexander(a).mul(alexander(b)))).toBe(true);
+    }
+  });
+  it('two-component links: the coefficient of z in ∇ is the linking number (from memory: Hosokawa)', () => {
+    const random = rng(18);
+    let links = 0;
+    while (links < 25) {
+      const d = randomDiagram(random, 10, 4);
+      if (componentCount(d) !== 2) continue;
+      links++;
+      expect(conway(d).coefficient(1)).toBe(BigInt(linkingNumbers(d)[0]!.value));
+    }
+  });
+  it('knots: the coefficient of z² in ∇ is −V″(1)/6 for the Jones polynomial V (from memory)', () => {
+    const random = rng(19);
+    let knots = 0;
+    while (knots < 25) {
+      const d = randomDiagram(random, 11, 4);
+      if (componentCount(d) !== 1) continue;
+      knots++;
+      const secondDerivativeAtOne = jonesPolynomial(d)
+        .terms()
+        .reduce((sum, [e, c]) => sum + c * BigInt(e * (e - 1)), 0n);
+      expect(-6n * conway(d).coefficient(2)).toBe(secondDerivativeAtOne);
     }
   });
 });
