@@ -109,7 +109,7 @@ class ManuscriptReader {
     const text = this.fs.read(absolute);
     const main = new SourceFile(this.mainPath, absolute, text ?? '');
     if (text === undefined) {
-      this.error(main, { start: 0, end: 0 }, 'file-unreadable', `cannot read ${this.mainPath}: the file does not exist`);
+      this.error(main, { start: 0, end: 0 }, 'file-unreadable', `cannot read ${this.mainPath}: there is no such file, or it cannot be opened; check the path`);
     } else {
       this.visit(main, [absolute]);
     }
@@ -184,10 +184,7 @@ class ManuscriptReader {
       locateCode: locatorFor(file, code),
       locateHeader: locatorFor(file, idValue),
     });
-    for (const [key, value] of options) {
-      if (!isClaimKey(key) || value === undefined) continue;
-      this.addClaim(file, id, key, value, undefined);
-    }
+    for (const [key, value] of options) if (isClaimKey(key)) this.addClaim(file, id, key, value, undefined);
   }
 
   private fill(file: SourceFile, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[]): void {
@@ -401,8 +398,8 @@ class ManuscriptReader {
   }
 
   /** Reads key=value options, reporting unknown and repeated keys. */
-  private keyValues(file: SourceFile, list: Arg, known: readonly string[], where: string): Map<string, Arg | undefined> {
-    const result = new Map<string, Arg | undefined>();
+  private keyValues(file: SourceFile, list: Arg, known: readonly string[], where: string): Map<string, Arg> {
+    const result = new Map<string, Arg>();
     for (const kv of readKeyValues(list)) {
       if (!known.includes(kv.key)) {
         this.error(file, kv.keySpan, 'latex-key-unknown', `\`${kv.key}\` is not a key of ${where}: the keys are ${known.join(', ')}`);

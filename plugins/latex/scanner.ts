@@ -54,7 +54,6 @@ export interface ScanProblem {
   readonly ruleId: string;
   readonly message: string;
   readonly span: Span;
-  readonly hints?: readonly string[];
 }
 
 export interface ScanResult {
