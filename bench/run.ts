@@ -130,7 +130,7 @@ async function main(): Promise<void> {
   );
 
   // Other families.
-  for (const n of [100, 200]) bench(`alternating, 4-strand closure, shuffled`, 'built directly', alternatingBraidClosure(n, 4, n), spanCheck);
+  for (const n of [100, 200, 1000]) bench(`alternating, 4-strand closure, shuffled`, 'built directly', alternatingBraidClosure(n, 4, n), spanCheck);
   bench('alternating, 8-strand closure, shuffled', 'built directly', alternatingBraidClosure(8, 8, 300), spanCheck);
   bench('alternating, 9-strand closure, shuffled', 'built directly', alternatingBraidClosure(9, 9, 300), spanCheck);
   const randomWord = randomBraidWord(rng(42), 6, 400);
