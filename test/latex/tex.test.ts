@@ -163,6 +163,23 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     }
   });
 
+  it('fill-ins find their values with spaces around the id and key, underscores in it, in text and in math', async () => {
+    const dir = workDir('ids', true);
+    writeFileSync(
+      join(dir, 'ids.tex'),
+      '\\documentclass{article}\n\\usepackage{skeinproof}\n\\begin{document}\n\\begin{skeincode}{id=knot_3.1, notation=braid}\n1 1 1\n\\end{skeincode}\n' +
+        'A \\skeinjones{ knot_3.1 } B \\skeinvalue{knot_3.1}{ span } C $x = \\skeinwrithe{knot_3.1}$ D\n\\end{document}\n',
+    );
+    const result = await latexFormat.build(join(dir, 'ids.tex'), {});
+    expect(result.diagnostics).toEqual([]);
+    for (const o of result.outputs) writeFileSync(o.path, o.content);
+    const run = pdflatex(dir, 'ids.tex');
+    expect(run.ok).toBe(true);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    // The positive trefoil (from memory): V = t + t^3 - t^4, span 3, writhe 3.
+    expect(squeeze(run.text)).toContain(asPdfText('A t + t^3 - t^4 B 3 C x = 3 D'));
+  });
+
   it('fills tables coloured with colortbl and tables of a set width (tabular*)', async () => {
     const paper = [
       '\\documentclass{article}',
