@@ -109,12 +109,19 @@ describe('formatPD', () => {
       for (const [a, , c] of tuples) expect(c).toBe(successor(a!));
     }
   });
-  it('round-trips through the PD parser with the same Jones polynomial', () => {
+  it('round-trips through the PD parser with the same Jones polynomial (alternating and random diagrams, knots and links)', () => {
     const random = rng(207);
-    for (let i = 0; i < 40; i++) {
-      const d = randomReducedAlternating(random, randomInt(random, 4, 14));
+    for (let i = 0; i < 80; i++) {
+      const d = i % 2 ? randomReducedAlternating(random, randomInt(random, 4, 14)) : randomDiagram(random, 14, 5);
+      if (d.freeLoops > 0) continue;
       const back = parseDiagramCode(formatPD(d), 'pd');
       expect(jonesPolynomial(back).equals(jonesPolynomial(d))).toBe(true);
+    }
+  });
+  it('round-trips the Hopf links, whose 2-edge components leave the least room for orientation', () => {
+    for (const word of [[1, 1], [-1, -1]]) {
+      const d = closeBraid(word, 2);
+      expect(jonesPolynomial(parseDiagramCode(formatPD(d), 'pd')).equals(jonesPolynomial(d))).toBe(true);
     }
   });
   it('refuses diagrams with crossingless components, which a PD code cannot write', () => {
