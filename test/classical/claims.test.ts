@@ -63,4 +63,15 @@ describe('claims about the classical invariants', () => {
     expect(typesetValue('determinant', figureEight, DEFAULT_CONVENTION)).toEqual({ kind: 'math', latex: '5' });
     expect(typesetValue('signature', trefoil, { ...DEFAULT_CONVENTION, signatureSign: 'positive' })).toEqual({ kind: 'math', latex: '2' });
   });
+  it('state the genus bounds as prose: the trefoil has genus 1, the split union none (from memory: g(3₁) = 1)', () => {
+    const statement = typesetValue('genus', trefoil, DEFAULT_CONVENTION);
+    expect(statement.kind).toBe('text');
+    if (statement.kind !== 'text') return;
+    expect(statement.text).toContain('$\\operatorname{span} \\Delta = 2$');
+    expect(statement.text).toContain('so the genus is $1$');
+    const split = typesetValue('genus', analyzeDiagram(closeBraid([], 2)), DEFAULT_CONVENTION);
+    expect(split.kind === 'text' && split.text).toMatch(/split/);
+    const wide = typesetValue('genus', analyzeDiagram(closeBraid([1, 2, -1, 2, 1, 2, -1, 2], 3)), DEFAULT_CONVENTION);
+    expect(wide.kind === 'text' && wide.text).toMatch(/genus (is|lies between) \$\d+\$/);
+  });
 });

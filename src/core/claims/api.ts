@@ -79,7 +79,8 @@ export type FillKey =
   | 'alexander'
   | 'conway'
   | 'determinant'
-  | 'signature';
+  | 'signature'
+  | 'genus';
 
 /**
  * A typeset value: `math` is LaTeX for inline math (without delimiters);

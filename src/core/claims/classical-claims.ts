@@ -55,6 +55,36 @@ export function classicalFill(key: ClassicalKey, report: DiagramReport, conventi
   return { kind: 'math', latex: classicalLatex(key, report, convention) };
 }
 
+/**
+ * The genus bounds as one paragraph of prose with inline math: the lower
+ * bounds from span Δ and |σ|, the upper bound from Seifert's algorithm on the
+ * diagram, and the genus itself when they meet.
+ */
+export function genusStatement(report: DiagramReport): Typeset {
+  const { classical } = report;
+  if (classical.split) {
+    return { kind: 'text', text: 'The diagram falls into separate pieces, so the link is split and $\\Delta = 0$; no genus bound is stated.' };
+  }
+  const bound = (reason: string): number => classical.genusBounds.find((b) => b.reason === reason)!.value;
+  const lower = Math.max(bound('alexander-span'), bound('signature'));
+  const upper = bound('seifert-algorithm');
+  const mu = report.components;
+  const inequality = mu === 1 ? '2g' : `2g + ${mu - 1}`;
+  const surface = mu === 1 ? 'every Seifert surface of genus $g$' : `every connected Seifert surface of genus $g$ of this ${mu}-component link`;
+  const conclusion = lower === upper ? `so the genus is $${upper}$` : `so the genus lies between $${lower}$ and $${upper}$`;
+  return {
+    kind: 'text',
+    text:
+      `The Alexander polynomial has $\\operatorname{span} \\Delta = ${classical.alexander.span}$ and the signature has $|\\sigma| = ${Math.abs(classical.signature)}$; ` +
+      `both are at most $${inequality}$ for ${surface}, so $g \\ge ${lower}$. ` +
+      `Seifert's algorithm on this diagram (${plural(report.crossings, 'crossing')}, ${plural(classical.seifertCircles, 'Seifert circle')}) builds such a surface of genus $${upper}$, ${conclusion}.`,
+  };
+}
+
+function plural(n: number, noun: string): string {
+  return `${n} ${noun}${n === 1 ? '' : 's'}`;
+}
+
 export function judgeClassicalClaim(key: ClassicalKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
   return key === 'alexander' || key === 'conway' ? judgePolynomial(key, text, report, ctx) : judgeInteger(key, text, report, ctx);
 }

@@ -9,7 +9,7 @@ import type { FillKey, Typeset } from './api.ts';
 import { bracketLatex, jonesLatex, numberLatex } from './typeset.ts';
 import { conventionJones } from '../convention/convert.ts';
 import { crossingNumberFill, crossingNumberStatement } from './crossing-number.ts';
-import { classicalFill } from './classical-claims.ts';
+import { classicalFill, genusStatement } from './classical-claims.ts';
 
 export type * from './api.ts';
 export { judgeClaim, CLAIM_KEYS, isClaimKey } from './judge.ts';
@@ -28,7 +28,7 @@ export { crossingNumberStatement, readCrossingNumberClaim, THEOREM_NAMES } from 
 
 /** Every fill key, for front ends that map labels to keys. */
 export const FILL_KEYS: readonly FillKey[] = [
-  'jones', 'bracket', 'span', 'writhe', 'crossings', 'components', 'crossing-number', 'statement', 'alexander', 'conway', 'determinant', 'signature',
+  'jones', 'bracket', 'span', 'writhe', 'crossings', 'components', 'crossing-number', 'statement', 'alexander', 'conway', 'determinant', 'signature', 'genus',
 ];
 
 export function isFillKey(word: string): word is FillKey {
@@ -59,5 +59,7 @@ export function typesetValue(key: FillKey, report: DiagramReport, convention: Co
     case 'determinant':
     case 'signature':
       return classicalFill(key, report, convention);
+    case 'genus':
+      return genusStatement(report);
   }
 }
