@@ -88,14 +88,16 @@ describe('the planted-slips sample', () => {
   it('fails with exactly its six slips, at the lines where they are', async () => {
     const result = await latexFormat.check(SLIPS, {});
     expect(result.failed).toBe(true);
-    const at = (d: (typeof result.diagnostics)[number]) => `${d.severity} ${d.ruleId} ${relative(SAMPLES, d.location!.file)}:${d.location!.start.line}`;
+    const at = (d: (typeof result.diagnostics)[number]) =>
+      `${d.severity} ${d.ruleId} ${relative(SAMPLES, d.location!.file)}:${d.location!.start.line}:${d.location!.start.column}`;
+    // Each points at the value or token at fault (the column of its first character).
     expect(result.diagnostics.filter((d) => d.severity !== 'note').map(at)).toEqual([
-      'error claim-contradicted slips/rope-atlas.tex:29', // wrong sign: writhe 3 for a negative trefoil
-      'error claim-contradicted slips/rope-atlas.tex:50', // the mirror image's Jones polynomial
-      'error claim-contradicted slips/rope-atlas.tex:57', // crossing number at most 4 against span 5
-      'error code-invalid slips/rope-atlas.tex:74', // a PD label used once
-      'error claim-unreadable slips/sections/atlas-table.tex:12', // an unbalanced bracket
-      'error claim-contradicted slips/sections/atlas-table.tex:15', // crossing number 7 for a 6-crossing diagram
+      'error claim-contradicted slips/rope-atlas.tex:29:61', // wrong sign: writhe 3 for a negative trefoil
+      'error claim-contradicted slips/rope-atlas.tex:50:51', // the mirror image's Jones polynomial
+      'error claim-contradicted slips/rope-atlas.tex:57:62', // crossing number at most 4 against span 5
+      'error code-invalid slips/rope-atlas.tex:74:7', // PD label 2 used once
+      'error claim-unreadable slips/sections/atlas-table.tex:12:35', // the unbalanced bracket
+      'error claim-contradicted slips/sections/atlas-table.tex:15:56', // crossing number 7 for a 6-crossing diagram
     ]);
     const [sign, mirror, span, , , count] = result.diagnostics.filter((d) => d.severity === 'error');
     expect(sign!.computed).toBe('-3');
