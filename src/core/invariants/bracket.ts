@@ -26,8 +26,7 @@
  * floating-point adds.
  */
 import { Laurent } from '../poly/laurent.ts';
-import type { LinkDiagram } from '../diagram/model.ts';
-import { indexDiagram } from '../diagram/model.ts';
+import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 import { InputError } from '../errors.ts';
 import { planContraction } from './crossing-order.ts';
 
@@ -170,9 +169,9 @@ const LIMB_BASE = 2 ** 32;
 /** Limbs may grow to this before a carry; leaves room for the carry itself below 2^53. */
 const LIMB_CEILING = 2 ** 52;
 
-/** Largest binomial coefficient C(l, ⌊l/2⌋): the growth factor of d^l. */
+/** Largest binomial coefficient C(l, ⌊l/2⌋): the growth factor of d^l. At most two loops close per crossing. */
 function centralBinomial(l: number): number {
-  return binomialRow(l)[Math.floor(l / 2)]!;
+  return l < 2 ? 1 : l === 2 ? 2 : binomialRow(l)[l >> 1]!;
 }
 
 function binomialRow(l: number): number[] {
