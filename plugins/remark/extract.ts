@@ -4,7 +4,7 @@
  * the edits a build makes to the text. Syntax problems become diagnostics; no
  * value is computed here.
  */
-import type { Code, InlineCode, Nodes, PhrasingContent, Root, Table, TableCell, Yaml } from 'mdast';
+import type { Code, InlineCode, Nodes, PhrasingContent, Root, Table, TableCell, Text, Yaml } from 'mdast';
 import type { ContainerDirective, TextDirective } from 'mdast-util-directive';
 import { visit, SKIP } from 'unist-util-visit';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
@@ -92,6 +92,7 @@ class Extractor {
       if (node.type === 'code' && node.lang === DIAGRAM_FENCE_LANGUAGE) this.diagramBlock(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
+      else if (node.type === 'text') this.strayMarkup(node);
       return undefined;
     });
     return {
@@ -201,9 +202,14 @@ class Extractor {
   // :jones{of=K} (fill-in) and :jones[$…$]{of=K} (claim)
   private textDirective(node: TextDirective): typeof SKIP | undefined {
     const target = node.attributes?.[TARGET_ATTRIBUTE];
-    if (target === undefined || target === null) return undefined;
     const [start, end] = offsets(node);
     const name = node.name;
+    if (target === undefined || target === null) {
+      // `:jones` followed by `[` or `{` (also on the next line) is a label or attribute list the parser could not read.
+      const broken = /^[ \t]*(?:\r?\n|\r)?[ \t]*[[{]/.test(this.text.slice(end, end + 40));
+      if (broken && (isClaimKey(name) || isFillKey(name))) this.strayWarning(name, start);
+      return undefined;
+    }
     if (target.trim() === '') {
       this.error('markup-invalid', `\`:${name}\` has an empty \`${TARGET_ATTRIBUTE}\`: write the id of a diagram, e.g. {of=trefoil}`, start, end);
       return SKIP;
@@ -235,6 +241,32 @@ class Extractor {
     this.edits.push({ start, end: labelStart, replacement: { text: '' } }, { start: labelEnd, end, replacement: { text: '' } });
     this.actions.set(node, { kind: 'unwrap' });
     return SKIP;
+  }
+
+  /**
+   * Text that looks like one of our directives but was not parsed as one (a
+   * label broken over lines, remark-directive missing) would silently go
+   * unchecked; say so.
+   */
+  private strayMarkup(node: Text): void {
+    const [start, end] = offsets(node);
+    const slice = this.text.slice(start, end);
+    const pattern = /(?<![\w:\\]):([a-z][a-z-]*)(?=\[|\{of=)/g;
+    for (let m = pattern.exec(slice); m !== null; m = pattern.exec(slice)) {
+      const name = m[1]!;
+      if (!isClaimKey(name) && !isFillKey(name)) continue;
+      this.strayWarning(name, start + m.index);
+    }
+  }
+
+  private strayWarning(name: string, at: number): void {
+    this.problems.push({
+      severity: 'warning',
+      ruleId: 'markup-invalid',
+      message: `\`:${name}\` here is read as plain text, not as a claim or fill-in, so nothing is checked or filled in`,
+      location: this.source.location(at, at + 1 + name.length),
+      hints: ['Keep the label [ … ] on one line and write {of=ID} right after it; in a pipeline of your own, add remark-directive.'],
+    });
   }
 
   /** The author's value: the inside of the math when the content is one math span, else the text as written. */

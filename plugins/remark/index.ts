@@ -67,7 +67,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
     const strict = options.strict ?? manuscript.settings.strict ?? false;
     const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict });
     const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
-    const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error');
+    const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
     for (const d of diagnostics) reportOnFile(file, d);
     const splices: Splice[] = [];
     for (const edit of manuscript.edits) {

@@ -244,3 +244,22 @@ describe('more error positions', () => {
     expect(r.diagnostics[0]!.message).toMatch(/table row 1 \(k\), column span/);
   });
 });
+
+describe('broken directives', () => {
+  it('warns where a claim would otherwise go unchecked', async () => {
+    // A line starting with "+ " inside the label starts a list, so the directive breaks.
+    const text = `${TREFOIL}\nA :jones[$t + t^3\n+ t^4$]{of=tref}\n\nB :writhe[$3$]\n{of=tref}\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`warning markup-invalid ${positionOf(text, ':jones')}`, `warning markup-invalid ${positionOf(text, ':writhe')}`]);
+    expect(r.failed).toBe(false);
+    expect((await processMarkdown(text, { strict: true })).failed).toBe(true);
+  });
+
+  it('reads a label that wraps onto a plain line, and locates inside it', async () => {
+    const text = `${TREFOIL}\nA :jones[$t + t^3\n- t^4$]{of=tref} and :jones[$t + t^3\nt^{4}$]{of=tref}\n`;
+    const r = await processMarkdown(text.replace('\n- t^4', ' - t^4'));
+    expect(r.diagnostics.filter((d) => d.severity === 'error').map((d) => `${d.ruleId} ${d.location?.start.line}:${d.location?.start.column}`)).toEqual([
+      `claim-contradicted ${positionOf(text.replace('\n- t^4', ' - t^4'), '$t + t^3\nt^{4}')}`,
+    ]);
+  });
+});
