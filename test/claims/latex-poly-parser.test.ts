@@ -70,6 +70,11 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     expect(readNumber('-\\frac{5}{2}', 'the degree')).toEqual({ p: -5, q: 2 });
     expect(readNumber('7', 'the span')).toEqual({ p: 7, q: 1 });
     expect(readNumber('5/2', 'the degree')).toEqual({ p: 5, q: 2 });
+    // Stated numbers may be large (a determinant); only exponents are capped.
+    expect(readNumber('123456789', 'the determinant')).toEqual({ p: 123456789, q: 1 });
+    expect(() => readNumber('99999999999999999999', 'the determinant')).toThrow(/too large to be read exactly/);
+    expect(() => readPolynomial('t^{123456}', inT)).toThrow(/too large to be meant/);
+    expect(() => readNumber('7x', 'the writhe')).toThrow(/unexpected `x`: the writhe is a number/);
   });
 });
 

@@ -148,6 +148,8 @@ interface Spanned<T> {
 class PolynomialParser {
   private pos = 0;
   private variable: Token | undefined;
+  /** True when the whole value is a number (`readNumber`), not an exponent. */
+  private readingNumber = false;
   private readonly tokens: Token[];
 
   constructor(
@@ -168,6 +170,7 @@ class PolynomialParser {
 
   /** A number such as `7`, `-3`, `5/2` or `-\frac{5}{2}`, as an exact fraction. */
   readNumber(): Rational {
+    this.readingNumber = true;
     const first = this.peek();
     if (first.kind === 'end') fail(`the value is empty: write ${this.what()}, e.g. 7`, { start: 0, end: this.text.length });
     const r = this.parseRationalSum();
@@ -332,6 +335,7 @@ class PolynomialParser {
 
   private useVariable(t: Token): void {
     const allowed = this.options.variables;
+    if (allowed.length === 0) fail(`unexpected \`${t.text}\`: ${this.what()} is a number`, t);
     if (!allowed.includes(t.text)) {
       const expected = allowed[0] ?? 't';
       fail(`unknown variable \`${t.text}\`: ${this.what()} in this document is written in ${expected}; write it in ${expected} or declare another convention`, t);
@@ -443,7 +447,10 @@ class PolynomialParser {
     if (t.kind === 'number') {
       this.next();
       const n = Number(t.text);
-      if (n > MAX_EXPONENT) fail(`the exponent ${t.text} is too large to be meant`, t);
+      // A stated number (a determinant) may be large; an exponent that large is a typo.
+      if (this.readingNumber ? !Number.isSafeInteger(n) : n > MAX_EXPONENT) {
+        fail(this.readingNumber ? `the number ${t.text} is too large to be read exactly` : `the exponent ${t.text} is too large to be meant`, t);
+      }
       return { value: rational(n, 1), start: t.start, end: t.end };
     }
     if (t.kind === 'command' && FRACTION_COMMANDS.has(t.text)) {
