@@ -130,6 +130,26 @@ describe('exactness past 2^53: a 300-crossing reduced alternating knot', () => {
   });
 });
 
+describe('exactness past 2^53, coefficient by coefficient', () => {
+  // ⟨D₁ # D₂⟩ = ⟨D₁⟩⟨D₂⟩ and ⟨D₁ ⊔ D₂⟩ = d⟨D₁⟩⟨D₂⟩ (Kauffman 1987): the engine's limb arithmetic on
+  // the big diagram is checked against BigInt products of the two smaller brackets.
+  const random = rng(113);
+  const d1 = shuffleDiagram(closeBraid(randomAlternatingBraidWord(random, 5, 160), 5), random);
+  const d2 = shuffleDiagram(closeBraid(randomAlternatingBraidWord(random, 4, 140), 4), random);
+  const product = kauffmanBracket(d1).bracket.mul(kauffmanBracket(d2).bracket);
+
+  it('connected sum of a 160- and a 140-crossing alternating diagram', () => {
+    const sum = shuffleDiagram(connectedSum(d1, d2, randomInt(random, 0, d1.edgeCount - 1), randomInt(random, 0, d2.edgeCount - 1)), random);
+    const { bracket } = kauffmanBracket(sum);
+    expect(largestCoefficient(bracket)).toBeGreaterThan(2n ** 120n);
+    expect(bracket.equals(product)).toBe(true);
+  });
+  it('split union of the same two diagrams', () => {
+    const loop = Laurent.fromTerms([[2, -1n], [-2, -1n]]);
+    expect(kauffmanBracket(shuffleDiagram(disjointUnion(d1, d2), random)).bracket.equals(product.mul(loop))).toBe(true);
+  });
+});
+
 /**
  * Spanning trees of the Tait graph of a connected diagram: the faces of one
  * checkerboard colour, joined through each crossing. Counted by Kirchhoff's
