@@ -122,6 +122,10 @@ describe('the command line on the samples', () => {
     expect(flat.status).toBe(0);
     expectGolden('rope-atlas.flat.tex', readFileSync(join(dir, 'flat.tex'), 'utf8'));
     expect(readFileSync(join(dir, 'rope-atlas.tex'), 'utf8')).toBe(readFileSync(CLEAN, 'utf8'));
+    const html = cli('build', 'rope-atlas.tex', '-o', 'page.html');
+    expect(html.status).toBe(2);
+    expect(html.stderr).toContain('no HTML page');
+    expect(existsSync(join(dir, 'page.html'))).toBe(false);
     rmSync(join(dir, 'slips/rope-atlas.skein.tex'), { force: true });
     const slips = cli('check', 'slips/rope-atlas.tex');
     expect(slips.status).toBe(2); // an invalid code is among the slips

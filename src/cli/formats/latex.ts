@@ -80,6 +80,14 @@ export const latexFormat: ManuscriptFormat = {
 
   async build(path, options): Promise<FormatResult> {
     const { doc, session, diagnostics, failed } = checkManuscript(path, options);
+    if (options.html || /\.html?$/i.test(options.output ?? '')) {
+      const refusal: Diagnostic = {
+        severity: 'error',
+        ruleId: 'output-unsupported',
+        message: `${path} is LaTeX, which has no HTML page: build it without --html (the sidecar, or -o for a flat copy) and run LaTeX`,
+      };
+      return { diagnostics: [refusal, ...diagnostics], outputs: [], inputs: inputsOf(doc), failed: true };
+    }
     const output =
       options.output !== undefined
         ? { path: options.output, content: flatText(doc, session.fills) }
