@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { readNumber, readPolynomial } from '../../src/core/claims/latex-poly-parser.ts';
+import { readInteger, readNumber, readPolynomial } from '../../src/core/claims/latex-poly-parser.ts';
 import { InputError } from '../../src/core/errors.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 
@@ -135,5 +135,14 @@ describe('robustness (fast-check): any text is either read or refused with an In
       }),
       { numRuns: 3000 },
     );
+  });
+});
+
+describe('integer claims are exact at any size', () => {
+  it('reads plain and braced integers as BigInt, beyond 2^53', () => {
+    expect(readInteger('123456789012345678901234567890', 'the determinant')).toBe(123456789012345678901234567890n);
+    expect(readInteger(' −{42} ', 'the writhe')).toBe(-42n);
+    expect(readInteger('\\frac{8}{2}', 'the writhe')).toBe(4n);
+    expect(() => readInteger('5/2', 'the writhe')).toThrow(/is an integer, but the claim is 5\/2/);
   });
 });

@@ -541,3 +541,21 @@ export function readPolynomial(text: string, options: PolynomialReadOptions): Re
 export function readNumber(text: string, what: string): Rational {
   return new PolynomialParser(text, { variables: [], what }).readNumber();
 }
+
+const PLAIN_INTEGER = /^\s*([+\-−]?)\s*(\{?)\s*(\d+)\s*(\}?)\s*[.,;]?\s*$/;
+
+/**
+ * Reads an integer claim exactly, however large (a determinant): plain digits
+ * with an optional sign become a BigInt directly; other forms go through
+ * `readNumber` and must come out whole. Throws InputError `claim-unreadable`.
+ */
+export function readInteger(text: string, what: string): bigint {
+  const plain = PLAIN_INTEGER.exec(text);
+  if (plain && (plain[2] === '') === (plain[4] === '')) {
+    const magnitude = BigInt(plain[3]!);
+    return plain[1] === '' || plain[1] === '+' ? magnitude : -magnitude;
+  }
+  const r = readNumber(text, what);
+  if (r.q !== 1) throw new InputError(UNREADABLE, `${what} is an integer, but the claim is ${r.p}/${r.q}`, { start: 0, end: text.length });
+  return BigInt(r.p);
+}

@@ -8,7 +8,7 @@ import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../convention/convert.ts';
 import type { ClaimKey, Diagnosis, JudgeContext, Judgement } from './api.ts';
-import { readNumber, UNREADABLE, type Rational } from './latex-poly-parser.ts';
+import { readInteger, readNumber, UNREADABLE, type Rational } from './latex-poly-parser.ts';
 import { numberLatex } from './typeset.ts';
 
 export type NumberKey = 'span' | 'bracket-span' | 'min-degree' | 'max-degree' | 'writhe' | 'crossings' | 'components' | 'linking';
@@ -31,12 +31,12 @@ function toNumber(r: Rational): number {
   return r.p / r.q;
 }
 
-function readInteger(text: string, noun: string, offset = 0): number {
-  const r = readNumber(text, `the ${noun}`);
-  if (r.q !== 1) {
-    throw new InputError(UNREADABLE, `the ${noun} is an integer, but the claim is ${r.p}/${r.q}`, { start: offset, end: offset + text.length });
+function readSmallInteger(text: string, noun: string): number {
+  const value = readInteger(text, `the ${noun}`);
+  if (value > BigInt(Number.MAX_SAFE_INTEGER) || value < -BigInt(Number.MAX_SAFE_INTEGER)) {
+    throw new InputError(UNREADABLE, `the ${noun} ${value} is too large to be meant`, { start: 0, end: text.length });
   }
-  return r.p;
+  return Number(value);
 }
 
 interface NumberSubject {
@@ -84,7 +84,7 @@ function numberSubject(key: Exclude<NumberKey, 'linking'>, report: DiagramReport
 export function judgeNumberClaim(key: NumberKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
   if (key === 'linking') return judgeLinkingClaim(text, report);
   const noun = NUMBER_NOUNS[key];
-  const claimed = INTEGER_KEYS.has(key) ? readInteger(text, noun) : toNumber(readNumber(text, `the ${noun}`));
+  const claimed = INTEGER_KEYS.has(key) ? readSmallInteger(text, noun) : toNumber(readNumber(text, `the ${noun}`));
   const subject = numberSubject(key, report, ctx.convention);
   const computed = numberLatex(subject.value);
   const base = { key, claimed: text, computed };
@@ -146,7 +146,7 @@ function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
 
 function readIntegerAt(part: string, start: number): number {
   try {
-    return readInteger(part, 'linking number', start);
+    return readSmallInteger(part, 'linking number');
   } catch (e) {
     if (e instanceof InputError && e.span) throw new InputError(e.ruleId, e.message, { start: e.span.start + start, end: e.span.end + start }, e.hints);
     throw e;
