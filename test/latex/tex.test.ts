@@ -145,6 +145,13 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       'c & & ',
       '\\end{tabular}',
       '\\end{skeintable}',
+      'A second table is counted on its own:',
+      '\\begin{skeintable}{id, bracket}',
+      '\\begin{tabular}{ll}',
+      'Id & $\\langle D \\rangle$ \\\\',
+      'a & \\\\',
+      '\\end{tabular}',
+      '\\end{skeintable}',
       '\\end{document}',
     ].join('\n');
     for (const flat of [false, true]) {
@@ -159,6 +166,8 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       const text = squeeze(run.text);
       // Jones polynomials from memory: trefoil, figure-eight, cinquefoil; crossings of the braids 3 and 5.
       for (const v of ['t + t^3 - t^4', 't^{-2} - t^{-1} + 1 - t + t^2', 't^2 + t^4 - t^5 + t^6 - t^7']) expect(text).toContain(asPdfText(v));
+      // The bracket of the positive trefoil with <O> = 1 (from memory): A^{-7} - A^{-3} - A^5.
+      expect(text).toContain(asPdfText('A^{-7} - A^{-3} - A^5'));
       expect(text).not.toContain('??');
     }
   });
