@@ -47,6 +47,13 @@ describe('claims about the classical invariants', () => {
     expect(judge('determinant', '5', trefoil, DEFAULT_CONVENTION, others).diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'eight' });
     expect(judge('alexander', '-t^{-1} + 3 - t', trefoil, DEFAULT_CONVENTION, others).diagnosis?.kind).toBe('swapped');
   });
+  it('name a signature read off a Goeritz matrix without the Gordon–Litherland correction', () => {
+    const uncorrected = trefoil.classical.goeritzUncorrected.find((g) => g !== trefoil.classical.signature)!;
+    const j = judge('signature', String(uncorrected), trefoil);
+    expect(j.verdict).toBe('contradicts');
+    expect(j.diagnosis?.kind).toBe('normalization');
+    expect(j.reason).toMatch(/Gordon–Litherland/);
+  });
   it('accept the mirror signature of a DT code with a warning', () => {
     const j = judge('signature', '2', dtTrefoil);
     expect(j.verdict).toBe('agrees');

@@ -11,7 +11,8 @@
  *   and −Δ (already `negated`) for an even number of components.
  * - determinant: negated (the sign of Δ(−1) kept), swapped, none.
  * - signature: mirror (−σ: the mirror image, or the other sign convention),
- *   swapped, none.
+ *   normalization (sign(G) of a Goeritz matrix without the Gordon–Litherland
+ *   correction), swapped, none.
  */
 import { InputError } from '../errors.ts';
 import type { DiagramReport } from '../analyze/report.ts';
@@ -200,6 +201,17 @@ function judgeInteger(key: 'determinant' | 'signature', text: string, report: Di
             kind: 'mirror',
             detail: `the claim is −σ: the signature of the mirror image, or the signature in the other sign convention (this document gives the positive trefoil σ = ${ctx.convention.signatureSign === 'negative' ? '−2' : '+2'})`,
           };
+  }
+  if (!diagnosis && key === 'signature') {
+    const uncorrected = report.classical.goeritzUncorrected.find(
+      (g) => BigInt(signatureInConvention(g, ctx.convention.signatureSign)) === claimed,
+    );
+    if (uncorrected !== undefined) {
+      diagnosis = {
+        kind: 'normalization',
+        detail: 'the claim is the signature of a Goeritz matrix without the Gordon–Litherland correction, which subtracts ½·Σ(ε + η) over the crossings',
+      };
+    }
   }
   diagnosis ??= swappedWith(ctx, (other) => valueOf(other) === claimed, noun);
   if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) {

@@ -96,11 +96,14 @@ export interface GoeritzInvariants {
   readonly determinant: bigint;
   /** In the convention σ(positive trefoil) = −2. */
   readonly signature: number;
+  /** sign(G) alone, before the Gordon–Litherland correction (a value authors sometimes state by mistake). */
+  readonly uncorrected: number;
 }
 
 /** Determinant and signature of a connected diagram with crossings, from one checkerboard surface. */
 export function goeritzInvariants(d: LinkDiagram, shadedColour: 0 | 1 = 0): GoeritzInvariants {
   const data = goeritzData(d, shadedColour);
   const inertia = symmetricInertia(data.matrix);
-  return { determinant: inertia.absDeterminant, signature: inertia.positive - inertia.negative - data.correction };
+  const uncorrected = inertia.positive - inertia.negative;
+  return { determinant: inertia.absDeterminant, signature: uncorrected - data.correction, uncorrected };
 }

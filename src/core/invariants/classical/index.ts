@@ -2,8 +2,9 @@
  * The classical invariants of a diagram: Alexander and Conway polynomials
  * (from the Seifert matrix of Seifert's algorithm), determinant (from a Goeritz
  * matrix) and signature (from V + Vᵀ), each checked at run time against a
- * second, independent route: det = |Δ(−1)|, and σ from the Goeritz matrix with
- * the Gordon–Litherland correction (and Traczyk's formula when it applies).
+ * second, independent route: det = |Δ(−1)|, and σ from the Goeritz matrices of
+ * both checkerboard surfaces with the Gordon–Litherland correction (and
+ * Traczyk's formula when it applies).
  * A disagreement is a bug and throws.
  */
 import { componentCount, type LinkDiagram } from '../../diagram/model.ts';
@@ -36,6 +37,11 @@ export interface ClassicalInvariants {
   readonly signature: number;
   /** Signature by Traczyk's formula when the diagram is reduced, alternating and connected; else null. */
   readonly traczykSignature: number | null;
+  /**
+   * sign(G) of the Goeritz matrix of each of the two checkerboard surfaces,
+   * before the Gordon–Litherland correction; empty for split or crossingless diagrams.
+   */
+  readonly goeritzUncorrected: readonly number[];
   /** The projection has more than one piece (free loops count), so the link is split. */
   readonly split: boolean;
   /** Seifert circles of the diagram, free loops included. */
@@ -50,22 +56,24 @@ interface PieceInvariants {
   readonly signature: number;
   readonly determinant: bigint;
   readonly circles: number;
+  readonly goeritzUncorrected: readonly number[];
 }
 
 function pieceInvariants(piece: LinkDiagram): PieceInvariants {
-  if (piece.crossings.length === 0) return { alexander: Laurent.one, conway: Laurent.one, signature: 0, determinant: 1n, circles: piece.freeLoops };
+  if (piece.crossings.length === 0) return { alexander: Laurent.one, conway: Laurent.one, signature: 0, determinant: 1n, circles: piece.freeLoops, goeritzUncorrected: [] };
   const surface = seifertSurface(piece);
   const { alexander, conway } = alexanderFromSeifertMatrix(surface.matrix);
   const signature = signatureFromSeifertMatrix(surface.matrix);
-  const goeritz = goeritzInvariants(piece);
-  if (goeritz.signature !== signature) {
-    throw new Error(`internal: signature ${signature} from V + Vᵀ but ${goeritz.signature} from the Goeritz matrix`);
+  const surfaces = [goeritzInvariants(piece, 0), goeritzInvariants(piece, 1)];
+  for (const g of surfaces) {
+    if (g.signature !== signature) throw new Error(`internal: signature ${signature} from V + Vᵀ but ${g.signature} from a Goeritz matrix`);
   }
+  const goeritz = surfaces[0]!;
   const atMinusOne = absoluteValueAtMinusOne(alexander);
   if (atMinusOne !== goeritz.determinant) {
     throw new Error(`internal: |Δ(−1)| = ${atMinusOne} but |det G| = ${goeritz.determinant}`);
   }
-  return { alexander, conway, signature, determinant: goeritz.determinant, circles: surface.circles.length };
+  return { alexander, conway, signature, determinant: goeritz.determinant, circles: surface.circles.length, goeritzUncorrected: surfaces.map((g) => g.uncorrected) };
 }
 
 /** |Δ(−1)| with t^(1/2) = i: all exponents 2e share a parity, so the value is real or purely imaginary. */
@@ -95,6 +103,7 @@ export function classicalInvariants(d: LinkDiagram): ClassicalInvariants {
     determinant: split ? 0n : pieces[0]!.determinant,
     signature,
     traczykSignature: traczyk,
+    goeritzUncorrected: split ? [] : pieces[0]!.goeritzUncorrected,
     split,
     seifertCircles: circles,
     genusBounds: split ? [] : genusBounds(alexander, signature, mu, d.crossings.length, circles),
