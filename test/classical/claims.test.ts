@@ -3,6 +3,7 @@ import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import type { DiagramReport } from '../../src/core/analyze/report.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../src/core/convention/convention.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
+import { connectedSum } from '../../src/core/diagram/operations.ts';
 import { judgeClaim, readPolynomial, typesetValue, type ClaimKey } from '../../src/core/claims/index.ts';
 
 const trefoil = analyzeDiagram(closeBraid([1, 1, 1], 2));
@@ -58,6 +59,14 @@ describe('claims about the classical invariants', () => {
     const j = judge('signature', '2', dtTrefoil);
     expect(j.verdict).toBe('agrees');
     expect(j.warning).toMatch(/mirror/);
+  });
+  it('judge determinants beyond 2^53 exactly: 34 trefoils summed have det 3^34 (from memory: det is multiplicative)', () => {
+    let sum = closeBraid([1, 1, 1], 2);
+    for (let k = 1; k < 34; k++) sum = connectedSum(sum, closeBraid([1, 1, 1], 2));
+    const report = analyzeDiagram(sum);
+    expect(report.classical.determinant).toBe(3n ** 34n);
+    expect(judge('determinant', (3n ** 34n).toString(), report).verdict).toBe('agrees');
+    expect(judge('determinant', (3n ** 34n + 1n).toString(), report).verdict).toBe('contradicts');
   });
   it('refuse a fractional determinant as unreadable', () => {
     expect(() => judge('determinant', '3/2', trefoil)).toThrow(/integer/);

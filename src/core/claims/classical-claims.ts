@@ -14,13 +14,12 @@
  *   normalization (sign(G) of a Goeritz matrix without the Gordon–Litherland
  *   correction), swapped, none.
  */
-import { InputError } from '../errors.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 import { signatureInConvention } from '../invariants/classical/signature.ts';
 import { Laurent } from '../poly/laurent.ts';
 import type { Diagnosis, JudgeContext, Judgement, Typeset } from './api.ts';
-import { readNumber, readPolynomial, UNREADABLE } from './latex-poly-parser.ts';
+import { readInteger, readPolynomial } from './latex-poly-parser.ts';
 import { numberLatex, polynomialLatex, styleOf } from './typeset.ts';
 
 export type ClassicalKey = 'alexander' | 'conway' | 'determinant' | 'signature';
@@ -177,15 +176,9 @@ function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: str
   );
 }
 
-function readInteger(text: string, noun: string): bigint {
-  const r = readNumber(text, `the ${noun}`);
-  if (r.q !== 1) throw new InputError(UNREADABLE, `the ${noun} is an integer, but the claim is ${r.p}/${r.q}`, { start: 0, end: text.length });
-  return BigInt(r.p);
-}
-
 function judgeInteger(key: 'determinant' | 'signature', text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
   const noun = NOUNS[key];
-  const claimed = readInteger(text, noun);
+  const claimed = readInteger(text, `the ${noun}`);
   const valueOf = (r: DiagramReport): bigint =>
     key === 'determinant' ? r.classical.determinant : BigInt(signatureInConvention(r.classical.signature, ctx.convention.signatureSign));
   const value = valueOf(report);
