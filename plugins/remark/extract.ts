@@ -369,6 +369,8 @@ class Extractor {
           this.error('markup-invalid', `${context}: the row has no cell here; add one (leave it empty to have it filled in)`, rowStart, lineEnd(this.text, rowStart));
           return;
         }
+        // A fill-in or claim directive written in the cell speaks for itself.
+        if (cell.children.some((c) => c.type === 'textDirective' && c.attributes?.[TARGET_ATTRIBUTE] != null)) return;
         const [s, e] = offsets(cell);
         const content = cellContent(this.text, s, e);
         if (content.start === content.end) {

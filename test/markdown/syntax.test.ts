@@ -263,3 +263,18 @@ describe('broken directives', () => {
     ]);
   });
 });
+
+describe('table rows in more detail', () => {
+  it('reports a row naming an unknown diagram once, not once per column', async () => {
+    const text = `${TREFOIL}\n:::invariants\n| diagram | jones | writhe | span |\n|---|---|---|---|\n| tre | | $3$ | |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error target-unknown ${positionOf(text, '$3$')}`]);
+  });
+
+  it('lets a directive in a cell speak for itself', async () => {
+    const text = `${TREFOIL}${FIGURE_EIGHT}\n:::invariants\n| diagram | writhe |\n|---|---|\n| tref | :writhe{of=fig8} |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toContain('| tref | $0$ |');
+  });
+});

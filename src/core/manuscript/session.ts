@@ -51,13 +51,16 @@ export function runSession(input: SessionInput): SessionResult {
   }
 
   const known = [...firstHeader.keys()];
-  const unknownTarget = (target: string, locate: Locator, what: string): Diagnostic => ({
-    severity: 'error',
-    ruleId: 'target-unknown',
-    message: `${what} refers to diagram \`${target}\`, but no diagram has that id`,
-    location: locate(),
-    hints: hintsForUnknown(target, known),
-  });
+  // One error per unknown id per line: a table row naming a missing diagram is one mistake, not one per column.
+  const reportedUnknown = new Set<string>();
+  const unknownTarget = (target: string, locate: Locator, what: string): Diagnostic[] => {
+    const location = locate();
+    const key = `${target}\u0000${location.file}\u0000${location.start.line}`;
+    if (reportedUnknown.has(key)) return [];
+    reportedUnknown.add(key);
+    const message = `${what} refers to diagram \`${target}\`, but no diagram has that id`;
+    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, known) }];
+  };
   const skippedBecauseInvalid = (target: string, locate: Locator, what: string): Diagnostic => ({
     severity: 'note',
     ruleId: 'target-invalid',
@@ -69,7 +72,7 @@ export function runSession(input: SessionInput): SessionResult {
     const what = claim.context ? `the claim in ${claim.context}` : `the ${claim.key} claim`;
     const report = reports.get(claim.target);
     if (!report) {
-      diagnostics.push(invalid.has(claim.target) ? skippedBecauseInvalid(claim.target, claim.locate, what) : unknownTarget(claim.target, claim.locate, what));
+      diagnostics.push(...(invalid.has(claim.target) ? [skippedBecauseInvalid(claim.target, claim.locate, what)] : unknownTarget(claim.target, claim.locate, what)));
       continue;
     }
     try {
@@ -85,7 +88,7 @@ export function runSession(input: SessionInput): SessionResult {
     const what = fill.context ? `the fill-in in ${fill.context}` : `the ${fill.key} fill-in`;
     const report = reports.get(fill.target);
     if (!report) {
-      diagnostics.push(invalid.has(fill.target) ? skippedBecauseInvalid(fill.target, fill.locate, what) : unknownTarget(fill.target, fill.locate, what));
+      diagnostics.push(...(invalid.has(fill.target) ? [skippedBecauseInvalid(fill.target, fill.locate, what)] : unknownTarget(fill.target, fill.locate, what)));
       return undefined;
     }
     try {
