@@ -134,10 +134,17 @@ export function seifertSurface(d: LinkDiagram, outerFace = 0): SeifertSurface {
 
   // Each circle separates the region on its left from the region on its right.
   const sides = circles.map((circle) => {
-    const visit = circle[0]!;
-    const bandRegion = regionOfFace[bands[visit.crossing]!.north]!;
-    const otherRegion = regionOfFace[faceOfCorner[visit.circleCorner]!]!;
-    return visit.bandSide === 'left' ? { left: bandRegion, right: otherRegion } : { left: otherRegion, right: bandRegion };
+    const sidesAt = (visit: CircleVisit): { left: number; right: number } => {
+      const bandRegion = regionOfFace[bands[visit.crossing]!.north]!;
+      const otherRegion = regionOfFace[faceOfCorner[visit.circleCorner]!]!;
+      return visit.bandSide === 'left' ? { left: bandRegion, right: otherRegion } : { left: otherRegion, right: bandRegion };
+    };
+    const first = sidesAt(circle[0]!);
+    for (const visit of circle) {
+      const here = sidesAt(visit);
+      if (here.left !== first.left || here.right !== first.right) throw new Error('internal: a Seifert circle meets more than two regions');
+    }
+    return first;
   });
 
   // Depth of each region from the outer one, through the tree of regions and circles.

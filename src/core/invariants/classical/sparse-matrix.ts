@@ -27,10 +27,6 @@ export class SparseMatrixBuilder {
   }
 }
 
-export function entry(m: SparseMatrix, i: number, j: number): bigint {
-  return m.rows[i]!.get(j) ?? 0n;
-}
-
 export function transpose(m: SparseMatrix): SparseMatrix {
   const b = new SparseMatrixBuilder(m.size);
   m.rows.forEach((row, i) => row.forEach((v, j) => b.add(j, i, v)));
