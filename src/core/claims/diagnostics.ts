@@ -49,7 +49,10 @@ export const CLAIM_NOUNS: Readonly<Record<ClaimKey, string>> = {
 const FIX_HINTS: Readonly<Record<DiagnosisKind, (j: Judgement) => string | undefined>> = {
   mirror: () => 'Check the handedness: either the code or the value belongs to the mirror image.',
   negated: () => 'Check the overall sign of the value.',
-  shifted: () => 'Recheck the writhe factor (−A³)^{−w} and the normalisation of the unknot.',
+  shifted: (j) =>
+    j.key === 'alexander'
+      ? 'Multiply by the power of t that makes Δ symmetric, Δ(t) = Δ(t⁻¹) (Conway’s normalisation).'
+      : 'Recheck the writhe factor (−A³)^{−w} and the normalisation of the unknot.',
   normalization: () => 'Rewrite the value in the convention the document declares, or declare the convention it is written in.',
   'one-coefficient': (j) => (j.diagnosis?.term ? `Correct that one coefficient to ${j.diagnosis.term.computed}.` : undefined),
   swapped: (j) => `The value belongs to \`${j.diagnosis?.otherDiagram}\`: check which diagram the claim is attached to.`,
