@@ -5,7 +5,8 @@ import { symmetricInertia } from '../../src/core/invariants/classical/inertia.ts
 import { pencilDeterminant } from '../../src/core/invariants/classical/modular.ts';
 import { SparseMatrixBuilder, bandOrder, toDense, type SparseMatrix } from '../../src/core/invariants/classical/sparse-matrix.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
-import { randomInt, rng } from '../support/random-diagrams.ts';
+import { randomInt, randomReducedAlternating, rng } from '../support/random-diagrams.ts';
+import { componentCount } from '../../src/core/diagram/model.ts';
 import { laurentDeterminant } from './support.ts';
 
 function randomSymmetric(random: () => number, size: number, density: number, range: number): SparseMatrix {
@@ -124,5 +125,21 @@ describe('genus bounds', () => {
       ['signature', 0],
       ['seifert-algorithm', 1],
     ]);
+  });
+  it('reduced alternating knots: Seifert’s algorithm is minimal, span Δ = 2g, and Δ alternates without gaps (from memory: Crowell, Murasugi)', () => {
+    const random = rng(34);
+    let knots = 0;
+    while (knots < 25) {
+      const d = randomReducedAlternating(random, 5 + (knots % 15), 5);
+      if (componentCount(d) !== 1) continue;
+      knots++;
+      const c = classicalInvariants(d);
+      const value = (reason: string): number => c.genusBounds.find((b) => b.reason === reason)!.value;
+      expect(value('alexander-span')).toBe(value('seifert-algorithm'));
+      const terms = c.alexander.terms();
+      expect(terms.length).toBe(c.alexander.span + 1);
+      terms.forEach(([, coefficient], i) => i > 0 && expect(coefficient > 0n).toBe(terms[i - 1]![1] < 0n));
+      expect(terms.reduce((sum, [, coefficient]) => sum + (coefficient < 0n ? -coefficient : coefficient), 0n)).toBe(c.determinant);
+    }
   });
 });
