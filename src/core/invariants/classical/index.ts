@@ -69,6 +69,12 @@ function pieceInvariants(piece: LinkDiagram): PieceInvariants {
     if (g.signature !== signature) throw new Error(`internal: signature ${signature} from V + Vᵀ but ${g.signature} from a Goeritz matrix`);
   }
   const goeritz = surfaces[0]!;
+  // Δ(t⁻¹) = (−1)^(μ−1)·Δ(t), and Δ(1) = 1 for a knot, 0 for a link.
+  const mu = componentCount(piece);
+  const mirrored = alexander.substitutePower(-1);
+  if (!(mu % 2 === 1 ? mirrored : mirrored.neg()).equals(alexander) || alexander.valueAtOne() !== (mu === 1 ? 1n : 0n)) {
+    throw new Error(`internal: Δ = ${alexander.toPlainString('t')} is not a Conway-normalised Alexander polynomial of a ${mu}-component link`);
+  }
   const atMinusOne = absoluteValueAtMinusOne(alexander);
   if (atMinusOne !== goeritz.determinant) {
     throw new Error(`internal: |Δ(−1)| = ${atMinusOne} but |det G| = ${goeritz.determinant}`);
