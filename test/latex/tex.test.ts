@@ -6,6 +6,7 @@
  */
 import { copyFileSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
 import { latexFormat } from '../../src/cli/formats/latex.ts';
 import { readLatexManuscript } from '../../plugins/latex/reader.ts';
@@ -187,6 +188,46 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
     // The positive trefoil (from memory): V = t + t^3 - t^4, span 3, writhe 3.
     expect(squeeze(run.text)).toContain(asPdfText('A t + t^3 - t^4 B 3 C x = 3 D'));
+  });
+
+  it('TeX and the reader agree on which cells are empty, over random tables', () => {
+    // Every cell the reader would fill gets a sidecar value that logs its place; TeX must log exactly those,
+    // and must find no other empty cell to warn about.
+    const cell = fc.constantFrom('', ' ', 'x', '$x^2$', '% note\n', ' \\cellcolor{red!10} ', '\\cellcolor{red!10}3', 'a\\&b', '{p}', '\\textbf{y}');
+    const row = fc.record({ id: fc.constantFrom('k', 'k', ''), cells: fc.array(cell, { minLength: 3, maxLength: 3 }) });
+    const separator = fc.constantFrom('\\\\', '\\\\[2pt]', '\\\\*', '\\tabularnewline');
+    const rule = fc.constantFrom('', '', '\\hline', '\\cline{1-2}', '\\hline\\hline', '% rule\n');
+    const table = fc.record({
+      head: fc.integer({ min: 0, max: 2 }),
+      rows: fc.array(fc.record({ row, separator, rule }), { minLength: 1, maxLength: 6 }),
+      closed: fc.boolean(),
+    });
+    for (const seed of [20261201, 7, 4242]) {
+      const tables = fc.sample(table, { seed, numRuns: 12 });
+      const body = tables.map((t) => {
+        const lines = t.rows.map((r, i) => {
+          const last = i === t.rows.length - 1;
+          return `${r.rule} ${r.row.id} & ${r.row.cells.join(' & ')}${last && !t.closed ? '' : ` ${r.separator}`}\n`;
+        });
+        return `\\begin{skeintable}[head=${t.head}]{id, jones, -, crossings}\n\\begin{tabular}{llll}\n${lines.join('')}\\end{tabular}\n\\end{skeintable}\n\n`;
+      });
+      const paper = `\\documentclass{article}\n\\usepackage[table]{xcolor}\n\\usepackage{skeinproof}\n\\begin{document}\n${body.join('')}\\end{document}\n`;
+      const dir = workDir(`random-tables-${seed}`, true);
+      writeFileSync(join(dir, 'tables.tex'), paper);
+      const doc = readLatexManuscript(join(dir, 'tables.tex'), { read: (p) => readFileSync(p, 'utf8') });
+      const places = doc.fills.flatMap((f) => (f.target.kind === 'cell' ? [`${f.target.table} ${f.target.row} ${f.target.column}`] : []));
+      expect(places.length).toBeGreaterThan(5);
+      const sidecar = places.map((p) => {
+        const [t, r, c] = p.split(' ');
+        return `\\skein@cell{${t}}{${r}}{${c}}{t}{\\typeout{FILLED ${p}}}`;
+      });
+      writeFileSync(join(dir, 'tables.skein.tex'), `${sidecar.join('\n')}\n`);
+      const run = pdflatex(dir, 'tables.tex');
+      expect(run.ok).toBe(true);
+      const filled = [...run.log.matchAll(/^FILLED (\d+ \d+ \d+)$/gm)].map((m) => m[1]);
+      expect(filled).toEqual(places);
+      expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    }
   });
 
   it('fills tables coloured with colortbl and tables of a set width (tabular*)', async () => {
