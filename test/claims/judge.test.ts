@@ -152,6 +152,7 @@ describe('number and property claims', () => {
     expect(judge('alternating', 'yes').verdict).toBe('agrees');
     expect(judge('reduced', 'True').verdict).toBe('agrees');
     expect(judge('adequate', '\\text{no}').verdict).toBe('contradicts');
+    expect(judge('alternating', 'Yes.').verdict).toBe('agrees');
     const nonReduced = analyzeDiagram(closeBraid([1, 1, 1, 2], 3));
     const j = judge('reduced', 'yes', nonReduced);
     expect(j.verdict).toBe('contradicts');

@@ -160,6 +160,7 @@ const NO = new Set(['no', 'false', 'n']);
 export function readYesNo(text: string, noun: string): boolean {
   const bare = text
     .trim()
+    .replace(/[.,;]$/, '')
     .replace(/^\\(?:text|mathrm|textrm)\{(.*)\}$/, '$1')
     .trim()
     .toLowerCase();
