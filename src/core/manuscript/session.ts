@@ -13,7 +13,7 @@
  */
 import { analyzeDiagram } from '../analyze/analyze.ts';
 import type { DiagramReport } from '../analyze/report.ts';
-import { invalidCodeDiagnostic, judgeClaim, judgementToDiagnostics, typesetValue, unreadableClaimDiagnostic } from '../claims/index.ts';
+import { CLAIM_NOUNS, invalidCodeDiagnostic, judgeClaim, judgementToDiagnostics, typesetValue, unreadableClaimDiagnostic } from '../claims/index.ts';
 import type { Typeset } from '../claims/api.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError } from '../errors.ts';
@@ -53,26 +53,29 @@ export function runSession(input: SessionInput): SessionResult {
   const known = [...firstHeader.keys()];
   // One error per unknown id per line: a table row naming a missing diagram is one mistake, not one per column.
   const reportedUnknown = new Set<string>();
-  const unknownTarget = (target: string, locate: Locator, what: string): Diagnostic[] => {
+  /** `subject` names the claim or fill-in ("the Jones polynomial claimed for `k`", or a table cell). */
+  const unknownTarget = (target: string, locate: Locator, subject: string): Diagnostic[] => {
     const location = locate();
     const key = `${target}\u0000${location.file}\u0000${location.start.line}`;
     if (reportedUnknown.has(key)) return [];
     reportedUnknown.add(key);
-    const message = `${what} refers to diagram \`${target}\`, but no diagram has that id`;
+    const message = `${subject}: no diagram has the id \`${target}\``;
     return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, known) }];
   };
-  const skippedBecauseInvalid = (target: string, locate: Locator, what: string): Diagnostic => ({
+  const skippedBecauseInvalid = (target: string, locate: Locator, subject: string, verb: string): Diagnostic => ({
     severity: 'note',
     ruleId: 'target-invalid',
-    message: `${what} about \`${target}\` is not checked: the code of \`${target}\` is invalid (${place(invalid.get(target)!.locateCode())})`,
+    message: `${subject} is not ${verb}: the code of \`${target}\` is invalid (${place(invalid.get(target)!.locateCode())})`,
     location: locate(),
   });
+  const missing = (target: string, locate: Locator, subject: string, verb: string): Diagnostic[] =>
+    invalid.has(target) ? [skippedBecauseInvalid(target, locate, subject, verb)] : unknownTarget(target, locate, subject);
 
   for (const claim of input.claims) {
-    const what = claim.context ? `the claim in ${claim.context}` : `the ${claim.key} claim`;
+    const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
     const report = reports.get(claim.target);
     if (!report) {
-      diagnostics.push(...(invalid.has(claim.target) ? [skippedBecauseInvalid(claim.target, claim.locate, what)] : unknownTarget(claim.target, claim.locate, what)));
+      diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked'));
       continue;
     }
     try {
@@ -80,22 +83,22 @@ export function runSession(input: SessionInput): SessionResult {
       diagnostics.push(...judgementToDiagnostics(judgement, claim.locate(), claim.context));
     } catch (e) {
       if (!isInputError(e)) throw e;
-      diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, claim.context ?? `the ${claim.key} claimed for \`${claim.target}\``));
+      diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, subject));
     }
   }
 
   const fills: (Typeset | undefined)[] = input.fills.map((fill) => {
-    const what = fill.context ? `the fill-in in ${fill.context}` : `the ${fill.key} fill-in`;
+    const subject = fill.context ?? `the ${fill.key} fill-in for \`${fill.target}\``;
     const report = reports.get(fill.target);
     if (!report) {
-      diagnostics.push(...(invalid.has(fill.target) ? [skippedBecauseInvalid(fill.target, fill.locate, what)] : unknownTarget(fill.target, fill.locate, what)));
+      diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in'));
       return undefined;
     }
     try {
       return typesetValue(fill.key, report, input.convention);
     } catch (e) {
       if (!isInputError(e)) throw e;
-      diagnostics.push(unreadableClaimDiagnostic(e, fill.locate, fill.context ?? `the ${fill.key} of \`${fill.target}\``));
+      diagnostics.push(unreadableClaimDiagnostic(e, fill.locate, subject));
       return undefined;
     }
   });
