@@ -93,6 +93,7 @@ class BandedPencil {
       m[e.i * n + e.j] = (mulMod(t, e.a, p) - e.b + p) % p;
       if (e.j > this.lastColumn[e.i]!) this.lastColumn[e.i] = e.j;
     }
+    const inverseP = 1 / p;
     let det = 1;
     for (let k = 0; k < n; k++) {
       const rowLimit = Math.min(n - 1, k + this.lower);
@@ -126,9 +127,12 @@ class BandedPencil {
         const ri = i * n;
         const rk = k * n;
         for (let j = k + 1; j <= colLimit; j++) {
-          // |m − f·a| < 2^52, so one remainder suffices.
-          const reduced = (m[ri + j]! - factor * m[rk + j]!) % p;
-          m[ri + j] = reduced < 0 ? reduced + p : reduced;
+          // |x| < 2^52 is exact; the quotient estimate x·(1/p) is off by at most one either way.
+          const x = m[ri + j]! - factor * m[rk + j]!;
+          let r = x - Math.floor(x * inverseP) * p;
+          if (r < 0) r += p;
+          else if (r >= p) r -= p;
+          m[ri + j] = r;
         }
         m[ri + k] = 0;
         if (colLimit > this.lastColumn[i]!) this.lastColumn[i] = colLimit;
