@@ -4,10 +4,11 @@
  * Rule ids (our own):
  *   claim-contradicted  error    the stated value is refuted by the computation
  *   claim-unexplained   warning  accompanies a contradiction no common slip explains: recheck the value by hand
- *   claim-undecided     warning  the bounds proven do not settle the claim (or the value is not computed)
+ *   claim-undecided     warning  the proven bounds do not settle a crossing-number claim
  *   claim-mirror-only   warning  the claim holds for the mirror image only, and the code (DT) cannot tell them apart
  *   claim-unreadable    error    the claimed value cannot be read
  *   claim-inapplicable  error    the claim makes no sense for this diagram (a linking number of a knot)
+ *   claim-malformed     error    a command-line claim is not KEY=VALUE with a known key (see ./assignment.ts)
  *   code-invalid        error    a diagram code cannot be parsed (raised by the notation parsers)
  */
 import type { InputError } from '../errors.ts';
