@@ -25,6 +25,11 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'front-matter-invalid', description: 'The manuscript front matter cannot be read.' },
   { id: 'markup-invalid', description: 'The markup around a diagram, claim or fill-in is malformed.' },
   { id: 'math-untypeset', description: 'A formula cannot be typeset.' },
+  { id: 'diagram-too-wide', description: 'A diagram is too wide for the bracket engine: every crossing order leaves too many open edge ends.' },
+  { id: 'output-unsupported', description: 'The requested output is not available for this manuscript format.' },
+  { id: 'latex-environment-unopened', description: 'A LaTeX \\end closes an environment that was never begun.' },
+  { id: 'latex-table-malformed', description: 'A skein table is not a well-formed tabular.' },
+  { id: 'latex-argument-missing', description: 'A skeinproof LaTeX command lacks a required argument.' },
 ];
 
 export function ruleDescription(id: string): string {
