@@ -19,9 +19,12 @@
  *   V(S,N) −= 1 if ε = −1;
  * - across a circle H the loops of its two regions meet only in the disk of H,
  *   where their arcs are chords; the intersection number of two chords is read
- *   off the order of their end points along H. With ι = V − Vᵀ = −(intersection
- *   number), the piece on the side of the disk's positive normal lies above it,
- *   so V(lower, upper) = 0 and V(upper, lower) = ι(upper, lower).
+ *   off the order of their end points along H. Stack the disks so that at each
+ *   circle everything on its far side (away from the point at infinity) lies
+ *   on the side of the disk's positive normal — nested height intervals make
+ *   that possible. A sphere through the disk then separates the far loops from
+ *   the near loops pushed off negatively, so V(near, far) = 0, and with
+ *   ι = V − Vᵀ = −(intersection number), V(far, near) = ι(far, near).
  *
  * The choice of the outer region (the point at infinity) decides which side of
  * each circle is "inside"; any choice gives a Seifert matrix of the same link,
@@ -191,7 +194,7 @@ export function seifertSurface(d: LinkDiagram, outerFace = 0): SeifertSurface {
 
   circles.forEach((circle, h) => {
     const { left, right } = sides[h]!;
-    const leftIsUpper = depth.get(left)! > depth.get(right)!;
+    const leftIsFar = depth.get(left)! > depth.get(right)!;
     const chordsOn = (side: 'left' | 'right'): { face: number; from: number; to: number }[] => {
       const positions = circle.map((v, k) => (v.bandSide === side ? k : -1)).filter((k) => k >= 0);
       if (positions.length < 2) return []; // a chord all the way round meets nothing
@@ -219,8 +222,8 @@ export function seifertSurface(d: LinkDiagram, outerFace = 0): SeifertSurface {
         const intersection = fromInside === toInside ? 0 : fromInside ? 1 : -1;
         if (intersection === 0) continue;
         const iota = -intersection; // ι(a, b) = V(a,b) − V(b,a)
-        if (leftIsUpper) addTwice(a.face, b.face, 2 * iota);
-        else addTwice(b.face, a.face, -2 * iota);
+        if (leftIsFar) addTwice(a.face, b.face, 2 * iota);
+        else addTwice(b.face, a.face, -2 * iota); // ι(b, a) = −ι(a, b)
       }
     }
   });
