@@ -4,9 +4,10 @@
  * named diagram, \skein@cell for an empty cell of a skein table). The
  * author's source is never touched.
  */
-import { basename, dirname, extname, join } from 'node:path';
+import { createHash } from 'node:crypto';
+import { basename, dirname, extname, join, relative } from 'node:path';
 import type { Typeset } from '../../src/core/claims/api.ts';
-import type { LatexFill } from './reader.ts';
+import type { LatexDocument } from './reader.ts';
 
 /** `paper.tex` → `paper.skein.tex` beside it: the package looks for \jobname.skein.tex. */
 export function sidecarPath(manuscriptPath: string): string {
@@ -14,13 +15,24 @@ export function sidecarPath(manuscriptPath: string): string {
   return join(dirname(manuscriptPath), `${name}.skein.tex`);
 }
 
-export function sidecarText(manuscriptName: string, fills: readonly LatexFill[], values: readonly (Typeset | undefined)[]): string {
+/**
+ * The sidecar's text. It starts with the MD5 sum of every file the values
+ * were computed from (named as TeX finds them, from the paper's directory),
+ * so the package can warn when a file changed after the build and the values
+ * may be stale, the way LaTeX warns that labels may have changed.
+ */
+export function sidecarText(doc: LatexDocument, values: readonly (Typeset | undefined)[]): string {
   const lines = [
-    `% Computed by skeinproof from ${manuscriptName}; \`skeinproof build\` rewrites this file.`,
+    `% Computed by skeinproof from ${basename(doc.main.displayPath)}; \`skeinproof build\` rewrites this file.`,
     '% Read by \\usepackage{skeinproof}. Do not edit: change the manuscript and build again.',
   ];
+  const paperDir = dirname(doc.main.absolutePath);
+  for (const file of doc.files) {
+    const md5 = createHash('md5').update(file.text, 'utf8').digest('hex').toUpperCase();
+    lines.push(`\\skein@source{${relative(paperDir, file.absolutePath).split('\\').join('/')}}{${md5}}`);
+  }
   const seen = new Set<string>();
-  fills.forEach((fill, k) => {
+  doc.fills.forEach((fill, k) => {
     const value = values[k];
     if (value === undefined) return;
     const [kind, content] = value.kind === 'math' ? ['m', value.latex] : ['t', value.text];

@@ -115,6 +115,19 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expectEveryValueIn(run.text, join(dir, 'rope-atlas.tex'));
   });
 
+  it('warns when a file changed after the build, naming it (the values may be stale)', async () => {
+    const dir = workDir('stale', true);
+    copyInto(dir, SAMPLES);
+    await build(dir);
+    const table = join(dir, 'sections/atlas-table.tex');
+    writeFileSync(table, `${readFileSync(table, 'utf8')}% edited after the build\n`);
+    const run = pdflatex(dir, 'rope-atlas.tex');
+    expect(run.ok).toBe(true);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([
+      "sections/atlas-table.tex has changed since `skeinproof build' wrote rope-atlas.skein.tex, so its values may be stale. Run `skeinproof build rope-atlas.tex' and then LaTeX again.",
+    ]);
+  });
+
   it('the flat copy compiles without the package and shows the same values', async () => {
     const dir = workDir('flat', false);
     copyInto(dir, SAMPLES);

@@ -5,7 +5,6 @@
  * flat copy that needs no package.
  */
 import { readFileSync, realpathSync } from 'node:fs';
-import { basename } from 'node:path';
 import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import { runSession } from '../../core/manuscript/session.ts';
@@ -91,7 +90,7 @@ export const latexFormat: ManuscriptFormat = {
     const output =
       options.output !== undefined
         ? { path: options.output, content: flatText(doc, session.fills) }
-        : { path: sidecarPath(path), content: sidecarText(basename(path), doc.fills, session.fills) };
+        : { path: sidecarPath(path), content: sidecarText(doc, session.fills) };
     return { diagnostics, outputs: [output], inputs: inputsOf(doc), failed };
   },
 };
