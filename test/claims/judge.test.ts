@@ -38,10 +38,41 @@ describe('slip diagnoses, each on its slip and not on a correct claim', () => {
     { name: 'mirror: the left trefoil value for the right trefoil', key: 'jones', claim: '-t^{-4}+t^{-3}+t^{-1}', kind: 'mirror' },
     { name: 'mirror of the bracket (A ↔ A⁻¹)', key: 'bracket', claim: 'A^{7} - A^{3} - A^{-5}', kind: 'mirror' },
     { name: 'negated', key: 'jones', claim: '-t - t^3 + t^4', kind: 'negated' },
-    { name: 'shifted by t', key: 'jones', claim: 't^2 + t^4 - t^5', kind: 'shifted', check: (d) => expect(d.shift).toBe(1) },
+    {
+      name: 'shifted by t',
+      key: 'jones',
+      claim: 't^2 + t^4 - t^5',
+      kind: 'shifted',
+      check: (d) => {
+        expect(d.shift).toBe(1);
+        expect(d.detail).not.toMatch(/writhe factor/);
+      },
+    },
     { name: 'shifted with a sign (−t^{-3/2})', key: 'jones', claim: '-t^{-1/2} - t^{3/2} + t^{5/2}', kind: 'shifted', check: (d) => expect(d.shift).toBe(-1.5) },
     // (−A³)^{−w}⟨D⟩ with w = 3 is the bracket times −A^{-9}: Jones at t = A^{-4} given for the bracket.
-    { name: 'shifted: Jones at t = A^{-4} where the bracket was meant', key: 'bracket', claim: '-A^{-16} + A^{-12} + A^{-4}', kind: 'shifted', check: (d) => expect(d.shift).toBe(-9) },
+    {
+      name: 'shifted: Jones at t = A^{-4} where the bracket was meant, named as the writhe factor',
+      key: 'bracket',
+      claim: '-A^{-16} + A^{-12} + A^{-4}',
+      kind: 'shifted',
+      check: (d) => {
+        expect(d.shift).toBe(-9);
+        expect(d.detail).toMatch(/writhe factor/);
+      },
+    },
+    // ⟨4₁⟩ = A⁸ − A⁴ + 1 − A⁻⁴ + A⁻⁸ (from memory) has w = 0; for the trefoil, A = t^{-1/4} in ⟨D⟩ gives quarter powers.
+    // The positive Hopf link (w = 2): ⟨D⟩ = −A⁴ − A⁻⁴ at A = t^{-1/4} is −t^{-1} − t, i.e. V times −t^{-3/2}.
+    {
+      name: 'shifted: the Hopf bracket at A = t^{-1/4} without the writhe factor',
+      key: 'jones',
+      claim: '-t^{-1} - t',
+      report: positiveHopf,
+      kind: 'shifted',
+      check: (d) => {
+        expect(d.shift).toBe(-1.5);
+        expect(d.detail).toMatch(/without the writhe factor/);
+      },
+    },
     { name: 'normalization: the loop bracket where ⟨O⟩ = 1 is declared', key: 'bracket', claim: '-A^{-9} + A^{-1} + A^{3} + A^{7}', kind: 'normalization' },
     { name: 'normalization: V times −t^{1/2} − t^{−1/2}', key: 'jones', claim: '-t^{1/2} - t^{3/2} - t^{5/2} + t^{9/2}', kind: 'normalization' },
     { name: 'normalization: the bracket where Jones was meant', key: 'jones', claim: 'A^{-7} - A^{-3} - A^{5}', kind: 'normalization' },

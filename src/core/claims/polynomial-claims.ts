@@ -38,6 +38,8 @@ interface Subject {
   readonly mirrorSwap: string;
   /** Slips of normalisation or convention, in any letter. */
   readonly alternatives: readonly Alternative[];
+  /** Values off by exactly the writhe factor (−A³)^{±w}: a `shifted` claim equal to one gets its sentence. */
+  readonly writheSlips: readonly Alternative[];
   readonly valueOf: (report: DiagramReport) => Laurent;
 }
 
@@ -60,8 +62,17 @@ function jonesSubject(report: DiagramReport, convention: Convention): Subject {
     value: jonesToConvention(report.jones.mul(JONES_LOOP_VALUE), convention.jonesVariable),
     detail: 'the claim is V times −t^{1/2} − t^{−1/2}, the normalisation in which the unknot has that value instead of 1',
   });
-  // With ⟨O⟩ = 1 the bracket at A = t^{−1/4} differs from V by ±t^{3w/4}, which `shifted` names; with the
-  // loop normalisation it carries the extra factor −t^{1/2} − t^{−1/2}.
+  // With ⟨O⟩ = 1 the bracket at A = t^{−1/4} differs from V by ±t^{−3w/4}, which `shifted` names (see
+  // writheSlips); with the loop normalisation it carries the extra factor −t^{1/2} − t^{−1/2}.
+  const writheSlips: Alternative[] = [];
+  const unitAtT = report.bracket.substitutePower(-1 / 4);
+  if (unitAtT.exponents.every((e) => Number.isInteger(2 * e))) {
+    writheSlips.push({
+      letter,
+      value: jonesToConvention(unitAtT, convention.jonesVariable),
+      detail: `the claim is the Kauffman bracket at A = t^{−1/4} without the writhe factor (−A³)^{−w}, w = ${report.writhe}`,
+    });
+  }
   const loopAtT = bracketToConvention(report.bracket, 'loop').substitutePower(-1 / 4);
   if (loopAtT.exponents.every((e) => Number.isInteger(2 * e))) {
     alternatives.push({
@@ -90,6 +101,7 @@ function jonesSubject(report: DiagramReport, convention: Convention): Subject {
     mirror: conventionJones(report.jones.substitutePower(-1), convention),
     mirrorSwap: `${letter} ↔ ${letter}⁻¹`,
     alternatives,
+    writheSlips,
     valueOf,
   };
 }
@@ -98,7 +110,7 @@ function bracketSubject(report: DiagramReport, convention: Convention): Subject 
   const normalization = convention.bracketNormalization;
   const other = normalization === 'unit' ? 'loop' : 'unit';
   const valueOf = (r: DiagramReport) => conventionBracket(r.bracket, convention);
-  // The Jones polynomial at t = A^{−4} is the bracket times (−A³)^{−w}: `shifted` names that slip.
+  // The Jones polynomial at t = A^{−4} is the bracket times (−A³)^{−w}: `shifted` names that slip (writheSlips).
   const alternatives: Alternative[] = [
     {
       letter: 'A',
@@ -124,6 +136,13 @@ function bracketSubject(report: DiagramReport, convention: Convention): Subject 
     mirror: conventionBracket(report.bracket.substitutePower(-1), convention),
     mirrorSwap: 'A ↔ A⁻¹',
     alternatives,
+    writheSlips: [
+      {
+        letter: 'A',
+        value: bracketToConvention(report.jones.substitutePower(-4), normalization),
+        detail: `the claim is the Jones polynomial at t = A^{−4}, i.e. the bracket times the writhe factor (−A³)^{−w}, w = ${report.writhe}`,
+      },
+    ],
     valueOf,
   };
 }
@@ -157,10 +176,13 @@ function diagnose(claim: Laurent, claimLetter: string, subject: Subject, ctx: Ju
     const sign = claim.equals(shifted) ? 1 : claim.equals(shifted.neg()) ? -1 : 0;
     if (k !== 0 && sign !== 0) {
       const factor = monomialLatex(letter, k, sign < 0);
+      const writheSlip = subject.writheSlips.find((a) => a.value.equals(claim));
       return {
         kind: 'shifted',
         shift: k,
-        detail: `the claim is the computed value times ${factor}, the kind of factor a writhe or normalisation slip leaves`,
+        detail: writheSlip
+          ? `${writheSlip.detail} (the computed value times ${factor})`
+          : `the claim is the computed value times ${factor}, the kind of factor a writhe or normalisation slip leaves`,
       };
     }
   }
