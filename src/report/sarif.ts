@@ -61,7 +61,8 @@ export function sarifLog(diagnostics: readonly Diagnostic[], options: SarifOptio
     ...(options.informationUri ? { informationUri: options.informationUri } : {}),
     rules,
   };
-  return { version: '2.1.0', $schema: SARIF_SCHEMA, runs: [{ tool: { driver }, results }] };
+  // Our columns count UTF-16 code units, as the diagnostic model says.
+  return { version: '2.1.0', $schema: SARIF_SCHEMA, runs: [{ tool: { driver }, columnKind: 'utf16CodeUnits', results }] };
 }
 
 export function formatSarif(diagnostics: readonly Diagnostic[], options: SarifOptions = {}): string {

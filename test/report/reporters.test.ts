@@ -93,6 +93,7 @@ describe('SARIF 2.1.0 reporter', () => {
     expect(log.version).toBe('2.1.0');
     expect(log.$schema).toMatch(/sarif-2\.1\.0/);
     expect(log.runs).toHaveLength(1);
+    expect(log.runs[0]!.columnKind).toBe('utf16CodeUnits');
     const driver = log.runs[0]!.tool.driver;
     expect(driver.name).toBe('skeinproof');
     expect(driver.informationUri).toBe('https://example.invalid/skeinproof');
