@@ -179,7 +179,7 @@ class Scanner {
       case 'skeinclaim':
         return this.claim(start);
       default:
-        if (name in FILL_SHORTCUTS) this.fill(start, name, FILL_SHORTCUTS[name]!);
+        if (Object.hasOwn(FILL_SHORTCUTS, name)) this.fill(start, name, FILL_SHORTCUTS[name]!);
     }
   }
 

@@ -96,7 +96,7 @@ function skipRules(segment: Arg): Arg {
     while (k < t.length && /\s/.test(t[k]!)) k++;
     if (t[k] !== '\\') break;
     const name = controlWord(t, k + 1);
-    if (name === undefined || !(name in RULES)) break;
+    if (name === undefined || !Object.hasOwn(RULES, name)) break;
     k += 1 + name.length;
     for (const open of RULES[name]!) {
       const close = open === '[' ? ']' : open === '(' ? ')' : '}';

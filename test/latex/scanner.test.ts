@@ -25,6 +25,9 @@ describe('comments (TeX: % starts a comment unless escaped as \\%)', () => {
   it('ignores markup after an unescaped %', () => {
     expect(fills('a % \\skeinjones{x}\n\\skeinjones{y}')).toEqual([{ id: 'y', math: false }]);
   });
+  it('only skeinproof\'s own macro names are fill-ins', () => {
+    expect(fills('\\constructor{x} \\toString{y} \\skeinjonesx{z} \\Skeinjones{w}')).toEqual([]);
+  });
   it('\\% is a percent sign, so what follows is read', () => {
     expect(fills('50\\% of \\skeinjones{x}')).toEqual([{ id: 'x', math: false }]);
   });
