@@ -10,7 +10,8 @@ import fc from 'fast-check';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../src/core/convention/convention.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../../src/core/convention/convert.ts';
-import { judgeClaim, polynomialLatex, typesetValue, type DiagnosisKind } from '../../src/core/claims/index.ts';
+import { CLAIM_KEYS, judgeClaim, polynomialLatex, typesetValue, type DiagnosisKind } from '../../src/core/claims/index.ts';
+import { InputError } from '../../src/core/errors.ts';
 import { rng, randomDiagram } from '../support/random-diagrams.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 
@@ -88,6 +89,24 @@ describe('judging properties on random diagrams', () => {
         return true;
       }),
       { numRuns: 40 },
+    );
+  });
+});
+
+describe('judgeClaim on arbitrary text', () => {
+  const pieces = ['t', 'q', 'A', 'z', '1', '3', '-', '+', '^', '{', '}', '\\le', '≥', 'yes', 'no', ',', '/', '2', '\\frac', ' ', 'at most', '<', '>='];
+  it('returns a verdict or throws a located InputError, for every key', () => {
+    fc.assert(
+      fc.property(reportArb, fc.constantFrom(...CLAIM_KEYS), fc.array(fc.constantFrom(...pieces), { maxLength: 10 }), (report, key, parts) => {
+        const text = parts.join('');
+        try {
+          const j = judgeClaim(key, text, report, { convention: DEFAULT_CONVENTION });
+          expect(['agrees', 'contradicts', 'undecided']).toContain(j.verdict);
+        } catch (e) {
+          expect(e).toBeInstanceOf(InputError);
+        }
+      }),
+      { numRuns: 400 },
     );
   });
 });
