@@ -47,6 +47,8 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     ['t − t^{2}', poly([1, 1], [2, -1])], // U+2212 minus sign
     ['0', Laurent.zero],
     ['t + t^3 - t^4.', poly([1, 1], [3, 1], [4, -1])], // sentence punctuation closing the formula
+    ['V(t) = t + t^3 - t^4', poly([1, 1], [3, 1], [4, -1])], // a left-hand side is skipped
+    ['V_{K}(t) = \\Delta = -t^{-1}', poly([-1, -1])],
   ];
   for (const [text, expected] of cases) {
     it(`reads ${text}`, () => {
@@ -97,6 +99,8 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
     ['an empty value', '   ', 0, 3, /empty/],
     ['two variables', 't + A', 4, 5, /unknown variable `A`/],
     ['a full stop inside the value', 't. + 1', 1, 2, /unexpected character `.`/],
+    ['nothing after the equals sign', 'V(t) = ', 5, 6, /nothing follows `=`/],
+    ['an error after a left-hand side, located in the whole text', 'V(t) = t + x', 11, 12, /unknown variable `x`/],
   ];
   for (const [name, text, start, end, message] of cases) {
     it(`refuses ${name}: ${text}`, () => {

@@ -95,7 +95,7 @@ function tokenize(text: string): Token[] {
     } else if ('.,;'.includes(ch) && text.slice(i + 1).trim() === '') {
       // Sentence punctuation closing the formula (`… - t^4.`) is not part of the value.
       break;
-    } else if ('+-*/^_()[]{}'.includes(ch)) {
+    } else if ('+-*/^_()[]{}='.includes(ch)) {
       tokens.push({ kind: 'op', text: ch, start: i, end: i + 1 });
       i++;
     } else if (UNICODE_OPERATORS[ch] !== undefined) {
@@ -160,6 +160,7 @@ class PolynomialParser {
   }
 
   read(): ReadPolynomial {
+    this.skipLeftHandSide();
     const first = this.peek();
     if (first.kind === 'end') fail(`the value is empty: write ${this.what()}, e.g. ${this.example()}`, { start: 0, end: this.text.length });
     const sum = this.parseSum();
@@ -171,6 +172,7 @@ class PolynomialParser {
   /** A number such as `7`, `-3`, `5/2` or `-\frac{5}{2}`, as an exact fraction. */
   readNumber(): Rational {
     this.readingNumber = true;
+    this.skipLeftHandSide();
     const first = this.peek();
     if (first.kind === 'end') fail(`the value is empty: write ${this.what()}, e.g. 7`, { start: 0, end: this.text.length });
     const r = this.parseRationalSum();
@@ -178,6 +180,21 @@ class PolynomialParser {
     if (rest.kind === 'letter') fail(`unexpected \`${rest.text}\`: ${this.what()} is a number`, rest);
     if (rest.kind !== 'end') this.unexpected(rest);
     return r.value;
+  }
+
+  /** `V(t) = t + t^3 - t^4`: the value is what follows the last `=` outside any group. */
+  private skipLeftHandSide(): void {
+    let depth = 0;
+    let lastEquals = -1;
+    this.tokens.forEach((t, i) => {
+      if (t.kind !== 'op') return;
+      if ('({['.includes(t.text)) depth++;
+      else if (')}]'.includes(t.text)) depth--;
+      else if (t.text === '=' && depth === 0) lastEquals = i;
+    });
+    if (lastEquals < 0) return;
+    this.pos = lastEquals + 1;
+    if (this.peek().kind === 'end') fail(`nothing follows \`=\`: write ${this.what()} after it`, this.tokens[lastEquals]!);
   }
 
   private what(): string {
