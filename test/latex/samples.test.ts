@@ -92,12 +92,12 @@ describe('the planted-slips sample', () => {
       `${d.severity} ${d.ruleId} ${relative(SAMPLES, d.location!.file)}:${d.location!.start.line}:${d.location!.start.column}`;
     // Each points at the value or token at fault (the column of its first character).
     expect(result.diagnostics.filter((d) => d.severity !== 'note').map(at)).toEqual([
-      'error claim-contradicted slips/rope-atlas.tex:29:61', // wrong sign: writhe 3 for a negative trefoil
-      'error claim-contradicted slips/rope-atlas.tex:50:51', // the mirror image's Jones polynomial
-      'error claim-contradicted slips/rope-atlas.tex:57:62', // crossing number at most 4 against span 5
-      'error code-invalid slips/rope-atlas.tex:74:7', // PD label 2 used once
-      'error claim-unreadable slips/sections/atlas-table.tex:12:35', // the unbalanced bracket
-      'error claim-contradicted slips/sections/atlas-table.tex:15:56', // crossing number 7 for a 6-crossing diagram
+      'error claim-contradicted slips/rope-atlas.tex:31:61', // wrong sign: writhe 3 for a negative trefoil
+      'error claim-contradicted slips/rope-atlas.tex:52:51', // the mirror image's Jones polynomial
+      'error claim-contradicted slips/rope-atlas.tex:59:62', // crossing number at most 4 against span 5
+      'error code-invalid slips/rope-atlas.tex:76:7', // PD label 2 used once
+      'error claim-unreadable slips/sections/atlas-table.tex:13:35', // the unbalanced bracket
+      'error claim-contradicted slips/sections/atlas-table.tex:16:56', // crossing number 7 for a 6-crossing diagram
     ]);
     const [sign, mirror, span, , , count] = result.diagnostics.filter((d) => d.severity === 'error');
     expect(sign!.computed).toBe('-3');
@@ -129,7 +129,7 @@ describe('the command line on the samples', () => {
     rmSync(join(dir, 'slips/rope-atlas.skein.tex'), { force: true });
     const slips = cli('check', 'slips/rope-atlas.tex');
     expect(slips.status).toBe(2); // an invalid code is among the slips
-    expect(slips.stdout).toContain('slips/sections/atlas-table.tex:15:56: error');
+    expect(slips.stdout).toContain('slips/sections/atlas-table.tex:16:56: error');
     expect(slips.stdout).toContain('6 errors');
   });
 });

@@ -106,9 +106,10 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     const dir = workDir('sidecar', true);
     copyInto(dir, SAMPLES);
     await build(dir);
+    pdflatex(dir, 'rope-atlas.tex'); // a first pass writes the .aux for \ref
     const run = pdflatex(dir, 'rope-atlas.tex');
     expect(run.ok).toBe(true);
-    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
     // Published values (from memory): the positive trefoil t + t³ − t⁴, here in descending order.
     expect(squeeze(run.text)).toContain(asPdfText('-t^4 + t^3 + t'));
     expect(squeeze(run.text)).toContain(squeeze('crossing number is 5.'));
