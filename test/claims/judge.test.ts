@@ -190,8 +190,9 @@ describe('number and property claims', () => {
     expect(j.reason).toMatch(/nugatory/);
     expect(() => judge('alternating', 'maybe')).toThrow(/not a yes\/no answer/);
   });
-  it('refuses a fractional writhe', () => {
+  it('refuses a fractional writhe and a degree that is no multiple of 1/2', () => {
     expect(() => judge('writhe', '1/2')).toThrow(/integer/);
+    expect(() => judge('min-degree', '1/3')).toThrow(/whole or half number/);
   });
 });
 

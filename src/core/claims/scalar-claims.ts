@@ -27,7 +27,12 @@ const NUMBER_NOUNS: Readonly<Record<NumberKey, string>> = {
 
 const INTEGER_KEYS: ReadonlySet<NumberKey> = new Set(['writhe', 'crossings', 'components', 'linking', 'bracket-span']);
 
-function toNumber(r: Rational): number {
+/** Degrees and spans of V are multiples of 1/2 (halves for links with an even number of components). */
+function readHalfInteger(text: string, noun: string): number {
+  const r: Rational = readNumber(text, `the ${noun}`);
+  if (r.q > 2) {
+    throw new InputError(UNREADABLE, `the ${noun} is a whole or half number, but the claim is ${r.p}/${r.q}`, { start: 0, end: text.length });
+  }
   return r.p / r.q;
 }
 
@@ -84,7 +89,7 @@ function numberSubject(key: Exclude<NumberKey, 'linking'>, report: DiagramReport
 export function judgeNumberClaim(key: NumberKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
   if (key === 'linking') return judgeLinkingClaim(text, report);
   const noun = NUMBER_NOUNS[key];
-  const claimed = INTEGER_KEYS.has(key) ? readSmallInteger(text, noun) : toNumber(readNumber(text, `the ${noun}`));
+  const claimed = INTEGER_KEYS.has(key) ? readSmallInteger(text, noun) : readHalfInteger(text, noun);
   const subject = numberSubject(key, report, ctx.convention);
   const computed = numberLatex(subject.value);
   const base = { key, claimed: text, computed };
