@@ -6,6 +6,8 @@
  *   percent sign, `\\%` a line break followed by a comment).
  * - The bodies of verbatim environments and of `\verb` / `\lstinline` are
  *   printed as typed, so nothing inside them is markup.
+ * - `\iffalse … \fi` (up to a matching `\else` or `\fi`) is skipped by TeX,
+ *   the usual way to switch off a passage.
  *
  * Later passes scan the masked text, so a `\skeinjones` inside a comment or a
  * verbatim listing is never mistaken for a fill-in.
@@ -52,6 +54,10 @@ export function maskLatex(source: string): string {
       continue;
     }
     const afterName = i + 1 + name.length;
+    if (name === 'iffalse') {
+      i = skipFalseBranch(source, afterName, blank);
+      continue;
+    }
     if (INLINE_VERBATIM.has(name)) {
       i = skipInlineVerbatim(source, afterName, blank);
       continue;
@@ -102,4 +108,47 @@ function skipInlineVerbatim(text: string, at: number, blank: (from: number, to: 
   const stop = end < 0 || end > line ? line : end + 1;
   blank(k, stop);
   return stop;
+}
+
+/** TeX's own conditionals: skipping a false branch, TeX counts these to find the matching \\fi. */
+const CONDITIONALS: ReadonlySet<string> = new Set([
+  'if', 'ifcat', 'ifnum', 'ifdim', 'ifodd', 'ifvmode', 'ifhmode', 'ifmmode', 'ifinner', 'ifvoid', 'ifhbox', 'ifvbox',
+  'ifx', 'ifeof', 'iftrue', 'iffalse', 'ifcase', 'ifdefined', 'ifcsname', 'iffontchar', 'ifincsname',
+]);
+
+/**
+ * Blanks what follows \\iffalse up to the \\else or \\fi that matches it (comments
+ * inside count as comments). Returns where reading goes on: the \\else branch is
+ * read, and an unmatched \\iffalse hides the rest of the file, as in TeX.
+ */
+function skipFalseBranch(text: string, from: number, blank: (from: number, to: number) => void): number {
+  let depth = 0;
+  let k = from;
+  while (k < text.length) {
+    const ch = text[k]!;
+    if (ch === '%') {
+      k = lineEnd(text, k);
+      continue;
+    }
+    if (ch !== '\\') {
+      k++;
+      continue;
+    }
+    const name = controlWord(text, k + 1);
+    if (name === undefined) {
+      k += 2;
+      continue;
+    }
+    if (CONDITIONALS.has(name)) depth++;
+    else if (name === 'fi' || (name === 'else' && depth === 0)) {
+      if (depth === 0) {
+        blank(from, k);
+        return k + 1 + name.length;
+      }
+      depth--;
+    }
+    k += 1 + name.length;
+  }
+  blank(from, text.length);
+  return text.length;
 }

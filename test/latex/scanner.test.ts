@@ -63,6 +63,18 @@ describe('verbatim (TeX prints these bodies as typed)', () => {
   });
 });
 
+describe('switched-off passages (TeX skips \\iffalse … \\fi, counting nested conditionals)', () => {
+  it('skips to the matching \\fi and reads on', () => {
+    expect(fills('\\iffalse \\skeinjones{a} \\ifnum1=1 \\skeinjones{b}\\fi \\skeinjones{c} \\fi \\skeinjones{d}')).toEqual([{ id: 'd', math: false }]);
+  });
+  it('reads the \\else branch', () => {
+    expect(fills('\\iffalse \\skeinjones{a} \\else \\skeinjones{b} \\fi')).toEqual([{ id: 'b', math: false }]);
+  });
+  it('a \\fi in a comment does not end the passage', () => {
+    expect(fills('\\iffalse % \\fi\n \\skeinjones{a} \\fi \\skeinjones{b}')).toEqual([{ id: 'b', math: false }]);
+  });
+});
+
 describe('math modes', () => {
   it('knows math from text at every fill-in', () => {
     const text = [

@@ -141,6 +141,36 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expectEveryValueIn(run.text, join(dir, 'rope-atlas.tex'));
   });
 
+  it('TeX and the reader see the same fill-ins: comments, verbatim and switched-off passages hide them from both', () => {
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      'a \\skeinjones{k1} % \\skeinjones{hidden1}',
+      '50\\% \\skeinjones{k2} \\\\% \\skeinjones{hidden2}',
+      '\\verb|\\skeinjones{hidden3}| \\verb*+\\skeinspan{hidden4}+ \\skeinspan{k3}',
+      '\\begin{verbatim}',
+      '\\skeinjones{hidden5}',
+      '\\end{verbatim}',
+      '\\iffalse \\skeinjones{hidden6} \\ifnum1=1 \\skeinjones{hidden7}\\fi \\skeinjones{hidden8} \\fi',
+      '\\iffalse \\skeinjones{hidden9} \\else $\\skeinwrithe{k4}$ \\fi',
+      '\\iffalse % \\fi',
+      '\\skeinjones{hidden10} \\fi \\skeinvalue{k5}{statement}',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('hidden', true);
+    writeFileSync(join(dir, 'hidden.tex'), paper);
+    const doc = readLatexManuscript(join(dir, 'hidden.tex'), { read: (p) => readFileSync(p, 'utf8') });
+    const read = doc.fills.map((f) => (f.target.kind === 'macro' ? `${f.target.key} of \`${f.target.id}'` : ''));
+    expect(read).toEqual(['jones of `k1\'', 'jones of `k2\'', 'span of `k3\'', 'writhe of `k4\'', 'statement of `k5\'']);
+    const run = pdflatex(dir, 'hidden.tex');
+    expect(run.ok).toBe(true);
+    const warned = packageWarnings(run.log, 'skeinproof')
+      .filter((w) => w.startsWith('Value'))
+      .map((w) => w.replace(/^Value `([a-z-]+)' of (`[^']*') is not computed yet on input line \d+\.$/, '$1 of $2'));
+    expect(warned).toEqual(read);
+  });
+
   it('TeX and the reader count the rows and cells of a skein table alike', async () => {
     // Header rows, \\[skip], rules before and after rows, a comment in a cell, a last row without \\.
     const paper = [
