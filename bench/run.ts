@@ -11,7 +11,7 @@ import { connectedSum } from '../src/core/diagram/operations.ts';
 import { kauffmanBracket, type BracketResult } from '../src/core/invariants/bracket.ts';
 import { jonesFromBracket } from '../src/core/invariants/jones.ts';
 import { bracketByStateSum } from '../src/core/invariants/state-sum.ts';
-import { formatPD } from '../src/core/notation/format-pd.ts';
+import { printPdCode } from '../src/core/notation/print.ts';
 import { Laurent } from '../src/core/poly/laurent.ts';
 import { randomAlternatingBraidWord, randomBraidWord, rng, shuffleDiagram } from '../test/support/random-diagrams.ts';
 
@@ -112,7 +112,7 @@ async function main(): Promise<void> {
   // 300-crossing reduced alternating diagram, crossings shuffled, through PD text.
   for (const [strands, seed] of [[6, 300], [5, 301]] as const) {
     const built = alternatingBraidClosure(seed, strands, 300);
-    const text = formatPD(built);
+    const text = printPdCode(built);
     const parsed = timed(() => (parse ? parse(text, 'pd') : built));
     const input = parse ? `PD text, parsed in ${formatMs(parsed.milliseconds)}` : viaParser;
     bench(`alternating, ${strands}-strand closure, shuffled`, input, parsed.value, spanCheck);

@@ -6,7 +6,7 @@ import { addCurl, connectedSum, disjointUnion, smoothCrossing, switchCrossing, w
 import { boundaryWidths, planContraction } from '../../src/core/invariants/crossing-order.ts';
 import { jonesPolynomial } from '../../src/core/invariants/jones.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
-import { formatPD } from '../../src/core/notation/format-pd.ts';
+import { printPdCode } from '../../src/core/notation/print.ts';
 import { randomDiagram, randomInt, randomReducedAlternating, rng } from '../support/random-diagrams.ts';
 
 function wellFormed(d: LinkDiagram): void {
@@ -86,16 +86,16 @@ describe('diagram surgery keeps diagrams valid and planar', () => {
   });
 });
 
-describe('formatPD', () => {
+describe('printPdCode', () => {
   it('prints the closure of σ1³ with labels consecutive along the knot', () => {
-    expect(formatPD(closeBraid([1, 1, 1], 2))).toBe('(4,2,5,1) (2,6,3,5) (6,4,1,3)');
+    expect(printPdCode(closeBraid([1, 1, 1], 2))).toBe('(4,2,5,1) (2,6,3,5) (6,4,1,3)');
   });
   it('labels 1 … E consecutively along each component: the under strand runs from slot 0 to slot 2 (common practice)', () => {
     const random = rng(206);
     for (let i = 0; i < 40; i++) {
       const d = randomDiagram(random, 14, 5);
       if (d.freeLoops > 0) continue;
-      const tuples = [...formatPD(d).matchAll(/\(([^)]*)\)/g)].map((m) => m[1]!.split(',').map(Number));
+      const tuples = [...printPdCode(d).matchAll(/\(([^)]*)\)/g)].map((m) => m[1]!.split(',').map(Number));
       expect(tuples.length).toBe(d.crossings.length);
       const labels = tuples.flat().sort((a, b) => a - b);
       expect(labels).toEqual(Array.from({ length: 2 * d.edgeCount }, (_, j) => Math.floor(j / 2) + 1));
@@ -114,18 +114,18 @@ describe('formatPD', () => {
     for (let i = 0; i < 80; i++) {
       const d = i % 2 ? randomReducedAlternating(random, randomInt(random, 4, 14)) : randomDiagram(random, 14, 5);
       if (d.freeLoops > 0) continue;
-      const back = parseDiagramCode(formatPD(d), 'pd');
+      const back = parseDiagramCode(printPdCode(d), 'pd');
       expect(jonesPolynomial(back).equals(jonesPolynomial(d))).toBe(true);
     }
   });
   it('round-trips the Hopf links, whose 2-edge components leave the least room for orientation', () => {
     for (const word of [[1, 1], [-1, -1]]) {
       const d = closeBraid(word, 2);
-      expect(jonesPolynomial(parseDiagramCode(formatPD(d), 'pd')).equals(jonesPolynomial(d))).toBe(true);
+      expect(jonesPolynomial(parseDiagramCode(printPdCode(d), 'pd')).equals(jonesPolynomial(d))).toBe(true);
     }
   });
   it('refuses diagrams with crossingless components, which a PD code cannot write', () => {
-    expect(() => formatPD(closeBraid([1, 1], 3))).toThrow(RangeError);
+    expect(() => printPdCode(closeBraid([1, 1], 3))).toThrow(RangeError);
   });
 });
 
