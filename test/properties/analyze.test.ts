@@ -103,11 +103,13 @@ describe('split diagrams and the lower bound rule', () => {
     expect(theorems(r, 'lower')).toEqual(['split-span-bound']);
     expect(r.crossingNumber).toMatchObject({ lower: 3, upper: 3, exact: 3 });
   });
-  it('two Hopf links side by side (1 1 3 3): lower = span V − 3 = 2, upper 4, undecided', () => {
+  it('two Hopf links side by side (1 1 3 3): span V − 3 = 2 alone would leave 2..4, the pieces give exactly 4', () => {
     const r = braid('1 1 3 3', 4);
     // V = (−t^(1/2) − t^(−1/2)) · V(Hopf)^2 has span 1 + 2 + 2 = 5 (Jones 1985: V multiplies under split union with that factor).
     expect(r.span).toBe(5);
-    expect(r.crossingNumber).toMatchObject({ lower: 2, upper: 4, exact: null });
+    // Each piece is a reduced alternating Hopf diagram (c = 2), and crossing numbers add under split union.
+    expect(r.crossingNumber).toMatchObject({ lower: 4, upper: 4, exact: 4 });
+    expect(theorems(r, 'exact')).toEqual(['split-union']);
   });
   it('a connected non-alternating diagram with connected linking graph: the lower bound is span V by the linking certificate', () => {
     // 1 1 2 2 -2 on 3 strands: a Hopf link whose second component is drawn with a non-alternating detour.

@@ -6,6 +6,7 @@ import { componentCount } from '../diagram/model.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import { diagramProperties } from '../diagram/properties.ts';
 import { crossingNumberBounds } from '../diagram/crossing-bounds.ts';
+import { splitPieces } from '../diagram/operations.ts';
 import { kauffmanBracket } from '../invariants/bracket.ts';
 import { jonesFromBracket } from '../invariants/jones.ts';
 import { classicalInvariants } from '../invariants/classical/index.ts';
@@ -45,7 +46,12 @@ export function analyzeDiagram(d: LinkDiagram): DiagramReport {
     adequate: properties.adequate,
     stateCircles: properties.stateCircles,
     chiralityFixed: d.chiralityFixed,
-    crossingNumber: crossingNumberBounds({ properties, jonesSpan: jones.span }),
+    crossingNumber: crossingNumberBounds({
+      properties,
+      jonesSpan: jones.span,
+      // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
+      pieces: properties.connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece).crossingNumber),
+    }),
     boundaryWidth,
   };
   return Object.defineProperty(report, 'classical', {

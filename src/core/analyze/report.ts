@@ -13,6 +13,7 @@ export type TheoremId =
   | 'menasco' // reduced alternating connected diagrams are non-split
   | 'linking-graph' // a connected graph of non-zero linking numbers certifies non-splitness
   | 'split-span-bound' // span V ≤ c(L) + μ − 1 without a non-splitness certificate
+  | 'split-union' // crossing numbers add under split union: bound each piece of a disconnected diagram
   | 'thistlethwaite-adequate' // a reduced adequate diagram has minimal crossing number
   | 'trivial'; // no crossings / unknot facts
 

@@ -32,6 +32,7 @@ export const THEOREM_NAMES: Readonly<Record<TheoremId, string>> = {
   menasco: "Menasco's theorem with the Kauffman–Murasugi–Thistlethwaite bound",
   'linking-graph': 'the linking-number certificate of non-splitness with the Kauffman–Murasugi–Thistlethwaite bound',
   'split-span-bound': 'the span bound for possibly split links',
+  'split-union': 'the additivity of crossing numbers under split union',
   'thistlethwaite-adequate': "Thistlethwaite's theorem on adequate diagrams",
   trivial: 'counting the crossings of the diagram',
 };
@@ -162,6 +163,8 @@ export function crossingNumberStatement(report: DiagramReport, convention: Conve
         return `The diagram has ${crossingsPhrase}, $${k}$ of them nugatory; removing those leaves a reduced alternating connected diagram with $${n - k}$ crossings, so by the Kauffman–Murasugi–Thistlethwaite theorem the crossing number is $${exact}$ (and ${spanPhrase}).`;
       case 'thistlethwaite-adequate':
         return `The diagram has ${crossingsPhrase} and is reduced, adequate and connected, so by Thistlethwaite's theorem on adequate diagrams its crossing number is $${exact}$.`;
+      case 'split-union':
+        return `The diagram falls apart into separate pieces whose crossing numbers are known, and crossing numbers add under split union, so the crossing number is $${exact}$.`;
       default:
         return `Here ${spanPhrase}, which bounds the crossing number below by $${lower}$, and the diagram has ${crossingsPhrase}${
           k > 0 ? `, $${k}$ of them nugatory,` : ','

@@ -10,18 +10,29 @@ import type { DiagramProperties } from './properties.ts';
 export interface CrossingBoundInput {
   readonly properties: DiagramProperties;
   readonly jonesSpan: number;
+  /**
+   * For a disconnected diagram: the bounds of each connected piece with
+   * crossings, each analysed as a diagram of its own (crossingless circles
+   * contribute 0 and are not listed).
+   */
+  readonly pieces?: readonly CrossingNumberBounds[];
 }
 
-export function crossingNumberBounds({ properties: p, jonesSpan }: CrossingBoundInput): CrossingNumberBounds {
+export function crossingNumberBounds({ properties: p, jonesSpan, pieces }: CrossingBoundInput): CrossingNumberBounds {
   const n = p.crossings;
   if (n === 0) {
     const text = 'The diagram has no crossings, so it shows an unlink of circles, whose crossing number is 0.';
     return { lower: 0, upper: 0, exact: 0, reasons: [{ bound: 'exact', value: 0, theorem: 'trivial', text }] };
   }
 
-  const lower = spanLowerBound(p, jonesSpan);
+  let lower = spanLowerBound(p, jonesSpan);
   const upper = nugatoryUpperBound(p);
   const exactReasons = theoremsFixingTheCrossingNumber(p);
+  if (pieces && !p.connected) {
+    const split = splitUnionBounds(pieces, p.pieces);
+    if (split.lower.value > lower.value) lower = split.lower;
+    if (split.exact) exactReasons.push(split.exact);
+  }
   if (exactReasons.length === 0 && lower.value === upper.value) {
     // Named after the upper bound: the diagram itself (less its nugatory crossings) is then minimal.
     // The exact-value theorems keep their ids for the cases they decide on their own.
@@ -52,6 +63,7 @@ const THEOREM_TITLES: Readonly<Record<BoundReason['theorem'], string>> = {
   'split-span-bound': 'span V − (μ − 1) for a possibly split link',
   'thistlethwaite-adequate': 'Thistlethwaite',
   trivial: 'the crossing count',
+  'split-union': 'the pieces of a split diagram, summed',
 };
 
 function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
@@ -88,6 +100,26 @@ function theoremsFixingTheCrossingNumber(p: DiagramProperties): BoundReason[] {
     found.push(reason('exact', n, 'thistlethwaite-adequate', `The diagram is connected, reduced and adequate, and such a diagram has the fewest crossings of any diagram of its link (Thistlethwaite), so c = ${n}.`));
   }
   return found;
+}
+
+/**
+ * Crossing numbers add under split union: c(L₁ ⊔ L₂) ≤ c(L₁) + c(L₂) from the
+ * split diagram, and ≥ because deleting L₂'s components from any diagram of
+ * the union leaves a diagram of L₁ (and vice versa) with the crossings between
+ * them gone. So each piece of a disconnected diagram can be bounded on its own
+ * and the bounds summed; this is never weaker than span V − (μ − 1).
+ */
+function splitUnionBounds(pieces: readonly CrossingNumberBounds[], pieceCount: number): { lower: BoundReason; exact?: BoundReason } {
+  const lowers = pieces.map((b) => b.lower);
+  const sum = lowers.reduce((s, v) => s + v, 0);
+  const circles = pieceCount - pieces.length;
+  const parts = `${pieces.length} piece${pieces.length === 1 ? '' : 's'} with crossings${circles > 0 ? ` and ${circles} crossingless circle${circles === 1 ? '' : 's'}` : ''}`;
+  const lower = reason('lower', sum, 'split-union', `The projection falls apart into ${parts}; crossing numbers add under split union (deleting the other pieces' components from any diagram of the link leaves a diagram of each piece), so c ≥ ${lowers.length > 1 ? `${lowers.join(' + ')} = ` : ''}${sum}, summing the lower bounds of the pieces.`);
+  if (pieces.some((b) => b.exact === null)) return { lower };
+  const exacts = pieces.map((b) => b.exact!);
+  const total = exacts.reduce((s, v) => s + v, 0);
+  const exact = reason('exact', total, 'split-union', `The projection falls apart into ${parts}, each of known crossing number (${exacts.join(', ')}${circles > 0 ? ', and 0 for each circle' : ''}); crossing numbers add under split union, so c = ${total}.`);
+  return { lower, exact };
 }
 
 /** True when the graph on the components with an edge for every non-zero linking number is connected. */

@@ -5,6 +5,7 @@
  * order of travel); the mirror image is `mirrorDiagram` in model.ts.
  */
 import { assembleDiagram, type RawCrossing } from './assemble.ts';
+import { connectedPieces } from './faces.ts';
 import { indexDiagram, type Crossing, type LinkDiagram, type Sign } from './model.ts';
 
 /** Slot pairs joined by the oriented smoothing: incoming to the adjacent outgoing slot. */
@@ -155,4 +156,17 @@ export function addCurl(d: LinkDiagram, edge: number, sign: Sign, underFirst: bo
     [...raw, curl].map((edges, i) => ({ edges, sign: signs[i]! })),
     { notation: d.notation, freeLoops: d.freeLoops, chiralityFixed: d.chiralityFixed },
   );
+}
+
+/**
+ * The connected pieces of the projection as diagrams of their own, one per
+ * piece with crossings; crossingless circles are left out (the caller knows
+ * them as `freeLoops`). The link of the whole diagram is the split union of the
+ * links of its pieces.
+ */
+export function splitPieces(d: LinkDiagram): LinkDiagram[] {
+  const { pieceOfCrossing, pieceCount } = connectedPieces(d);
+  const raw: RawCrossing[][] = Array.from({ length: pieceCount }, () => []);
+  d.crossings.forEach((c, i) => raw[pieceOfCrossing[i]!]!.push(c));
+  return raw.map((crossings) => assembleDiagram(crossings, { notation: d.notation, chiralityFixed: d.chiralityFixed }));
 }
