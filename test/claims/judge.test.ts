@@ -244,6 +244,47 @@ describe('crossing-number claims against proven bounds', () => {
     expect(judge('crossing-number', `at least ${upper + 1}`, report).verdict).toBe('contradicts');
     expect(judge('crossing-number', `${lower - 1}`, report).verdict).toBe('contradicts');
   });
+  it('reads the claim as authors write it: a left-hand side, turned round, words, \\text, dollars (c(3₁) = 3, from memory)', () => {
+    for (const claim of ['c(K) \\le 7', 'c(K) \\leq 3', 'c \\geq 3', 'c(3_1) = 3', '3 \\le c(K)', '7 \\ge c(K)', 'At most 3', '\\text{at most } 3', '$\\le 3$', '\\leqq 4', 'no more than 3']) {
+      expect(judge('crossing-number', claim).verdict, claim).toBe('agrees');
+    }
+    expect(judge('crossing-number', '5 \\le c(K)').verdict).toBe('contradicts');
+    expect(judge('crossing-number', 'c(K) < 3').reason).toContain('not less than 3');
+    expect(judge('crossing-number', 'c(K) > 3').reason).toContain('not more than 3');
+  });
+  it('judges a two-sided range: agrees only when both bounds confirm it, naming both theorems', () => {
+    const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));
+    const { lower, upper } = report.crossingNumber;
+    for (const claim of [`${lower} \\le c(K) \\le ${upper}`, `${lower - 1} < c < ${upper + 1}`, `${upper} \\ge c(K) \\ge ${lower}`]) {
+      const j = judge('crossing-number', claim, report);
+      expect(j.verdict, claim).toBe('agrees');
+      expect(j.reason).toContain(`between ${lower} and ${upper}`);
+      expect(j.reason).toMatch(/lower bound comes from the Kauffman–Murasugi–Thistlethwaite theorem/);
+      expect(j.reason).toMatch(/upper bound comes from counting the crossings/);
+    }
+    expect(judge('crossing-number', `${lower + 1} \\le c(K) \\le ${upper}`, report).verdict).toBe('undecided');
+    expect(judge('crossing-number', `${upper + 1} \\le c(K) \\le ${upper + 3}`, report).verdict).toBe('contradicts');
+  });
+  it('refuses crossing-number claims it cannot read, at the place of the fault', () => {
+    const refused = (claim: string) => {
+      try {
+        judge('crossing-number', claim);
+      } catch (e) {
+        expect(e).toBeInstanceOf(InputError);
+        return e as InputError;
+      }
+      throw new Error(`not refused: ${claim}`);
+    };
+    expect(refused('3 \\le').span).toEqual({ start: 2, end: 5 });
+    expect(refused('3 \\le').message).toContain('nothing follows `\\le`');
+    expect(refused('6 \\ge c \\le 3').span).toEqual({ start: 8, end: 11 });
+    expect(refused('5 \\le c \\le 3').message).toContain('leaves no value');
+    expect(refused('3 \\le 4').message).toContain('compares two numbers');
+    const word = refused('three');
+    expect(word.span).toEqual({ start: 0, end: 5 });
+    expect(word.message).toContain('`three` is not a number');
+    expect(word.message).not.toContain('exponent');
+  });
   it('refuses a crossing-number claim it cannot read, pointing past the relation', () => {
     try {
       judge('crossing-number', '\\le x');

@@ -11,20 +11,150 @@ import type { Judgement } from './api.ts';
 import { readNumber, UNREADABLE } from './latex-poly-parser.ts';
 import { numberLatex } from './typeset.ts';
 
-export type CrossingRelation = 'equal' | 'at-most' | 'at-least';
-
+/**
+ * A crossing-number claim as the interval of values it allows, [low, high]
+ * (high is Infinity for a lower bound; low is 0 for an upper bound), and the
+ * claim in words for messages ("7", "at most 7", "less than 3", "between 3 and 5").
+ */
 export interface CrossingNumberClaim {
-  readonly relation: CrossingRelation;
-  readonly value: number;
+  readonly low: number;
+  readonly high: number;
+  readonly words: string;
 }
 
-const RELATIONS: readonly { readonly pattern: RegExp; readonly relation: CrossingRelation; readonly strict: boolean }[] = [
-  { pattern: /^(?:\\leq?slant|\\leq?|≤|⩽|<=|at\s+most)/, relation: 'at-most', strict: false },
-  { pattern: /^(?:\\geq?slant|\\geq?|≥|⩾|>=|at\s+least)/, relation: 'at-least', strict: false },
-  { pattern: /^(?:<|\\lt\b)/, relation: 'at-most', strict: true },
-  { pattern: /^(?:>|\\gt\b)/, relation: 'at-least', strict: true },
-  { pattern: /^=/, relation: 'equal', strict: false },
+type Direction = 'at-most' | 'at-least' | 'equal';
+
+interface RelationSpec {
+  readonly pattern: RegExp;
+  readonly direction: Direction;
+  readonly strict: boolean;
+}
+
+/** Tried in this order at each place, so `<=` is found before `<` and `\leq` before `\le`. */
+const RELATIONS: readonly RelationSpec[] = [
+  { pattern: /\\leq?slant(?![a-zA-Z])|\\leqq(?![a-zA-Z])|\\leq?(?![a-zA-Z])|≤|⩽|≦|<=|\bat\s+most\b|\bno\s+more\s+than\b/iy, direction: 'at-most', strict: false },
+  { pattern: /\\geq?slant(?![a-zA-Z])|\\geqq(?![a-zA-Z])|\\geq?(?![a-zA-Z])|≥|⩾|≧|>=|\bat\s+least\b|\bno\s+less\s+than\b/iy, direction: 'at-least', strict: false },
+  { pattern: /<|\\lt(?![a-zA-Z])|\bless\s+than\b/iy, direction: 'at-most', strict: true },
+  { pattern: />|\\gt(?![a-zA-Z])|\bmore\s+than\b|\bgreater\s+than\b/iy, direction: 'at-least', strict: true },
+  { pattern: /=/y, direction: 'equal', strict: false },
 ];
+
+interface FoundRelation extends Omit<RelationSpec, 'pattern'> {
+  readonly start: number;
+  readonly end: number;
+}
+
+/** Math delimiters and text wrappers (`$…$`, `\text{at most}`) blanked to spaces, so every offset still points into the claim. */
+function blankMarkup(text: string): string {
+  const blank = (s: string) => ' '.repeat(s.length);
+  return text.replace(/\$/g, ' ').replace(/\\(?:text|textrm|mathrm|mbox)\s*\{([^{}]*)\}/g, (whole, inner: string) => {
+    const open = whole.length - inner.length - 1;
+    return `${blank(whole.slice(0, open))}${inner} `;
+  });
+}
+
+function findRelations(text: string): FoundRelation[] {
+  const found: FoundRelation[] = [];
+  for (let i = 0; i < text.length; ) {
+    let matched: FoundRelation | undefined;
+    for (const { pattern, direction, strict } of RELATIONS) {
+      pattern.lastIndex = i;
+      const m = pattern.exec(text);
+      if (m) {
+        matched = { direction, strict, start: i, end: i + m[0].length };
+        break;
+      }
+    }
+    if (matched) {
+      found.push(matched);
+      i = matched.end;
+    } else i++;
+  }
+  return found;
+}
+
+interface Segment {
+  readonly text: string;
+  readonly start: number;
+}
+
+function flip(direction: Direction): Direction {
+  return direction === 'at-most' ? 'at-least' : direction === 'at-least' ? 'at-most' : 'equal';
+}
+
+/** The interval a relation to the value allows: `< 3` allows at most 2. */
+function bound(direction: Direction, strict: boolean, value: number): CrossingNumberClaim {
+  switch (direction) {
+    case 'equal':
+      return { low: value, high: value, words: `${value}` };
+    case 'at-most':
+      return { low: 0, high: strict ? value - 1 : value, words: strict ? `less than ${value}` : `at most ${value}` };
+    case 'at-least':
+      return { low: strict ? value + 1 : value, high: Infinity, words: strict ? `more than ${value}` : `at least ${value}` };
+  }
+}
+
+const RELATION_HINT = 'write a natural number, optionally after ≤ / \\le / <= or ≥ / \\ge / >=, or a range such as 5 \\le c(K) \\le 7';
+
+function refuse(message: string, start: number, end: number): never {
+  throw new InputError(UNREADABLE, `${message}; ${RELATION_HINT}`, { start, end });
+}
+
+/**
+ * Reads `7`, `\le 7`, `≥ 5`, `< 8`, `at most 7`, also after a left-hand side
+ * (`c(K) \le 7`), turned round (`5 \le c(K)`), or two-sided (`5 \le c(K) \le 7`).
+ */
+export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
+  const plain = blankMarkup(text);
+  const relations = findRelations(plain);
+  const segments: Segment[] = [];
+  let from = 0;
+  for (const r of relations) {
+    segments.push({ text: plain.slice(from, r.start), start: from });
+    from = r.end;
+  }
+  segments.push({ text: plain.slice(from), start: from });
+  const isEmpty = (s: Segment) => s.text.trim() === '';
+  const isName = (s: Segment) => /[a-zA-Z]/.test(s.text);
+  const [first, second, third] = segments as [Segment, Segment | undefined, Segment | undefined];
+  if (relations.length === 0) return bound('equal', false, integerAt(first));
+  const dangling = relations.find((_, i) => isEmpty(segments[i + 1]!));
+  if (dangling) refuse(`nothing follows \`${text.slice(dangling.start, dangling.end)}\`: write the bound after it`, dangling.start, dangling.end);
+  if (relations.length === 1) {
+    const r = relations[0]!;
+    if (isEmpty(first) || isName(first)) return bound(r.direction, r.strict, integerAt(second!));
+    if (isName(second!)) return bound(flip(r.direction), r.strict, integerAt(first));
+    refuse('the claim compares two numbers: say which side is the crossing number, e.g. c(K) \\le 7', 0, text.length);
+  }
+  if (relations.length === 2 && isName(second!) && !isEmpty(first)) {
+    const [r1, r2] = relations as [FoundRelation, FoundRelation];
+    if (r1.direction !== r2.direction || r1.direction === 'equal') {
+      refuse('the two relations of a range must point the same way, as in 5 \\le c(K) \\le 7 or 7 \\ge c(K) \\ge 5', r2.start, r2.end);
+    }
+    const outer = integerAt(first);
+    const inner = integerAt(third!);
+    // a ≤ c ≤ b, or b ≥ c ≥ a: the first number bounds c from the side its relation points.
+    const a = bound(flip(r1.direction), r1.strict, outer);
+    const b = bound(r2.direction, r2.strict, inner);
+    const low = Math.max(a.low, b.low);
+    const high = Math.min(a.high, b.high);
+    if (low > high) refuse(`the range leaves no value for the crossing number (from ${low} to ${high})`, 0, text.length);
+    return { low, high, words: low === high ? `${low}` : `between ${low} and ${high}` };
+  }
+  const extra = relations[Math.min(relations.length - 1, 2)]!;
+  refuse('the claim has more relations than one bound or a range of two (low \\le c(K) \\le high)', extra.start, extra.end);
+}
+
+function integerAt(segment: Segment): number {
+  try {
+    const r = readNumber(segment.text, 'the crossing number');
+    if (r.q !== 1 || r.p < 0) throw new InputError(UNREADABLE, `a crossing number is a natural number, not ${r.q === 1 ? r.p : `${r.p}/${r.q}`}`, { start: 0, end: segment.text.length });
+    return r.p;
+  } catch (e) {
+    if (e instanceof InputError && e.span) refuse(e.message, e.span.start + segment.start, e.span.end + segment.start);
+    throw e;
+  }
+}
 
 export const THEOREM_NAMES: Readonly<Record<TheoremId, string>> = {
   'nugatory-removal': 'the removal of nugatory crossings',
@@ -36,35 +166,6 @@ export const THEOREM_NAMES: Readonly<Record<TheoremId, string>> = {
   'thistlethwaite-adequate': "Thistlethwaite's theorem on adequate diagrams",
   trivial: 'counting the crossings of the diagram',
 };
-
-export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
-  const leading = text.length - text.trimStart().length;
-  const body = text.trim();
-  for (const { pattern, relation, strict } of RELATIONS) {
-    const m = pattern.exec(body);
-    if (!m) continue;
-    const rest = body.slice(m[0].length);
-    const offset = leading + m[0].length;
-    const value = integerAt(rest, offset);
-    if (!strict) return { relation, value };
-    return relation === 'at-most' ? { relation, value: value - 1 } : { relation, value: value + 1 };
-  }
-  return { relation: 'equal', value: integerAt(body, leading) };
-}
-
-function integerAt(text: string, offset: number): number {
-  try {
-    const r = readNumber(text, 'the crossing number');
-    if (r.q !== 1 || r.p < 0) throw new InputError(UNREADABLE, `a crossing number is a natural number, not ${r.q === 1 ? r.p : `${r.p}/${r.q}`}`, { start: 0, end: text.length });
-    return r.p;
-  } catch (e) {
-    if (e instanceof InputError && e.span) {
-      const hint = 'write a natural number, optionally after ≤ / \\le / <= or ≥ / \\ge / >=';
-      throw new InputError(e.ruleId, `${e.message}; ${hint}`, { start: e.span.start + offset, end: e.span.end + offset }, e.hints);
-    }
-    throw e;
-  }
-}
 
 function reasonFor(report: DiagramReport, bound: BoundReason['bound']): BoundReason | undefined {
   return report.crossingNumber.reasons.find((r) => r.bound === bound);
@@ -86,10 +187,6 @@ function joinWords(words: readonly string[]): string {
   return `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
 }
 
-function describeClaim(c: CrossingNumberClaim): string {
-  return c.relation === 'equal' ? `${c.value}` : c.relation === 'at-most' ? `at most ${c.value}` : `at least ${c.value}`;
-}
-
 function boundsText(report: DiagramReport): string {
   const { lower, upper, exact } = report.crossingNumber;
   return exact !== null ? `${exact}` : `between ${lower} and ${upper}`;
@@ -102,24 +199,32 @@ export function judgeCrossingNumberClaim(text: string, report: DiagramReport): J
   const upperReason = reasonFor(report, 'upper');
   const exactReason = reasonFor(report, 'exact');
   const base = { key: 'crossing-number' as const, claimed: text, computed: boundsText(report) };
-  const said = describeClaim(claim);
+  const said = claim.words;
   const because = (r: BoundReason | undefined): string => (r ? `, by ${THEOREM_NAMES[r.theorem]}. ${r.text}` : '');
   const withTheorem = (r: BoundReason | undefined) => (r ? { theorem: r.theorem } : {});
 
-  const claimLow = claim.relation === 'at-most' ? -Infinity : claim.value;
-  const claimHigh = claim.relation === 'at-least' ? Infinity : claim.value;
-  // The claim is an interval [claimLow, claimHigh]; the truth lies in [lower, upper].
-  if (claimHigh < lower) {
+  // The claim is the interval [claim.low, claim.high]; the truth lies in [lower, upper].
+  if (claim.high < lower) {
     // Cite the lower bound itself when it refutes the claim, else the theorem that made the value exact.
-    const r = lowerReason && lowerReason.value > claimHigh ? lowerReason : exactReason;
+    const r = lowerReason && lowerReason.value > claim.high ? lowerReason : exactReason;
     return { ...base, ...withTheorem(r), verdict: 'contradicts', reason: `the crossing number is ${exact !== null ? exact : `at least ${lower}`}, so it is not ${said}${because(r)}` };
   }
-  if (claimLow > upper) {
-    const r = upperReason && upperReason.value < claimLow ? upperReason : exactReason;
+  if (claim.low > upper) {
+    const r = upperReason && upperReason.value < claim.low ? upperReason : exactReason;
     return { ...base, ...withTheorem(r), verdict: 'contradicts', reason: `the crossing number is ${exact !== null ? exact : `at most ${upper}`}, so it is not ${said}${because(r)}` };
   }
-  if (claimLow <= lower && upper <= claimHigh) {
-    const r = exact !== null ? exactReason : claim.relation === 'at-least' ? lowerReason : upperReason;
+  if (claim.low <= lower && upper <= claim.high) {
+    if (exact === null && claim.low > 0 && claim.high < Infinity) {
+      // A range confirmed by both bounds rests on both theorems.
+      const side = (which: string, r: BoundReason | undefined) => (r ? ` The ${which} bound comes from ${THEOREM_NAMES[r.theorem]}: ${r.text}` : '');
+      return {
+        ...base,
+        ...withTheorem(lowerReason),
+        verdict: 'agrees',
+        reason: `the crossing number is ${boundsText(report)}, so it is ${said}.${side('lower', lowerReason)}${side('upper', upperReason)}`,
+      };
+    }
+    const r = exact !== null ? exactReason : claim.high === Infinity ? lowerReason : upperReason;
     return { ...base, ...withTheorem(r), verdict: 'agrees', reason: `the crossing number is ${boundsText(report)}, so it is ${said}${because(r)}` };
   }
   return {

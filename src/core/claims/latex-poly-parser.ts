@@ -489,8 +489,14 @@ class PolynomialParser {
       this.next();
       return { value: inner.value, start: t.start, end: close.end };
     }
-    if (t.kind === 'letter') fail(`the exponent contains \`${t.text}\`: exponents must be numbers such as \`-3\` or \`5/2\``, t);
-    if (t.kind === 'end') fail('the exponent is incomplete', t);
+    if (t.kind === 'letter') {
+      if (this.readingNumber) {
+        const word = /^[a-zA-Z]+/.exec(this.text.slice(t.start))![0];
+        fail(`\`${word}\` is not a number: write ${this.what()} in digits, e.g. \`3\``, { start: t.start, end: t.start + word.length });
+      }
+      fail(`the exponent contains \`${t.text}\`: exponents must be numbers such as \`-3\` or \`5/2\``, t);
+    }
+    if (t.kind === 'end') fail(this.readingNumber ? `the value ends too early: ${this.what()} is incomplete here` : 'the exponent is incomplete', t);
     this.unexpected(t);
   }
 
