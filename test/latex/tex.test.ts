@@ -66,6 +66,17 @@ function expectEveryValueIn(pdfText: string, path: string): void {
   }
 }
 
+/**
+ * The bookmark titles hyperref wrote to its .out file: PDF strings in UTF-16BE
+ * after a byte-order mark, every byte an octal escape or a printable character.
+ */
+function bookmarks(outFile: string): string[] {
+  return [...readFileSync(outFile, 'latin1').matchAll(/^\\BOOKMARK \[\d+\]\[[^\]]*\]\{[^}]*\}\{(.*)\}\{[^}]*\}%/gm)].map((m) => {
+    const bytes = [...m[1]!.matchAll(/\\([0-7]{3})|\\(.)|(.)/g)].map((b) => (b[1] ? parseInt(b[1], 8) : (b[2] ?? b[3])!.charCodeAt(0)));
+    return Buffer.from(bytes.slice(2)).swap16().toString('utf16le');
+  });
+}
+
 async function build(dir: string, output?: string): Promise<void> {
   const result = await latexFormat.build(join(dir, 'rope-atlas.tex'), output ? { output: join(dir, output) } : {});
   expect(result.failed).toBe(false);
@@ -232,6 +243,70 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
     // The positive trefoil (from memory): V = t + t^3 - t^4, span 3, writhe 3.
     expect(squeeze(run.text)).toContain(asPdfText('A t + t^3 - t^4 B 3 C x = 3 D'));
+  });
+
+  it('a fill-in LaTeX typesets twice (a measuring pass of align, gather, multline; a long caption) warns once', () => {
+    // amsmath measures align, gather and multline before typesetting them, and \@makecaption sets a caption
+    // once to measure it and again as a paragraph when it is wider than a line (LaTeX source, common practice).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{amsmath}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{figure}[h]\\centering x \\caption{A caption long enough to run over the width of one line of text, with \\skeinwrithe{a} in it and more words.}\\end{figure}',
+      '\\begin{align} x &= \\skeinspan{a} \\\\ y &= \\skeinjones{a} \\end{align}',
+      '\\begin{gather*} x = \\skeinbracket{a} \\end{gather*}',
+      '\\begin{multline} x = \\skeinvalue{a}{crossings} \\end{multline}',
+      'Twice on one line: \\skeinjones{b} and \\skeinjones{b}.',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('twice', true);
+    writeFileSync(join(dir, 'twice.tex'), paper);
+    const doc = readLatexManuscript(join(dir, 'twice.tex'), { read: (p) => readFileSync(p, 'utf8') });
+    const run = pdflatex(dir, 'twice.tex');
+    expect(run.ok).toBe(true);
+    const warned = packageWarnings(run.log, 'skeinproof').filter((w) => w.startsWith('Value'));
+    expect(warned.map((w) => w.replace(/^Value `([a-z-]+)' of (`[^']*') is not computed yet on input line (\d+)\.$/, '$1 of $2 line $3'))).toEqual([
+      'writhe of `a\' line 5',
+      'span of `a\' line 6',
+      'jones of `a\' line 6',
+      'bracket of `a\' line 7',
+      'crossings of `a\' line 8',
+      'jones of `b\' line 9',
+    ]);
+    // The reader sees each written fill-in once, the two on line 9 too.
+    expect(doc.fills).toHaveLength(7);
+  });
+
+  it('fill-ins in section titles under hyperref: no error before or after the build, the value in the bookmark', async () => {
+    // hyperref expands section titles into PDF bookmark strings, where a robust command is not allowed (hyperref manual).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\usepackage{hyperref}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\section{The polynomial \\skeinjones{tref} of writhe \\skeinvalue{ tref }{writhe}}',
+      'Text.',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('hyperref', true);
+    writeFileSync(join(dir, 'titles.tex'), paper);
+    const before = pdflatex(dir, 'titles.tex');
+    expect(before.ok).toBe(true);
+    expect(packageWarnings(before.log, 'hyperref')).toEqual([]);
+    expect(packageWarnings(before.log, 'skeinproof').filter((w) => w.startsWith('Value'))).toHaveLength(2);
+    expect(bookmarks(join(dir, 'titles.out'))).toEqual(['The polynomial ?? of writhe ??']);
+    const result = await latexFormat.build(join(dir, 'titles.tex'), {});
+    expect(result.failed).toBe(false);
+    for (const o of result.outputs) writeFileSync(o.path, o.content);
+    pdflatex(dir, 'titles.tex'); // the bookmarks changed, so hyperref asks for one more pass
+    const after = pdflatex(dir, 'titles.tex');
+    expect(after.ok).toBe(true);
+    expect(unwrapLog(after.log)).not.toMatch(/Warning|^!/m);
+    // The positive trefoil (from memory): V = t + t^3 - t^4, writhe 3.
+    expect(squeeze(after.text)).toContain(asPdfText('The polynomial t + t^3 - t^4 of writhe 3'));
+    expect(bookmarks(join(dir, 'titles.out'))).toEqual(['The polynomial t + t^3 - t^4 of writhe 3']);
   });
 
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
