@@ -306,9 +306,12 @@ class Extractor {
       else this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\`: unknown notation \`${declared}\`: write one of ${NOTATION_NAMES.join(', ')}`, start, lineEnd(this.text, start));
     }
     for (const table of tables) this.table(table, notation);
-    const first = offsets(node.children[0]!)[0];
-    const last = offsets(node.children[node.children.length - 1]!)[1];
-    this.edits.push({ start, end: first, replacement: { text: '' } }, { start: last, end, replacement: { text: '' } });
+    // Each fence line is emptied, not deleted: the blank line keeps the table apart from
+    // the text around it (a line right after it would otherwise become a table row), and
+    // the built file keeps the manuscript's line numbers.
+    this.edits.push({ start, end: lineEnd(this.text, start), replacement: { text: '' } });
+    const closing = /:{3,}[ \t]*$/.exec(this.text.slice(offsets(node.children[node.children.length - 1]!)[1], end));
+    if (closing) this.edits.push({ start: end - closing[0].length, end, replacement: { text: '' } });
     this.actions.set(node, { kind: 'unwrap' });
   }
 

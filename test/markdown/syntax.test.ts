@@ -4,6 +4,11 @@
  * V = t + t³ − t⁴ and ⟨D⟩ = A⁻⁷ − A⁻³ − A⁵; the figure-eight (σ₁σ₂⁻¹)²
  * has V = t⁻² − t⁻¹ + 1 − t + t² (from memory, standard tables).
  */
+import type { Table } from 'mdast';
+import remarkGfm from 'remark-gfm';
+import remarkParse from 'remark-parse';
+import { unified } from 'unified';
+import { visit } from 'unist-util-visit';
 import { describe, expect, it } from 'vitest';
 import { placed, positionOf, processMarkdown } from './helpers.ts';
 
@@ -126,13 +131,28 @@ describe('prose claims', () => {
 describe('tables', () => {
   const table = (rows: string) => `${TREFOIL}${FIGURE_EIGHT}\n:::invariants{notation=braid}\n| diagram | jones | crossing number | remarks |\n|---|---|---|---|\n${rows}:::\n`;
 
-  it('fills empty cells, checks filled ones and removes the fences', async () => {
+  it('fills empty cells, checks filled ones and empties the fence lines', async () => {
     const text = table('| tref | | $3$ | ok |\n| fig8 | $t^{-2}-t^{-1}+1-t+t^2$ | | |\n');
     const r = await processMarkdown(text);
     expect(r.diagnostics).toEqual([]);
     expect(r.built).toBe(
-      `${TREFOIL}${FIGURE_EIGHT}\n| diagram | jones | crossing number | remarks |\n|---|---|---|---|\n| tref | $t + t^3 - t^4$ | $3$ | ok |\n| fig8 | $t^{-2}-t^{-1}+1-t+t^2$ | $4$ | |\n`,
+      `${TREFOIL}${FIGURE_EIGHT}\n\n| diagram | jones | crossing number | remarks |\n|---|---|---|---|\n| tref | $t + t^3 - t^4$ | $3$ | ok |\n| fig8 | $t^{-2}-t^{-1}+1-t+t^2$ | $4$ | |\n\n`,
     );
+  });
+
+  it('keeps a line written right after the closing fence out of the table (GFM: a blank line ends a table)', async () => {
+    for (const [prefix, nl] of [['', '\n'], ['> ', '\r\n']] as const) {
+      const lines = [':::invariants{notation=braid}', '| diagram | writhe |', '|---|---|', '| `1 1 1` | |', ':::', 'Text after the table.'];
+      const text = `Text before.${nl}` + lines.map((l) => prefix + l + nl).join('');
+      const r = await processMarkdown(text);
+      expect(r.diagnostics).toEqual([]);
+      expect(r.built).toBe(`Text before.${nl}${prefix}${nl}${prefix}| diagram | writhe |${nl}${prefix}|---|---|${nl}${prefix}| \`1 1 1\` | $3$ |${nl}${prefix}${nl}${prefix}Text after the table.${nl}`);
+      // The built text, read again, has a table of one body row: the text after the fence is not a second one.
+      const rows: number[] = [];
+      visit(unified().use(remarkParse).use(remarkGfm).parse(r.built), 'table', (t: Table) => void rows.push(t.children.length - 1));
+      expect(rows).toEqual([1]);
+      expect(r.built.split(nl).length).toBe(text.split(nl).length);
+    }
   });
 
   it('points a wrong cell at the cell and names row and column', async () => {
