@@ -94,8 +94,23 @@ describe('skeinproof compute (plain)', () => {
   it('rejects a malformed or misplaced --strands and an unknown option with exit 2', () => {
     expect(skeinproof('compute', '--notation', 'braid', '--strands', '0', '1 1').status).toBe(2);
     expect(skeinproof('compute', '--strands', '3', '(1,5,2,4) (3,1,4,6) (5,3,6,2)').stderr).toContain('braid words only');
+    expect(skeinproof('compute', '--notation', 'braid').stderr).toContain('no diagram code given');
     const unknown = skeinproof('compute', '--jsno', '1 1');
     expect(unknown.status).toBe(2);
     expect(unknown.stderr).toContain('--jsno');
+  });
+
+  it('takes every argument after "--" as a code, even one that looks like an option (common practice for command lines)', () => {
+    // Negative Hopf link σ₁⁻² (from memory: V = −t^(−5/2) − t^(−1/2)); before the fix a code after "--" was dropped silently.
+    const { status, stdout, stderr } = skeinproof('compute', '--json', '--notation', 'braid', '1 1', '--', '-1 -1', '--json');
+    expect(status).toBe(2);
+    const lines = jsonLines(stdout);
+    expect(lines).toHaveLength(3);
+    expect(lines[1]).toMatchObject({ code: '-1 -1', jones: { terms: [[-2.5, '-1'], [-0.5, '-1']] } });
+    expect(lines[2]).toMatchObject({ code: '--json', error: { ruleId: 'code-invalid' } });
+    expect(stderr).toContain('code #3');
+    const alone = skeinproof('compute', '-n', 'braid', '--', '-1 -1');
+    expect(alone.status).toBe(0);
+    expect(alone.stdout).toContain('2 crossings, 2 components');
   });
 });

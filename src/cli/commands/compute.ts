@@ -145,10 +145,15 @@ function judgeCodeClaims(position: number, report: DiagramReport, others: Readon
 const OPTION_LIKE = /^--?[A-Za-z]/;
 
 function readArgs(args: Record<string, unknown>): ComputeArgs | string {
-  const codes = ((args['codes'] as unknown[] | undefined) ?? []).map(String);
-  const unknownOption = codes.find((code) => OPTION_LIKE.test(code));
+  const beforeSeparator = ((args['codes'] as unknown[] | undefined) ?? []).map(String);
+  const unknownOption = beforeSeparator.find((code) => OPTION_LIKE.test(code));
   if (unknownOption !== undefined) {
-    return `unknown option ${unknownOption}; the options of compute are --notation, --strands, --json, --claim, --convention and --strict.`;
+    return `unknown option ${unknownOption}; the options of compute are --notation, --strands, --json, --claim, --convention and --strict (put codes that start with "-" after "--").`;
+  }
+  // Everything after `--` is a code, whatever it looks like (common practice for command lines).
+  const codes = [...beforeSeparator, ...((args['--'] as unknown[] | undefined) ?? []).map(String)];
+  if (codes.length === 0) {
+    return 'no diagram code given: write one code per argument, e.g. skeinproof compute "(4,2,5,1) (2,6,3,5) (6,4,1,3)".';
   }
   const strands = args['strands'] as number | undefined;
   if (strands !== undefined && !(Number.isInteger(strands) && strands >= 1)) {
@@ -186,12 +191,13 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
 }
 
 export const computeCommand: CliCommand = {
-  command: 'compute <codes..>',
+  // `[codes..]`, not `<codes..>`: codes after `--` are not positionals to yargs, and readArgs asks for at least one.
+  command: 'compute [codes..]',
   describe: 'Compute the invariants and diagram properties of each diagram code given',
   builder: (y: Argv) =>
     y
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
-      .parserConfiguration({ 'unknown-options-as-args': true })
+      .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
       .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, describe: 'How the codes are written' })
       .option('strands', { type: 'number', describe: 'Braid words: the number of strands, when more than the largest generator + 1' })
