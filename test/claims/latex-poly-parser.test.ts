@@ -49,6 +49,14 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     ['t + t^3 - t^4.', poly([1, 1], [3, 1], [4, -1])], // sentence punctuation closing the formula
     ['V(t) = t + t^3 - t^4', poly([1, 1], [3, 1], [4, -1])], // a left-hand side is skipped
     ['V_{K}(t) = \\Delta = -t^{-1}', poly([-1, -1])],
+    // Values copied with their math delimiters, e.g. onto a command line.
+    ['$t + t^3 - t^4$', poly([1, 1], [3, 1], [4, -1])],
+    ['  $$-t^{1/2} - t^{5/2}$$ ', poly([0.5, -1], [2.5, -1])],
+    ['\\(V(t) = t\\)', poly([1, 1])],
+    // Unicode superscripts, as in prose: V(positive trefoil) = t + t³ − t⁴, from memory.
+    ['t + t³ − t⁴', poly([1, 1], [3, 1], [4, -1])],
+    ['−t⁻⁴ + t⁻³ + t⁻¹', poly([-4, -1], [-3, 1], [-1, 1])],
+    ['t¹²', poly([12, 1])],
   ];
   for (const [text, expected] of cases) {
     it(`reads ${text}`, () => {
@@ -101,6 +109,10 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
     ['a full stop inside the value', 't. + 1', 1, 2, /unexpected character `.`/],
     ['nothing after the equals sign', 'V(t) = ', 5, 6, /nothing follows `=`/],
     ['an error after a left-hand side, located in the whole text', 'V(t) = t + x', 11, 12, /unknown variable `x`/],
+    ['a superscript sign without digits', 't⁻ + 1', 1, 2, /superscript `⁻` is not a whole exponent/],
+    ['a superscript after an exponent', 't^2²', 3, 4, /double superscript/],
+    ['an unmatched dollar', '$t + 1', 0, 1, /unexpected character `\$`/],
+    ['two formulas', '$t$ + $t$', 0, 1, /unexpected character `\$`/],
   ];
   for (const [name, text, start, end, message] of cases) {
     it(`refuses ${name}: ${text}`, () => {
@@ -122,7 +134,7 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
 });
 
 describe('robustness (fast-check): any text is either read or refused with an InputError inside the text', () => {
-  const pieces = ['t', 'A', 'q', 'x', '1', '2', '9', '0', '+', '-', '^', '{', '}', '(', ')', '/', '\\frac', '\\sqrt', '\\cdot', '\\left(', '\\right)', '\\,', ' ', '.', '5', '_', '[', ']', '\\alpha', '{}', '^{64}', '^{-1}', '^{1/2}'];
+  const pieces = ['t', 'A', 'q', 'x', '$', '²', '⁻', '¹', '1', '2', '9', '0', '+', '-', '^', '{', '}', '(', ')', '/', '\\frac', '\\sqrt', '\\cdot', '\\left(', '\\right)', '\\,', ' ', '.', '5', '_', '[', ']', '\\alpha', '{}', '^{64}', '^{-1}', '^{1/2}'];
   it('never throws anything else, and spans stay within the text', () => {
     fc.assert(
       fc.property(fc.array(fc.constantFrom(...pieces), { maxLength: 24 }), (parts) => {

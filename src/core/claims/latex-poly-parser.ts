@@ -59,13 +59,52 @@ function fail(message: string, span: TextSpan): never {
   throw new InputError(UNREADABLE, message, { start: span.start, end: span.end });
 }
 
+/** Unicode superscripts as typed in prose (`t³`, `t⁻¹`): read as a braced exponent. */
+const SUPERSCRIPTS: Readonly<Record<string, string>> = {
+  '⁰': '0', '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁵': '5', '⁶': '6', '⁷': '7', '⁸': '8', '⁹': '9', '⁻': '-', '⁺': '+',
+};
+
+/**
+ * Offsets of math delimiters around the whole value (`$…$`, `$$…$$`, `\(…\)`,
+ * `\[…\]`), as a value copied from a manuscript or a command line may carry them.
+ */
+function outerDelimiters(text: string): Set<number> {
+  const start = text.length - text.trimStart().length;
+  const end = text.trimEnd().length;
+  const inner = text.slice(start, end);
+  for (const [open, close] of [['$$', '$$'], ['$', '$'], ['\\(', '\\)'], ['\\[', '\\]']] as const) {
+    if (inner.length >= open.length + close.length && inner.startsWith(open) && inner.endsWith(close)) {
+      const body = inner.slice(open.length, inner.length - close.length);
+      if (open === '$' && body.includes('$')) continue;
+      const skip = new Set<number>();
+      for (let k = 0; k < open.length; k++) skip.add(start + k);
+      for (let k = 1; k <= close.length; k++) skip.add(end - k);
+      return skip;
+    }
+  }
+  return new Set();
+}
+
 function tokenize(text: string): Token[] {
   const tokens: Token[] = [];
+  const delimiters = outerDelimiters(text);
   let i = 0;
   while (i < text.length) {
     const ch = text[i]!;
-    if (/\s/.test(ch) || ch === '~') {
+    if (/\s/.test(ch) || ch === '~' || delimiters.has(i)) {
       i++;
+    } else if (SUPERSCRIPTS[ch] !== undefined) {
+      let j = i;
+      while (j < text.length && SUPERSCRIPTS[text[j]!] !== undefined) j++;
+      const exponent = [...text.slice(i, j)].map((c) => SUPERSCRIPTS[c]!).join('');
+      const sign = /^[+-]/.test(exponent) ? 1 : 0;
+      if (!/^[+-]?[0-9]+$/.test(exponent))
+        fail(`the superscript \`${text.slice(i, j)}\` is not a whole exponent: write one sign at most and digits, e.g. \`t⁻¹\` or \`t^{-1}\``, { start: i, end: j });
+      const whole = { start: i, end: j };
+      tokens.push({ kind: 'op', text: '^', ...whole }, { kind: 'op', text: '{', ...whole });
+      if (sign) tokens.push({ kind: 'op', text: exponent[0]!, start: i, end: i + 1 });
+      tokens.push({ kind: 'number', text: exponent.slice(sign), start: i + sign, end: j }, { kind: 'op', text: '}', ...whole });
+      i = j;
     } else if (/[0-9]/.test(ch)) {
       let j = i;
       while (j < text.length && /[0-9]/.test(text[j]!)) j++;
@@ -226,7 +265,7 @@ class PolynomialParser {
     if (this.isOp(t, ')') || this.isOp(t, ']')) fail(`unbalanced brackets: this \`${t.text}\` closes nothing; remove it or add the opening bracket`, t);
     if (t.kind === 'number')
       fail(`the number \`${t.text}\` follows a factor: write coefficients first (e.g. \`3t^2\`), or put a multi-digit exponent in braces (\`t^{23}\`)`, t);
-    const shown = t.kind === 'command' ? `\\${t.text}` : t.text;
+    const shown = t.kind === 'command' ? `\\${t.text}` : this.text.slice(t.start, t.end) || t.text;
     fail(`unexpected \`${shown}\` here: ${this.what()} cannot continue this way`, t);
   }
 
