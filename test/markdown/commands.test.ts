@@ -43,6 +43,29 @@ describe('check', () => {
     expect(result!.locations[0]!.physicalLocation.region.startLine).toBe(5);
   });
 
+  it('reports a directory, a missing file without extension and an unknown extension, and still checks the other files', () => {
+    const doc = join(work, 'f.md');
+    writeFileSync(doc, TREFOIL);
+    const txt = join(work, 'f.txt');
+    writeFileSync(txt, TREFOIL);
+    const missing = join(work, 'no-such-notes');
+    const r = skeinproof(['check', '--format', 'json', work, doc, missing, txt]);
+    expect(r.status).toBe(2);
+    const report = JSON.parse(r.stdout) as { diagnostics: { ruleId: string; message: string; location: { file: string } }[] };
+    expect(report.diagnostics.map((d) => [d.ruleId, d.location.file])).toEqual([
+      ['file-unreadable', work],
+      ['claim-contradicted', doc],
+      ['file-unreadable', missing],
+      ['file-unreadable', txt],
+    ]);
+    expect(report.diagnostics[0]!.message).toContain('is a directory');
+    expect(report.diagnostics[2]!.message).toContain('no such file');
+    expect(report.diagnostics[3]!.message).toContain('the known extensions are .md');
+    const build = skeinproof(['build', work]);
+    expect(build.status).toBe(2);
+    expect(build.stderr).toContain('is a directory');
+  });
+
   it('refuses an unknown extension and a bad convention as usage errors', () => {
     const txt = join(work, 'c.txt');
     writeFileSync(txt, TREFOIL);

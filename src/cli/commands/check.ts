@@ -5,7 +5,8 @@
  * Also holds what `build` and `watch` share with it: the manuscript options,
  * reading them from the command line, and reporting diagnostics.
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Argv } from 'yargs';
 import type { Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
@@ -50,12 +51,19 @@ export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArg
   };
 }
 
-/** The format that reads `path`, or a usage message naming the extensions known. */
+/** The format that reads `path`, or a message saying why no format can (a directory, a missing file, an unknown extension). */
 export function formatOf(path: string): ManuscriptFormat | string {
-  return (
-    formatFor(path) ??
-    `cannot tell what kind of manuscript ${path} is from its extension; the known extensions are ${knownExtensions().join(', ')}`
-  );
+  const kind = statSync(path, { throwIfNoEntry: false });
+  if (kind?.isDirectory()) return `${path} is a directory, not a manuscript: name the files in it, e.g. ${join(path, '*.md')}`;
+  const format = formatFor(path);
+  if (format) return format;
+  if (!kind) return `cannot read ${path}: no such file; check the path`;
+  return `cannot tell what kind of manuscript ${path} is from its extension; the known extensions are ${knownExtensions().join(', ')}`;
+}
+
+/** A FILE argument no format can read, as a problem of that file, so the other files are still checked. */
+function unusableFile(path: string, reason: string): Diagnostic {
+  return { severity: 'error', ruleId: 'file-unreadable', message: reason, location: { file: path, start: { line: 1, column: 1 } } };
 }
 
 /** True when the result fails the check (the format decides, knowing the document's own strictness). */
@@ -98,14 +106,17 @@ export const checkCommand: CliCommand = {
     const args = readManuscriptArgs(raw);
     if (typeof args === 'string') return usage(args);
     const files = ((raw['files'] as unknown[] | undefined) ?? []).map(String);
-    const formats = files.map(formatOf);
-    const unknown = formats.find((f): f is string => typeof f === 'string');
-    if (unknown !== undefined) return usage(unknown);
     const diagnostics: Diagnostic[] = [];
     const read = new Set(files);
     let failed = false;
-    for (const [i, path] of files.entries()) {
-      const result = await (formats[i] as ManuscriptFormat).check(path, args.options);
+    for (const path of files) {
+      const format = formatOf(path);
+      if (typeof format === 'string') {
+        diagnostics.push(unusableFile(path, format));
+        failed = true;
+        continue;
+      }
+      const result = await format.check(path, args.options);
       diagnostics.push(...result.diagnostics);
       for (const input of result.inputs) read.add(input); // included files, so their lines can be quoted
       failed ||= resultFailed(result, args.options.strict === true);
