@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
-import { expectCodeError, parseError } from './helpers.ts';
+import { expectCodeError, jonesByStateSum, parseError, poly } from './helpers.ts';
 
 describe('PD code errors', () => {
   it('refuses an empty code, spanning the whole text', () => {
@@ -146,7 +146,10 @@ describe('DT code errors', () => {
       ['4 x 2', 'x', ['Entry 2 "x" is not a number']],
       ['4 0 2', '0', ['Entry 2 is 0', 'nonzero even']],
       ['4 5 2', '5', ['Entry 2 is 5, which is odd']],
-      ['4 -8 2', '-8', ['Entry 2 is -8, out of range', '2 … 6']],
+      ['4 -8 2', '-8', ['Entry 2 is -8, out of range', '2, 4, …, 6']],
+      // Beyond 2^53: before, this was called "not a number".
+      ['4 200000000000000000000 2', '200000000000000000000', ['Entry 2 "200000000000000000000" is out of range', '2, 4, …, 6']],
+      ['0', '0', ['Entry 1 is 0', 'here 2, with signs']],
       ['4 -4 2', '-4', ['Entry 2 repeats the label 4 already used by entry 1']],
     ];
     for (const [text, spanned, phrases] of cases) expectCodeError(parseError(text, 'dt'), text, spanned, phrases);
@@ -168,6 +171,33 @@ describe('DT code errors', () => {
   it('refuses more entries than the realisation supports, as a located error', () => {
     const text = Array.from({ length: 2001 }, (_, k) => 2 * k + 2).join(' ');
     expectCodeError(parseError(text, 'dt'), text, text, ['2001 entries', 'at most 2000']);
+  });
+});
+
+describe('numbers too large to be labels', () => {
+  // Before, a whole number beyond 2^53 was reported as "not an edge label / not a braid generator", which misleads.
+  it('says a PD label is too large rather than not a number', () => {
+    const text = '(100000000000000000004,2,5,1) (2,6,3,5) (6,4,1,3)';
+    expectCodeError(parseError(text, 'pd'), text, '100000000000000000004', ['Tuple 1, entry 1', 'too large']);
+  });
+  it('says a braid generator index is too large rather than not a generator', () => {
+    const text = '1 99999999999999999999';
+    expectCodeError(parseError(text, 'braid'), text, '99999999999999999999', ['Token 2', 'too large', 'at most 9999']);
+  });
+});
+
+describe('the Unicode minus sign U+2212 of typeset text', () => {
+  // Decision: "−" (as copied from a typeset paper) reads as "-" in every signed number and Gauss sign.
+  it('reads "1 −2 1 −2" as the figure-eight braid, and "−4 −6 −2" / "o1− u2− …" as the left-handed trefoil (values from memory)', () => {
+    expect(parseDiagramCode('1 −2 1 −2', 'braid').crossings.map((c) => c.sign)).toEqual([1, -1, 1, -1]);
+    const figureEight = jonesByStateSum(parseDiagramCode('1 −2 1 −2', 'braid'));
+    expect(figureEight.equals(poly([[-2, 1], [-1, -1], [0, 1], [1, -1], [2, 1]]))).toBe(true);
+    const leftTrefoil = poly([[-4, -1], [-3, 1], [-1, 1]]);
+    expect(jonesByStateSum(parseDiagramCode('−4 −6 −2', 'dt')).equals(leftTrefoil)).toBe(true);
+    expect(jonesByStateSum(parseDiagramCode('o1− u2− o3− u1− o2− u3−', 'gauss')).equals(leftTrefoil)).toBe(true);
+  });
+  it('still refuses other dashes, naming the token', () => {
+    expectCodeError(parseError('1 –2', 'braid'), '1 –2', '–2', ['Token 2', 'not a braid generator']);
   });
 });
 

@@ -5,7 +5,7 @@
  */
 import { closeBraid } from '../diagram/braid-closure.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
-import { codeError, integerValue, quote, splitTokens, wholeSpan, type Token } from './common.ts';
+import { codeError, integerValue, isOversizedInteger, quote, splitTokens, wholeSpan, type Token } from './common.ts';
 
 /** Larger indices are refused: they would only add thousands of untouched strands. */
 export const MAX_BRAID_STRANDS = 10_000;
@@ -19,6 +19,9 @@ export function parseBraidWord(text: string, options: { strands?: number } = {})
   let widest: { token: Token; index: number; position: number } | undefined;
   tokens.forEach((token, k) => {
     const g = integerValue(token.text);
+    if (g === undefined && isOversizedInteger(token.text)) {
+      throw codeError(`Token ${k + 1} ${quote(token.text)}: the generator index is too large (at most ${MAX_BRAID_STRANDS - 1} is supported).`, token);
+    }
     if (g === undefined) {
       throw codeError(
         `Token ${k + 1} ${quote(token.text)} is not a braid generator: write a signed index such as 2 (σ₂) or -2 (its inverse), separated by spaces or commas.`,

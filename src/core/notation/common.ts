@@ -53,13 +53,22 @@ export function quote(text: string): string {
   return `"${shown}"`;
 }
 
-const INTEGER = /^[+-]?\d+$/;
+/**
+ * A signed whole number. The minus sign U+2212 counts as "-": typeset text,
+ * word processors and copied PDFs write it instead, so "1 −2 1 −2" reads as typed.
+ */
+const INTEGER = /^[+\-\u2212]?\d+$/;
 
 /** The integer a token spells, or undefined when it is not a (safe) integer. */
 export function integerValue(text: string): number | undefined {
   if (!INTEGER.test(text)) return undefined;
-  const value = Number(text);
+  const value = Number(text.replace('\u2212', '-'));
   return Number.isSafeInteger(value) ? value : undefined;
+}
+
+/** True when the token spells a whole number too large for `integerValue`, so a message can say "too large" rather than "not a number". */
+export function isOversizedInteger(text: string): boolean {
+  return INTEGER.test(text) && integerValue(text) === undefined;
 }
 
 /** "1, 2 and 5" — for lists of tuple or crossing numbers in messages (long lists are cut). */

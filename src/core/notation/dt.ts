@@ -25,7 +25,7 @@
  */
 import { assembleDiagram, type RawCrossing } from '../diagram/assemble.ts';
 import type { LinkDiagram, Sign } from '../diagram/model.ts';
-import { codeError, integerValue, quote, splitTokens, wholeSpan, type Token } from './common.ts';
+import { codeError, integerValue, isOversizedInteger, quote, splitTokens, wholeSpan, type Token } from './common.ts';
 import { firstNonPlanarPiece } from './planarity.ts';
 
 /** The interlacement test is cubic (over 32-bit words): 1500 entries take about half a second. */
@@ -65,23 +65,33 @@ export function parseDtCode(text: string): LinkDiagram {
   return diagram;
 }
 
+/** "2", "2 and 4", "2, 4, …, 2n": the labels a code of n entries uses. */
+function evenLabels(n: number): string {
+  if (n === 1) return '2';
+  if (n === 2) return '2 and 4';
+  return `2, 4, …, ${2 * n}`;
+}
+
 function readEntries(tokens: readonly Token[]): number[] {
   const n = tokens.length;
   const seen = new Map<number, number>();
   return tokens.map((token, k) => {
     const value = integerValue(token.text);
     const name = `Entry ${k + 1}`;
+    if (value === undefined && isOversizedInteger(token.text)) {
+      throw codeError(`${name} ${quote(token.text)} is out of range: a code with ${n} entr${n === 1 ? 'y' : 'ies'} uses the even labels ${evenLabels(n)} (with signs), each once.`, token);
+    }
     if (value === undefined) throw codeError(`${name} ${quote(token.text)} is not a number: a DT code lists signed even numbers, ${EXAMPLE}.`, token);
-    if (value === 0) throw codeError(`${name} is 0: DT entries are nonzero even numbers (the labels 2, 4, …, ${2 * n}, with a sign).`, token);
+    if (value === 0) throw codeError(`${name} is 0: DT entries are nonzero even numbers (here ${evenLabels(n)}, with signs).`, token);
     if (value % 2 !== 0) {
       throw codeError(`${name} is ${value}, which is odd: entry k is the even label that shares a crossing with the odd label 2k−1, so every entry is even.`, token);
     }
     if (Math.abs(value) > 2 * n) {
-      throw codeError(`${name} is ${value}, out of range: a code with ${n} entr${n === 1 ? 'y' : 'ies'} uses the even labels 2 … ${2 * n} (with signs), each once.`, token);
+      throw codeError(`${name} is ${value}, out of range: a code with ${n} entr${n === 1 ? 'y' : 'ies'} uses the even labels ${evenLabels(n)} (with signs), each once.`, token);
     }
     const earlier = seen.get(Math.abs(value));
     if (earlier !== undefined) {
-      throw codeError(`${name} repeats the label ${Math.abs(value)} already used by entry ${earlier + 1}: each even label 2 … ${2 * n} belongs to exactly one crossing.`, token);
+      throw codeError(`${name} repeats the label ${Math.abs(value)} already used by entry ${earlier + 1}: each of the even labels ${evenLabels(n)} belongs to exactly one crossing.`, token);
     }
     seen.set(Math.abs(value), k);
     return value;

@@ -20,7 +20,8 @@ interface Visit {
   readonly position: number;
 }
 
-const VISIT = /([oOuU])(\d+)([+-]?)/y;
+// The sign may be the Unicode minus U+2212 of typeset text, read as "-" (like integers in common.ts).
+const VISIT = /([oOuU])(\d+)([+\-\u2212]?)/y;
 const EXAMPLE = 'e.g. o1+ u2+ o3+ u1+ o2+ u3+';
 
 export function parseGaussCode(text: string): LinkDiagram {
@@ -105,7 +106,7 @@ function readComponents(text: string): Visit[][] {
     target.push({
       crossing,
       over: m[1] === 'o' || m[1] === 'O',
-      sign: m[3] === '+' ? 1 : m[3] === '-' ? -1 : undefined,
+      sign: m[3] === '+' ? 1 : m[3] ? -1 : undefined,
       span,
       component,
       position: target.length,

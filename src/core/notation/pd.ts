@@ -8,7 +8,7 @@
 import { assembleDiagram, type RawCrossing } from '../diagram/assemble.ts';
 import type { LinkDiagram, Sign } from '../diagram/model.ts';
 import type { TextSpan } from '../diagnostics/diagnostic.ts';
-import { codeError, plural, integerValue, isSeparator, listNumbers, quote, spanBetween, wholeSpan, type Token } from './common.ts';
+import { codeError, plural, integerValue, isOversizedInteger, isSeparator, listNumbers, quote, spanBetween, wholeSpan, type Token } from './common.ts';
 import { firstNonPlanarPiece } from './planarity.ts';
 
 interface PdTuple {
@@ -91,6 +91,9 @@ function readTuples(text: string): PdTuple[] {
     const span = { start: i, end: j + 1 };
     const labels = tokens.map((token, k) => {
       const value = integerValue(token.text);
+      if (value === undefined && isOversizedInteger(token.text)) {
+        throw codeError(`Tuple ${number}, entry ${k + 1}: the label ${quote(token.text)} is too large; labels must lie between −(2^53 − 1) and 2^53 − 1. Renumber the edges from 1.`, token);
+      }
       if (value === undefined) {
         throw codeError(`Tuple ${number}, entry ${k + 1}: ${quote(token.text)} is not an edge label; labels are whole numbers, ${EXAMPLE}.`, token);
       }
