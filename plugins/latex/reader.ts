@@ -7,7 +7,7 @@
  * File access goes through `LatexFileSystem`, so the reader itself never
  * touches the disk and tests can hand it files from memory.
  */
-import { dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
+import { basename, dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import type { Notation } from '../../src/core/diagram/model.ts';
 import type { Convention } from '../../src/core/convention/convention.ts';
 import { readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
@@ -92,7 +92,8 @@ class ManuscriptReader {
   private readonly diagnostics: Diagnostic[] = [];
   private readonly splices = new Map<SourceFile, Splice[]>();
   private convention: Partial<Convention> = {};
-  private conventionAt: SourceFile | undefined;
+  /** Where the convention was declared: the file and the command (\skeinconvention or the package options). */
+  private conventionAt: { readonly file: SourceFile; readonly command: string } | undefined;
   private tables = 0;
   /** Set at \begin{document}: the preamble is over. */
   private inBody = false;
@@ -226,28 +227,33 @@ class ManuscriptReader {
 
   private conventionSettings(file: SourceFile, item: Extract<ScanItem, { kind: 'convention' }>, splices: Splice[]): void {
     splices.push({ kind: 'text', span: item.span, text: '' });
+    this.declareConvention(file, item.settings, item.span, '\\skeinconvention');
+  }
+
+  /** The convention from \skeinconvention{…} or \usepackage[…]{skeinproof}: the same settings, declared once in the preamble. */
+  private declareConvention(file: SourceFile, settings: Arg, span: Span, command: string): void {
     if (this.inBody) {
       this.error(
         file,
-        item.span,
+        span,
         'latex-convention-misplaced',
-        '\\skeinconvention comes after \\begin{document}, where LaTeX no longer allows it: move it into the preamble',
+        `${command} comes after \\begin{document}, where LaTeX no longer allows it: move it into the preamble`,
       );
       return;
     }
     if (this.conventionAt) {
       this.error(
         file,
-        item.span,
+        span,
         'latex-convention-twice',
-        `the convention is already declared in ${this.conventionAt.displayPath}: declare it once, with every setting in one \\skeinconvention{…}`,
+        `the convention is already declared by ${this.conventionAt.command} in ${this.conventionAt.file.displayPath}: declare it once, with every setting in one place`,
       );
       return;
     }
-    this.conventionAt = file;
+    this.conventionAt = { file, command };
     const record: Record<string, string> = {};
     const spans: Record<string, SettingSpans> = {};
-    for (const kv of readKeyValues(item.settings)) {
+    for (const kv of readKeyValues(settings)) {
       if (kv.value === undefined) {
         this.error(file, kv.keySpan, 'convention-invalid', `convention setting \`${kv.key}\` has no value: write it as key=value, e.g. jones=q`);
         continue;
@@ -257,38 +263,41 @@ class ManuscriptReader {
     }
     const read = readConventionSettings(record, spans);
     if (read.ok) this.convention = read.settings;
-    else for (const e of read.errors) this.error(file, e.span ?? item.span, e.ruleId, e.message);
+    else for (const e of read.errors) this.error(file, e.span ?? span, e.ruleId, e.message);
   }
 
   private input(file: SourceFile, item: Extract<ScanItem, { kind: 'input' }>, splices: Splice[], open: readonly string[]): void {
     const written = trim(item.path).text;
     const command = `\\${item.command}{${written}}`;
-    // TeX looks for name.tex first; \include always appends .tex.
-    const name = item.command === 'include' || extname(written) === '' ? `${written}.tex` : written;
+    // TeX tries name.tex first and then the name as written, unless it already ends in .tex; \include reads name.tex.
+    const names = written.endsWith('.tex') ? [written] : item.command === 'include' ? [`${written}.tex`] : [`${written}.tex`, written];
     // TeX looks for the file from the directory it runs in (the manuscript's), not from the including file's.
-    const absolute = resolve(dirname(resolve(this.mainPath)), name);
-    const inside = relative(this.root, this.real(absolute));
-    if (isAbsolute(written) || inside.startsWith('..') || isAbsolute(inside)) {
-      this.error(
-        file,
-        item.path,
-        'latex-input-outside',
-        `${command} reads a file outside the paper's directory ${this.root}: skeinproof only follows files inside it; move the file there and name it by a relative path`,
-      );
+    const base = dirname(resolve(this.mainPath));
+    for (const name of names) {
+      const absolute = resolve(base, name);
+      const inside = relative(this.root, this.real(absolute));
+      if (isAbsolute(written) || inside === '..' || inside.startsWith(`..${sep}`) || isAbsolute(inside)) {
+        this.error(
+          file,
+          item.path,
+          'latex-input-outside',
+          `${command} reads a file outside the paper's directory ${this.root}: skeinproof only follows files inside it; move the file there and name it by a relative path`,
+        );
+        return;
+      }
+      if (open.includes(absolute)) {
+        this.error(file, item.path, 'latex-input-cycle', `${command} includes a file that is already being read (${name}): remove the circular \\${item.command}`);
+        return;
+      }
+      const text = this.fs.read(absolute);
+      if (text === undefined) continue;
+      const included = new SourceFile(join(dirname(this.mainPath), name), absolute, text);
+      splices.push({ kind: 'include', span: item.span, file: included, command: item.command });
+      this.visit(included, [...open, absolute]);
       return;
     }
-    if (open.includes(absolute)) {
-      this.error(file, item.path, 'latex-input-cycle', `${command} includes a file that is already being read (${name}): remove the circular \\${item.command}`);
-      return;
-    }
-    const text = this.fs.read(absolute);
-    if (text === undefined) {
-      this.error(file, item.path, 'latex-input-missing', `${command}: there is no file ${name} in ${dirname(absolute)}; correct the name or add the file`);
-      return;
-    }
-    const included = new SourceFile(join(dirname(this.mainPath), name), absolute, text);
-    splices.push({ kind: 'include', span: item.span, file: included, command: item.command });
-    this.visit(included, [...open, absolute]);
+    const tried = names.map((n) => basename(n)).join(' or ');
+    this.error(file, item.path, 'latex-input-missing', `${command}: there is no file ${tried} in ${dirname(resolve(base, names[0]!))}; correct the name or add the file`);
   }
 
   private usePackage(file: SourceFile, item: Extract<ScanItem, { kind: 'package' }>, splices: Splice[]): void {
@@ -298,6 +307,9 @@ class ManuscriptReader {
       .filter((p) => p !== '' && p !== 'skeinproof');
     const kept = others.length === 0 ? '' : `${file.text.slice(item.span.start, item.list.start)}${others.join(',')}}`;
     splices.push({ kind: 'text', span: item.span, text: kept + VALUE_SUPPORT });
+    if (item.options && item.options.text.trim() !== '') {
+      this.declareConvention(file, item.options, item.options, '\\usepackage[…]{skeinproof}');
+    }
   }
 
   private table(file: SourceFile, item: Extract<ScanItem, { kind: 'table' }>, splices: Splice[]): void {

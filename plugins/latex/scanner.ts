@@ -37,7 +37,7 @@ export type ScanItem =
   | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg }
   | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
   | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg }
-  | { readonly kind: 'package'; readonly span: Span; readonly list: Arg }
+  | { readonly kind: 'package'; readonly span: Span; readonly options: Arg | undefined; readonly list: Arg }
   /** `\begin{document}`: the preamble ends here. */
   | { readonly kind: 'document'; readonly span: Span }
   | {
@@ -330,7 +330,7 @@ class Scanner {
     if (!list) return;
     this.pos = list.next;
     if (list.arg.text.split(',').some((p) => p.trim() === 'skeinproof')) {
-      this.items.push({ kind: 'package', span: { start, end: list.next }, list: list.arg });
+      this.items.push({ kind: 'package', span: { start, end: list.next }, options: options?.arg, list: list.arg });
     }
   }
 

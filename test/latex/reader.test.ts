@@ -160,6 +160,35 @@ describe('located errors in the markup', () => {
     expect(doc.diagrams).toEqual([]);
   });
 
+  it('package options declare the convention too, as the Conventions section says; once only', () => {
+    const doc = read({ 'paper.tex': '\\documentclass{article}\n\\usepackage[jones=q, order = descending]{skeinproof}\n\\begin{document}\n' });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.convention).toEqual({ jonesVariable: 'q', termOrder: 'descending' });
+    const bad = read({ 'paper.tex': '\\RequirePackage[jones=w]{skeinproof}\n\\skeinconvention{order=ascending}\n' });
+    expect(places(bad)).toEqual(['convention-invalid@paper.tex:1:23', 'latex-convention-twice@paper.tex:2:1']);
+    expect(bad.diagnostics[1]!.message).toContain('\\usepackage[…]{skeinproof}');
+    const twice = read({ 'paper.tex': '\\skeinconvention{order=ascending}\n\\usepackage[jones=q]{skeinproof}\n' });
+    expect(places(twice)).toEqual(['latex-convention-twice@paper.tex:2:13']);
+    // Empty options declare nothing.
+    expect(places(read({ 'paper.tex': '\\usepackage[]{skeinproof}\n\\skeinconvention{jones=q}\n' }))).toEqual([]);
+  });
+
+  it('finds input files as TeX does: name.tex first, then the name as written; a name starting with two dots stays inside', () => {
+    // pdflatex (TeX Live 2022) run on these files read ch.v2.tex, ..notes.tex, other.v3 and x.tex.
+    const doc = read({
+      'paper.tex': '\\input{ch.v2}\n\\input{..notes}\n\\input{other.v3}\n\\include{x.tex}\n\\input{none.v4}\n',
+      'ch.v2.tex': 'with tex\n',
+      'ch.v2': 'bare\n',
+      '..notes.tex': 'notes\n',
+      'other.v3': 'only bare\n',
+      'x.tex': 'x\n',
+      'x.tex.tex': 'not this\n',
+    });
+    expect(places(doc)).toEqual(['latex-input-missing@paper.tex:5:8']);
+    expect(doc.diagnostics[0]!.message).toBe('\\input{none.v4}: there is no file none.v4.tex or none.v4 in /paper; correct the name or add the file');
+    expect(doc.files.map((f) => f.displayPath)).toEqual(['/paper/paper.tex', '/paper/ch.v2.tex', '/paper/..notes.tex', '/paper/other.v3', '/paper/x.tex']);
+  });
+
   it('a bad convention setting is located at its key or value', () => {
     const doc = read({ 'paper.tex': '\\skeinconvention{jones=w, colour=blue}\n\\skeinconvention{order=ascending}\n' });
     expect(places(doc)).toEqual(['convention-invalid@paper.tex:1:24', 'convention-invalid@paper.tex:1:27', 'latex-convention-twice@paper.tex:2:1']);

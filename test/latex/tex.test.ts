@@ -309,6 +309,34 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(bookmarks(join(dir, 'titles.out'))).toEqual(['The polynomial t + t^3 - t^4 of writhe 3']);
   });
 
+  it('the convention given as package options: LaTeX accepts them, and both builds typeset in it', async () => {
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage[jones=q, order=descending]{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid, jones={q^2 + q^6 - q^8}}\n1 1 1\n\\end{skeincode}',
+      'V is \\skeinjones{tref}.',
+      '\\end{document}',
+    ].join('\n');
+    for (const flat of [false, true]) {
+      const dir = workDir('options', !flat);
+      writeFileSync(join(dir, 'options.tex'), paper);
+      if (!flat) {
+        const before = pdflatex(dir, 'options.tex');
+        expect(before.ok).toBe(true);
+        expect(packageWarnings(before.log, 'skeinproof')[0]).toMatch(/^Value `jones' of `tref' is not computed yet/);
+      }
+      const result = await latexFormat.build(join(dir, 'options.tex'), flat ? { output: join(dir, 'options-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) writeFileSync(o.path, o.content);
+      const run = pdflatex(dir, flat ? 'options-flat.tex' : 'options.tex');
+      expect(run.ok).toBe(true);
+      expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+      // The positive trefoil with t = q^2 (README's convention table): q^2 + q^6 - q^8, here in descending order.
+      expect(squeeze(run.text)).toContain(asPdfText('V is -q^8 + q^6 + q^2.'));
+    }
+  });
+
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
     // Every cell the reader would fill gets a sidecar value that logs its place; TeX must log exactly those,
     // and must find no other empty cell to warn about.
