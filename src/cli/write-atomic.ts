@@ -45,9 +45,17 @@ export async function writeFileAtomic(target: string, content: string | Uint8Arr
   await syncDirectory(dir);
 }
 
-/** Same path, or the same file reached another way (link, `./`), is refused. */
+/**
+ * Same path, or the same file reached another way (link, `./`), is refused; so is
+ * a target that cannot be a file (a directory, or in a directory that does not exist).
+ */
 async function refuseProtected(target: string, protect: readonly string[]): Promise<void> {
   const targetStat = await stat(target).catch(() => undefined);
+  if (targetStat?.isDirectory()) throw new OutputRefused(`cannot write ${target}: it is a directory; give a file name with -o`);
+  const dir = dirname(target);
+  const dirStat = await stat(dir).catch(() => undefined);
+  if (!dirStat) throw new OutputRefused(`cannot write ${target}: the directory ${dir} does not exist; create it first or choose another path with -o`);
+  if (!dirStat.isDirectory()) throw new OutputRefused(`cannot write ${target}: ${dir} is a file, not a directory; choose another path with -o`);
   for (const p of protect) {
     if (resolve(p) === resolve(target)) throw new OutputRefused(`refusing to write ${target}: it is the input file; choose another output path with -o`);
     if (targetStat) {

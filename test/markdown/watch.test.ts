@@ -4,7 +4,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
-import { ROOT } from './cli.ts';
+import { ROOT, skeinproof } from './cli.ts';
 
 const work = mkdtempSync(join(tmpdir(), 'skeinproof-watch-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
@@ -44,4 +44,12 @@ it('builds at start and again when the file changes', async () => {
     child.kill('SIGTERM');
     await new Promise((done) => child.on('exit', done));
   }
+});
+
+it('refuses a manuscript in a directory that does not exist, with a message and no stack trace', () => {
+  const input = join(work, 'no-such-dir', 'note.md');
+  const r = skeinproof(['watch', input]);
+  expect(r.status).toBe(2);
+  expect(r.stderr).toContain(`cannot watch ${input}: the directory ${join(work, 'no-such-dir')} does not exist`);
+  expect(r.stderr).not.toContain(' at ');
 });

@@ -91,4 +91,20 @@ describe('build', () => {
     expect(relative.status).toBe(2);
     expect(readFileSync(input, 'utf8')).toBe(text);
   });
+
+  it('says plainly why an output path cannot be written: a missing directory, a directory, a file used as a directory', () => {
+    const input = join(work, 'paths.md');
+    writeFileSync(input, '```skein id=k notation=braid\n1 1 1\n```\n\n:jones{of=k}\n');
+    const cases: [string, string][] = [
+      [join(work, 'no-such-dir', 'out.md'), `the directory ${join(work, 'no-such-dir')} does not exist`],
+      [work, 'it is a directory'],
+      [join(input, 'out.md'), `${input} is a file, not a directory`],
+    ];
+    for (const [output, reason] of cases) {
+      const r = skeinproof(['build', input, '-o', output]);
+      expect(r.status).toBe(2);
+      expect(r.stderr).toBe(`skeinproof: cannot write ${output}: ${reason}; ${reason.includes('exist') ? 'create it first or choose another path with -o' : reason.includes('is a directory') ? 'give a file name with -o' : 'choose another path with -o'}\n`);
+      expect(r.stdout).toBe('');
+    }
+  });
 });

@@ -4,7 +4,7 @@
  * Editors often save by writing a new file and renaming it, so the
  * directories are watched, not the files.
  */
-import { watch, type FSWatcher } from 'node:fs';
+import { existsSync, watch, type FSWatcher } from 'node:fs';
 import { basename, dirname, resolve } from 'node:path';
 import type { Argv } from 'yargs';
 import { buildOnce, buildOptions, readBuildArgs } from './build.ts';
@@ -24,6 +24,7 @@ export const watchCommand: CliCommand = {
     const path = String(raw['file']);
     const format = formatOf(path);
     if (typeof format === 'string') return usage(format);
+    if (!existsSync(dirname(resolve(path)))) return usage(`cannot watch ${path}: the directory ${dirname(path)} does not exist; check the path`);
     const watched = new Set<string>([resolve(path)]);
     const watchers = new Map<string, FSWatcher>();
     let timer: NodeJS.Timeout | undefined;
@@ -38,7 +39,8 @@ export const watchCommand: CliCommand = {
     const watchDirectoriesOf = (files: readonly string[]): void => {
       for (const f of files) watched.add(resolve(f));
       for (const dir of new Set([...watched].map((f) => dirname(f)))) {
-        if (!watchers.has(dir)) watchers.set(dir, watch(dir, onEvent(dir)));
+        if (watchers.has(dir) || !existsSync(dir)) continue; // a missing directory is the build's error to report
+        watchers.set(dir, watch(dir, onEvent(dir)));
       }
     };
     const rebuild = (why: string): void => {
