@@ -135,6 +135,14 @@ describe('slip diagnoses, each on its slip and not on a correct claim', () => {
     expect(judge('jones', 'q + q^5', positiveHopf, { convention }).verdict).toBe('agrees');
     // −q − q⁵ is the plain q form; in the q-graded document it is the negation.
     expect(judge('jones', '-q - q^5', positiveHopf, { convention }).diagnosis?.kind).toBe('negated');
+    expect(judge('jones', '-q - q^5', positiveHopf, { convention }).diagnosis?.detail).toContain('also V written in the convention jones=q');
+  });
+  it('names the convention whose value a mirror claim is: t ↔ t⁻¹ is also jones=t-inverse', () => {
+    const mirror = judge('jones', '-t^{-4}+t^{-3}+t^{-1}');
+    expect(mirror.diagnosis?.kind).toBe('mirror');
+    expect(mirror.diagnosis?.detail).toContain('also V written in the convention jones=t-inverse');
+    // For the figure-eight knot (amphichiral) nothing is added to a negated value, which no convention gives.
+    expect(judge('jones', '-t^{-2} + t^{-1} - 1 + t - t^2', figureEight).diagnosis?.detail).toBe('the claim is the computed value with every sign reversed');
   });
   it('diagnoses a value written in another declared convention as normalization', () => {
     const qDocument: Convention = { ...DEFAULT_CONVENTION, jonesVariable: 'q' };

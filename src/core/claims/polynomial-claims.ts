@@ -38,6 +38,11 @@ interface Subject {
   readonly mirrorSwap: string;
   /** Slips of normalisation or convention, in any letter. */
   readonly alternatives: readonly Alternative[];
+  /**
+   * V in the other conventions written with the document's letter (t ↔ t-inverse, q ↔ q-graded). They
+   * equal the mirror's or the negated value, which are named first; the sentence then adds the convention.
+   */
+  readonly sameLetterForms: readonly { readonly variable: JonesVariable; readonly value: Laurent }[];
   /** Values off by exactly the writhe factor (−A³)^{±w}: a `shifted` claim equal to one gets its sentence. */
   readonly writheSlips: readonly Alternative[];
   readonly valueOf: (report: DiagramReport) => Laurent;
@@ -101,6 +106,10 @@ function jonesSubject(report: DiagramReport, convention: Convention): Subject {
     mirror: conventionJones(report.jones.substitutePower(-1), convention),
     mirrorSwap: `${letter} ↔ ${letter}⁻¹`,
     alternatives,
+    sameLetterForms: JONES_VARIABLES.filter((v) => v !== convention.jonesVariable && jonesLetter(v) === letter).map((variable) => ({
+      variable,
+      value: jonesToConvention(report.jones, variable),
+    })),
     writheSlips,
     valueOf,
   };
@@ -136,6 +145,7 @@ function bracketSubject(report: DiagramReport, convention: Convention): Subject 
     mirror: conventionBracket(report.bracket.substitutePower(-1), convention),
     mirrorSwap: 'A ↔ A⁻¹',
     alternatives,
+    sameLetterForms: [],
     writheSlips: [
       {
         letter: 'A',
@@ -168,8 +178,10 @@ function diagnose(claim: Laurent, claimLetter: string, subject: Subject, ctx: Ju
       detail: `the claim is written in ${claimLetter}, but this document writes the ${subject.noun} in ${letter}, and it matches no other form of the value`,
     };
   }
-  if (claim.equals(subject.mirror)) return { kind: 'mirror', detail: `the claim is the value of the mirror image (${subject.mirrorSwap})` };
-  if (claim.equals(computed.neg())) return { kind: 'negated', detail: 'the claim is the computed value with every sign reversed' };
+  const form = subject.sameLetterForms.find((f) => f.value.equals(claim));
+  const alsoForm = form ? `, which is also V written in the convention jones=${form.variable}` : '';
+  if (claim.equals(subject.mirror)) return { kind: 'mirror', detail: `the claim is the value of the mirror image (${subject.mirrorSwap})${alsoForm}` };
+  if (claim.equals(computed.neg())) return { kind: 'negated', detail: `the claim is the computed value with every sign reversed${alsoForm}` };
   if (claim.termCount === computed.termCount && !claim.isZero) {
     const k = claim.minDegree! - computed.minDegree!;
     const shifted = computed.shift(k);
