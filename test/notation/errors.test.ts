@@ -99,6 +99,10 @@ describe('Gauss code errors', () => {
     const bare = 'o1+ u1+ o';
     expectCodeError(parseError(bare, 'gauss'), bare, 'o', ['Unexpected "o" at offset 8'], 8);
   });
+  it('explains that a code of signed crossing numbers (over positive, under negative: common practice) lacks the signs', () => {
+    const text = '1 -2 3 -1 2 -3';
+    expectCodeError(parseError(text, 'gauss'), text, '1', ['Unexpected "1" at offset 0', 'bare number', 'over or under', "crossing's sign"]);
+  });
   it('names a crossing visited once', () => {
     const text = 'o1+ u2+ o3+ u1+ o2+';
     expectCodeError(parseError(text, 'gauss'), text, 'o3+', ['Crossing 3 is visited only once', 'offset 8']);
@@ -153,6 +157,15 @@ describe('DT code errors', () => {
       ['4 -4 2', '-4', ['Entry 2 repeats the label 4 already used by entry 1']],
     ];
     for (const [text, spanned, phrases] of cases) expectCodeError(parseError(text, 'dt'), text, spanned, phrases);
+  });
+  it('reads a code wrapped in one pair of brackets, as codes are often printed ([4, 6, 2]: the positive trefoil, V = t + t^3 − t^4 from memory)', () => {
+    const trefoil = poly([[1, 1], [3, 1], [4, -1]]);
+    for (const text of ['[4, 6, 2]', ' (4 6 2) ', '[4,6,2],']) expect(jonesByStateSum(parseDiagramCode(text, 'dt')).equals(trefoil)).toBe(true);
+  });
+  it('refuses grouped entries (a link code) and unmatched brackets, naming the bracket', () => {
+    expectCodeError(parseError('(6 8) (2 4)', 'dt'), '(6 8) (2 4)', ')', ['Unexpected ")" at offset 4', 'DT codes of links are not read', 'PD or Gauss']);
+    expectCodeError(parseError('[4 6 2)', 'dt'), '[4 6 2)', '[', ['Unexpected "[" at offset 0']);
+    expectCodeError(parseError('4 6 2]', 'dt'), '4 6 2]', ']', ['Unexpected "]" at offset 5']);
   });
   it('refuses codes no planar knot diagram has, naming the entries', () => {
     // Found by enumerating all codes with at most 7 entries (no planar curve has them).

@@ -7,7 +7,7 @@
 import { assembleDiagram, type RawCrossing } from '../diagram/assemble.ts';
 import type { LinkDiagram, Sign } from '../diagram/model.ts';
 import type { TextSpan } from '../diagnostics/diagnostic.ts';
-import { codeError, plural, isSeparator, listNumbers, quote, spanBetween, wholeSpan } from './common.ts';
+import { codeError, plural, integerValue, isOversizedInteger, isSeparator, listNumbers, quote, spanBetween, wholeSpan } from './common.ts';
 import { firstNonPlanarPiece } from './planarity.ts';
 
 interface Visit {
@@ -93,8 +93,13 @@ function readComponents(text: string): Visit[][] {
     if (!m) {
       let end = i;
       while (end < text.length && !isSeparator(text[end]!) && text[end] !== '(' && text[end] !== ')') end++;
+      const token = text.slice(i, Math.max(end, i + 1));
+      // Codes that list crossings as signed numbers (over positive, under negative) say nothing of the crossings' signs.
+      const bareNumber = integerValue(token) !== undefined || isOversizedInteger(token);
       throw codeError(
-        `Unexpected ${quote(text.slice(i, Math.max(end, i + 1)))} at offset ${i}: a visit is o (over) or u (under), the crossing's number and its sign, ${EXAMPLE}.`,
+        bareNumber
+          ? `Unexpected ${quote(token)} at offset ${i}: a bare number does not say whether the visit passes over or under, nor the crossing's sign. Write each visit as o (over) or u (under), the crossing's number and its sign + or -, ${EXAMPLE}.`
+          : `Unexpected ${quote(token)} at offset ${i}: a visit is o (over) or u (under), the crossing's number and its sign, ${EXAMPLE}.`,
         { start: i, end: Math.max(end, i + 1) },
       );
     }
