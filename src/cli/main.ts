@@ -3,7 +3,8 @@
  * ./commands and returns its exit status; nothing here computes.
  *
  * Exit status: 0 nothing fails; 1 a claim is contradicted (or a warning under
- * --strict); 2 usage errors, unreadable files and invalid codes.
+ * --strict); 2 usage errors, unreadable files and invalid codes; 3 an internal
+ * error (a bug, e.g. two independent computations of an invariant disagree).
  */
 import yargs from 'yargs';
 import type { Argv } from 'yargs';
@@ -12,6 +13,17 @@ import { commands } from './commands/index.ts';
 export const EXIT_OK = 0;
 export const EXIT_CONTRADICTED = 1;
 export const EXIT_USAGE = 2;
+export const EXIT_INTERNAL = 3;
+
+/** A bug is reported as one, in words, without a stack trace: the user's input was accepted. */
+function internalErrorMessage(error: unknown): string {
+  const detail = (error instanceof Error ? error.message : String(error)).replace(/^internal:\s*/, '');
+  return (
+    `skeinproof: internal error: ${detail}\n` +
+    'This is a bug in skeinproof, not a mistake in your input; the computation stopped rather than print a possibly wrong value. ' +
+    'Please report it with the command line and the input that caused it.\n'
+  );
+}
 
 export async function main(argv: readonly string[]): Promise<number> {
   let status = EXIT_OK;
@@ -34,7 +46,12 @@ export async function main(argv: readonly string[]): Promise<number> {
       status = await command.run(args as Record<string, unknown>);
     });
   }
-  await parser.parseAsync();
+  try {
+    await parser.parseAsync();
+  } catch (error) {
+    process.stderr.write(internalErrorMessage(error));
+    return EXIT_INTERNAL;
+  }
   if (usageError !== undefined) {
     process.stderr.write(`skeinproof: ${usageError}\nRun 'skeinproof --help' for the commands and options.\n`);
     return EXIT_USAGE;
