@@ -49,6 +49,10 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     ['t + t^3 - t^4.', poly([1, 1], [3, 1], [4, -1])], // sentence punctuation closing the formula
     ['V(t) = t + t^3 - t^4', poly([1, 1], [3, 1], [4, -1])], // a left-hand side is skipped
     ['V_{K}(t) = \\Delta = -t^{-1}', poly([-1, -1])],
+    // A left-hand side may hold characters no value has (a prime, a semicolon) and may define with :=.
+    ["V_{K'}(t) = t + t^3 - t^4", poly([1, 1], [3, 1], [4, -1])],
+    ['V(K; t) := t', poly([1, 1])],
+    ['V(t) \\coloneqq t^{2}', poly([2, 1])],
     // Values copied with their math delimiters, e.g. onto a command line.
     ['$t + t^3 - t^4$', poly([1, 1], [3, 1], [4, -1])],
     ['  $$-t^{1/2} - t^{5/2}$$ ', poly([0.5, -1], [2.5, -1])],
@@ -109,6 +113,7 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
     ['a full stop inside the value', 't. + 1', 1, 2, /unexpected character `.`/],
     ['nothing after the equals sign', 'V(t) = ', 5, 6, /nothing follows `=`/],
     ['an error after a left-hand side, located in the whole text', 'V(t) = t + x', 11, 12, /unknown variable `x`/],
+    ['a stray character after a left-hand side', "V_{K'}(t) = t'", 13, 14, /unexpected character `'`/],
     ['a superscript sign without digits', 't⁻ + 1', 1, 2, /superscript `⁻` is not a whole exponent/],
     ['a superscript after an exponent', 't^2²', 3, 4, /double superscript/],
     ['an unmatched dollar', '$t + 1', 0, 1, /unexpected character `\$`/],

@@ -36,7 +36,8 @@ const MAX_EXPANDED_POWER = 64;
 const MAX_EXPANDED_SPAN = 4096;
 const MAX_EXPONENT = 100000;
 
-type TokenKind = 'number' | 'letter' | 'op' | 'command' | 'end';
+/** `stray`: a character no value contains, refused unless it lies in a skipped left-hand side (`V_{K'}(t) =`). */
+type TokenKind = 'number' | 'letter' | 'op' | 'command' | 'stray' | 'end';
 
 interface Token {
   readonly kind: TokenKind;
@@ -52,6 +53,8 @@ const IGNORED_COMMANDS = new Set([
   'displaystyle', 'textstyle',
 ]);
 const TIMES_COMMANDS = new Set(['cdot', 'times']);
+/** `V(t) \coloneqq …` defines like `=`: what follows is the value. */
+const DEFINITION_COMMANDS = new Set(['coloneqq', 'coloneq', 'eqqcolon']);
 const FRACTION_COMMANDS = new Set(['frac', 'dfrac', 'tfrac']);
 const UNICODE_OPERATORS: Readonly<Record<string, string>> = { '−': '-', '–': '-', '·': '*', '×': '*', '⋅': '*' };
 
@@ -127,7 +130,8 @@ function tokenize(text: string): Token[] {
       else if (j < text.length) j++;
       const name = text.slice(i + 1, j);
       if (name === '') fail('a lone `\\` ends the value: remove it', { start: i, end: j });
-      if (!IGNORED_COMMANDS.has(name)) {
+      if (DEFINITION_COMMANDS.has(name)) tokens.push({ kind: 'op', text: '=', start: i, end: j });
+      else if (!IGNORED_COMMANDS.has(name)) {
         tokens.push(TIMES_COMMANDS.has(name) ? { kind: 'op', text: '*', start: i, end: j } : { kind: 'command', text: name, start: i, end: j });
       }
       i = j;
@@ -141,7 +145,8 @@ function tokenize(text: string): Token[] {
       tokens.push({ kind: 'op', text: UNICODE_OPERATORS[ch]!, start: i, end: i + 1 });
       i++;
     } else {
-      fail(`unexpected character \`${ch}\`: a polynomial is made of integers, its variable, + − · ^ and brackets`, { start: i, end: i + 1 });
+      tokens.push({ kind: 'stray', text: ch, start: i, end: i + 1 });
+      i++;
     }
   }
   // `{}` is an empty group that typesets as nothing: drop it.
@@ -221,8 +226,14 @@ class PolynomialParser {
     return r.value;
   }
 
-  /** `V(t) = t + t^3 - t^4`: the value is what follows the last `=` outside any group. */
+  /** `V(t) = t + t^3 - t^4`: the value is what follows the last `=` outside any group; stray characters after it are refused. */
   private skipLeftHandSide(): void {
+    this.findLeftHandSide();
+    const stray = this.tokens.slice(this.pos).find((t) => t.kind === 'stray');
+    if (stray) fail(`unexpected character \`${stray.text}\`: a polynomial is made of integers, its variable, + − · ^ and brackets`, stray);
+  }
+
+  private findLeftHandSide(): void {
     let depth = 0;
     let lastEquals = -1;
     this.tokens.forEach((t, i) => {
