@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
@@ -112,5 +112,18 @@ describe('skeinproof compute (plain)', () => {
     const alone = skeinproof('compute', '-n', 'braid', '--', '-1 -1');
     expect(alone.status).toBe(0);
     expect(alone.stdout).toContain('2 crossings, 2 components');
+  });
+
+  it('stops quietly when the reader closes the pipe early, as in `compute … | head -1` (common practice), with no stack trace', async () => {
+    const codes = Array.from({ length: 300 }, () => '1 1 1');
+    const child = spawn(process.execPath, ['bin/skeinproof.js', 'compute', '--json', '-n', 'braid', ...codes], { cwd: root });
+    let stderr = '';
+    child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
+    // Read the first chunk, then close our end of stdout, as head does after its first line.
+    child.stdout.once('data', () => child.stdout.destroy());
+    const status = await new Promise<number | null>((resolve) => child.on('close', (code) => resolve(code)));
+    expect(stderr).not.toContain('EPIPE');
+    expect(stderr).not.toMatch(/\n\s+at /);
+    expect(status).toBe(0);
   });
 });
