@@ -83,6 +83,12 @@ describe('skeinproof compute --json', () => {
 });
 
 describe('skeinproof compute (plain)', () => {
+  it('writes the degrees of V of the positive Hopf link as fractions, like its polynomial (from memory: V = −t^(1/2) − t^(5/2))', () => {
+    const { status, stdout } = skeinproof('compute', '--notation', 'braid', '1 1');
+    expect(status).toBe(0);
+    expect(stdout).toContain('V(t) = -t^(1/2) - t^(5/2)');
+    expect(stdout).toContain('span 2, degrees 1/2 to 5/2');
+  });
   it('summarises a kinked trefoil: nugatory crossing, bounds, negative leading generator accepted', () => {
     const { status, stdout, stderr } = skeinproof('compute', '--notation', 'braid', '-1 -1 -1 -2');
     expect(stderr).toBe('');

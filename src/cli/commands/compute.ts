@@ -19,6 +19,7 @@ import { parseConventionText } from '../../core/convention/settings.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../core/diagnostics/diagnostic.ts';
 import { judgeClaim, judgementToDiagnostics, parseClaimAssignment, unreadableClaimDiagnostic, type ClaimAssignment } from '../../core/claims/index.ts';
 import { exitStatus, formatDiagnostic, judgementJson, unreadableClaimJson, type JudgementJson, type UnreadableClaimJson } from '../../report/index.ts';
+import { toFraction } from '../../core/poly/laurent.ts';
 import type { CliCommand } from './index.ts';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
@@ -45,6 +46,11 @@ export function computeCode(code: string, notation: Notation, options: ParseOpti
 const yesNo = (flag: boolean, yes: string, no: string): string => (flag ? yes : no);
 const signed = (k: number): string => (k > 0 ? `+${k}` : `${k}`);
 const count = (k: number, noun: string): string => `${k} ${noun}${k === 1 ? '' : 's'}`;
+/** A degree as the polynomial line writes its exponents: 5/2, not 2.5. */
+const degree = (e: number): string => {
+  const [p, q] = toFraction(e);
+  return q === 1 ? `${p}` : `${p}/${q}`;
+};
 
 /** The human summary of one analysed code: a heading line and indented facts. */
 export function plainSummary(position: number, code: string, r: DiagramReport): string {
@@ -52,7 +58,7 @@ export function plainSummary(position: number, code: string, r: DiagramReport): 
   lines.push(`#${position} ${r.notation} ${JSON.stringify(code)}`);
   lines.push(`  ${count(r.crossings, 'crossing')}, ${count(r.components, 'component')}, writhe ${signed(r.writhe)} (${r.positiveCrossings} positive, ${r.negativeCrossings} negative)`);
   lines.push(`  Jones    V(t) = ${r.jones.toPlainString('t')}`);
-  lines.push(`           span ${r.span}, degrees ${r.jonesMinDegree} to ${r.jonesMaxDegree}`);
+  lines.push(`           span ${r.span}, degrees ${degree(r.jonesMinDegree)} to ${degree(r.jonesMaxDegree)}`);
   lines.push(`  bracket  <D> = ${r.bracket.toPlainString('A')}`);
   lines.push(`           span ${r.bracketSpan}, degrees ${r.bracketMinDegree} to ${r.bracketMaxDegree}  (unit normalisation <O> = 1)`);
   const adequacy = r.adequate ? 'adequate' : r.aAdequate ? 'A-adequate only' : r.bAdequate ? 'B-adequate only' : 'neither A- nor B-adequate';
