@@ -16,6 +16,7 @@ import {
   CLAIM_KEYS,
   DIAGRAM_FENCE_LANGUAGE,
   FILL_KEYS,
+  ID_RULE,
   NOTATION_NAMES,
   REMARKS_COLUMN,
   ROW_DIAGRAM_COLUMN,
@@ -26,6 +27,7 @@ import {
   isClaimKey,
   isFillKey,
   isNotation,
+  isUsableId,
   splitInfoSettings,
 } from './syntax.ts';
 import { readFrontMatter, type ManuscriptSettings } from './front-matter.ts';
@@ -148,8 +150,8 @@ class Extractor {
       if (s.key === 'id') {
         id = s.value;
         idAt = metaStart + s.valueStart;
-        if (!/^[A-Za-z0-9][\w.-]*$/.test(id)) {
-          this.error('markup-invalid', `diagram id \`${id}\` is not usable: an id starts with a letter or digit and has only letters, digits, '.', '_' and '-'`, idAt, metaStart + s.valueEnd);
+        if (!isUsableId(id)) {
+          this.error('markup-invalid', `diagram id \`${id}\` is not usable: ${ID_RULE}`, idAt, metaStart + s.valueEnd);
           id = undefined;
         }
       } else if (s.key === 'notation') {
@@ -412,6 +414,10 @@ class Extractor {
       this.error('markup-invalid', `table row ${rowNumber}: the code's notation is not known: add a \`${ROW_NOTATION_COLUMN}\` column, {notation=…} on \`:::${TABLE_DIRECTIVE}\`, or a default in the front matter`, cs, ce);
       return undefined;
     }
+    if (before !== '' && !isUsableId(before)) {
+      this.error('markup-invalid', `table row ${rowNumber}: diagram id \`${before}\` is not usable: ${ID_RULE}`, content.start, content.start + before.length);
+      return undefined;
+    }
     const fence = /^`+/.exec(this.text.slice(cs, ce))?.[0].length ?? 1;
     const map = alignValue(this.text, cs + fence, ce - fence, code.value);
     const headerStart = before !== '' ? content.start : cs;
@@ -422,6 +428,7 @@ class Extractor {
       code: code.value,
       locateCode: this.locator(map, cs, ce),
       locateHeader: () => this.source.location(headerStart, headerEnd),
+      ...(before === '' ? { unnamed: true } : {}),
     });
     return { target: id, named: before !== '' };
   }

@@ -32,6 +32,13 @@ export const ROW_DIAGRAM_COLUMN = 'diagram';
 export const ROW_NOTATION_COLUMN = 'notation';
 export const REMARKS_COLUMN = 'remarks';
 
+/** What a diagram id may look like: it must survive `{of=…}` and table cells unquoted. */
+export function isUsableId(id: string): boolean {
+  return /^[A-Za-z0-9][\w.-]*$/.test(id);
+}
+
+export const ID_RULE = "an id starts with a letter or digit and has only letters, digits, '.', '_' and '-'";
+
 export function isNotation(name: string): name is Notation {
   return (NOTATIONS as readonly string[]).includes(name);
 }

@@ -89,6 +89,15 @@ describe('fill-ins', () => {
     expect(r.built).toBe(text);
   });
 
+  it('offers only ids the author wrote, and no far-fetched suggestion for a short id', async () => {
+    const text = `${TREFOIL}\n:::invariants{notation=braid}\n| diagram | writhe |\n|---|---|\n| \`1 1\` | |\n:::\n\nSee :jones{of=zz} and :jones{of=trf}.\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics.map((d) => d.hints)).toEqual([
+      ['The diagram ids are: tref.'],
+      ['Did you mean `tref`?', 'The diagram ids are: tref.'],
+    ]);
+  });
+
   it('refuses a fill-in of a value that is only checked', async () => {
     const text = `${TREFOIL}\n:alternating{of=tref}\n`;
     const r = await processMarkdown(text);
@@ -169,6 +178,13 @@ describe('tables', () => {
     expect(r.diagnostics[0]!.message).toMatch(/^table row 2 \(cinq\), column jones/);
     // T(2,5): t² + t⁴ − t⁵ + t⁶ − t⁷ (Jones' formula for torus knots).
     expect(r.built).toContain('| `1 1 1 1 1` | $t^2 + t^4 - t^5 + t^6 - t^7$ | $5$ | |');
+  });
+
+  it('refuses an id in a row that no directive could name, at the id', async () => {
+    const text = table('| my$knot `1 1 1` | | | |\n');
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, 'my$knot')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/^table row 1: diagram id `my\$knot` is not usable/);
   });
 
   it('reports an unknown column at its header and an invalid row code at the code', async () => {

@@ -25,6 +25,8 @@ export interface DiagramEntry {
   readonly locateCode: Locator;
   /** Locates the entry's header (where the id is written), for duplicate-id errors. */
   readonly locateHeader: Locator;
+  /** True when the author gave no id (a code written in place, e.g. in a table row): `id` is made up and never suggested. */
+  readonly unnamed?: boolean;
 }
 
 export interface ClaimEntry {

@@ -50,7 +50,7 @@ export function runSession(input: SessionInput): SessionResult {
     }
   }
 
-  const known = [...firstHeader.keys()];
+  const knownIds = [...new Set(input.diagrams.filter((d) => d.unnamed !== true).map((d) => d.id))];
   // One error per unknown id per line: a table row naming a missing diagram is one mistake, not one per column.
   const reportedUnknown = new Set<string>();
   /** `subject` names the claim or fill-in ("the Jones polynomial claimed for `k`", or a table cell). */
@@ -60,7 +60,7 @@ export function runSession(input: SessionInput): SessionResult {
     if (reportedUnknown.has(key)) return [];
     reportedUnknown.add(key);
     const message = `${subject}: no diagram has the id \`${target}\``;
-    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, known) }];
+    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, knownIds) }];
   };
   const skippedBecauseInvalid = (target: string, locate: Locator, subject: string, verb: string): Diagnostic => ({
     severity: 'note',
@@ -120,10 +120,11 @@ function compareLocations(a: SourceLocation | undefined, b: SourceLocation | und
 
 /** Suggests the closest known id (edit distance at most 2), then lists the ids. */
 function hintsForUnknown(target: string, known: readonly string[]): string[] {
-  if (known.length === 0) return ['The document defines no diagram yet: add a `skein` block (or a LaTeX diagram) with this id.'];
+  if (known.length === 0) return ['The document defines no named diagram yet: add a `skein` block (or a LaTeX diagram) with this id.'];
   const close = known
     .map((id) => ({ id, d: editDistance(id.toLowerCase(), target.toLowerCase()) }))
-    .filter((x) => x.d <= 2)
+    // Two edits turn any two-letter id into any other: only suggest ids closer than that.
+    .filter((x) => x.d <= 2 && x.d < Math.min(x.id.length, target.length))
     .sort((a, b) => a.d - b.d)[0];
   const hints = close ? [`Did you mean \`${close.id}\`?`] : [];
   hints.push(`The diagram ids are: ${known.slice(0, 20).join(', ')}${known.length > 20 ? ', …' : ''}.`);
