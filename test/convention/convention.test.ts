@@ -147,5 +147,24 @@ describe('convention settings from key/value strings', () => {
     expect(bad.errors[0]!.span).toEqual({ start: 16, end: 21 });
     const noValue = parseConventionText('jones');
     expect(!noValue.ok && noValue.errors[0]!.message).toMatch(/has no value/);
+    const emptyValue = parseConventionText('jones=');
+    expect(!emptyValue.ok && emptyValue.errors[0]!.message).toMatch(/`jones` .* has no value: write one of t, t-inverse, q, q-graded/);
+  });
+  it('separates settings by whitespace too, and allows spaces around = and :', () => {
+    const settings = { jonesVariable: 'q', bracketNormalization: 'loop' };
+    expect(parseConventionText('jones=q bracket=loop')).toEqual({ ok: true, settings });
+    expect(parseConventionText(' jones = q ;  bracket : loop ')).toEqual({ ok: true, settings });
+    const bad = parseConventionText('jones = q bracket = round');
+    expect(!bad.ok && bad.errors[0]!.span).toEqual({ start: 20, end: 25 });
+  });
+  it('refuses a key given twice with different values instead of keeping the last', () => {
+    const twice = parseConventionText('jones=q,order=descending,jones=t');
+    expect(twice.ok).toBe(false);
+    if (twice.ok) return;
+    expect(twice.errors[0]!.message).toMatch(/`jones` is given twice with different values/);
+    expect(twice.errors[0]!.span).toEqual({ start: 25, end: 30 });
+    expect(parseConventionText('jones=q;jones=q')).toEqual({ ok: true, settings: { jonesVariable: 'q' } });
+    const missingKey = parseConventionText('=q');
+    expect(!missingKey.ok && missingKey.errors[0]!.message).toMatch(/has no key/);
   });
 });

@@ -67,6 +67,12 @@ export function readConventionSettings(
       continue;
     }
     const value = String(rawValue).trim().toLowerCase();
+    if (value === '') {
+      errors.push(
+        new InputError('convention-invalid', `convention setting \`${spec.key}\` (${spec.meaning}) has no value: write one of ${spec.values.join(', ')}`, spans?.[rawKey]?.key),
+      );
+      continue;
+    }
     if (!spec.values.includes(value)) {
       errors.push(
         new InputError(
@@ -105,8 +111,10 @@ export function parseConventionSettings(
 }
 
 /**
- * Splits `jones=q,bracket=loop` (commas or semicolons between settings,
- * `=` or `:` between key and value) into a record with the place of each part.
+ * Splits `jones=q,bracket=loop` into a record with the place of each part.
+ * Settings are separated by commas, semicolons or whitespace (`jones=q bracket=loop`);
+ * `=` or `:` joins key and value, with optional spaces (`jones = q`). A key
+ * written twice is an error: the record could keep only one of the values.
  */
 export function splitConventionText(text: string): {
   readonly record: Record<string, string>;
@@ -116,28 +124,34 @@ export function splitConventionText(text: string): {
   const record: Record<string, string> = {};
   const spans: Record<string, SettingSpans> = {};
   const errors: InputError[] = [];
-  const partPattern = /[^,;]+/g;
-  for (let m = partPattern.exec(text); m !== null; m = partPattern.exec(text)) {
-    const part = m[0];
-    if (part.trim() === '') continue;
-    const sep = part.search(/[=:]/);
-    const start = m.index + (part.length - part.trimStart().length);
-    if (sep < 0) {
-      errors.push(
-        new InputError(
-          'convention-invalid',
-          `convention setting \`${part.trim()}\` has no value: write it as key=value, e.g. jones=q`,
-          { start, end: m.index + part.trimEnd().length },
-        ),
-      );
+  const settingPattern = /([^,;\s=:]*)(?:\s*([=:])\s*([^,;\s]*))?/y;
+  for (let at = 0; at < text.length; ) {
+    if (/[,;\s]/.test(text[at]!)) {
+      at++;
       continue;
     }
-    const key = part.slice(0, sep).trim();
-    const value = part.slice(sep + 1).trim();
-    const keyStart = m.index + part.indexOf(key);
-    const valueStart = m.index + sep + 1 + part.slice(sep + 1).indexOf(value);
+    settingPattern.lastIndex = at;
+    const m = settingPattern.exec(text)!;
+    const [whole, key = '', separator, value = ''] = m;
+    const keySpan = { start: at, end: at + key.length };
+    at += Math.max(whole.length, 1);
+    if (separator === undefined) {
+      errors.push(new InputError('convention-invalid', `convention setting \`${key}\` has no value: write it as key=value, e.g. jones=q`, keySpan));
+      continue;
+    }
+    if (key === '') {
+      errors.push(new InputError('convention-invalid', `the value \`${value}\` has no key: write it as key=value, e.g. jones=q`, { start: keySpan.start, end: at }));
+      continue;
+    }
+    const valueStart = at - value.length;
+    if (Object.hasOwn(record, key)) {
+      if (record[key] !== value) {
+        errors.push(new InputError('convention-invalid', `convention setting \`${key}\` is given twice with different values; keep one`, keySpan));
+      }
+      continue;
+    }
     record[key] = value;
-    spans[key] = { key: { start: keyStart, end: keyStart + key.length }, value: { start: valueStart, end: valueStart + value.length } };
+    spans[key] = { key: keySpan, value: { start: valueStart, end: valueStart + value.length } };
   }
   return { record, spans, errors };
 }
