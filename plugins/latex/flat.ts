@@ -49,7 +49,8 @@ function fillText(fill: LatexFill, value: Typeset, written: string): string {
     return t.math ? `\\mbox{${value.text}}` : value.text;
   }
   // An empty cell: a comment or \cellcolor it holds stays before the value; blank cells get it after their first space.
-  const inCell = value.kind === 'math' ? `$${value.latex}$` : value.text;
+  // Its column template may already be math (>{$}c<{$}), so a math value switches to math only where needed, as the package does.
+  const inCell = value.kind === 'math' ? `\\ensuremath{${value.latex}}` : value.text;
   const held = written.slice(0, t.valueAt - t.raw.start);
   const at = held.trim() === '' ? (written.startsWith(' ') ? 1 : 0) : held.length;
   return `${written.slice(0, at)}${inCell}${written.slice(at) || ' '}`;

@@ -71,11 +71,12 @@ export interface LatexDocument {
 const CODE_KEYS = ['id', 'notation', 'strands'] as const;
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
 /**
- * What the package provides for typeset values, in plain LaTeX for the flat
- * copy: statements write operators such as span with \operatorname, which
- * amsmath defines properly when the document loads it.
+ * What the package provides, in plain LaTeX for the flat copy: the array
+ * package it loads (tables keep its look, and column templates such as
+ * >{$}c<{$} keep working), and \operatorname for statements, which amsmath
+ * defines properly when the document loads it.
  */
-const VALUE_SUPPORT = '\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}';
+const VALUE_SUPPORT = '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}';
 /** Characters a diagram code may contain that plain LaTeX would not print as typed. */
 const SPECIAL_IN_CODE = /[\^_&#$~]/g;
 

@@ -263,10 +263,10 @@ describe('building', () => {
     const { doc, session } = build();
     // The positive Hopf link (closure of σ₁²): V = −t^{1/2} − t^{5/2} (from memory), span 2, writhe 2.
     expect(flatText(doc, session.fills)).toBe(
-      '\\documentclass{article}\n\\usepackage{amsmath}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}\n\n\\begin{document}\n' +
+      '\\documentclass{article}\n\\usepackage{amsmath}\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}\n\n\\begin{document}\n' +
         '\\begin{flushleft}\\ttfamily\n1 1% Hopf\n\\end{flushleft}\n' +
         'Values: $-t^{5/2} - t^{1/2}$, $w = 2$, claimed $2$.\n' +
-        '\n\\begin{tabular}{ll}\nId & span\\\\\nh & $2$ \\\\\n\\end{tabular}\n\n\\end{document}\n',
+        '\n\\begin{tabular}{ll}\nId & span\\\\\nh & \\ensuremath{2} \\\\\n\\end{tabular}\n\n\\end{document}\n',
     );
   });
 

@@ -337,6 +337,36 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     }
   });
 
+  it('fills math columns (>{$}c<{$}, which needs the array package the package loads) in both builds', async () => {
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeintable}{id, jones, writhe}',
+      '\\begin{tabular}{l>{$}l<{$}>{$}c<{$}}',
+      'Id & V & w \\\\',
+      'tref & & \\\\',
+      'tref & t + t^3 - t^4 & 3 \\\\',
+      '\\end{tabular}',
+      '\\end{skeintable}',
+      '\\end{document}',
+    ].join('\n');
+    for (const flat of [false, true]) {
+      const dir = workDir('math-columns', !flat);
+      writeFileSync(join(dir, 'columns.tex'), paper);
+      const result = await latexFormat.build(join(dir, 'columns.tex'), flat ? { output: join(dir, 'columns-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) writeFileSync(o.path, o.content);
+      const run = pdflatex(dir, flat ? 'columns-flat.tex' : 'columns.tex');
+      expect(run.ok).toBe(true);
+      expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+      // The positive trefoil (from memory): V = t + t^3 - t^4 and writhe 3, filled in row 2 and written in row 3.
+      expect(squeeze(run.text).split(asPdfText('t + t^3 - t^4'))).toHaveLength(3);
+      expect(run.text).not.toContain('??');
+    }
+  });
+
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
     // Every cell the reader would fill gets a sidecar value that logs its place; TeX must log exactly those,
     // and must find no other empty cell to warn about.
