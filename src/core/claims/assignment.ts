@@ -21,7 +21,8 @@ export function parseClaimAssignment(text: string): ClaimAssignment {
   if (eq < 0) {
     throw new InputError('claim-malformed', `the claim \`${text}\` has no \`=\`: write it as KEY=VALUE, e.g. jones=t+t^3-t^4`, { start: 0, end: text.length });
   }
-  const key = text.slice(0, eq).trim().toLowerCase();
+  // Keys are case-insensitive, and `crossing_number` or `crossing number` mean `crossing-number`.
+  const key = text.slice(0, eq).trim().toLowerCase().replace(/[\s_]+/g, '-');
   if (!isClaimKey(key)) {
     throw new InputError('claim-malformed', `unknown claim key \`${text.slice(0, eq)}\`: the keys are ${CLAIM_KEYS.join(', ')}`, { start: 0, end: eq });
   }
