@@ -53,6 +53,9 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     ["V_{K'}(t) = t + t^3 - t^4", poly([1, 1], [3, 1], [4, -1])],
     ['V(K; t) := t', poly([1, 1])],
     ['V(t) \\coloneqq t^{2}', poly([2, 1])],
+    // Every size of delimiter, and the invisible delimiters \left. and \right.
+    ['\\Biggl( 1 - t \\Biggr)^2 \\bigg/ t', poly([-1, 1], [0, -2], [1, 1])],
+    ['\\left. t + t^3 - t^4 \\right.', poly([1, 1], [3, 1], [4, -1])],
     // Values copied with their math delimiters, e.g. onto a command line.
     ['$t + t^3 - t^4$', poly([1, 1], [3, 1], [4, -1])],
     ['  $$-t^{1/2} - t^{5/2}$$ ', poly([0.5, -1], [2.5, -1])],

@@ -49,7 +49,8 @@ interface Token {
 
 /** Commands that only space or size things: dropped. */
 const IGNORED_COMMANDS = new Set([
-  ',', ';', ':', '!', ' ', 'quad', 'qquad', 'left', 'right', 'bigl', 'bigr', 'Bigl', 'Bigr', 'biggl', 'biggr', 'big', 'Big', 'bigg',
+  ',', ';', ':', '!', ' ', 'quad', 'qquad', 'left', 'right', 'middle',
+  'big', 'Big', 'bigg', 'Bigg', 'bigl', 'bigr', 'Bigl', 'Bigr', 'biggl', 'biggr', 'Biggl', 'Biggr',
   'displaystyle', 'textstyle',
 ]);
 const TIMES_COMMANDS = new Set(['cdot', 'times']);
@@ -130,6 +131,8 @@ function tokenize(text: string): Token[] {
       else if (j < text.length) j++;
       const name = text.slice(i + 1, j);
       if (name === '') fail('a lone `\\` ends the value: remove it', { start: i, end: j });
+      // `\left.` and `\right.` are invisible delimiters: drop the dot with the command.
+      if ((name === 'left' || name === 'right') && /^\s*\./.test(text.slice(j))) j = text.indexOf('.', j) + 1;
       if (DEFINITION_COMMANDS.has(name)) tokens.push({ kind: 'op', text: '=', start: i, end: j });
       else if (!IGNORED_COMMANDS.has(name)) {
         tokens.push(TIMES_COMMANDS.has(name) ? { kind: 'op', text: '*', start: i, end: j } : { kind: 'command', text: name, start: i, end: j });
