@@ -58,6 +58,11 @@ export function maskLatex(source: string): string {
       i = skipFalseBranch(source, afterName, blank);
       continue;
     }
+    if (name === 'iftrue') {
+      skipElseBranch(source, afterName, blank);
+      i = afterName;
+      continue;
+    }
     if (INLINE_VERBATIM.has(name)) {
       i = skipInlineVerbatim(source, afterName, blank);
       continue;
@@ -122,6 +127,29 @@ const CONDITIONALS: ReadonlySet<string> = new Set([
  * read, and an unmatched \\iffalse hides the rest of the file, as in TeX.
  */
 function skipFalseBranch(text: string, from: number, blank: (from: number, to: number) => void): number {
+  const end = branchEnd(text, from, true);
+  if (end === undefined) {
+    blank(from, text.length);
+    return text.length;
+  }
+  blank(from, end.start);
+  return end.end;
+}
+
+/** Blanks the \\else branch of an \\iftrue (up to its matching \\fi), which TeX skips; the first branch is read as usual. */
+function skipElseBranch(text: string, from: number, blank: (from: number, to: number) => void): void {
+  const elseAt = branchEnd(text, from, true);
+  if (elseAt?.name !== 'else') return;
+  const fi = branchEnd(text, elseAt.end, false);
+  blank(elseAt.end, fi === undefined ? text.length : fi.start);
+}
+
+/**
+ * The \\fi (or, when `stopAtElse`, the \\else) that belongs to the conditional
+ * whose branch starts at `from`: TeX counts the conditionals nested in it to find
+ * it, and skips comments.
+ */
+function branchEnd(text: string, from: number, stopAtElse: boolean): { name: 'else' | 'fi'; start: number; end: number } | undefined {
   let depth = 0;
   let k = from;
   while (k < text.length) {
@@ -139,16 +167,11 @@ function skipFalseBranch(text: string, from: number, blank: (from: number, to: n
       k += 2;
       continue;
     }
+    const end = k + 1 + name.length;
     if (CONDITIONALS.has(name)) depth++;
-    else if (name === 'fi' || (name === 'else' && depth === 0)) {
-      if (depth === 0) {
-        blank(from, k);
-        return k + 1 + name.length;
-      }
-      depth--;
-    }
-    k += 1 + name.length;
+    else if (depth === 0 && (name === 'fi' || (name === 'else' && stopAtElse))) return { name, start: k, end };
+    else if (name === 'fi') depth--;
+    k = end;
   }
-  blank(from, text.length);
-  return text.length;
+  return undefined;
 }

@@ -70,6 +70,13 @@ describe('switched-off passages (TeX skips \\iffalse … \\fi, counting nested c
   it('reads the \\else branch', () => {
     expect(fills('\\iffalse \\skeinjones{a} \\else \\skeinjones{b} \\fi')).toEqual([{ id: 'b', math: false }]);
   });
+  it('\\iftrue … \\else … \\fi reads the first branch and skips the \\else branch, counting nested conditionals', () => {
+    expect(fills('\\iftrue \\skeinjones{a} \\ifx\\x\\y \\else \\fi \\else \\skeinjones{b} \\iffalse\\fi \\skeinjones{c} \\fi \\skeinjones{d}')).toEqual([
+      { id: 'a', math: false },
+      { id: 'd', math: false },
+    ]);
+    expect(fills('\\iftrue \\skeinjones{a} \\fi \\skeinjones{b}')).toEqual([{ id: 'a', math: false }, { id: 'b', math: false }]);
+  });
   it('a \\fi in a comment does not end the passage', () => {
     expect(fills('\\iffalse % \\fi\n \\skeinjones{a} \\fi \\skeinjones{b}')).toEqual([{ id: 'b', math: false }]);
   });

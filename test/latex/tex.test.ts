@@ -167,13 +167,14 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       '\\iffalse \\skeinjones{hidden9} \\else $\\skeinwrithe{k4}$ \\fi',
       '\\iffalse % \\fi',
       '\\skeinjones{hidden10} \\fi \\skeinvalue{k5}{statement}',
+      '\\iftrue \\skeinjones{k6} \\ifnum1=1 \\else\\fi \\else \\skeinjones{hidden11} \\fi',
       '\\end{document}',
     ].join('\n');
     const dir = workDir('hidden', true);
     writeFileSync(join(dir, 'hidden.tex'), paper);
     const doc = readLatexManuscript(join(dir, 'hidden.tex'), { read: (p) => readFileSync(p, 'utf8') });
     const read = doc.fills.map((f) => (f.target.kind === 'macro' ? `${f.target.key} of \`${f.target.id}'` : ''));
-    expect(read).toEqual(['jones of `k1\'', 'jones of `k2\'', 'span of `k3\'', 'writhe of `k4\'', 'statement of `k5\'']);
+    expect(read).toEqual(['jones of `k1\'', 'jones of `k2\'', 'span of `k3\'', 'writhe of `k4\'', 'statement of `k5\'', 'jones of `k6\'']);
     const run = pdflatex(dir, 'hidden.tex');
     expect(run.ok).toBe(true);
     const warned = packageWarnings(run.log, 'skeinproof')
