@@ -1,7 +1,8 @@
 /**
  * The SARIF 2.1.0 reporter, for code-scanning dashboards: one run, the rule
- * catalogue as the driver's rules, one result per diagnostic with its
- * physical location (1-based lines and columns, end column just after the span).
+ * catalogue as the driver's rules, the files named as the run's artifacts, and
+ * one result per diagnostic with its physical location (1-based lines and
+ * columns, end column just after the span; the artifact by URI and index).
  */
 import type * as Sarif from 'sarif';
 import type { Diagnostic, Severity } from '../core/diagnostics/diagnostic.ts';
@@ -29,7 +30,7 @@ function resultMessage(d: Diagnostic): string {
   return parts.join(' ');
 }
 
-function location(d: Diagnostic): Sarif.Location[] {
+function location(d: Diagnostic, files: readonly string[]): Sarif.Location[] {
   if (!d.location) return [];
   const { start, end } = d.location;
   const region: Sarif.Region = {
@@ -38,19 +39,23 @@ function location(d: Diagnostic): Sarif.Location[] {
     endLine: end?.line ?? start.line,
     endColumn: end?.column ?? start.column + 1,
   };
-  return [{ physicalLocation: { artifactLocation: { uri: pathToUri(d.location.file) }, region } }];
+  const artifactLocation = { uri: pathToUri(d.location.file), index: files.indexOf(d.location.file) };
+  return [{ physicalLocation: { artifactLocation, region } }];
 }
 
 export function sarifLog(diagnostics: readonly Diagnostic[], options: SarifOptions = {}): Sarif.Log {
   const ids = [...RULES.map((r) => r.id)];
   for (const d of diagnostics) if (!ids.includes(d.ruleId)) ids.push(d.ruleId);
   const rules: Sarif.ReportingDescriptor[] = ids.map((id) => ({ id, shortDescription: { text: ruleDescription(id) } }));
+  // Each file named by a result, once, in order of first mention; results point at it by index.
+  const files = [...new Set(diagnostics.flatMap((d) => (d.location ? [d.location.file] : [])))];
+  const artifacts: Sarif.Artifact[] = files.map((file) => ({ location: { uri: pathToUri(file) } }));
   const results: Sarif.Result[] = diagnostics.map((d) => ({
     ruleId: d.ruleId,
     ruleIndex: ids.indexOf(d.ruleId),
     level: LEVEL[d.severity],
     message: { text: resultMessage(d) },
-    locations: location(d),
+    locations: location(d, files),
     ...(d.data || d.claimed !== undefined
       ? { properties: { ...(d.claimed !== undefined ? { claimed: d.claimed } : {}), ...(d.computed !== undefined ? { computed: d.computed } : {}), ...(d.data ?? {}) } }
       : {}),
@@ -62,7 +67,7 @@ export function sarifLog(diagnostics: readonly Diagnostic[], options: SarifOptio
     rules,
   };
   // Our columns count UTF-16 code units, as the diagnostic model says.
-  return { version: '2.1.0', $schema: SARIF_SCHEMA, runs: [{ tool: { driver }, columnKind: 'utf16CodeUnits', results }] };
+  return { version: '2.1.0', $schema: SARIF_SCHEMA, runs: [{ tool: { driver }, artifacts, columnKind: 'utf16CodeUnits', results }] };
 }
 
 export function formatSarif(diagnostics: readonly Diagnostic[], options: SarifOptions = {}): string {

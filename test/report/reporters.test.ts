@@ -114,9 +114,27 @@ describe('SARIF 2.1.0 reporter', () => {
     expect(first.message.text).toContain('Computed: t + t^3 - t^4.');
     expect(log.runs[0]!.tool.driver.rules![first.ruleIndex!]!.id).toBe(first.ruleId);
     const physical = first.locations![0]!.physicalLocation!;
-    expect(physical.artifactLocation!.uri).toBe('notes.md');
+    expect(physical.artifactLocation).toEqual({ uri: 'notes.md', index: 0 });
     expect(physical.region).toEqual({ startLine: 3, startColumn: claimStart + 1, endLine: 3, endColumn: claimStart + 1 + claimText.length });
     expect(results[3]!.locations).toEqual([]);
+  });
+  it('lists the files of several manuscripts once each as artifacts, and results point at theirs (SARIF 2.1.0 §3.24, §3.4.5)', () => {
+    const elsewhere = (file: string, line: number): Diagnostic => ({
+      severity: 'error',
+      ruleId: 'claim-unreadable',
+      message: 'm',
+      location: { file, start: { line, column: 1 }, end: { line, column: 4 } },
+    });
+    const several = sarifLog([elsewhere('a.md', 1), elsewhere('chapters/b c.tex', 2), elsewhere('a.md', 3), { severity: 'error', ruleId: 'code-invalid', message: 'x' }]);
+    const run = several.runs[0]!;
+    expect(run.artifacts).toEqual([{ location: { uri: 'a.md' } }, { location: { uri: 'chapters/b%20c.tex' } }]);
+    const pointed = run.results!.flatMap((r) => r.locations!.map((l) => l.physicalLocation!.artifactLocation!));
+    expect(pointed).toEqual([
+      { uri: 'a.md', index: 0 },
+      { uri: 'chapters/b%20c.tex', index: 1 },
+      { uri: 'a.md', index: 0 },
+    ]);
+    for (const a of pointed) expect(run.artifacts![a.index!]!.location!.uri).toBe(a.uri);
   });
   it('serialises to JSON that parses back to the same log', () => {
     expect(JSON.parse(formatSarif(all, { toolVersion: '0.1.0', informationUri: 'https://example.invalid/skeinproof' }))).toEqual(log);
