@@ -162,6 +162,22 @@ describe('robustness (fast-check): any text is either read or refused with an In
   });
 });
 
+describe('number claims', () => {
+  it('refuse a decimal with a fix in the terms of a number, not of polynomial coefficients', () => {
+    try {
+      readNumber('2.5', 'the span of the Jones polynomial');
+      throw new Error('not refused');
+    } catch (e) {
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).message).toBe('the decimal `2.5` cannot be read: write the span of the Jones polynomial as an integer or a fraction such as `5/2`');
+      expect((e as InputError).span).toEqual({ start: 0, end: 3 });
+    }
+  });
+  it('skip a left-hand side holding a decimal, as it is not part of the value', () => {
+    expect(read('V_{1.5}(t) = t').value.equals(poly([1, 1]))).toBe(true);
+  });
+});
+
 describe('integer claims are exact at any size', () => {
   it('reads plain and braced integers as BigInt, beyond 2^53', () => {
     expect(readInteger('123456789012345678901234567890', 'the determinant')).toBe(123456789012345678901234567890n);

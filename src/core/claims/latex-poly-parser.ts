@@ -36,8 +36,11 @@ const MAX_EXPANDED_POWER = 64;
 const MAX_EXPANDED_SPAN = 4096;
 const MAX_EXPONENT = 100000;
 
-/** `stray`: a character no value contains, refused unless it lies in a skipped left-hand side (`V_{K'}(t) =`). */
-type TokenKind = 'number' | 'letter' | 'op' | 'command' | 'stray' | 'end';
+/**
+ * `stray`: a character no value contains; `decimal`: a number with a decimal point. Both are refused
+ * unless they lie in a skipped left-hand side (`V_{K'}(t) =`).
+ */
+type TokenKind = 'number' | 'decimal' | 'letter' | 'op' | 'command' | 'stray' | 'end';
 
 interface Token {
   readonly kind: TokenKind;
@@ -115,10 +118,9 @@ function tokenize(text: string): Token[] {
       if (text[j] === '.' && /[0-9]/.test(text[j + 1] ?? '')) {
         let k = j + 1;
         while (k < text.length && /[0-9]/.test(text[k]!)) k++;
-        fail(
-          `the decimal \`${text.slice(i, k)}\` cannot be read: coefficients are integers, and exponents are written as fractions such as \`5/2\``,
-          { start: i, end: k },
-        );
+        tokens.push({ kind: 'decimal', text: text.slice(i, k), start: i, end: k });
+        i = k;
+        continue;
       }
       tokens.push({ kind: 'number', text: text.slice(i, j), start: i, end: j });
       i = j;
@@ -232,7 +234,15 @@ class PolynomialParser {
   /** `V(t) = t + t^3 - t^4`: the value is what follows the last `=` outside any group; stray characters after it are refused. */
   private skipLeftHandSide(): void {
     this.findLeftHandSide();
-    const stray = this.tokens.slice(this.pos).find((t) => t.kind === 'stray');
+    const stray = this.tokens.slice(this.pos).find((t) => t.kind === 'stray' || t.kind === 'decimal');
+    if (stray?.kind === 'decimal') {
+      fail(
+        this.readingNumber
+          ? `the decimal \`${stray.text}\` cannot be read: write ${this.what()} as an integer or a fraction such as \`5/2\``
+          : `the decimal \`${stray.text}\` cannot be read: coefficients are integers, and exponents are written as fractions such as \`5/2\``,
+        stray,
+      );
+    }
     if (stray) fail(`unexpected character \`${stray.text}\`: a polynomial is made of integers, its variable, + − · ^ and brackets`, stray);
   }
 
