@@ -83,6 +83,11 @@ describe('skeinproof compute --json', () => {
 });
 
 describe('skeinproof compute (plain)', () => {
+  it('lists only the non-zero linking numbers of a link of many components (three positive Hopf links, lk = +1 each from memory, and a circle)', () => {
+    const { status, stdout } = skeinproof('compute', '--notation', 'braid', '--strands', '7', '1 1 3 3 5 5');
+    expect(status).toBe(0);
+    expect(stdout).toContain('linking  lk(0,1) = +1, lk(2,3) = +1, lk(4,5) = +1; lk = 0 for the other 18 pairs');
+  });
   it('writes the degrees of V of the positive Hopf link as fractions, like its polynomial (from memory: V = −t^(1/2) − t^(5/2))', () => {
     const { status, stdout } = skeinproof('compute', '--notation', 'braid', '1 1');
     expect(status).toBe(0);

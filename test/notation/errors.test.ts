@@ -3,7 +3,7 @@
  * token or tuple at fault and spans it (0-based offsets into the code text).
  */
 import { describe, expect, it } from 'vitest';
-import { parseDiagramCode } from '../../src/core/notation/index.ts';
+import { MAX_COMPONENTS, parseDiagramCode } from '../../src/core/notation/index.ts';
 import { expectCodeError, jonesByStateSum, parseError, poly } from './helpers.ts';
 
 describe('PD code errors', () => {
@@ -211,6 +211,20 @@ describe('the Unicode minus sign U+2212 of typeset text', () => {
   });
   it('still refuses other dashes, naming the token', () => {
     expectCodeError(parseError('1 –2', 'braid'), '1 –2', '–2', ['Token 2', 'not a braid generator']);
+  });
+});
+
+describe('links of too many components', () => {
+  // Every pair of components gets a linking number; before the cap, the braid word "9999" (10 000 strands) ran out of memory.
+  it('refuses a braid whose strands make more than MAX_COMPONENTS components, spanning the word', () => {
+    const error = parseError('9999', 'braid');
+    expectCodeError(error, '9999', '9999', ['9999 components', `at most ${MAX_COMPONENTS}`, 'linking number']);
+  });
+  it('counts crossingless components too, and accepts exactly MAX_COMPONENTS', () => {
+    const circles = (k: number): string => Array.from({ length: k }, () => '()').join(' ');
+    expect(parseDiagramCode(circles(MAX_COMPONENTS), 'gauss').freeLoops).toBe(MAX_COMPONENTS);
+    const text = circles(MAX_COMPONENTS + 1);
+    expectCodeError(parseError(text, 'gauss'), text, text, [`${MAX_COMPONENTS + 1} components`]);
   });
 });
 

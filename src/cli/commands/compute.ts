@@ -9,7 +9,7 @@
  */
 import type { Argv } from 'yargs';
 import { analyzeDiagram } from '../../core/analyze/analyze.ts';
-import type { DiagramReport } from '../../core/analyze/report.ts';
+import type { DiagramReport, LinkingNumber } from '../../core/analyze/report.ts';
 import type { Notation } from '../../core/diagram/model.ts';
 import { isInputError, type InputError } from '../../core/errors.ts';
 import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notation/index.ts';
@@ -52,6 +52,18 @@ const degree = (e: number): string => {
   return q === 1 ? `${p}` : `${p}/${q}`;
 };
 
+/** Up to this many pairs (six components) every linking number is listed; past it only the non-zero ones (JSON keeps all). */
+const LINKING_PAIRS_LISTED = 15;
+
+function linkingLine(linking: readonly LinkingNumber[]): string {
+  const show = (l: LinkingNumber): string => `lk(${l.components[0]},${l.components[1]}) = ${signed(l.value)}`;
+  if (linking.length <= LINKING_PAIRS_LISTED) return linking.map(show).join(', ');
+  const nonZero = linking.filter((l) => l.value !== 0);
+  const zeros = linking.length - nonZero.length;
+  if (nonZero.length === 0) return `lk = 0 for all ${linking.length} pairs of components`;
+  return `${nonZero.map(show).join(', ')}${zeros > 0 ? `; lk = 0 for the other ${zeros} pair${zeros === 1 ? '' : 's'}` : ''}`;
+}
+
 /** The human summary of one analysed code: a heading line and indented facts. */
 export function plainSummary(position: number, code: string, r: DiagramReport): string {
   const lines: string[] = [];
@@ -65,9 +77,7 @@ export function plainSummary(position: number, code: string, r: DiagramReport): 
   lines.push(`  diagram  ${yesNo(r.connected, 'connected', 'split into several pieces')}, ${yesNo(r.reduced, 'reduced', 'not reduced')}, ${yesNo(r.alternating, 'alternating', 'not alternating')}, ${adequacy}`);
   lines.push(`           all-A state ${count(r.stateCircles.a, 'circle')}, all-B state ${count(r.stateCircles.b, 'circle')}`);
   if (r.nugatory.length > 0) lines.push(`  nugatory crossing${r.nugatory.length === 1 ? '' : 's'} (from 0): ${r.nugatory.join(', ')}`);
-  if (r.linking.length > 0) {
-    lines.push(`  linking  ${r.linking.map((l) => `lk(${l.components[0]},${l.components[1]}) = ${signed(l.value)}`).join(', ')}`);
-  }
+  if (r.linking.length > 0) lines.push(`  linking  ${linkingLine(r.linking)}`);
   const c = r.crossingNumber;
   const verdict = c.exact !== null ? `exactly ${c.exact}` : `between ${c.lower} and ${c.upper}`;
   lines.push(`  crossing number ${verdict}`);
