@@ -106,5 +106,5 @@ function byPosition(a: Diagnostic, b: Diagnostic): number {
 }
 
 export { extractManuscript } from './extract.ts';
-export { applySplices } from './splice.ts';
+export { applySplices, sourceOffsetOf } from './splice.ts';
 export { SourceText } from './source-text.ts';

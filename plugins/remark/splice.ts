@@ -22,3 +22,19 @@ export function applySplices(source: string, splices: readonly Splice[]): string
   }
   return out + source.slice(at);
 }
+
+/**
+ * The offset in the source of an offset into the spliced text: text the splices
+ * left alone maps back exactly, text they put in maps to the start of what it replaced.
+ */
+export function sourceOffsetOf(splices: readonly Splice[], splicedOffset: number): number {
+  const sorted = [...splices].sort((a, b) => a.start - b.start || a.end - b.end);
+  let shift = 0; // spliced offset minus source offset, before the next splice
+  for (const s of sorted) {
+    const splicedStart = s.start + shift;
+    if (splicedOffset < splicedStart) break;
+    if (splicedOffset < splicedStart + s.text.length) return s.start;
+    shift += s.text.length - (s.end - s.start);
+  }
+  return splicedOffset - shift;
+}

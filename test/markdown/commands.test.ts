@@ -66,6 +66,17 @@ describe('check', () => {
     expect(build.stderr).toContain('is a directory');
   });
 
+  it('puts the caret under the span on a first line that starts with a byte order mark', () => {
+    const doc = join(work, 'bom.md');
+    const line = 'The writhe is :writhe[$2$]{of=k}.';
+    writeFileSync(doc, `\uFEFF${line}\n\n\`\`\`skein id=k notation=braid\n1 1 1\n\`\`\`\n`);
+    const r = skeinproof(['check', doc]);
+    expect(r.status).toBe(1);
+    const column = line.indexOf('$2$') + 1;
+    expect(r.stdout).toContain(`${doc}:1:${column}: error: wrong writhe`);
+    expect(r.stdout).toContain(` 1 | ${line}\n   | ${' '.repeat(column - 1)}^~~\n`);
+  });
+
   it('refuses an unknown extension and a bad convention as usage errors', () => {
     const txt = join(work, 'c.txt');
     writeFileSync(txt, TREFOIL);

@@ -84,7 +84,8 @@ export function reportDiagnostics(diagnostics: readonly Diagnostic[], format: Re
   const sources = new Map<string, string>();
   for (const f of files) {
     try {
-      sources.set(f, readFileSync(f, 'utf8'));
+      // Columns count from after a byte order mark, as editors do, so the excerpt leaves it out too.
+      sources.set(f, readFileSync(f, 'utf8').replace(/^\uFEFF/, ''));
     } catch {
       // An unreadable file is already a diagnostic of its own.
     }

@@ -12,7 +12,7 @@ import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { VFile } from 'vfile';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
-import remarkSkeinproof, { applySplices, type SkeinproofData } from '../../../plugins/remark/index.ts';
+import remarkSkeinproof, { applySplices, sourceOffsetOf, SourceText, type SkeinproofData } from '../../../plugins/remark/index.ts';
 import { renderHtmlPage } from '../html/page.ts';
 import type { FormatOptions, FormatResult, ManuscriptFormat, OutputFile } from './types.ts';
 
@@ -88,13 +88,16 @@ export const markdownFormat: ManuscriptFormat = {
         ...(data.settings.notation ? { defaultNotation: data.settings.notation } : {}),
       });
       outputs.push({ path: output, content: page.html });
+      // The page's offsets count from after a byte order mark, the splices' from the start of the text.
+      const bom = text.startsWith('\uFEFF') ? 1 : 0;
+      const source = new SourceText(text.slice(bom), path);
       for (const p of page.mathProblems) {
         diagnostics.push({
           severity: 'warning',
           ruleId: 'math-untypeset',
-          message: `KaTeX cannot typeset this math, so the page shows it as an error: ${p.message}`,
-          location: { file: path, start: { line: p.line ?? 1, column: p.column ?? 1 } },
-          hints: ['The line and column are those of the filled-in Markdown; correct the LaTeX in the manuscript.'],
+          message: `KaTeX cannot typeset this formula, so the page shows it in red: ${p.message}`,
+          location: source.location(p.offset === undefined ? 0 : sourceOffsetOf(data.splices, p.offset + bom) - bom),
+          hints: ['Correct the LaTeX of this formula in the manuscript (KaTeX supports most, not all, of LaTeX math).'],
         });
       }
     }

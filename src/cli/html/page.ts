@@ -33,8 +33,8 @@ export interface PageOptions {
 
 export interface RenderedPage {
   readonly html: string;
-  /** KaTeX's complaints about math it could not typeset, with positions in the Markdown. */
-  readonly mathProblems: readonly { readonly message: string; readonly line?: number; readonly column?: number }[];
+  /** KaTeX's complaints about math it could not typeset, with the offset of the formula in the Markdown given. */
+  readonly mathProblems: readonly { readonly message: string; readonly offset?: number }[];
 }
 
 const PAGE_STYLE = `body{margin:0;background:#fdfdfb;color:#1d1d1f;font:17px/1.55 Georgia,"Times New Roman",serif}
@@ -92,7 +92,12 @@ ${body}
 `;
   return {
     html: page,
-    mathProblems: file.messages.map((m) => ({ message: m.reason, ...(m.line ? { line: m.line } : {}), ...(m.column ? { column: m.column } : {}) })),
+    mathProblems: file.messages.map((m) => {
+      // KaTeX's own words ("Expected '}', got 'EOF'") say what is wrong; the plugin's reason only that something is.
+      const cause = m.cause instanceof Error ? m.cause.message : undefined;
+      const offset = m.place && 'start' in m.place ? m.place.start.offset : undefined;
+      return { message: cause ?? m.reason, ...(offset !== undefined ? { offset } : {}) };
+    }),
   };
 }
 
