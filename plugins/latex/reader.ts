@@ -345,6 +345,8 @@ class ManuscriptReader {
       if (row.number <= head) continue;
       if (row.cells.every((c) => c.content.text === '')) continue;
       const place = `skein table ${table}, row ${row.number}`;
+      // A row that is one \multicolumn is a label inside the table (`\multicolumn{3}{l}{Torus knots}`), like a spacer.
+      if (row.cells.length === 1 && /^\\multicolumn(?![A-Za-z])/.test(row.cells[0]!.content.text)) continue;
       const multi = row.cells.find((c) => c.content.text.includes('\\multicolumn'));
       if (multi) {
         this.error(file, multi.content, 'latex-table-malformed', `${place}: a skein table cannot hold \\multicolumn; give every column its own cell`);

@@ -368,6 +368,43 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     }
   });
 
+  it('header and label rows with \\multicolumn, \\tabularnewline and a nested tabular do not shift the rows TeX counts', async () => {
+    // \\multicolumn builds its own column template (array package); a nested tabular has rows of its own.
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeincode}{id=eight, notation=braid}\n1 -2 1 -2\n\\end{skeincode}',
+      '\\begin{skeintable}[head=2]{id, -, jones}',
+      '\\begin{tabular}{lll}',
+      '\\multicolumn{3}{c}{Two knots} \\\\',
+      '\\multicolumn{2}{c}{Diagram} & $V$ \\tabularnewline',
+      'tref & \\begin{tabular}{@{}l@{}}right\\\\trefoil\\end{tabular} & \\\\',
+      '\\multicolumn{3}{l}{\\emph{Amphichiral}} \\\\ % a label row inside the body',
+      'eight & figure eight & \\\\',
+      '\\end{tabular}',
+      '\\end{skeintable}',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('multicolumn-head', true);
+    writeFileSync(join(dir, 'head.tex'), paper);
+    const doc = readLatexManuscript(join(dir, 'head.tex'), { read: (p) => readFileSync(p, 'utf8') });
+    const places = doc.fills.map((f) => (f.target.kind === 'cell' ? `${f.entry.target} ${f.target.table} ${f.target.row} ${f.target.column}` : ''));
+    expect(doc.diagnostics).toEqual([]);
+    expect(places).toEqual(['tref 1 3 3', 'eight 1 5 3']);
+    // TeX fills exactly the cells the reader found, row for row.
+    const logged = places.map((p) => {
+      const [, t, r, c] = p.split(' ');
+      return `\\skein@cell{${t}}{${r}}{${c}}{t}{\\typeout{FILLED ${p}}}`;
+    });
+    writeFileSync(join(dir, 'head.skein.tex'), `${logged.join('\n')}\n`);
+    const run = pdflatex(dir, 'head.tex');
+    expect(run.ok).toBe(true);
+    expect([...run.log.matchAll(/^FILLED (.*)$/gm)].map((m) => m[1])).toEqual(places);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+  });
+
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
     // Every cell the reader would fill gets a sidecar value that logs its place; TeX must log exactly those,
     // and must find no other empty cell to warn about.
