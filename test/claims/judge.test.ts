@@ -187,11 +187,23 @@ describe('number and property claims', () => {
     expect(judge('linking', '-1', positiveHopf).diagnosis?.kind).toBe('negated');
     expect(() => judge('linking', '1')).toThrow(/two or more components/);
   });
+  it('reads a linking claim after a left-hand side whose comma is not a separator, and a list written as a tuple', () => {
+    expect(judge('linking', 'lk(K_1, K_2) = 1', positiveHopf).verdict).toBe('agrees');
+    expect(judge('linking', '\\operatorname{lk}(K_1,K_2)=1', positiveHopf).reason).toBe('the linking number is 1');
+    // A chain of two Hopf links, closure of σ₁²σ₂²: lk = 1 for neighbours, 0 for the ends (common practice).
+    const chain = analyzeDiagram(closeBraid([1, 1, 2, 2], 3));
+    expect(judge('linking', '(1, 0, 1)', chain).verdict).toBe('agrees');
+    expect(judge('linking', '[1; 0; 1]', chain).verdict).toBe('agrees');
+    expect(judge('linking', '1, 0, -1', chain).reason).toContain('(pair (2,3) differs)');
+    expect(() => judge('linking', '1, 1', chain)).toThrow(/lists 2 linking numbers, but this 3-component link has 3 pairs/);
+    expect(() => judge('linking', '1, 1', positiveHopf)).toThrow(/has 1 pair of components/);
+  });
   it('alternating / reduced / adequate as yes/no/true/false', () => {
     expect(judge('alternating', 'yes').verdict).toBe('agrees');
     expect(judge('reduced', 'True').verdict).toBe('agrees');
     expect(judge('adequate', '\\text{no}').verdict).toBe('contradicts');
     expect(judge('alternating', 'Yes.').verdict).toBe('agrees');
+    expect(judge('alternating', '$\\text{yes}$').verdict).toBe('agrees');
     const nonReduced = analyzeDiagram(closeBraid([1, 1, 1, 2], 3));
     const j = judge('reduced', 'yes', nonReduced);
     expect(j.verdict).toBe('contradicts');

@@ -121,13 +121,11 @@ function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
     throw new InputError('claim-inapplicable', `a linking number claim needs a link of two or more components, but this diagram has ${report.components}; remove the claim or attach it to a link`);
   }
   const pairs = [...report.linking].sort((a, b) => a.components[0] - b.components[0] || a.components[1] - b.components[1]);
-  const parts: { text: string; start: number }[] = [];
-  const partPattern = /[^,;]+/g;
-  for (let m = partPattern.exec(text); m !== null; m = partPattern.exec(text)) parts.push({ text: m[0], start: m.index });
+  const parts = linkingParts(text);
   if (parts.length !== pairs.length) {
     throw new InputError(
       UNREADABLE,
-      `the claim lists ${parts.length} linking number${parts.length === 1 ? '' : 's'}, but this ${report.components}-component link has ${pairs.length} pairs of components; list one value per pair in the order ${pairs.map((p) => `(${p.components[0] + 1},${p.components[1] + 1})`).join(', ')}`,
+      `the claim lists ${parts.length} linking number${parts.length === 1 ? '' : 's'}, but this ${report.components}-component link has ${pairs.length} pair${pairs.length === 1 ? '' : 's'} of components; list one value per pair in the order ${pairs.map((p) => `(${p.components[0] + 1},${p.components[1] + 1})`).join(', ')}`,
       { start: 0, end: text.length },
     );
   }
@@ -135,7 +133,9 @@ function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
   const computedValues = pairs.map((p) => p.value);
   const computed = computedValues.join(', ');
   const base = { key: 'linking' as const, claimed: text, computed };
-  if (claimed.every((v, i) => v === computedValues[i])) return { ...base, verdict: 'agrees', reason: `the linking numbers are ${computed}` };
+  if (claimed.every((v, i) => v === computedValues[i])) {
+    return { ...base, verdict: 'agrees', reason: `the linking number${pairs.length === 1 ? ' is' : 's are'} ${computed}` };
+  }
   const negated = claimed.every((v, i) => v === -computedValues[i]!);
   const diagnosis: Diagnosis | undefined = negated
     ? { kind: 'negated', detail: 'the claim has the opposite sign: reversing the orientation of one component negates its linking numbers' }
@@ -145,8 +145,46 @@ function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
     ...base,
     verdict: 'contradicts',
     ...(diagnosis ? { diagnosis } : {}),
-    reason: `the linking number${pairs.length === 1 ? ' is' : 's are'} ${computed}, not ${claimed.join(', ')}${pairs.length > 1 ? ` (pairs ${wrong.join(', ')} differ)` : ''}${diagnosis ? `: ${diagnosis.detail}` : ''}`,
+    reason: `the linking number${pairs.length === 1 ? ' is' : 's are'} ${computed}, not ${claimed.join(', ')}${pairs.length > 1 ? ` (${wrong.length === 1 ? `pair ${wrong[0]} differs` : `pairs ${wrong.join(', ')} differ`})` : ''}${diagnosis ? `: ${diagnosis.detail}` : ''}`,
   };
+}
+
+/**
+ * The values of a linking claim with their offsets: what follows the last `=`
+ * outside brackets (`\operatorname{lk}(K_1, K_2) = 1`), without one pair of
+ * brackets around the whole list (`(1, 0, 1)`), split at commas and semicolons
+ * outside brackets.
+ */
+function linkingParts(text: string): { text: string; start: number }[] {
+  const depths: number[] = [];
+  let depth = 0;
+  let valueStart = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i]!;
+    if ('([{'.includes(c)) depth++;
+    else if (')]}'.includes(c)) depth--;
+    depths.push(depth);
+    if (c === '=' && depth === 0) valueStart = i + 1;
+  }
+  let start = valueStart + (text.slice(valueStart).length - text.slice(valueStart).trimStart().length);
+  let end = text.trimEnd().length;
+  const open = text[start];
+  const close = text[end - 1];
+  // A list wrapped as a tuple: the opening bracket is closed only by the last character.
+  if (((open === '(' && close === ')') || (open === '[' && close === ']')) && depths.slice(start, end - 1).every((d) => d >= depths[start]!)) {
+    start++;
+    end--;
+  }
+  const base = depths[start] ?? 0;
+  const parts: { text: string; start: number }[] = [];
+  let from = start;
+  for (let i = start; i <= end; i++) {
+    if (i === end || ((text[i] === ',' || text[i] === ';') && depths[i] === base)) {
+      parts.push({ text: text.slice(from, i), start: from });
+      from = i + 1;
+    }
+  }
+  return parts;
 }
 
 function readIntegerAt(part: string, start: number): number {
@@ -164,6 +202,8 @@ const NO = new Set(['no', 'false', 'n']);
 /** Reads yes/no/true/false, also inside \text{…}. */
 export function readYesNo(text: string, noun: string): boolean {
   const bare = text
+    .trim()
+    .replace(/^\$+([^$]*)\$+$/, '$1')
     .trim()
     .replace(/[.,;]$/, '')
     .replace(/^\\(?:text|mathrm|textrm)\{(.*)\}$/, '$1')
