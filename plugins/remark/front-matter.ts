@@ -113,7 +113,13 @@ function readConvention(
   const read = readConventionSettings(record, spans);
   if (read.ok) return read.settings;
   for (const e of read.errors) problems.push(conventionProblem(e.message, e.span, base, source));
-  return undefined;
+  // The settings that are right still apply, so one bad setting does not make every claim written in the declared convention look wrong too.
+  let usable: Partial<Convention> = {};
+  for (const [key, value] of Object.entries(record)) {
+    const one = readConventionSettings({ [key]: value });
+    if (one.ok) usable = { ...usable, ...one.settings };
+  }
+  return usable;
 }
 
 function span(range: readonly number[]): TextSpan {

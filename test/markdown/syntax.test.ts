@@ -215,6 +215,14 @@ describe('front matter', () => {
     expect(r.built).toContain('$-t^{-4} + t^{-3} + t^{-1}$');
   });
 
+  it('still applies the right settings of a convention that has a wrong one, so claims in it are judged in it', async () => {
+    // t = q² (the convention section): the positive trefoil's t + t³ − t⁴ is q² + q⁶ − q⁸.
+    const text = `---\nskeinproof:\n  convention: { jones: q, colour: blue }\n---\n\n${TREFOIL}\n:jones[$q^2 + q^6 - q^8$]{of=tref} :jones{of=tref}\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error convention-invalid ${positionOf(text, 'colour')}`]);
+    expect(r.built.endsWith('$q^2 + q^6 - q^8$ $q^2 + q^6 - q^8$\n')).toBe(true);
+  });
+
   it('locates a bad convention value and an unknown setting', async () => {
     const text = `---\nskeinproof:\n  convention: { jones: x }\n  colour: blue\n---\n`;
     const r = await processMarkdown(text);
