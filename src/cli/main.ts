@@ -43,6 +43,8 @@ export async function main(argv: readonly string[]): Promise<number> {
     });
   for (const command of commands) {
     parser = parser.command(command.command, command.describe, command.builder, async (args) => {
+      // yargs still calls the handler after .fail() has reported a usage error (e.g. a value not among the choices): do not run then.
+      if (usageError !== undefined) return;
       status = await command.run(args as Record<string, unknown>);
     });
   }

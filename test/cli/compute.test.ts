@@ -102,6 +102,19 @@ describe('skeinproof compute (plain)', () => {
     expect(stdout).toContain('nugatory');
     expect(stdout).toContain('crossing number exactly 3');
   });
+  it('refuses a notation outside the choices as a usage error, without running the command (it used to run and crash as an internal error)', () => {
+    const { status, stdout, stderr } = skeinproof('compute', '--notation', 'knot', '1 1');
+    expect(status).toBe(2);
+    expect(stdout).toBe('');
+    expect(stderr).toContain('Choices');
+    expect(stderr).not.toContain('internal error');
+  });
+  it('reads the notation name case-insensitively (PD, DT as written in prose): the positive Hopf link has lk = +1 (from memory)', () => {
+    const { status, stdout } = skeinproof('compute', '--notation', 'PD', '(1,3,2,4) (3,1,4,2)');
+    expect(status).toBe(0);
+    expect(stdout).toContain('#1 pd ');
+    expect(stdout).toContain('lk(0,1) = +1');
+  });
   it('rejects a malformed or misplaced --strands and an unknown option with exit 2', () => {
     expect(skeinproof('compute', '--notation', 'braid', '--strands', '0', '1 1').status).toBe(2);
     expect(skeinproof('compute', '--strands', '3', '(1,5,2,4) (3,1,4,6) (5,3,6,2)').stderr).toContain('braid words only');

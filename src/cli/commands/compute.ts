@@ -215,7 +215,8 @@ export const computeCommand: CliCommand = {
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
       .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
-      .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, describe: 'How the codes are written' })
+      // Case-insensitive, as the notations are usually written in capitals (PD, DT) in prose.
+      .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, coerce: (value: unknown) => String(value).toLowerCase(), describe: 'How the codes are written' })
       .option('strands', { type: 'number', describe: 'Braid words: the number of strands, when more than the largest generator + 1' })
       .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' })
       // Not `array: true`, which would swallow the codes that follow; repeating the flag collects the claims.
