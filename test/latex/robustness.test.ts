@@ -51,4 +51,9 @@ describe('the package file and the reader', () => {
     const defined = [...sty.matchAll(/\\DeclareRobustCommand\*\\(skein[a-z]+)\[1\]\{\\skein@fill\{#1\}\{([a-z-]+)\}\}/g)].map((m) => [m[1], m[2]]);
     expect(Object.fromEntries(defined)).toEqual(FILL_SHORTCUTS);
   });
+
+  it('give every fill-in shortcut a PDF-string version (hyperref bookmarks)', () => {
+    const bookmarked = [...sty.matchAll(/\\def\\(skein[a-z]+)#1\{\\skein@pdfvalue\{#1\}\{([a-z-]+)\}\}/g)].map((m) => [m[1], m[2]]);
+    expect(Object.fromEntries(bookmarked)).toEqual(FILL_SHORTCUTS);
+  });
 });
