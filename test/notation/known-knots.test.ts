@@ -111,6 +111,25 @@ describe('the same link in all four notations', () => {
   });
 });
 
+describe('seven-crossing knots from their DT codes (codes and values from the knot tables, from memory)', () => {
+  // V(-1) = ±det, and the determinants of 7_2, 7_3, 7_4, 7_5 are 11, 13, 15, 17 (from memory); V of 7_2 and 7_4 recalled up to mirror.
+  const cases: [string, string, number, [number, number][] | undefined][] = [
+    ['7_2', '4 10 14 12 2 8 6', 11, [[-8, -1], [-7, 1], [-6, -1], [-5, 2], [-4, -2], [-3, 2], [-2, -1], [-1, 1]]],
+    ['7_3', '6 10 12 14 2 4 8', 13, undefined],
+    ['7_4', '6 10 12 14 4 2 8', 15, [[1, 1], [2, -2], [3, 3], [4, -2], [5, 3], [6, -2], [7, 1], [8, -1]]],
+    ['7_5', '4 10 12 14 2 8 6', 17, undefined],
+  ];
+  for (const [name, code, determinant, jones] of cases) {
+    it(`${name} = ${code}: 7 crossings, |V(-1)| = ${determinant}${jones ? ', V as in the tables up to mirror' : ''}, span 7 (Kauffman–Murasugi–Thistlethwaite: reduced alternating)`, () => {
+      const v = jonesByStateSum(parseDiagramCode(code, 'dt'));
+      const atMinusOne = v.terms().reduce((sum, [e, c]) => sum + (e % 2 === 0 ? c : -c), 0n);
+      expect(atMinusOne === BigInt(determinant) || atMinusOne === BigInt(-determinant)).toBe(true);
+      expect(v.span).toBe(7);
+      if (jones) expect(equalUpToMirror(v, poly(jones))).toBe(true);
+    });
+  }
+});
+
 describe('DT conventions and the chirality chosen', () => {
   const positiveTrefoil = bracketByStateSum(closeBraid([1, 1, 1], 2));
   it('realises the all-positive 4 6 2 as the positive (right-handed) trefoil, and -4 -6 -2 as its mirror', () => {
