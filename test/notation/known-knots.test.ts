@@ -181,6 +181,24 @@ describe('one-crossing PD codes (curls)', () => {
   });
 });
 
+describe('two-crossing links as PD codes are commonly written', () => {
+  // Worked by hand from the slot rule (over strand from entry 4 to entry 2 is positive): in (1,3,2,4) (3,1,4,2)
+  // each component passes under once and its return runs entry 4 → 2 at the other crossing.
+  it('reads (1,3,2,4) (3,1,4,2) as the positive Hopf link and (4,1,3,2) (2,3,1,4) as the negative one (V from memory)', () => {
+    const positive = parseDiagramCode('(1,3,2,4) (3,1,4,2)', 'pd');
+    expect(positive.crossings.map((c) => c.sign)).toEqual([1, 1]);
+    expect(jonesByStateSum(positive).equals(poly([[0.5, -1], [2.5, -1]]))).toBe(true);
+    const negative = parseDiagramCode('(4,1,3,2) (2,3,1,4)', 'pd');
+    expect(negative.crossings.map((c) => c.sign)).toEqual([-1, -1]);
+    expect(jonesByStateSum(negative).equals(poly([[-2.5, -1], [-0.5, -1]]))).toBe(true);
+  });
+  it('reads (1,3,2,4) (2,3,1,4), where the second circle passes over at both crossings, as the 2-component unlink: V = −t^(−1/2) − t^(1/2) (common practice)', () => {
+    const d = parseDiagramCode('(1,3,2,4) (2,3,1,4)', 'pd');
+    expect(writhe(d)).toBe(0);
+    expect(jonesByStateSum(d).equals(poly([[-0.5, -1], [0.5, -1]]))).toBe(true);
+  });
+});
+
 describe('crossing order', () => {
   it('keeps the crossings in the order the code gives them', () => {
     // Tuple order (PD), generator order (braid), ascending crossing number (Gauss), entry order (DT).
