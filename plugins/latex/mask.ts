@@ -64,7 +64,7 @@ export function maskLatex(source: string): string {
       continue;
     }
     if (INLINE_VERBATIM.has(name)) {
-      i = skipInlineVerbatim(source, afterName, blank);
+      i = skipInlineVerbatim(source, name, afterName, blank);
       continue;
     }
     if (name === 'begin') {
@@ -101,15 +101,27 @@ function lineEnd(text: string, from: number): number {
   return end > from && text[end - 1] === '\r' ? end - 1 : end;
 }
 
-function skipInlineVerbatim(text: string, at: number, blank: (from: number, to: number) => void): number {
+/**
+ * Blanks the argument of \\verb or \\lstinline starting at `at` (after the command name). As in LaTeX, spaces
+ * before the delimiter are skipped (\\@sverb in latex.ltx), \\lstinline may take [options] first, and only
+ * \\lstinline pairs `{` with `}`; \\verb ends at the next copy of its delimiter.
+ */
+function skipInlineVerbatim(text: string, name: string, at: number, blank: (from: number, to: number) => void): number {
   let k = at;
   if (text[k] === '*') k++;
+  while (text[k] === ' ' || text[k] === '\t') k++;
+  if (name === 'lstinline' && text[k] === '[') {
+    const options = text.indexOf(']', k);
+    if (options < 0 || options > lineEnd(text, k)) return k;
+    k = options + 1;
+    while (text[k] === ' ' || text[k] === '\t') k++;
+  }
   const open = text[k];
-  if (open === undefined || open === '\n') return k;
-  const close = open === '{' ? '}' : open;
+  if (open === undefined || open === '\n' || open === '\r') return k;
+  const close = open === '{' && name === 'lstinline' ? '}' : open;
   const end = text.indexOf(close, k + 1);
   const line = lineEnd(text, k + 1);
-  // TeX stops \verb at the end of the line; an unterminated one is TeX's error to report.
+  // TeX stops \\verb at the end of the line; an unterminated one is TeX's error to report.
   const stop = end < 0 || end > line ? line : end + 1;
   blank(k, stop);
   return stop;

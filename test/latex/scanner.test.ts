@@ -58,6 +58,12 @@ describe('verbatim (TeX prints these bodies as typed)', () => {
   it('skips \\verb with any delimiter, starred or not', () => {
     expect(fills('\\verb|\\skeinjones{x}| \\verb*+\\skeinjones{z}+ \\skeinjones{y}')).toEqual([{ id: 'y', math: false }]);
   });
+  it('skips spaces before the delimiter and the [options] of \\lstinline, as LaTeX and listings do', () => {
+    // pdflatex (TeX Live 2022) hid h1 to h4 and warned about k1 to k4 for this line.
+    const line = '\\verb |\\skeinjones{h1}| \\verb*  !\\skeinjones{h2}! \\lstinline[language=TeX]|\\skeinjones{h3}| \\skeinjones{k1} ' +
+      '\\lstinline[basicstyle=\\ttfamily] !\\skeinjones{h4}! \\skeinjones{k2}';
+    expect(fills(line)).toEqual([{ id: 'k1', math: false }, { id: 'k2', math: false }]);
+  });
   it('a % inside \\verb is not a comment', () => {
     expect(fills('\\verb|%| \\skeinjones{y}')).toEqual([{ id: 'y', math: false }]);
   });
