@@ -8,7 +8,7 @@ import { expectCodeError, jonesByStateSum, parseError, poly } from './helpers.ts
 
 describe('PD code errors', () => {
   it('refuses an empty code, spanning the whole text', () => {
-    for (const text of ['', '  \n ', ' , ']) expectCodeError(parseError(text, 'pd'), text, text, ['PD code is empty', 'crossingless']);
+    for (const text of ['', '  \n ', ' , ']) expectCodeError(parseError(text, 'pd'), text, text, ['PD code is empty', 'crossingless', 'Gauss code "()"']);
   });
   it('names a label that is not a number, by tuple and entry', () => {
     const text = '(4,2,5,1) (2,x,3,5) (6,4,1,3)';

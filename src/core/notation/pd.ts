@@ -109,7 +109,7 @@ function readTuples(text: string): PdTuple[] {
     i = j + 1;
   }
   if (tuples.length === 0) {
-    throw codeError(`The PD code is empty: write one 4-tuple of edge labels per crossing, ${EXAMPLE}. (A PD code cannot express a crossingless circle.)`, wholeSpan(text));
+    throw codeError(`The PD code is empty: write one 4-tuple of edge labels per crossing, ${EXAMPLE}. (A PD code cannot express a crossingless circle; write the unknot as the Gauss code "()".)`, wholeSpan(text));
   }
   return tuples;
 }
