@@ -101,6 +101,17 @@ describe('statements and every fill key', () => {
     expect(s.text).toContain('Kauffman–Murasugi–Thistlethwaite');
     expect(s.text).toContain('crossing number is $3$');
   });
+  it('states the split-link span bound as span V − (μ − 1), not as span V (the bound for possibly split links, from memory)', () => {
+    const report = analyzeDiagram(closeBraid([1, -2, 1, -2, 1, -2, 2, 2], 3));
+    expect(report.crossingNumber.reasons.find((r) => r.bound === 'lower')?.theorem).toBe('split-span-bound');
+    const s = typesetValue('statement', report, DEFAULT_CONVENTION);
+    expect(s.kind === 'text' && s.text).toContain(
+      `Here $\\operatorname{span} V = ${report.span}$ and the link has $3$ components, so by the span bound for possibly split links the crossing number is at least $\\operatorname{span} V - (3 - 1) = ${report.span - 2}$`,
+    );
+    const inQ = typesetValue('statement', report, { ...DEFAULT_CONVENTION, jonesVariable: 'q' });
+    expect(inQ.kind === 'text' && inQ.text).toContain(`(that is, $${2 * report.span}$ in $q$)`);
+    expect(inQ.kind === 'text' && inQ.text).toContain(`$\\operatorname{span}_t V - (3 - 1) = ${report.span - 2}$`);
+  });
   it('is honest when only bounds are known', () => {
     const report = named[5]![1];
     const { lower, upper } = report.crossingNumber;

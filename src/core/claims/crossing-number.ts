@@ -246,16 +246,17 @@ export function crossingNumberFill(report: DiagramReport): { kind: 'math'; latex
 
 /** Proof-style prose for a `statement` fill, with inline math between single dollars. */
 export function crossingNumberStatement(report: DiagramReport, convention: Convention): string {
-  const { lower, upper, exact } = report.crossingNumber;
+  const { upper, exact } = report.crossingNumber;
   const n = report.crossings;
   const k = report.nugatory.length;
   const letter = jonesLetter(convention.jonesVariable);
   const jones = conventionJones(report.jones, convention);
   // The span is stated in the document's variable; the theorem is about span in t.
+  const spanSymbol = letter === 't' ? '\\operatorname{span} V' : '\\operatorname{span}_t V';
   const spanPhrase =
     letter === 't'
-      ? `$\\operatorname{span} V = ${numberLatex(jones.span)}$`
-      : `$\\operatorname{span}_t V = ${numberLatex(report.span)}$ (that is, ${numberLatex(jones.span)} in $q$)`;
+      ? `$${spanSymbol} = ${numberLatex(jones.span)}$`
+      : `$${spanSymbol} = ${numberLatex(report.span)}$ (that is, $${numberLatex(jones.span)}$ in $q$)`;
   const crossingsPhrase = `$${n}$ crossing${n === 1 ? '' : 's'}`;
   const exactReason = reasonFor(report, 'exact');
   if (n === 0) return `The diagram has no crossings, so it shows an unlink and its crossing number is $0$.`;
@@ -271,13 +272,31 @@ export function crossingNumberStatement(report: DiagramReport, convention: Conve
       case 'split-union':
         return `The diagram falls apart into separate pieces whose crossing numbers are known, and crossing numbers add under split union, so the crossing number is $${exact}$.`;
       default:
-        return `Here ${spanPhrase}, which bounds the crossing number below by $${lower}$, and the diagram has ${crossingsPhrase}${
+        return `${lowerBoundClause(report, spanPhrase, spanSymbol)}, and the diagram has ${crossingsPhrase}${
           k > 0 ? `, $${k}$ of them nugatory,` : ','
         } which bounds it above by $${upper}$; the bounds meet, so the crossing number is $${exact}$.`;
     }
   }
-  const lowerReason = reasonFor(report, 'lower');
-  const lowerSource = lowerReason ? THEOREM_NAMES[lowerReason.theorem] : 'the span of $V$';
   const upperSource = k > 0 ? `removing its $${k}$ nugatory crossing${k === 1 ? '' : 's'}` : `the diagram itself, with ${crossingsPhrase},`;
-  return `Here ${spanPhrase}, so by ${lowerSource} the crossing number is at least $${lower}$, and ${upperSource} shows it is at most $${upper}$. The bounds do not meet: ${gapExplanation(report)}.`;
+  return `${lowerBoundClause(report, spanPhrase, spanSymbol)}, and ${upperSource} shows it is at most $${upper}$. The bounds do not meet: ${gapExplanation(report)}.`;
+}
+
+/** "Here span V = 3, so by … the crossing number is at least $3$", in the terms of the theorem behind the lower bound. */
+function lowerBoundClause(report: DiagramReport, spanPhrase: string, spanSymbol: string): string {
+  const { lower } = report.crossingNumber;
+  const reason = reasonFor(report, 'lower');
+  if (!reason) return `Here ${spanPhrase}, so the crossing number is at least $${lower}$`;
+  switch (reason.theorem) {
+    case 'split-span-bound': {
+      // The bound is span V − (μ − 1), never below 0, not span V itself: say where the difference comes from.
+      const mu = report.components;
+      const raw = report.span - (mu - 1);
+      const formula = raw === lower ? `${spanSymbol} - (${mu} - 1) = ` : raw < 0 && lower === 0 ? `\\max(0, ${spanSymbol} - (${mu} - 1)) = ` : '';
+      return `Here ${spanPhrase} and the link has $${mu}$ components, so by the span bound for possibly split links the crossing number is at least $${formula}${lower}$`;
+    }
+    case 'split-union':
+      return `The diagram falls apart into separate pieces, and crossing numbers add under split union, so the pieces' own lower bounds show the crossing number is at least $${lower}$`;
+    default:
+      return `Here ${spanPhrase}, so by ${THEOREM_NAMES[reason.theorem]} the crossing number is at least $${lower}$`;
+  }
 }
