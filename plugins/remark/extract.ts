@@ -4,7 +4,7 @@
  * the edits a build makes to the text. Syntax problems become diagnostics; no
  * value is computed here.
  */
-import type { Code, InlineCode, Nodes, PhrasingContent, Root, Table, TableCell, Text, Yaml } from 'mdast';
+import type { Code, Html, InlineCode, Nodes, PhrasingContent, Root, Table, TableCell, Text, Yaml } from 'mdast';
 import type { ContainerDirective, TextDirective } from 'mdast-util-directive';
 import { visit, SKIP } from 'unist-util-visit';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
@@ -94,7 +94,8 @@ class Extractor {
       if (node.type === 'code' && node.lang === DIAGRAM_FENCE_LANGUAGE) this.diagramBlock(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
-      else if (node.type === 'text') this.strayMarkup(node);
+      // Markdown inside a raw HTML block (`<div>` up to the next blank line) is not parsed, so nor are claims there.
+      else if (node.type === 'text' || node.type === 'html') this.strayMarkup(node);
       return undefined;
     });
     return {
@@ -247,27 +248,27 @@ class Extractor {
 
   /**
    * Text that looks like one of our directives but was not parsed as one (a
-   * label broken over lines, remark-directive missing) would silently go
-   * unchecked; say so.
+   * label broken over lines, remark-directive missing, raw HTML around it)
+   * would silently go unchecked; say so.
    */
-  private strayMarkup(node: Text): void {
+  private strayMarkup(node: Text | Html): void {
     const [start, end] = offsets(node);
     const slice = this.text.slice(start, end);
     const pattern = /(?<![\w:\\]):([a-z][a-z-]*)(?=\[|\{of=)/g;
     for (let m = pattern.exec(slice); m !== null; m = pattern.exec(slice)) {
       const name = m[1]!;
       if (!isClaimKey(name) && !isFillKey(name)) continue;
-      this.strayWarning(name, start + m.index);
+      this.strayWarning(name, start + m.index, node.type === 'html' ? STRAY_IN_HTML_HINT : undefined);
     }
   }
 
-  private strayWarning(name: string, at: number): void {
+  private strayWarning(name: string, at: number, hint = STRAY_HINT): void {
     this.problems.push({
       severity: 'warning',
       ruleId: 'markup-invalid',
       message: `\`:${name}\` here is read as plain text, not as a claim or fill-in, so nothing is checked or filled in`,
       location: this.source.location(at, at + 1 + name.length),
-      hints: ['Keep the label [ … ] on one line and write {of=ID} right after it; in a pipeline of your own, add remark-directive.'],
+      hints: [hint],
     });
   }
 
@@ -433,6 +434,9 @@ class Extractor {
     return { target: id, named: before !== '' };
   }
 }
+
+const STRAY_HINT = 'Keep the label [ … ] on one line and write {of=ID} right after it; in a pipeline of your own, add remark-directive.';
+const STRAY_IN_HTML_HINT = 'Markdown is not read inside raw HTML up to the next blank line: put a blank line after the HTML tag, or move the claim out of the HTML.';
 
 function offsets(node: Nodes): [number, number] {
   return [node.position?.start.offset ?? 0, node.position?.end.offset ?? 0];

@@ -299,6 +299,14 @@ describe('broken directives', () => {
     expect((await processMarkdown(text, { strict: true })).failed).toBe(true);
   });
 
+  it('warns about a claim inside a raw HTML block, which Markdown does not read', async () => {
+    const text = `${TREFOIL}\n<div class="remark">\nThe writhe is :writhe[$4$]{of=tref}.\n</div>\n\n<span>:writhe[$3$]{of=tref}</span> is read.\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`warning markup-invalid ${positionOf(text, ':writhe')}`]);
+    expect(r.diagnostics[0]!.hints?.[0]).toMatch(/raw HTML/);
+    expect(r.built).toContain('<span>$3$</span> is read.');
+  });
+
   it('reads a label that wraps onto a plain line, and locates inside it', async () => {
     const text = `${TREFOIL}\nA :jones[$t + t^3\n- t^4$]{of=tref} and :jones[$t + t^3\nt^{4}$]{of=tref}\n`;
     const r = await processMarkdown(text.replace('\n- t^4', ' - t^4'));
