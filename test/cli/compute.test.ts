@@ -83,6 +83,16 @@ describe('skeinproof compute --json', () => {
 });
 
 describe('skeinproof compute (plain)', () => {
+  it('keeps the caret under the token at fault when the code contains tabs (shown as spaces)', () => {
+    const code = '(4,2,5,1)\t\t(2,6,3,5)\t(6,4,1,7)';
+    const { status, stderr } = skeinproof('compute', code);
+    expect(status).toBe(2);
+    const [echo, caret] = stderr.split('\n').filter((line) => line.startsWith('  | '));
+    expect(echo).toBe(`  | ${code.replace(/\t/g, ' ')}`);
+    // Label 3 appears once (tuple 2), at offset 15 of the code.
+    expect(caret!.indexOf('^') - '  | '.length).toBe(code.indexOf('3'));
+    expect(echo![caret!.indexOf('^')]).toBe('3');
+  });
   it('lists only the non-zero linking numbers of a link of many components (three positive Hopf links, lk = +1 each from memory, and a circle)', () => {
     const { status, stdout } = skeinproof('compute', '--notation', 'braid', '--strands', '7', '1 1 3 3 5 5');
     expect(status).toBe(0);

@@ -97,7 +97,8 @@ export function invalidCodeMessage(position: number, code: string, notation: Not
     const line = code.slice(lineStart, lineEndAt < 0 ? code.length : lineEndAt);
     const column = error.span.start - lineStart;
     const width = Math.max(1, Math.min(error.span.end, lineStart + line.length) - error.span.start);
-    lines.push(`  | ${line}`, `  | ${' '.repeat(column)}${'^'.repeat(width)}`);
+    // Tabs shown as single spaces: a terminal would widen them and push the caret off its token.
+    lines.push(`  | ${line.replace(/\t/g, ' ')}`, `  | ${' '.repeat(column)}${'^'.repeat(width)}`);
   }
   for (const hint of error.hints) lines.push(`  hint: ${hint}`);
   return lines.join('\n');
