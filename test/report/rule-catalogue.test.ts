@@ -22,7 +22,7 @@ function sourceFiles(dir: string): string[] {
   });
 }
 
-/** Rule ids as given: `ruleId: 'x'`, `ruleId: CLAIM_RULES.k`, `new InputError('x'`, `InputError(NAME` with `const NAME = 'x'`, `this.error(…, 'x'` / `this.problem('x'`. */
+/** Rule ids as given: `ruleId: 'x'`, `ruleId: CLAIM_RULES.k`, `new InputError('x'`, `InputError(NAME` or `ruleId: NAME` with `const NAME = 'x'`, `this.error(…, 'x'` / `this.problem('x'`. */
 function emittedRuleIds(): Map<string, string> {
   const found = new Map<string, string>(); // id → first file using it
   const files = [...sourceFiles(join(ROOT, 'src')), ...sourceFiles(join(ROOT, 'plugins'))];
@@ -38,7 +38,7 @@ function emittedRuleIds(): Map<string, string> {
     for (const m of text.matchAll(new RegExp(String.raw`\bruleId\s*[:=]\s*'(${RULE_ID})'`, 'g'))) record(m[1]!, file);
     for (const m of text.matchAll(new RegExp(String.raw`\bInputError\(\s*'(${RULE_ID})'`, 'g'))) record(m[1]!, file);
     for (const m of text.matchAll(/\bruleId\s*:\s*CLAIM_RULES\.(\w+)/g)) record(CLAIM_RULES[m[1] as keyof typeof CLAIM_RULES], file);
-    for (const m of text.matchAll(/\bInputError\(\s*([A-Z_]+)\s*,/g)) {
+    for (const m of text.matchAll(/(?:\bInputError\(\s*|\bruleId\s*:\s*)([A-Z_]+)\s*,/g)) {
       const id = constants.get(m[1]!);
       if (id !== undefined) record(id, file);
     }
