@@ -207,7 +207,6 @@ class Scanner {
   }
 
   private codeEnvironment(start: number): void {
-    const closing = '\\end{skeincode}';
     const options = this.group(this.pos);
     if (!options) {
       const bracketed = this.bracket(this.pos) !== undefined;
@@ -217,24 +216,23 @@ class Scanner {
           : '\\begin{skeincode} needs its options in braces right after it, e.g. \\begin{skeincode}{id=trefoil, notation=braid}',
         { start, end: this.pos },
       );
-      const close = this.text.indexOf(closing, this.pos);
-      if (close >= 0) this.pos = close + closing.length; // its \end belongs to this environment, not a stray one
+      const close = this.codeEnd(this.pos);
+      if (close) this.pos = close.end; // its \end belongs to this environment, not a stray one
       return;
     }
-    const close = this.text.indexOf(closing, options.next);
-    if (close < 0) {
+    const endSpan = this.codeEnd(options.next);
+    if (!endSpan) {
       this.problem('latex-environment-unclosed', '\\begin{skeincode} is never closed: add \\end{skeincode} after the code', { start, end: options.next });
       this.pos = options.next;
       return;
     }
-    const endSpan = { start: close, end: close + closing.length };
     this.items.push({
       kind: 'code',
       span: { start, end: endSpan.end },
       beginSpan: { start, end: options.next },
       endSpan,
       options: options.arg,
-      body: { text: this.text.slice(options.next, close), start: options.next, end: close },
+      body: { text: this.text.slice(options.next, endSpan.start), start: options.next, end: endSpan.start },
     });
     this.pos = endSpan.end;
   }
@@ -290,6 +288,14 @@ class Scanner {
     });
     // The cells are scanned as ordinary text too, so fill-ins in free columns are found.
     this.pos = spec.next;
+  }
+
+  /** The first `\end{skeincode}` from `from` on (LaTeX allows spaces before the brace, as in `\end {skeincode}`). */
+  private codeEnd(from: number): Span | undefined {
+    const pattern = /\\end\s*\{skeincode\}/g;
+    pattern.lastIndex = from;
+    const m = pattern.exec(this.text);
+    return m ? { start: m.index, end: m.index + m[0].length } : undefined;
   }
 
   /** The `\end{name}` matching an already opened `\begin{name}`, counting nested ones. */

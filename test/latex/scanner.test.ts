@@ -156,6 +156,15 @@ describe('arguments', () => {
     expect(text.slice(code.body.start, code.body.end)).toBe('\n1 1 1\n');
     expect(code.endSpan.end).toBe(text.length);
   });
+  it('spaces before the braces of \\begin and \\end are allowed, as LaTeX allows them', () => {
+    // pdflatex (TeX Live 2022) typesets `\begin {skeincode} {…} … \end {skeincode}` as one environment.
+    const text = '\\begin {skeincode} {id=t, notation=braid}\n1 1 1\n\\end {skeincode} after';
+    const { items, problems } = scan(text);
+    expect(problems).toEqual([]);
+    const code = items[0] as Extract<ScanItem, { kind: 'code' }>;
+    expect(text.slice(code.body.start, code.body.end)).toBe('\n1 1 1\n');
+    expect(text.slice(code.endSpan.start, code.endSpan.end)).toBe('\\end {skeincode}');
+  });
   it('finds \\input with braces and in the bare form', () => {
     const paths = scan('\\input{a/b}\n\\input c.tex\n\\include{d}')
       .items.filter((i) => i.kind === 'input')
