@@ -87,6 +87,14 @@ describe('braid word errors', () => {
     expect(d.crossings.map((c) => c.sign)).toEqual([1, 1, 1]);
     expect(d.freeLoops).toBe(1);
   });
+  it('reads a word wrapped in one pair of brackets, as lists are often printed ([1, -2, 1, -2]: figure-eight, V from memory)', () => {
+    const figureEight = poly([[-2, 1], [-1, -1], [0, 1], [1, -1], [2, 1]]);
+    for (const text of ['[1, -2, 1, -2]', ' (1 -2 1 -2) ']) expect(jonesByStateSum(parseDiagramCode(text, 'braid')).equals(figureEight)).toBe(true);
+  });
+  it('names any other bracket by offset', () => {
+    expectCodeError(parseError('1 (2) 1', 'braid'), '1 (2) 1', '(', ['Unexpected "(" at offset 2', 'flat list']);
+    expectCodeError(parseError('[1 1 1', 'braid'), '[1 1 1', '[', ['Unexpected "[" at offset 0']);
+  });
 });
 
 describe('Gauss code errors', () => {

@@ -5,13 +5,17 @@
  */
 import { closeBraid } from '../diagram/braid-closure.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
-import { codeError, integerValue, isOversizedInteger, quote, splitTokens, wholeSpan, type Token } from './common.ts';
+import { codeError, integerValue, isOversizedInteger, listTokens, quote, wholeSpan, type Token } from './common.ts';
 
 /** Larger indices are refused: they would only add thousands of untouched strands. */
 export const MAX_BRAID_STRANDS = 10_000;
 
 export function parseBraidWord(text: string, options: { strands?: number } = {}): LinkDiagram {
-  const tokens = splitTokens(text);
+  const tokens = listTokens(
+    text,
+    (bracket, offset) =>
+      `Unexpected "${bracket}" at offset ${offset}: a braid word is a flat list of signed generator indices, at most wrapped in one pair of brackets, e.g. "1 -2 1 -2" or "[1, -2, 1, -2]".`,
+  );
   if (tokens.length === 0) {
     throw codeError('The braid word is empty: write signed generator indices separated by spaces or commas, e.g. "1 -2 1 -2".', wholeSpan(text));
   }

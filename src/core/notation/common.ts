@@ -47,6 +47,26 @@ export function splitTokens(text: string): Token[] {
   return tokens;
 }
 
+const CLOSER: Readonly<Record<string, string>> = { '(': ')', '[': ']' };
+
+/**
+ * The tokens of a flat list code (a braid word, a DT code), with their offsets
+ * in the text. One pair of brackets around the whole list, as in [4, 6, 2], is
+ * allowed, since lists are often printed so; any other bracket is refused with
+ * the message `strayBracket` gives.
+ */
+export function listTokens(text: string, strayBracket: (bracket: string, offset: number) => string): Token[] {
+  let first = 0;
+  while (first < text.length && isSeparator(text[first]!)) first++;
+  let last = text.length - 1;
+  while (last > first && isSeparator(text[last]!)) last--;
+  // Blank out the outer pair rather than cut it off, so offsets stay those of the text.
+  const body = last > first && CLOSER[text[first]!] === text[last] ? `${text.slice(0, first)} ${text.slice(first + 1, last)} ${text.slice(last + 1)}` : text;
+  const bracket = /[()[\]{}]/.exec(body);
+  if (bracket) throw codeError(strayBracket(bracket[0], bracket.index), { start: bracket.index, end: bracket.index + 1 });
+  return splitTokens(body);
+}
+
 /** A token as quoted in a message; long tokens are shortened. */
 export function quote(text: string): string {
   const shown = text.length > 24 ? `${text.slice(0, 20)}…` : text;

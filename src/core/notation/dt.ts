@@ -25,7 +25,7 @@
  */
 import { assembleDiagram, type RawCrossing } from '../diagram/assemble.ts';
 import type { LinkDiagram, Sign } from '../diagram/model.ts';
-import { codeError, integerValue, isOversizedInteger, isSeparator, quote, splitTokens, wholeSpan, type Token } from './common.ts';
+import { codeError, integerValue, isOversizedInteger, listTokens, quote, wholeSpan, type Token } from './common.ts';
 import { firstNonPlanarPiece } from './planarity.ts';
 
 /** The interlacement test is cubic (over 32-bit words): 1500 entries take about half a second. */
@@ -36,7 +36,11 @@ type PassEnd = 'oddIn' | 'oddOut' | 'evenIn' | 'evenOut';
 const EXAMPLE = 'e.g. 4 6 2 for a trefoil, 4 6 8 2 for the figure-eight knot';
 
 export function parseDtCode(text: string): LinkDiagram {
-  const tokens = entryTokens(text);
+  const tokens = listTokens(
+    text,
+    (bracket, offset) =>
+      `Unexpected "${bracket}" at offset ${offset}: a DT code is one knot's list of signed even numbers, at most wrapped in one pair of brackets, ${EXAMPLE}. DT codes of links are not read: write a link as a PD or Gauss code.`,
+  );
   if (tokens.length === 0) throw codeError(`The DT code is empty: write the even labels paired with 1, 3, 5, …, ${EXAMPLE}.`, wholeSpan(text));
   if (tokens.length > MAX_DT_ENTRIES) throw codeError(`The DT code has ${tokens.length} entries; at most ${MAX_DT_ENTRIES} are supported.`, wholeSpan(text));
   const entries = readEntries(tokens);
@@ -63,30 +67,6 @@ export function parseDtCode(text: string): LinkDiagram {
     throw codeError('No planar knot diagram has this DT code (the curve it describes cannot be drawn in the plane without extra crossings). Check the entries for a misprint.', wholeSpan(text));
   }
   return diagram;
-}
-
-const CLOSER: Readonly<Record<string, string>> = { '(': ')', '[': ']' };
-
-/**
- * The entries, with their offsets in the text. One pair of brackets around the
- * whole code, as in [4, 6, 2], is allowed (codes are often printed so); any
- * other bracket is refused, since grouped entries would be a link's code.
- */
-function entryTokens(text: string): Token[] {
-  let first = 0;
-  while (first < text.length && isSeparator(text[first]!)) first++;
-  let last = text.length - 1;
-  while (last > first && isSeparator(text[last]!)) last--;
-  // Blank out the outer pair rather than cut it off, so offsets stay those of the text.
-  const body = last > first && CLOSER[text[first]!] === text[last] ? `${text.slice(0, first)} ${text.slice(first + 1, last)} ${text.slice(last + 1)}` : text;
-  const bracket = /[()[\]{}]/.exec(body);
-  if (bracket) {
-    throw codeError(
-      `Unexpected "${bracket[0]}" at offset ${bracket.index}: a DT code is one knot's list of signed even numbers, at most wrapped in one pair of brackets, ${EXAMPLE}. DT codes of links are not read: write a link as a PD or Gauss code.`,
-      { start: bracket.index, end: bracket.index + 1 },
-    );
-  }
-  return splitTokens(body);
 }
 
 /** "2", "2 and 4", "2, 4, …, 2n": the labels a code of n entries uses. */
