@@ -130,6 +130,24 @@ describe('slip diagnoses, each on its slip and not on a correct claim', () => {
     expect(mirrorJudgement.warning).toMatch(/mirror/);
     expect(mirrorJudgement.diagnosis?.kind).toBe('mirror');
   });
+  it('for a DT code, diagnoses a slip from the mirror image’s value too (4 6 2: a trefoil, V = t + t³ − t⁴ or its mirror, from memory)', () => {
+    const dt = analyzeDiagram(parseDiagramCode('4 6 2', 'dt'));
+    expect(dt.chiralityFixed).toBe(false);
+    const mirrorOf = (p: Laurent) => p.substitutePower(-1);
+    const own = dt.jones;
+    // One sign wrong in the mirror's value: −t⁻⁴ + t⁻³ + t⁻¹ with the last sign flipped.
+    const claim = mirrorOf(own).sub(Laurent.monomial(-1, 2n * mirrorOf(own).coefficient(-1)));
+    const j = judge('jones', claim.toPlainString('t').replace(/\(([^)]*)\)/g, '{$1}'), dt);
+    expect(j.verdict).toBe('contradicts');
+    expect(j.diagnosis?.kind).toBe('one-coefficient');
+    expect(j.diagnosis?.detail).toMatch(/^compared with the mirror image's value .*, which a DT code allows as well: only the coefficient of t\^\{-1\} differs/);
+    expect(j.diagnosis?.term).toEqual({ exponent: -1, computed: String(mirrorOf(own).coefficient(-1)), claimed: String(-mirrorOf(own).coefficient(-1)) });
+    // The same value is two slips away from a braid's fixed chirality: no single slip explains it.
+    expect(judge('jones', '-t^{-4}+t^{-3}-t^{-1}').diagnosis?.kind).toBe('none');
+    const negatedMirror = judge('jones', mirrorOf(own).neg().toPlainString('t').replace(/\(([^)]*)\)/g, '{$1}'), dt);
+    expect(negatedMirror.diagnosis?.kind).toBe('negated');
+    expect(negatedMirror.diagnosis?.detail).toContain('that value with every sign reversed');
+  });
   it('judges in the declared convention: the q-graded Hopf link value (t^{1/2} = −q)', () => {
     const convention: Convention = { ...DEFAULT_CONVENTION, jonesVariable: 'q-graded' };
     expect(judge('jones', 'q + q^5', positiveHopf, { convention }).verdict).toBe('agrees');

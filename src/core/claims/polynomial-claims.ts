@@ -220,8 +220,20 @@ function diagnose(claim: Laurent, claimLetter: string, subject: Subject, ctx: Ju
   return { kind: 'none', detail: 'no common slip (mirror image, sign, power shift, normalisation, one coefficient, another diagram) explains the difference' };
 }
 
+function subjectOf(key: PolynomialKey, report: DiagramReport, convention: Convention): Subject {
+  return key === 'jones' ? jonesSubject(report, convention) : bracketSubject(report, convention);
+}
+
+/**
+ * What the subjects read of the mirror image's report: V(t⁻¹), ⟨D⟩(A⁻¹) and −w.
+ * (Subjects read only these three fields.)
+ */
+function mirrorReport(report: DiagramReport): DiagramReport {
+  return { ...report, jones: report.jones.substitutePower(-1), bracket: report.bracket.substitutePower(-1), writhe: -report.writhe };
+}
+
 export function judgePolynomialClaim(key: PolynomialKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
-  const subject = key === 'jones' ? jonesSubject(report, ctx.convention) : bracketSubject(report, ctx.convention);
+  const subject = subjectOf(key, report, ctx.convention);
   const read = readPolynomial(text, { variables: readableLetters(subject), what: `the ${subject.noun}` });
   const claimLetter = read.variable ?? subject.letter;
   const computedLatex = polynomialLatex(subject.computed, subject.letter, styleOf(ctx.convention));
@@ -229,7 +241,17 @@ export function judgePolynomialClaim(key: PolynomialKey, text: string, report: D
   if (claimLetter === subject.letter && read.value.equals(subject.computed)) {
     return { ...base, verdict: 'agrees', reason: `the claim equals the computed ${subject.noun}` };
   }
-  const diagnosis = diagnose(read.value, claimLetter, subject, ctx);
+  let diagnosis = diagnose(read.value, claimLetter, subject, ctx);
+  if (diagnosis.kind === 'none' && !report.chiralityFixed) {
+    // A DT code allows either chirality, so the author may have started from the mirror's value.
+    const mirrorSubject = subjectOf(key, mirrorReport(report), ctx.convention);
+    const againstMirror = diagnose(read.value, claimLetter, mirrorSubject, ctx);
+    if (againstMirror.kind !== 'none') {
+      const mirrorLatex = polynomialLatex(mirrorSubject.computed, subject.letter, styleOf(ctx.convention));
+      const slip = againstMirror.detail.replace('the computed value', 'that value');
+      diagnosis = { ...againstMirror, detail: `compared with the mirror image's value ${mirrorLatex}, which a DT code allows as well: ${slip}` };
+    }
+  }
   if (diagnosis.kind === 'mirror' && !report.chiralityFixed) {
     return {
       ...base,
