@@ -43,8 +43,9 @@ export function excerpt(location: SourceLocation, text: string, caretColor?: str
     : location.end.line === location.start.line
       ? Math.min(location.end.column, line.length + 1)
       : line.length + 1;
-  const width = Math.max(1, end - start);
-  const padding = line.slice(0, start - 1).replace(/[^\t]/g, ' ');
+  // A character outside the BMP is two UTF-16 units but one place on screen: pad and underline by code points.
+  const width = Math.max(1, Array.from(line.slice(start - 1, end - 1)).length);
+  const padding = Array.from(line.slice(0, start - 1), (ch) => (ch === '\t' ? '\t' : ' ')).join('');
   const gutter = String(location.start.line);
   const blank = ' '.repeat(gutter.length);
   const marker = `^${'~'.repeat(width - 1)}`;

@@ -77,6 +77,17 @@ describe('check', () => {
     expect(r.stdout).toContain(` 1 | ${line}\n   | ${' '.repeat(column - 1)}^~~\n`);
   });
 
+  it('counts columns in UTF-16 units (as the SARIF run declares) and puts the caret under the span after astral characters and tabs', () => {
+    const doc = join(work, 'astral.md');
+    const line = 'Été, 𝔸 and 😀:\t:writhe[$2$]{of=k}.';
+    writeFileSync(doc, `\`\`\`skein id=k notation=braid\n1 1 1\n\`\`\`\n\n${line}\n`);
+    const r = skeinproof(['check', doc]);
+    const column = line.indexOf('$2$') + 1; // String indices are UTF-16 units.
+    expect(r.stdout).toContain(`${doc}:5:${column}: error: wrong writhe`);
+    // On screen each of 𝔸 and 😀 takes one place, so the caret line has one space per code point, and the tab itself.
+    expect(r.stdout).toContain(` 5 | ${line}\n   | ${' '.repeat(13)}\t${' '.repeat(8)}^~~\n`);
+  });
+
   it('refuses an unknown extension and a bad convention as usage errors', () => {
     const txt = join(work, 'c.txt');
     writeFileSync(txt, TREFOIL);
