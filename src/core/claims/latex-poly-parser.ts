@@ -284,13 +284,17 @@ class PolynomialParser {
   }
 
   private unexpected(t: Token): never {
-    if (t.kind === 'end') fail(`the value ends too early: ${this.what()} is incomplete here`, { start: t.start, end: t.end });
+    if (t.kind === 'end') {
+      const last = this.tokens[this.pos - 1];
+      const after = last ? ` after \`${this.text.slice(last.start, last.end) || last.text}\`` : '';
+      fail(`the value ends too early${after}: ${this.what()} is incomplete; add what is missing or remove the last sign or operator`, { start: t.start, end: t.end });
+    }
     if (this.isOp(t, '}')) fail('unbalanced braces: this `}` closes no `{`; remove it or add the matching `{`', t);
     if (this.isOp(t, ')') || this.isOp(t, ']')) fail(`unbalanced brackets: this \`${t.text}\` closes nothing; remove it or add the opening bracket`, t);
     if (t.kind === 'number')
       fail(`the number \`${t.text}\` follows a factor: write coefficients first (e.g. \`3t^2\`), or put a multi-digit exponent in braces (\`t^{23}\`)`, t);
     const shown = t.kind === 'command' ? `\\${t.text}` : this.text.slice(t.start, t.end) || t.text;
-    fail(`unexpected \`${shown}\` here: ${this.what()} cannot continue this way`, t);
+    fail(`unexpected \`${shown}\` here: ${this.what()} cannot continue this way; remove it, or join it to what comes before with + , − or \\cdot`, t);
   }
 
   private parseSum(): Spanned<Laurent> {
@@ -350,7 +354,7 @@ class PolynomialParser {
 
   private divide(dividend: Laurent, divisor: Spanned<Laurent>): Laurent {
     const d = divisor.value;
-    if (d.isZero) fail('division by zero', divisor);
+    if (d.isZero) fail('division by zero: the value is undefined; correct the denominator', divisor);
     if (d.termCount !== 1)
       fail(
         `division by a non-monomial: a Laurent polynomial can be divided only by a single term such as \`t^2\`; multiply out and write the terms`,
@@ -481,7 +485,7 @@ class PolynomialParser {
     }
     if (this.isOp(t, '-'))
       fail('a negative exponent must be braced: write `^{-…}` (TeX would raise only the sign)', { start: caret.start, end: t.end });
-    if (t.kind === 'end') fail('the exponent after `^` is missing', caret);
+    if (t.kind === 'end') fail('the exponent after `^` is missing: write it after the `^`, e.g. `t^{2}`, or remove the `^`', caret);
     if (t.kind === 'letter') fail(`the exponent \`${t.text}\` is not a number: exponents must be numbers such as \`-3\` or \`5/2\``, t);
     fail('the exponent after `^` must be a digit or a braced number such as `{-3}` or `{5/2}`', t);
   }
@@ -515,7 +519,7 @@ class PolynomialParser {
     while (this.isOp(this.peek(), '/')) {
       this.next();
       const d = this.parseRationalAtom();
-      if (d.value.p === 0) fail('division by zero in the exponent', d);
+      if (d.value.p === 0) fail('division by zero in the exponent: correct the denominator', d);
       value = rational(value.p * d.value.q, value.q * d.value.p);
       end = d.end;
     }
@@ -537,7 +541,7 @@ class PolynomialParser {
       const command = this.next();
       const num = this.rationalArgument(command, 'a numerator and a denominator');
       const den = this.rationalArgument(command, 'a denominator');
-      if (den.value.p === 0) fail('division by zero in the exponent', den);
+      if (den.value.p === 0) fail('division by zero in the exponent: correct the denominator', den);
       return { value: rational(num.value.p * den.value.q, num.value.q * den.value.p), start: command.start, end: den.end };
     }
     if (this.isOp(t, '(') || this.isOp(t, '{')) {
@@ -559,7 +563,9 @@ class PolynomialParser {
       }
       fail(`the exponent contains \`${t.text}\`: exponents must be numbers such as \`-3\` or \`5/2\``, t);
     }
-    if (t.kind === 'end') fail(this.readingNumber ? `the value ends too early: ${this.what()} is incomplete here` : 'the exponent is incomplete', t);
+    if (t.kind === 'end') {
+      fail(this.readingNumber ? `the value ends too early: ${this.what()} is incomplete; finish it, e.g. \`5/2\`` : 'the exponent is incomplete: finish it, e.g. `t^{-1/2}`', t);
+    }
     this.unexpected(t);
   }
 
@@ -595,7 +601,7 @@ class PolynomialParser {
     if (r.q !== 1 && c !== 1n)
       fail(`the coefficient ${c} cannot be raised to the power ${formatRational(r)} exactly: write the coefficient outside`, base);
     if (r.q === 1 && c !== 1n && c !== -1n)
-      fail(`${c} to the power ${formatRational(r)} is a fraction: invariant polynomials here have integer coefficients`, whole);
+      fail(`${c} to the power ${formatRational(r)} is a fraction: invariant polynomials here have integer coefficients; write the terms out`, whole);
     const coefficient = r.q === 1 && c === -1n && r.p % 2 !== 0 ? -1n : 1n;
     if (e === 0) return Laurent.constant(coefficient);
     // e·r exactly, on the lattice of the variable's exponents.
