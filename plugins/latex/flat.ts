@@ -45,6 +45,11 @@ function replacement(doc: LatexDocument, file: SourceFile, s: Splice, values: re
 function fillText(fill: LatexFill, value: Typeset, written: string): string {
   const t = fill.target;
   if (t.kind === 'macro') {
+    // hyperref makes a PDF bookmark of a section title, where math is not allowed: it shows the value as typed.
+    if (value.kind === 'math' && t.inTitle && !t.math) {
+      const typed = /[\\^_{}]/.test(value.latex) ? `\\detokenize{${value.latex}}` : value.latex;
+      return `\\texorpdfstring{$${value.latex}$}{${typed}}`;
+    }
     if (value.kind === 'math') return t.math ? value.latex : `$${value.latex}$`;
     return t.math ? `\\mbox{${value.text}}` : value.text;
   }

@@ -31,7 +31,7 @@ export interface LatexFileSystem {
 
 /** Where a fill-in's value goes: a macro of a named diagram, or an empty cell of a skein table. */
 export type FillTarget =
-  | { readonly kind: 'macro'; readonly id: string; readonly key: FillKey; readonly math: boolean }
+  | { readonly kind: 'macro'; readonly id: string; readonly key: FillKey; readonly math: boolean; readonly inTitle: boolean }
   | {
       readonly kind: 'cell';
       readonly table: number;
@@ -73,10 +73,12 @@ const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
 /**
  * What the package provides, in plain LaTeX for the flat copy: the array
  * package it loads (tables keep its look, and column templates such as
- * >{$}c<{$} keep working), and \operatorname for statements, which amsmath
- * defines properly when the document loads it.
+ * >{$}c<{$} keep working), \operatorname for statements, which amsmath
+ * defines properly when the document loads it, and \texorpdfstring for values
+ * in section titles, which hyperref defines when the document loads it.
  */
-const VALUE_SUPPORT = '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}';
+const VALUE_SUPPORT =
+  '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}';
 /** Characters a diagram code may contain that plain LaTeX would not print as typed. */
 const SPECIAL_IN_CODE = /[\^_&#$~]/g;
 
@@ -207,7 +209,7 @@ class ManuscriptReader {
     }
     if (id === undefined || key === undefined) return;
     splices.push({ kind: 'fill', span: item.span, fill: this.fills.length });
-    this.fills.push({ entry: { target: id, key, locate: locatorFor(file, item.span) }, target: { kind: 'macro', id, key, math: item.math } });
+    this.fills.push({ entry: { target: id, key, locate: locatorFor(file, item.span) }, target: { kind: 'macro', id, key, math: item.math, inTitle: item.inTitle } });
   }
 
   private claim(file: SourceFile, item: Extract<ScanItem, { kind: 'claim' }>, splices: Splice[]): void {

@@ -33,7 +33,16 @@ export const FILL_SHORTCUTS: Readonly<Record<string, string>> = {
 
 export type ScanItem =
   | { readonly kind: 'code'; readonly span: Span; readonly beginSpan: Span; readonly endSpan: Span; readonly options: Arg; readonly body: Arg }
-  | { readonly kind: 'fill'; readonly span: Span; readonly macro: string; readonly id: Arg; readonly key: Arg | string; readonly math: boolean }
+  | {
+      readonly kind: 'fill';
+      readonly span: Span;
+      readonly macro: string;
+      readonly id: Arg;
+      readonly key: Arg | string;
+      readonly math: boolean;
+      /** In the title of a sectioning command, which hyperref also turns into a PDF bookmark. */
+      readonly inTitle: boolean;
+    }
   | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg }
   | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
   | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg }
@@ -70,6 +79,9 @@ const TEXT_IN_MATH: ReadonlySet<string> = new Set([
   'text', 'mbox', 'hbox', 'fbox', 'textrm', 'textit', 'textbf', 'textsf', 'texttt', 'textup', 'textsl', 'textnormal', 'intertext', 'shortintertext',
 ]);
 
+/** Commands whose title (and [short title]) hyperref also writes as a PDF bookmark. */
+const SECTIONING: ReadonlySet<string> = new Set(['part', 'chapter', 'section', 'subsection', 'subsubsection', 'paragraph', 'subparagraph']);
+
 /** What closes the innermost open group or mode. */
 type Closer = '}' | '$' | '$$' | '\\)' | '\\]' | `env:${string}`;
 
@@ -93,6 +105,8 @@ class Scanner {
   private readonly tableEnds = new Set<number>();
   /** Set when an argument's `{` was reported unclosed, so the caller does not also call it missing. */
   private unclosedReported = false;
+  /** The arguments of sectioning commands read so far (their insides are scanned as usual). */
+  private readonly titles: Span[] = [];
 
   constructor(private readonly text: string) {}
 
@@ -161,6 +175,7 @@ class Scanner {
       return;
     }
     this.pendingMode = undefined;
+    if (SECTIONING.has(name)) return this.title();
     switch (name) {
       case 'begin':
         return this.begin(start);
@@ -345,15 +360,25 @@ class Scanner {
     if (settings) this.items.push({ kind: 'convention', span: { start, end: this.pos }, settings: settings[0]! });
   }
 
+  /** Notes where the [short title] and {title} of a sectioning command lie; reading goes on inside them. */
+  private title(): void {
+    const at = this.text[this.pos] === '*' ? this.pos + 1 : this.pos;
+    const short = this.bracket(at);
+    const full = this.delimited(short ? short.next : at, '{', '}', false);
+    if (short) this.titles.push({ start: short.arg.start, end: short.arg.end });
+    if (full) this.titles.push({ start: full.arg.start, end: full.arg.end });
+  }
+
   private fill(start: number, macro: string, fixedKey: string | undefined): void {
     const math = this.inMath();
+    const inTitle = this.titles.some((t) => t.start <= start && start < t.end);
     if (fixedKey !== undefined) {
       const args = this.requiredGroups(start, `\\${macro}`, ['diagram id'], `e.g. \\${macro}{trefoil}`);
-      if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: fixedKey, math });
+      if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: fixedKey, math, inTitle });
       return;
     }
     const args = this.requiredGroups(start, `\\${macro}`, ['diagram id', 'key'], `e.g. \\${macro}{trefoil}{jones}`);
-    if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: args[1]!, math });
+    if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: args[1]!, math, inTitle });
   }
 
   private claim(start: number): void {
@@ -388,7 +413,8 @@ class Scanner {
     return this.delimited(at, '[', ']');
   }
 
-  private delimited(at: number, open: string, close: string): { arg: Arg; next: number } | undefined {
+  /** `report`: whether a `{` never closed is reported (not for arguments only looked at, whose insides are read on anyway). */
+  private delimited(at: number, open: string, close: string, report = true): { arg: Arg; next: number } | undefined {
     const t = this.text;
     let k = at;
     while (k < t.length && (t[k] === ' ' || t[k] === '\t' || t[k] === '\n' || t[k] === '\r')) {
@@ -407,7 +433,7 @@ class Scanner {
         if (braces < 0) break;
       } else if (c === close && braces === 0) return { arg: { text: t.slice(k + 1, j), start: k + 1, end: j }, next: j + 1 };
     }
-    if (open === '{') {
+    if (open === '{' && report) {
       this.problem('latex-brace-unbalanced', 'this `{` is never closed: add the matching `}`', { start: k, end: k + 1 });
       this.unclosedReported = true;
     }

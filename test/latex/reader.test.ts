@@ -41,8 +41,8 @@ describe('what the reader extracts', () => {
       ['tre', 'writhe', '3'],
     ]);
     expect(doc.fills.map((f) => f.target)).toEqual([
-      { kind: 'macro', id: 'tre', key: 'jones', math: false },
-      { kind: 'macro', id: 'tre', key: 'span', math: true },
+      { kind: 'macro', id: 'tre', key: 'jones', math: false, inTitle: false },
+      { kind: 'macro', id: 'tre', key: 'span', math: true, inTitle: false },
     ]);
     // Positions: the code starts on line 6, the writhe claim's `3` (inside $…$) on line 8.
     expect(doc.diagrams[0]!.locateCode().start).toMatchObject({ line: 6, column: 1 });
@@ -263,7 +263,7 @@ describe('building', () => {
     const { doc, session } = build();
     // The positive Hopf link (closure of σ₁²): V = −t^{1/2} − t^{5/2} (from memory), span 2, writhe 2.
     expect(flatText(doc, session.fills)).toBe(
-      '\\documentclass{article}\n\\usepackage{amsmath}\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}}\n\n\\begin{document}\n' +
+      '\\documentclass{article}\n\\usepackage{amsmath}\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}\n\n\\begin{document}\n' +
         '\\begin{flushleft}\\ttfamily\n1 1% Hopf\n\\end{flushleft}\n' +
         'Values: $-t^{5/2} - t^{1/2}$, $w = 2$, claimed $2$.\n' +
         '\n\\begin{tabular}{ll}\nId & span\\\\\nh & \\ensuremath{2} \\\\\n\\end{tabular}\n\n\\end{document}\n',

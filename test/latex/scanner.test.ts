@@ -165,6 +165,11 @@ describe('arguments', () => {
     expect(text.slice(code.body.start, code.body.end)).toBe('\n1 1 1\n');
     expect(text.slice(code.endSpan.start, code.endSpan.end)).toBe('\\end {skeincode}');
   });
+  it('knows which fill-ins are in section titles (hyperref makes bookmarks of them), short titles too', () => {
+    const text = '\\section*[Short \\skeinjones{a}]{Long \\skeinjones{b} $\\skeinspan{c}$} \\skeinjones{d} \\caption{\\skeinjones{e}} \\subsection {\\skeinwrithe{f}}';
+    const inTitle = scan(text).items.flatMap((i) => (i.kind === 'fill' ? [[i.id.text, i.inTitle]] : []));
+    expect(inTitle).toEqual([['a', true], ['b', true], ['c', true], ['d', false], ['e', false], ['f', true]]);
+  });
   it('finds \\input with braces and in the bare form', () => {
     const paths = scan('\\input{a/b}\n\\input c.tex\n\\include{d}')
       .items.filter((i) => i.kind === 'input')

@@ -279,7 +279,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(doc.fills).toHaveLength(7);
   });
 
-  it('fill-ins in section titles under hyperref: no error before or after the build, the value in the bookmark', async () => {
+  it('fill-ins in section titles under hyperref: no error before or after the build, the value in the bookmark, in the flat copy too', async () => {
     // hyperref expands section titles into PDF bookmark strings, where a robust command is not allowed (hyperref manual).
     const paper = [
       '\\documentclass{article}',
@@ -308,6 +308,19 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     // The positive trefoil (from memory): V = t + t^3 - t^4, writhe 3.
     expect(squeeze(after.text)).toContain(asPdfText('The polynomial t + t^3 - t^4 of writhe 3'));
     expect(bookmarks(join(dir, 'titles.out'))).toEqual(['The polynomial t + t^3 - t^4 of writhe 3']);
+
+    // The flat copy, compiled without the package, gives hyperref the same bookmark.
+    const flatDir = workDir('hyperref-flat', false);
+    writeFileSync(join(flatDir, 'titles.tex'), paper);
+    const flat = await latexFormat.build(join(flatDir, 'titles.tex'), { output: join(flatDir, 'flat.tex') });
+    expect(flat.failed).toBe(false);
+    for (const o of flat.outputs) writeFileSync(o.path, o.content);
+    pdflatex(flatDir, 'flat.tex');
+    const flatRun = pdflatex(flatDir, 'flat.tex');
+    expect(flatRun.ok).toBe(true);
+    expect(unwrapLog(flatRun.log)).not.toMatch(/Warning|^!/m);
+    expect(squeeze(flatRun.text)).toContain(asPdfText('The polynomial t + t^3 - t^4 of writhe 3'));
+    expect(bookmarks(join(flatDir, 'flat.out'))).toEqual(['The polynomial t + t^3 - t^4 of writhe 3']);
   });
 
   it('the convention given as package options: LaTeX accepts them, and both builds typeset in it', async () => {
