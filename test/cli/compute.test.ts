@@ -146,6 +146,10 @@ describe('skeinproof compute (plain)', () => {
     const alone = skeinproof('compute', '-n', 'braid', '--', '-1 -1');
     expect(alone.status).toBe(0);
     expect(alone.stdout).toContain('2 crossings, 2 components');
+    // Taken as typed, not as a number: "1e3" would otherwise become the valid word "1000".
+    const numeric = skeinproof('compute', '--json', '-n', 'braid', '--', '1e3');
+    expect(numeric.status).toBe(2);
+    expect(jsonLines(numeric.stdout)[0]).toMatchObject({ code: '1e3', error: { ruleId: 'code-invalid' } });
   });
 
   it('stops quietly when the reader closes the pipe early, as in `compute … | head -1` (common practice), with no stack trace', async () => {

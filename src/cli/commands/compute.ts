@@ -214,7 +214,7 @@ export const computeCommand: CliCommand = {
   builder: (y: Argv) =>
     y
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
-      .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true })
+      .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true, 'parse-numbers': false, 'parse-positional-numbers': false })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
       // Case-insensitive, as the notations are usually written in capitals (PD, DT) in prose.
       .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, coerce: (value: unknown) => String(value).toLowerCase(), describe: 'How the codes are written' })
