@@ -94,7 +94,8 @@ describe('judging properties on random diagrams', () => {
 });
 
 describe('judgeClaim on arbitrary text', () => {
-  const pieces = ['t', 'q', 'A', 'z', '1', '3', '-', '+', '^', '{', '}', '\\le', '≥', 'yes', 'no', ',', '/', '2', '\\frac', ' ', 'at most', '<', '>='];
+  const pieces = ['t', 'q', 'A', 'z', '1', '3', '-', '+', '^', '{', '}', '\\le', '≥', 'yes', 'no', ',', '/', '2', '\\frac', ' ', 'at most', '<', '>=',
+    'c', '(', ')', '=', '$', '\\text{at least}', '²', '⁻', '.', ';', '[', ']', "'", '1.5', 'lk'];
   it('returns a verdict or throws a located InputError, for every key', () => {
     fc.assert(
       fc.property(reportArb, fc.constantFrom(...CLAIM_KEYS), fc.array(fc.constantFrom(...pieces), { maxLength: 10 }), (report, key, parts) => {
@@ -104,9 +105,15 @@ describe('judgeClaim on arbitrary text', () => {
           expect(['agrees', 'contradicts', 'undecided']).toContain(j.verdict);
         } catch (e) {
           expect(e).toBeInstanceOf(InputError);
+          const span = (e as InputError).span;
+          if (span) {
+            expect(span.start).toBeGreaterThanOrEqual(0);
+            expect(span.start).toBeLessThanOrEqual(span.end);
+            expect(span.end).toBeLessThanOrEqual(text.length);
+          }
         }
       }),
-      { numRuns: 400 },
+      { numRuns: 600 },
     );
   });
 });
