@@ -283,7 +283,7 @@ describe('crossing-number claims against proven bounds', () => {
     expect(judge('crossing-number', `${lower - 1}`, report).verdict).toBe('contradicts');
   });
   it('reads the claim as authors write it: a left-hand side, turned round, words, \\text, dollars (c(3₁) = 3, from memory)', () => {
-    for (const claim of ['c(K) \\le 7', 'c(K) \\leq 3', 'c \\geq 3', 'c(3_1) = 3', '3 \\le c(K)', '7 \\ge c(K)', 'At most 3', '\\text{at most } 3', '$\\le 3$', '\\leqq 4', 'no more than 3']) {
+    for (const claim of ['c(K) \\le 7', 'c(K) \\leq 3', 'c \\geq 3', 'c(3_1) = 3', '3 \\le c(K)', '7 \\ge c(K)', 'At most 3', '\\text{at most } 3', '$\\le 3$', '\\(\\le 3\\)', '\\[ c(K) = 3 \\]', '\\leqq 4', 'no more than 3']) {
       expect(judge('crossing-number', claim).verdict, claim).toBe('agrees');
     }
     expect(judge('crossing-number', '5 \\le c(K)').verdict).toBe('contradicts');

@@ -47,7 +47,7 @@ interface FoundRelation extends Omit<RelationSpec, 'pattern'> {
 /** Math delimiters and text wrappers (`$…$`, `\text{at most}`) blanked to spaces, so every offset still points into the claim. */
 function blankMarkup(text: string): string {
   const blank = (s: string) => ' '.repeat(s.length);
-  return text.replace(/\$/g, ' ').replace(/\\(?:text|textrm|mathrm|mbox)\s*\{([^{}]*)\}/g, (whole, inner: string) => {
+  return text.replace(/\$|\\[()[\]]/g, blank).replace(/\\(?:text|textrm|mathrm|mbox)\s*\{([^{}]*)\}/g, (whole, inner: string) => {
     const open = whole.length - inner.length - 1;
     return `${blank(whole.slice(0, open))}${inner} `;
   });
