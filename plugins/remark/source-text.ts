@@ -44,58 +44,64 @@ export type OffsetMap = (valueOffset: number) => number;
 /**
  * Aligns `value` with the file slice `[from, to)` it was parsed from, assuming
  * the parser only deleted characters (prefixes, delimiters) and turned line
- * endings into `\n` or a space. Each value line is matched to a source line as
- * its suffix, which is exact for stripped indentation and quote markers; where
- * that fails the characters are matched greedily.
+ * endings into a space or kept them (a code block keeps `\r\n` as written).
+ * Each value line is matched to a source line as its suffix, which is exact for
+ * stripped indentation and quote markers; where that fails the characters are
+ * matched greedily.
  */
 export function alignValue(source: string, from: number, to: number, value: string): OffsetMap {
-  const valueLines = value.split('\n');
-  const sourceLineStarts: number[] = [];
-  const sourceLineEnds: number[] = [];
-  let i = from;
-  sourceLineStarts.push(i);
-  for (; i < to; i++) {
-    const ch = source[i];
-    if (ch === '\n' || ch === '\r') {
-      sourceLineEnds.push(i);
-      if (ch === '\r' && source[i + 1] === '\n') i++;
-      sourceLineStarts.push(i + 1);
-    }
-  }
-  sourceLineEnds.push(to);
-
+  const valueLines = linesOf(value, 0, value.length);
+  const sourceLines = linesOf(source, from, to);
   const starts: number[] = [];
-  if (valueLines.length === sourceLineStarts.length) {
-    valueLines.forEach((line, k) => {
-      const lineText = source.slice(sourceLineStarts[k], sourceLineEnds[k]);
-      starts.push(lineText.endsWith(line) ? sourceLineEnds[k]! - line.length : -1);
+  if (valueLines.length === sourceLines.length) {
+    valueLines.forEach((v, k) => {
+      const line = value.slice(v.start, v.end);
+      const s = sourceLines[k]!;
+      starts.push(source.slice(s.start, s.end).endsWith(line) ? s.end - line.length : -1);
     });
   }
   if (starts.length === valueLines.length && starts.every((s) => s >= 0)) {
-    const valueLineStarts: number[] = [];
-    let acc = 0;
-    for (const line of valueLines) {
-      valueLineStarts.push(acc);
-      acc += line.length + 1;
-    }
     return (offset) => {
-      let k = valueLineStarts.length - 1;
-      while (k > 0 && valueLineStarts[k]! > offset) k--;
-      return starts[k]! + Math.min(offset - valueLineStarts[k]!, valueLines[k]!.length);
+      let k = valueLines.length - 1;
+      while (k > 0 && valueLines[k]!.start > offset) k--;
+      const line = valueLines[k]!;
+      return starts[k]! + Math.min(offset - line.start, line.end - line.start);
     };
   }
   return greedyAlignment(source, from, to, value);
 }
 
+/** The lines of `text[from, to)` as [start, end) without their line endings (\r\n, \n or \r). */
+function linesOf(text: string, from: number, to: number): { start: number; end: number }[] {
+  const lines: { start: number; end: number }[] = [];
+  let start = from;
+  for (let i = from; i < to; i++) {
+    const ch = text[i];
+    if (ch === '\n' || ch === '\r') {
+      lines.push({ start, end: i });
+      if (ch === '\r' && text[i + 1] === '\n' && i + 1 < to) i++;
+      start = i + 1;
+    }
+  }
+  lines.push({ start, end: to });
+  return lines;
+}
+
 function greedyAlignment(source: string, from: number, to: number, value: string): OffsetMap {
+  const isBreak = (ch: string | undefined) => ch === '\n' || ch === '\r';
   const positions: number[] = [];
   let j = from;
   for (let k = 0; k < value.length; k++) {
     const v = value[k]!;
+    // The \n of a \r\n in the value is the same line ending as its \r.
+    if (v === '\n' && value[k - 1] === '\r') {
+      positions.push(positions[positions.length - 1]! + (source[positions[positions.length - 1]! + 1] === '\n' ? 1 : 0));
+      continue;
+    }
     let found = j;
     while (found < to) {
       const s = source[found]!;
-      if (s === v || ((v === ' ' || v === '\n') && (s === '\n' || s === '\r'))) break;
+      if (s === v || ((v === ' ' || isBreak(v)) && isBreak(s))) break;
       found++;
     }
     if (found >= to) found = j;

@@ -1,6 +1,7 @@
 /**
  * Error positions on generated documents (fast-check): a wrong claim, a
  * wrong table cell and a bad code token placed anywhere — after any prose,
+ * on any line of a multi-line code, after indentation,
  * inside block quotes and list items, with LF or CRLF line ends — are
  * reported at the line and column where they were written.
  * Value from memory: the positive trefoil σ₁³ has writhe 3, so 2 is wrong.
@@ -26,9 +27,12 @@ function pointOf(text: string, at: number): string {
   return `${before.length}:${before[before.length - 1]!.length + 1}`;
 }
 
+/** Indentation inside a code block, kept in its value. */
+const indent = fc.constantFrom('', '  ', '\t');
+
 const documents = fc
-  .tuple(prose, prose, prose, container, container, eol, fc.integer({ min: 0, max: 3 }))
-  .map(([p1, p2, p3, c1, c2, nl, blankLines]): Placed => {
+  .tuple(prose, prose, prose, container, container, eol, fc.integer({ min: 0, max: 3 }), fc.array(indent, { maxLength: 3 }), indent)
+  .map(([p1, p2, p3, c1, c2, nl, blankLines, goodLines, badIndent]): Placed => {
     const blank = nl.repeat(blankLines + 1);
     let text = '';
     const expected: string[] = [];
@@ -36,7 +40,10 @@ const documents = fc
     // A diagram in a container, with an invalid token: its position is that of the token.
     const [first, rest] = c1;
     add(`${first}\`\`\`skein id=k notation=braid${nl}${rest}1 1 1${nl}${rest}\`\`\`${nl}${blank}`);
-    add(`${first}\`\`\`skein id=bad notation=braid${nl}${rest}1 `);
+    // The bad token may sit on a later line of the code, after indented lines of good generators.
+    add(`${first}\`\`\`skein id=bad notation=braid${nl}`);
+    for (const lead of goodLines) add(`${rest}${lead}1 -1${nl}`);
+    add(`${rest}${badIndent}1 `);
     expected.push(`code-invalid ${pointOf(text, text.length)}`);
     add(`q 1${nl}${rest}\`\`\`${nl}${blank}`);
     // A wrong prose claim after some prose: its position is that of its math.
