@@ -200,6 +200,17 @@ describe('number and property claims', () => {
     expect(judge('min-degree', '\\frac{1}{2}', positiveHopf).verdict).toBe('agrees');
     expect(judge('max-degree', '5/2', positiveHopf).verdict).toBe('agrees');
   });
+  it('bracket-span: 12 for the trefoil with ⟨O⟩ = 1, 16 with the loop normalisation; the other normalisation and span V are named (from memory, A⁻⁷ − A⁻³ − A⁵)', () => {
+    const loop: JudgeContext = { convention: { ...DEFAULT_CONVENTION, bracketNormalization: 'loop' } };
+    expect(judge('bracket-span', '12').verdict).toBe('agrees');
+    expect(judge('bracket-span', '16', rightTrefoil, loop).verdict).toBe('agrees');
+    const other = judge('bracket-span', '16');
+    expect(other.diagnosis?.kind).toBe('normalization');
+    expect(other.diagnosis?.detail).toMatch(/bracket=loop, but the document declares bracket=unit/);
+    expect(judge('bracket-span', '12', rightTrefoil, loop).diagnosis?.detail).toMatch(/bracket=unit, but the document declares bracket=loop/);
+    expect(judge('bracket-span', '3').diagnosis?.detail).toMatch(/span of the Jones polynomial in t/);
+    expect(judge('bracket-span', '13').diagnosis).toBeUndefined();
+  });
   it('linking number of the positive Hopf link is +1 (common practice); −1 is the other orientation', () => {
     expect(judge('linking', '1', positiveHopf).verdict).toBe('agrees');
     expect(judge('linking', '-1', positiveHopf).diagnosis?.kind).toBe('negated');

@@ -71,8 +71,25 @@ function numberSubject(key: Exclude<NumberKey, 'linking'>, report: DiagramReport
           },
         ],
       };
-    case 'bracket-span':
-      return { value: conventionBracket(report.bracket, convention).span, slips: [] };
+    case 'bracket-span': {
+      const other = convention.bracketNormalization === 'unit' ? 'loop' : 'unit';
+      return {
+        value: conventionBracket(report.bracket, convention).span,
+        slips: [
+          {
+            value: conventionBracket(report.bracket, { ...convention, bracketNormalization: other }).span,
+            diagnosis: {
+              kind: 'normalization',
+              detail: `the claim is the span of the bracket normalised with bracket=${other}, but the document declares bracket=${convention.bracketNormalization} (the loop value −A² − A⁻² adds 4)`,
+            },
+          },
+          {
+            value: report.span,
+            diagnosis: { kind: 'normalization', detail: 'the claim is the span of the Jones polynomial in t, which is a quarter of the span of the bracket in A' },
+          },
+        ],
+      };
+    }
     case 'min-degree':
       return { value: jones.minDegree ?? 0, slips: [{ value: -(jones.maxDegree ?? 0), diagnosis: mirror(-(jones.maxDegree ?? 0)) }] };
     case 'max-degree':
