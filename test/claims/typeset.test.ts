@@ -108,7 +108,9 @@ describe('statements and every fill key', () => {
     expect(s.kind === 'text' && s.text).toContain(
       `Here $\\operatorname{span} V = ${report.span}$ and the link has $3$ components, so by the span bound for possibly split links the crossing number is at least $\\operatorname{span} V - (3 - 1) = ${report.span - 2}$`,
     );
+    checkTypeset(s);
     const inQ = typesetValue('statement', report, { ...DEFAULT_CONVENTION, jonesVariable: 'q' });
+    checkTypeset(inQ);
     expect(inQ.kind === 'text' && inQ.text).toContain(`(that is, $${2 * report.span}$ in $q$)`);
     expect(inQ.kind === 'text' && inQ.text).toContain(`$\\operatorname{span}_t V - (3 - 1) = ${report.span - 2}$`);
   });
