@@ -42,6 +42,11 @@ describe('PD code errors', () => {
     const over = '(1,3,2,5) (2,5,1,3)';
     expect(parseError(over, 'pd').message).toContain('not consecutive');
   });
+  it('says when labels run backwards along the direction the under-passes give, and how to rotate the tuple', () => {
+    // The positive trefoil (4,2,5,1) (2,6,3,5) (6,4,1,3) with every tuple started at its outgoing under-edge instead.
+    const text = '(5,1,4,2) (3,5,2,6) (1,3,6,4)';
+    expectCodeError(parseError(text, 'pd'), text, '(5,1,4,2)', ['Labels run backwards along a component at tuple 1', 'from edge 5 to edge 4', 'tuple 1 as (4,2,5,1)']);
+  });
   it('refuses a virtual (non-planar) code, naming and spanning the tuples of the bad piece', () => {
     // The virtual trefoil o1 o2 u1 u2, written as a PD code.
     const text = '(3,2,4,1) (4,3,1,2)';

@@ -202,6 +202,9 @@ function orient(tuples: readonly PdTuple[]): Sign[] {
       }
       if ((reference & 3) === 2) entries = reverse(entries, through);
       const broken = firstNonConsecutiveStep(entries, labelAt, through);
+      if (broken !== undefined && entries.length > 2 && firstNonConsecutiveStep(reverse(entries, through), labelAt, through) === undefined) {
+        throw descendingLabels(tuples, entries, labelAt, through);
+      }
       if (broken !== undefined) throw notConsecutive(tuples, entries, broken, labelAt, through);
     } else {
       const backward = reverse(entries, through);
@@ -235,6 +238,17 @@ function firstNonConsecutiveStep(entries: readonly number[], labelAt: (x: number
     if (next !== here + 1 && next !== here - (m - 1)) return i;
   }
   return undefined;
+}
+
+/** A component whose labels run e, e−1, … in the direction its under-passes give: numbered against its orientation. */
+function descendingLabels(tuples: readonly PdTuple[], entries: readonly number[], labelAt: (x: number) => number, through: (x: number) => number): Error {
+  const under = entries.find((x) => (x & 3) === 0)!;
+  const k = under >> 2;
+  const [a, b, c, d] = tuples[k]!.labels;
+  return codeError(
+    `Labels run backwards along a component at tuple ${k + 1}: its under-passes send the strand from edge ${labelAt(under)} to edge ${labelAt(through(under))}, so the labels decrease in the direction of travel, but they must increase (e, e+1, …). If the labels are right, start each of this component's tuples at its other under-edge, e.g. tuple ${k + 1} as (${c},${d},${a},${b}); otherwise number the edges the other way round.`,
+    tuples[k]!.span,
+  );
 }
 
 function notConsecutive(
