@@ -304,7 +304,7 @@ describe('crossing-number claims against proven bounds', () => {
   it('judges a two-sided range: agrees only when both bounds confirm it, naming both theorems', () => {
     const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));
     const { lower, upper } = report.crossingNumber;
-    for (const claim of [`${lower} \\le c(K) \\le ${upper}`, `${lower - 1} < c < ${upper + 1}`, `${upper} \\ge c(K) \\ge ${lower}`]) {
+    for (const claim of [`${lower} \\le c(K) \\le ${upper}`, `${lower - 1} < c < ${upper + 1}`, `${upper} \\ge c(K) \\ge ${lower}`, `between ${lower} and ${upper}`]) {
       const j = judge('crossing-number', claim, report);
       expect(j.verdict, claim).toBe('agrees');
       expect(j.reason).toContain(`between ${lower} and ${upper}`);
@@ -313,6 +313,7 @@ describe('crossing-number claims against proven bounds', () => {
     }
     expect(judge('crossing-number', `${lower + 1} \\le c(K) \\le ${upper}`, report).verdict).toBe('undecided');
     expect(judge('crossing-number', `${upper + 1} \\le c(K) \\le ${upper + 3}`, report).verdict).toBe('contradicts');
+    expect(judge('crossing-number', `Between ${lower + 1} and ${upper}`, report).verdict).toBe('undecided');
   });
   it('refuses crossing-number claims it cannot read, at the place of the fault', () => {
     const refused = (claim: string) => {

@@ -106,6 +106,11 @@ function refuse(message: string, start: number, end: number): never {
  */
 export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
   const plain = blankMarkup(text);
+  const between = /^(\s*between\s+)(.*?)(\s+and\s+)(.*)$/i.exec(plain);
+  if (between) {
+    const [, lead, low, joint, high] = between as unknown as [string, string, string, string, string];
+    return range(integerAt({ text: low, start: lead.length }), integerAt({ text: high, start: lead.length + low.length + joint.length }), text);
+  }
   const relations = findRelations(plain);
   const segments: Segment[] = [];
   let from = 0;
@@ -136,13 +141,15 @@ export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
     // a ≤ c ≤ b, or b ≥ c ≥ a: the first number bounds c from the side its relation points.
     const a = bound(flip(r1.direction), r1.strict, outer);
     const b = bound(r2.direction, r2.strict, inner);
-    const low = Math.max(a.low, b.low);
-    const high = Math.min(a.high, b.high);
-    if (low > high) refuse(`the range leaves no value for the crossing number (from ${low} to ${high})`, 0, text.length);
-    return { low, high, words: low === high ? `${low}` : `between ${low} and ${high}` };
+    return range(Math.max(a.low, b.low), Math.min(a.high, b.high), text);
   }
   const extra = relations[Math.min(relations.length - 1, 2)]!;
   refuse('the claim has more relations than one bound or a range of two (low \\le c(K) \\le high)', extra.start, extra.end);
+}
+
+function range(low: number, high: number, text: string): CrossingNumberClaim {
+  if (low > high) refuse(`the range leaves no value for the crossing number (from ${low} to ${high})`, 0, text.length);
+  return { low, high, words: low === high ? `${low}` : `between ${low} and ${high}` };
 }
 
 function integerAt(segment: Segment): number {
