@@ -83,6 +83,15 @@ describe('skeinproof compute --json', () => {
 });
 
 describe('skeinproof compute (plain)', () => {
+  it('numbers components as the README says: PD by smallest label, braid by leftmost strand, Gauss as written, free loops last', () => {
+    // A positive Hopf link (lk = +1, from memory) beside a circle, in each notation.
+    const pd = skeinproof('compute', '(5,7,6,8) (7,5,8,6) (1,1,2,2)');
+    expect(pd.stdout).toContain('lk(0,1) = 0, lk(0,2) = 0, lk(1,2) = +1');
+    const braid = skeinproof('compute', '-n', 'braid', '--strands', '3', '2 2');
+    expect(braid.stdout).toContain('lk(0,1) = +1, lk(0,2) = 0, lk(1,2) = 0');
+    const gauss = skeinproof('compute', '-n', 'gauss', '() (o1+ u2+) (u1+ o2+) (o3+ u3+)');
+    expect(gauss.stdout).toContain('lk(0,1) = +1, lk(0,2) = 0, lk(0,3) = 0, lk(1,2) = 0');
+  });
   it('keeps the caret under the token at fault when the code contains tabs (shown as spaces)', () => {
     const code = '(4,2,5,1)\t\t(2,6,3,5)\t(6,4,1,7)';
     const { status, stderr } = skeinproof('compute', code);
