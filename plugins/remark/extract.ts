@@ -31,12 +31,13 @@ import {
   splitInfoSettings,
 } from './syntax.ts';
 import { readFrontMatter, type ManuscriptSettings } from './front-matter.ts';
+import type { FillPlace } from './typeset-markdown.ts';
 
 /** A change the build makes to the text; `fill` refers to the fill-in whose typeset value goes there. */
 export interface TextEdit {
   readonly start: number;
   readonly end: number;
-  readonly replacement: { readonly text: string } | { readonly fill: number; readonly inTableCell: boolean };
+  readonly replacement: { readonly text: string } | { readonly fill: number; readonly place: FillPlace };
 }
 
 /** What the tree transformer does to a node (the same changes as the text edits, on the tree). */
@@ -72,6 +73,8 @@ class Extractor {
   private readonly actions = new Map<Nodes, NodeAction>();
   private readonly problems: Diagnostic[] = [];
   private settings: ManuscriptSettings = { convention: {} };
+  /** The extent of the table cell visited last, to tell a fill-in written in a cell. */
+  private cell: [number, number] = [-1, -1];
   private readonly text: string;
 
   constructor(
@@ -91,6 +94,7 @@ class Extractor {
     }
     if (this.options.notation) this.settings = { ...this.settings, notation: this.options.notation };
     visit(this.tree, (node) => {
+      if (node.type === 'tableCell') this.cell = offsets(node); // visited before the directives in it
       if (node.type === 'code' && node.lang === DIAGRAM_FENCE_LANGUAGE) this.diagramBlock(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
@@ -107,6 +111,10 @@ class Extractor {
       actions: this.actions,
       problems: this.problems,
     };
+  }
+
+  private inCell(offset: number): boolean {
+    return this.cell[0] <= offset && offset < this.cell[1];
   }
 
   private error(ruleId: string, message: string, start: number, end: number, hints?: string[]): void {
@@ -226,7 +234,7 @@ class Extractor {
         this.error('markup-invalid', `\`:${name}{of=${target}}\`: ${why}`, start, end);
         return SKIP;
       }
-      this.addFill(target, name, this.fixedLocator(start, end), undefined, { start, end, replacement: { fill: this.fills.length, inTableCell: false } }, node);
+      this.addFill(target, name, this.fixedLocator(start, end), undefined, { start, end, replacement: { fill: this.fills.length, place: this.inCell(start) ? 'in-cell' : 'text' } }, node);
       return SKIP;
     }
     if (!isClaimKey(name)) {
@@ -384,7 +392,7 @@ class Extractor {
             this.error('markup-invalid', `${context}: \`${column.name}\` cannot be filled in; write the value to have it checked`, content.innerStart, Math.max(content.innerEnd, content.innerStart + 1));
             return;
           }
-          const edit: TextEdit = { start: content.innerStart, end: content.innerEnd, replacement: { fill: this.fills.length, inTableCell: true } };
+          const edit: TextEdit = { start: content.innerStart, end: content.innerEnd, replacement: { fill: this.fills.length, place: 'empty-cell' } };
           this.addFill(target, column.name, this.fixedLocator(content.innerStart, content.innerEnd), context, edit, cell);
           return;
         }

@@ -77,7 +77,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       if ('text' in r) splices.push({ start, end, text: r.text });
       else {
         const value = session.fills[r.fill];
-        if (value !== undefined) splices.push({ start, end, text: typesetMarkdown(value, r.inTableCell) });
+        if (value !== undefined) splices.push({ start, end, text: typesetMarkdown(value, r.place) });
       }
     }
     file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices };

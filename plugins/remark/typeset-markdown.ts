@@ -1,11 +1,20 @@
 /**
  * Typeset values as Markdown: `$…$` inline math, or prose that already holds
- * its own `$…$` spans. In a GFM table cell a `|` would end the cell, so it is
- * escaped there.
+ * its own `$…$` spans. In a GFM table cell a `|` would end the cell. Outside
+ * math it is escaped as `\|`; inside math that escape would reach KaTeX as
+ * `\|` (a double bar), so the bar is written `\vert` there.
  */
 import type { Typeset } from '../../src/core/claims/api.ts';
 
-export function typesetMarkdown(value: Typeset, inTableCell: boolean): string {
+/** Where a fill-in goes: in running text, beside other text in a table cell, or as the whole of an empty cell (between its pipes). */
+export type FillPlace = 'text' | 'in-cell' | 'empty-cell';
+
+export function typesetMarkdown(value: Typeset, place: FillPlace): string {
   const text = value.kind === 'math' ? `$${value.latex}$` : value.text;
-  return inTableCell ? ` ${text.replace(/\|/g, '\\|')} ` : text;
+  if (place === 'text') return text;
+  const safe = text
+    .split(/(\$[^$]*\$)/)
+    .map((part, i) => (i % 2 === 1 ? part.replace(/\|(?=[A-Za-z])/g, '\\vert ').replace(/\|/g, '\\vert') : part.replace(/\|/g, '\\|')))
+    .join('');
+  return place === 'empty-cell' ? ` ${safe} ` : safe;
 }

@@ -6,6 +6,8 @@
  */
 import type { Table } from 'mdast';
 import remarkGfm from 'remark-gfm';
+import remarkMath from 'remark-math';
+import type { InlineMath } from 'mdast-util-math';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { visit } from 'unist-util-visit';
@@ -178,6 +180,20 @@ describe('tables', () => {
     expect(r.diagnostics[0]!.message).toMatch(/^table row 2 \(cinq\), column jones/);
     // T(2,5): t² + t⁴ − t⁵ + t⁶ − t⁷ (Jones' formula for torus knots).
     expect(r.built).toContain('| `1 1 1 1 1` | $t^2 + t^4 - t^5 + t^6 - t^7$ | $5$ | |');
+  });
+
+  it('keeps a fill-in whose prose holds a `|` inside its table cell, in any table (GFM: `|` ends a cell)', async () => {
+    // The genus paragraph writes the signature as $|\sigma| = 2$ (|σ| of the positive trefoil is 2, from memory).
+    const text = `${TREFOIL}\n| knot | genus |\n|---|---|\n| tref | :genus{of=tref} |\n\n:::invariants\n| diagram | writhe | remarks |\n|---|---|---|\n| tref | | :genus{of=tref} |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    const widths: number[][] = [];
+    const math: string[] = [];
+    const tree = unified().use(remarkParse).use(remarkGfm).use(remarkMath).parse(r.built);
+    visit(tree, 'table', (t: Table) => void widths.push(t.children.map((row) => row.children.length)));
+    visit(tree, 'inlineMath', (m: InlineMath) => void math.push(m.value));
+    expect(widths).toEqual([[2, 2], [3, 3]]);
+    expect(math.filter((m) => m.includes('sigma'))).toEqual(['\\vert\\sigma\\vert = 2', '\\vert\\sigma\\vert = 2']);
   });
 
   it('refuses an id in a row that no directive could name, at the id', async () => {
