@@ -418,6 +418,63 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
   });
 
+  it('titles set in capitals (\\MakeUppercase, running heads) keep the case of ids and find their values', async () => {
+    // LaTeX's \\MakeUppercase leaves the argument of a command on its no-case-change list alone, as it leaves
+    // the label of \\ref (latex.ltx of TeX Live 2022, \\AddToNoCaseChangeList); the page style `headings` sets
+    // section titles in capitals in the running head.
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\pagestyle{headings}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=Tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\MakeUppercase{Writhe \\skeinwrithe{Tref}, span \\skeinvalue{Tref}{span}}',
+      '\\section{Span \\skeinspan{Tref}}',
+      'Text.\\newpage Page two.',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('uppercase', true);
+    writeFileSync(join(dir, 'caps.tex'), paper);
+    const result = await latexFormat.build(join(dir, 'caps.tex'), {});
+    expect(result.diagnostics).toEqual([]);
+    for (const o of result.outputs) writeFileSync(o.path, o.content);
+    const run = pdflatex(dir, 'caps.tex');
+    expect(run.ok).toBe(true);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    // The positive trefoil (from memory): writhe 3, span of V 3.
+    expect(squeeze(run.text)).toContain(squeeze('WRITHE 3, SPAN 3'));
+    expect(squeeze(run.text)).toContain(squeeze('1 SPAN 3'));
+  });
+
+  it('amsart sets its title in capitals with \\uppercase: a fill-in there still finds its value, unless two ids differ only in case', async () => {
+    // amsart.cls (\\uppercasenonmath) upper-cases the text of \\title, math excepted.
+    const paper = [
+      '\\documentclass{amsart}',
+      '\\usepackage{skeinproof}',
+      '\\title{Writhe \\skeinwrithe{tref} and \\skeinwrithe{ab}}',
+      '\\begin{document}',
+      '\\maketitle',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeincode}{id=ab, notation=braid}\n1 1\n\\end{skeincode}',
+      '\\begin{skeincode}{id=aB, notation=braid}\n1 1 1 1\n\\end{skeincode}',
+      'Writhes \\skeinwrithe{ab} and \\skeinwrithe{aB}.',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('amsart', true);
+    writeFileSync(join(dir, 'title.tex'), paper);
+    const result = await latexFormat.build(join(dir, 'title.tex'), {});
+    expect(result.diagnostics).toEqual([]);
+    for (const o of result.outputs) writeFileSync(o.path, o.content);
+    const run = pdflatex(dir, 'title.tex');
+    expect(run.ok).toBe(true);
+    // Writhes of the braids 1 1 1, 1 1 and 1 1 1 1: 3, 2 and 4. The capitals AB of the title are ambiguous.
+    expect(squeeze(run.text)).toContain(squeeze('WRITHE 3 AND ?? AB:writhe'));
+    expect(squeeze(run.text)).toContain(squeeze('Writhes 2 and 4.'));
+    expect(packageWarnings(run.log, 'skeinproof').filter((w) => w.startsWith('Value'))).toEqual([
+      "Value `writhe' of `AB' is not computed yet on input line 5.",
+    ]);
+  });
+
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
     // Every cell the reader would fill gets a sidecar value that logs its place; TeX must log exactly those,
     // and must find no other empty cell to warn about.
