@@ -211,6 +211,17 @@ describe('number and property claims', () => {
     expect(judge('bracket-span', '3').diagnosis?.detail).toMatch(/span of the Jones polynomial in t/);
     expect(judge('bracket-span', '13').diagnosis).toBeUndefined();
   });
+  it('an Alexander polynomial stated with ≐ agrees up to a unit ±t^k; with = it must be Conway-normalised (Δ(3₁) = t⁻¹ − 1 + t, from memory)', () => {
+    const upToUnits = judge('alexander', '\\Delta(t) \\doteq t^2 - t + 1');
+    expect(upToUnits.verdict).toBe('agrees');
+    expect(upToUnits.reason).toContain('times t');
+    expect(judge('alexander', '\\Delta_K \\doteq -1 + t - t^{2}').verdict).toBe('agrees');
+    expect(judge('alexander', '\\Delta(t) ≐ t^{-1} - 1 + t').verdict).toBe('agrees');
+    expect(judge('alexander', '\\Delta(t) = t^2 - t + 1').diagnosis?.kind).toBe('shifted');
+    expect(judge('alexander', '\\Delta(t) \\doteq t^2 + t + 1').verdict).toBe('contradicts');
+    // ≐ is no licence for a Jones polynomial, which has no unit ambiguity.
+    expect(judge('jones', 'V \\doteq t^2 + t^4 - t^5').diagnosis?.kind).toBe('shifted');
+  });
   it('linking number of the positive Hopf link is +1 (common practice); −1 is the other orientation', () => {
     expect(judge('linking', '1', positiveHopf).verdict).toBe('agrees');
     expect(judge('linking', '-1', positiveHopf).diagnosis?.kind).toBe('negated');

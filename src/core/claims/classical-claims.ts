@@ -113,8 +113,22 @@ function judgePolynomial(key: PolynomialKey, text: string, report: DiagramReport
   const base = { key, claimed: text, computed: computedLatex };
   const claimLetter = read.variable ?? letter;
   if (claimLetter === letter && claim.equals(computed)) return { ...base, verdict: 'agrees', reason: `the claim equals the computed ${noun}` };
+  const unit = key === 'alexander' && read.upToUnits && claimLetter === letter ? unitFactor(claim, computed) : undefined;
+  if (unit !== undefined) {
+    return { ...base, verdict: 'agrees', reason: `the claim equals the computed ${noun} times ${unit}, and ≐ states equality up to such a unit ±t^k` };
+  }
   const diagnosis = diagnosePolynomial(key, claim, claimLetter, report, ctx);
   return { ...base, verdict: 'contradicts', diagnosis, reason: `the claim differs from the computed value ${computedLatex}; ${diagnosis.detail}` };
+}
+
+/** The unit ±t^k with claim = unit · computed, as LaTeX, if there is one. */
+function unitFactor(claim: Laurent, computed: Laurent): string | undefined {
+  if (computed.isZero || claim.termCount !== computed.termCount) return undefined;
+  const k = claim.minDegree! - computed.minDegree!;
+  const shifted = computed.shift(k);
+  const sign = claim.equals(shifted) ? 1 : claim.equals(shifted.neg()) ? -1 : 0;
+  if (sign === 0) return undefined;
+  return polynomialLatex(Laurent.monomial(k, BigInt(sign)), 't', { order: 'ascending', halfPowers: 'power' });
 }
 
 function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: string, report: DiagramReport, ctx: JudgeContext): Diagnosis {

@@ -23,6 +23,8 @@ export interface ReadPolynomial {
   readonly value: Laurent;
   /** The letter used; undefined for a constant. */
   readonly variable: string | undefined;
+  /** The value follows `\doteq` (≐), which states equality up to a unit ±x^k (as Alexander polynomials often are). */
+  readonly upToUnits: boolean;
 }
 
 /** Exponents of t may be halves; A and q take integer exponents only. */
@@ -57,10 +59,10 @@ const IGNORED_COMMANDS = new Set([
   'displaystyle', 'textstyle',
 ]);
 const TIMES_COMMANDS = new Set(['cdot', 'times']);
-/** `V(t) \coloneqq …` defines like `=`: what follows is the value. */
-const DEFINITION_COMMANDS = new Set(['coloneqq', 'coloneq', 'eqqcolon']);
+/** `V(t) \coloneqq …` defines like `=`, and `\doteq` states equality up to a unit: what follows is the value. */
+const DEFINITION_COMMANDS = new Set(['coloneqq', 'coloneq', 'eqqcolon', 'doteq']);
 const FRACTION_COMMANDS = new Set(['frac', 'dfrac', 'tfrac']);
-const UNICODE_OPERATORS: Readonly<Record<string, string>> = { '−': '-', '–': '-', '·': '*', '×': '*', '⋅': '*' };
+const UNICODE_OPERATORS: Readonly<Record<string, string>> = { '−': '-', '–': '-', '·': '*', '×': '*', '⋅': '*', '≐': '=' };
 
 function fail(message: string, span: TextSpan): never {
   throw new InputError(UNREADABLE, message, { start: span.start, end: span.end });
@@ -199,6 +201,7 @@ class PolynomialParser {
   private variable: Token | undefined;
   /** True when the whole value is a number (`readNumber`), not an exponent. */
   private readingNumber = false;
+  private upToUnits = false;
   private readonly tokens: Token[];
 
   constructor(
@@ -215,7 +218,7 @@ class PolynomialParser {
     const sum = this.parseSum();
     const rest = this.peek();
     if (rest.kind !== 'end') this.unexpected(rest);
-    return { value: sum.value, variable: this.variable?.text };
+    return { value: sum.value, variable: this.variable?.text, upToUnits: this.upToUnits };
   }
 
   /** A number such as `7`, `-3`, `5/2` or `-\frac{5}{2}`, as an exact fraction. */
@@ -257,6 +260,8 @@ class PolynomialParser {
     });
     if (lastEquals < 0) return;
     this.pos = lastEquals + 1;
+    const relation = this.tokens[lastEquals]!;
+    this.upToUnits = /^(?:\\doteq|≐)$/.test(this.text.slice(relation.start, relation.end));
     if (this.peek().kind === 'end') fail(`nothing follows \`=\`: write ${this.what()} after it`, this.tokens[lastEquals]!);
   }
 
