@@ -45,8 +45,17 @@ function powMod(base: number, exponent: number, p: number): number {
   return result;
 }
 
+/** 1/a mod p by the extended Euclidean algorithm (a few dozen integer steps, all below p). */
 function invMod(a: number, p: number): number {
-  return powMod(((a % p) + p) % p, p - 2, p);
+  let [r0, r1] = [p, ((a % p) + p) % p];
+  let [s0, s1] = [0, 1];
+  while (r1 !== 0) {
+    const q = Math.floor(r0 / r1);
+    [r0, r1] = [r1, r0 - q * r1];
+    [s0, s1] = [s1, s0 - q * s1];
+  }
+  if (r0 !== 1) throw new Error(`internal: ${a} has no inverse modulo ${p}`);
+  return s0 < 0 ? s0 + p : s0;
 }
 
 function reduce(v: bigint, p: number): number {
@@ -56,14 +65,22 @@ function reduce(v: bigint, p: number): number {
 
 /**
  * A reusable banded eliminator: the pencil t·A − B in an order with lower
- * bandwidth `lower`, evaluated and reduced row by row with partial pivoting
- * inside the band.
+ * bandwidth `lower` and upper bandwidth `upper`, evaluated and reduced with
+ * partial pivoting inside the band. Pivoting lets a row reach at most
+ * lower + upper columns right of the diagonal, so each row is stored as the
+ * `width` = 2·lower + upper + 1 columns from its diagonal − lower on: time and
+ * memory per evaluation stay proportional to the band, not to size².
  */
 class BandedPencil {
   private readonly size: number;
   private readonly entries: { i: number; j: number; a: number; b: number }[];
   private readonly lower: number;
+  /** How far right of the diagonal a row can reach once rows have been swapped. */
+  private readonly reach: number;
+  private readonly width: number;
+  /** Row i, column j at i·width + (j − i + lower). */
   private readonly work: Float64Array;
+  /** The last column of each row that may be non-zero: rows are narrower than the widest one. */
   private readonly lastColumn: Int32Array;
   constructor(a: SparseMatrix, b: SparseMatrix, private readonly p: number) {
     this.size = a.size;
@@ -81,51 +98,57 @@ class BandedPencil {
     put(b, 'b');
     this.entries = [...merged.values()];
     this.lower = this.entries.reduce((w, e) => Math.max(w, e.i - e.j), 0);
-    this.work = new Float64Array(this.size * this.size);
+    this.reach = this.lower + this.entries.reduce((w, e) => Math.max(w, e.j - e.i), 0);
+    this.width = this.lower + this.reach + 1;
+    this.work = new Float64Array(this.size * this.width);
     this.lastColumn = new Int32Array(this.size);
   }
 
   determinantAt(t: number): number {
-    const { size: n, p, work: m } = this;
+    const { size: n, p, work: m, lower, width, lastColumn } = this;
     m.fill(0);
-    this.lastColumn.fill(-1);
+    lastColumn.fill(-1);
     for (const e of this.entries) {
-      m[e.i * n + e.j] = (mulMod(t, e.a, p) - e.b + p) % p;
-      if (e.j > this.lastColumn[e.i]!) this.lastColumn[e.i] = e.j;
+      m[e.i * width + e.j - e.i + lower] = (mulMod(t, e.a, p) - e.b + p) % p;
+      if (e.j > lastColumn[e.i]!) lastColumn[e.i] = e.j;
     }
+    // Offset of row i's column 0 in `work` (column j is at rowStart(i) + j).
+    const rowStart = (i: number): number => i * width - i + lower;
     const inverseP = 1 / p;
     let det = 1;
     for (let k = 0; k < n; k++) {
-      const rowLimit = Math.min(n - 1, k + this.lower);
+      const rowLimit = Math.min(n - 1, k + lower);
       let pivotRow = -1;
       for (let i = k; i <= rowLimit; i++) {
-        if (m[i * n + k] !== 0) {
+        if (m[rowStart(i) + k] !== 0) {
           pivotRow = i;
           break;
         }
       }
       if (pivotRow < 0) return 0;
+      const rk = rowStart(k);
       if (pivotRow !== k) {
-        for (let j = k; j < n; j++) {
-          const tmp = m[k * n + j]!;
-          m[k * n + j] = m[pivotRow * n + j]!;
-          m[pivotRow * n + j] = tmp;
+        const rp = rowStart(pivotRow);
+        const swapLimit = Math.max(lastColumn[k]!, lastColumn[pivotRow]!);
+        for (let j = k; j <= swapLimit; j++) {
+          const tmp = m[rk + j]!;
+          m[rk + j] = m[rp + j]!;
+          m[rp + j] = tmp;
         }
-        const tmpLast = this.lastColumn[k]!;
-        this.lastColumn[k] = this.lastColumn[pivotRow]!;
-        this.lastColumn[pivotRow] = tmpLast;
+        const tmpLast = lastColumn[k]!;
+        lastColumn[k] = lastColumn[pivotRow]!;
+        lastColumn[pivotRow] = tmpLast;
         det = p - det;
       }
-      const pivot = m[k * n + k]!;
+      const pivot = m[rk + k]!;
       det = mulMod(det, pivot, p);
       const inverse = invMod(pivot, p);
-      const colLimit = this.lastColumn[k]!;
+      const colLimit = lastColumn[k]!;
       for (let i = k + 1; i <= rowLimit; i++) {
-        const below = m[i * n + k]!;
+        const ri = rowStart(i);
+        const below = m[ri + k]!;
         if (below === 0) continue;
         const factor = mulMod(below, inverse, p);
-        const ri = i * n;
-        const rk = k * n;
         for (let j = k + 1; j <= colLimit; j++) {
           // |x| < 2^52 is exact; the quotient estimate x·(1/p) is off by at most one either way.
           const x = m[ri + j]! - factor * m[rk + j]!;
@@ -135,10 +158,28 @@ class BandedPencil {
           m[ri + j] = r;
         }
         m[ri + k] = 0;
-        if (colLimit > this.lastColumn[i]!) this.lastColumn[i] = colLimit;
+        if (colLimit > lastColumn[i]!) lastColumn[i] = colLimit;
       }
     }
     return det % p;
+  }
+}
+
+/**
+ * inverses[m] = 1 / value(m) mod p for m < count, with one modular inversion
+ * in all (Montgomery's trick: invert the product, then peel off the factors).
+ */
+function batchInverses(count: number, value: (m: number) => number, inverses: number[], p: number): void {
+  let product = 1;
+  for (let m = 0; m < count; m++) {
+    inverses[m] = product; // the product of the values before m
+    product = mulMod(product, value(m), p);
+  }
+  let inverse = invMod(product, p);
+  for (let m = count - 1; m >= 0; m--) {
+    const before = inverses[m]!;
+    inverses[m] = mulMod(inverse, before, p);
+    inverse = mulMod(inverse, value(m), p);
   }
 }
 
@@ -146,11 +187,12 @@ class BandedPencil {
 function interpolate(xs: readonly number[], ys: readonly number[], p: number): number[] {
   const n = xs.length;
   const c = [...ys];
+  const inverses = new Array<number>(n).fill(0);
   for (let k = 1; k < n; k++) {
+    batchInverses(n - k, (m) => (xs[m + k]! - xs[m]! + p) % p, inverses, p);
     for (let i = n - 1; i >= k; i--) {
       const num = (c[i]! - c[i - 1]! + p) % p;
-      const den = (xs[i]! - xs[i - k]! + p) % p;
-      c[i] = mulMod(num, invMod(den, p), p);
+      c[i] = mulMod(num, inverses[i - k]!, p); // 1 / (xs[i] − xs[i − k])
     }
   }
   // Expand the Newton form into ordinary coefficients.
