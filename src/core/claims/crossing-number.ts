@@ -1,5 +1,5 @@
 /**
- * Crossing-number claims (`7`, `\le 7`, `≥ 5`, `at most 7`) judged against the
+ * Crossing-number claims (`7`, `\le 7`, `≥ 5`, `at most 7`, `5 \le c(K) \le 7`) judged against the
  * proven bounds of the report, naming the theorem each verdict rests on; and
  * the short proof-style statement a document can ask to have typeset.
  */
@@ -44,7 +44,7 @@ interface FoundRelation extends Omit<RelationSpec, 'pattern'> {
   readonly end: number;
 }
 
-/** Math delimiters and text wrappers (`$…$`, `\text{at most}`) blanked to spaces, so every offset still points into the claim. */
+/** Math delimiters (`$…$`, `\(…\)`) and text wrappers (`\text{at most}`) blanked to spaces, so every offset still points into the claim. */
 function blankMarkup(text: string): string {
   const blank = (s: string) => ' '.repeat(s.length);
   return text.replace(/\$|\\[()[\]]/g, blank).replace(/\\(?:text|textrm|mathrm|mbox)\s*\{([^{}]*)\}/g, (whole, inner: string) => {
@@ -102,7 +102,8 @@ function refuse(message: string, start: number, end: number): never {
 
 /**
  * Reads `7`, `\le 7`, `≥ 5`, `< 8`, `at most 7`, also after a left-hand side
- * (`c(K) \le 7`), turned round (`5 \le c(K)`), or two-sided (`5 \le c(K) \le 7`).
+ * (`c(K) \le 7`), turned round (`5 \le c(K)`), or two-sided (`5 \le c(K) \le 7`,
+ * `between 5 and 7`, both ends included).
  */
 export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
   const plain = blankMarkup(text);
