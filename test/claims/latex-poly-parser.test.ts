@@ -120,6 +120,7 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
     ['a value ending on a sign', 't + ', 4, 4, /ends too early after `\+`.*remove the last sign/],
     ['a caret without exponent', 't^', 1, 2, /missing: write it after the `\^`, e.g. `t\^\{2\}`/],
     ['a division by zero', '\\frac{t}{0}', 8, 11, /division by zero: .*correct the denominator/],
+    ['a variable in the wrong case', 'T + T^3', 0, 1, /variables are case-sensitive, and the Jones polynomial is written in t; write `t`/],
     ['a superscript sign without digits', 't⁻ + 1', 1, 2, /superscript `⁻` is not a whole exponent/],
     ['a superscript after an exponent', 't^2²', 3, 4, /double superscript/],
     ['an unmatched dollar', '$t + 1', 0, 1, /unexpected character `\$`/],
