@@ -427,8 +427,8 @@ class PolynomialParser {
     if (allowed.length === 0) fail(`unexpected \`${t.text}\`: ${this.what()} is a number`, t);
     if (!allowed.includes(t.text)) {
       const expected = allowed[0] ?? 't';
-      const otherCase = allowed.find((v) => v.toLowerCase() === t.text.toLowerCase());
-      if (otherCase) fail(`unknown variable \`${t.text}\`: variables are case-sensitive, and ${this.what()} is written in ${otherCase}; write \`${otherCase}\``, t);
+      if (expected.toLowerCase() === t.text.toLowerCase())
+        fail(`unknown variable \`${t.text}\`: variables are case-sensitive, and ${this.what()} is written in ${expected}; write \`${expected}\``, t);
       fail(`unknown variable \`${t.text}\`: ${this.what()} in this document is written in ${expected}; write it in ${expected} or declare another convention`, t);
     }
     if (this.variable && this.variable.text !== t.text)
