@@ -181,6 +181,13 @@ describe('one-crossing PD codes (curls)', () => {
   });
 });
 
+describe('the three-twist knot 5_2 from its PD code as commonly published (code and V from memory)', () => {
+  it('reads (1,4,2,5) (3,8,4,9) (5,10,6,1) (9,6,10,7) (7,2,8,3) as 5_2: V = −t^−6 + t^−5 − t^−4 + 2t^−3 − t^−2 + t^−1', () => {
+    const d = parseDiagramCode('(1,4,2,5) (3,8,4,9) (5,10,6,1) (9,6,10,7) (7,2,8,3)', 'pd');
+    expect(jonesByStateSum(d).equals(poly([[-6, -1], [-5, 1], [-4, -1], [-3, 2], [-2, -1], [-1, 1]]))).toBe(true);
+  });
+});
+
 describe('two-crossing links as PD codes are commonly written', () => {
   // Worked by hand from the slot rule (over strand from entry 4 to entry 2 is positive): in (1,3,2,4) (3,1,4,2)
   // each component passes under once and its return runs entry 4 → 2 at the other crossing.
