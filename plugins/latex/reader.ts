@@ -100,6 +100,10 @@ class ManuscriptReader {
   private tables = 0;
   /** Set at \begin{document}: the preamble is over. */
   private inBody = false;
+  /** Set at \usepackage{skeinproof}. */
+  private packageLoaded = false;
+  /** A \skeinconvention met before the package was loaded: an error only if the package is loaded after it. */
+  private conventionBeforePackage: { readonly file: SourceFile; readonly span: Span } | undefined;
 
   constructor(
     private readonly mainPath: string,
@@ -230,6 +234,7 @@ class ManuscriptReader {
 
   private conventionSettings(file: SourceFile, item: Extract<ScanItem, { kind: 'convention' }>, splices: Splice[]): void {
     splices.push({ kind: 'text', span: item.span, text: '' });
+    if (!this.packageLoaded) this.conventionBeforePackage ??= { file, span: item.span };
     this.declareConvention(file, item.settings, item.span, '\\skeinconvention');
   }
 
@@ -310,6 +315,16 @@ class ManuscriptReader {
       .filter((p) => p !== '' && p !== 'skeinproof');
     const kept = others.length === 0 ? '' : `${file.text.slice(item.span.start, item.list.start)}${others.join(',')}}`;
     splices.push({ kind: 'text', span: item.span, text: kept + VALUE_SUPPORT });
+    if (this.conventionBeforePackage && !this.packageLoaded) {
+      const early = this.conventionBeforePackage;
+      this.error(
+        early.file,
+        early.span,
+        'latex-convention-misplaced',
+        '\\skeinconvention comes before \\usepackage{skeinproof}, where LaTeX does not know it yet: move it after the \\usepackage',
+      );
+    }
+    this.packageLoaded = true;
     if (item.options && item.options.text.trim() !== '') {
       this.declareConvention(file, item.options, item.options, '\\usepackage[…]{skeinproof}');
     }

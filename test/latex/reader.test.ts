@@ -154,6 +154,14 @@ describe('located errors in the markup', () => {
     expect(doc.convention).toEqual({ jonesVariable: 'q' });
   });
 
+  it('\\skeinconvention before \\usepackage{skeinproof} is refused (LaTeX does not know the command yet)', () => {
+    const doc = read({ 'paper.tex': '\\documentclass{article}\n\\skeinconvention{jones=q}\n\\usepackage{skeinproof}\n\\begin{document}\n' });
+    expect(places(doc)).toEqual(['latex-convention-misplaced@paper.tex:2:1']);
+    expect(doc.diagnostics[0]!.message).toContain('before \\usepackage{skeinproof}');
+    // A fragment that never loads the package is not judged.
+    expect(places(read({ 'paper.tex': '\\skeinconvention{jones=q}\n' }))).toEqual([]);
+  });
+
   it('strands belongs to braid words only', () => {
     const doc = read({ 'paper.tex': '\\begin{skeincode}{id=k, notation=dt, strands=3}\n4 6 2\n\\end{skeincode}\n' });
     expect(places(doc)).toEqual(['latex-option-invalid@paper.tex:1:46']);
@@ -168,7 +176,7 @@ describe('located errors in the markup', () => {
     expect(places(bad)).toEqual(['convention-invalid@paper.tex:1:23', 'latex-convention-twice@paper.tex:2:1']);
     expect(bad.diagnostics[1]!.message).toContain('\\usepackage[…]{skeinproof}');
     const twice = read({ 'paper.tex': '\\skeinconvention{order=ascending}\n\\usepackage[jones=q]{skeinproof}\n' });
-    expect(places(twice)).toEqual(['latex-convention-twice@paper.tex:2:13']);
+    expect(places(twice)).toEqual(['latex-convention-misplaced@paper.tex:1:1', 'latex-convention-twice@paper.tex:2:13']);
     // Empty options declare nothing.
     expect(places(read({ 'paper.tex': '\\usepackage[]{skeinproof}\n\\skeinconvention{jones=q}\n' }))).toEqual([]);
   });
