@@ -499,10 +499,14 @@ function locatorFor(file: SourceFile, arg: Span): Locator {
   return (span?: TextSpan) => (span ? file.location(arg.start + span.start, arg.start + span.end) : file.location(arg.start, arg.end));
 }
 
-/** An id cell may set the id in a font (`\texttt{trefoil}`); the id is what the command holds. */
+/**
+ * An id cell may set the id in a font (`\texttt{trefoil}`); the id is what the command holds. Text mode
+ * needs `\_` for an underscore (`knot\_3.1` prints knot_3.1), so it stands for `_` (the span stays as written).
+ */
 function plainId(cell: Arg): Arg {
   const m = /^\\(texttt|textbf|textit|textsf|textrm|textsc|emph)\s*\{([^{}]*)\}$/.exec(cell.text);
-  return m ? trim(slice(cell, cell.text.indexOf('{') + 1, cell.text.length - 1)) : cell;
+  const id = m ? trim(slice(cell, cell.text.indexOf('{') + 1, cell.text.length - 1)) : cell;
+  return { ...id, text: id.text.replace(/\\_/g, '_') };
 }
 
 /** `$…$` or `\(…\)` around a claimed value are typesetting, not part of the value. */

@@ -49,6 +49,17 @@ describe('what the reader extracts', () => {
     expect(doc.claims[2]!.locate().start).toMatchObject({ line: 8, column: 56 });
   });
 
+  it('an id cell may write an underscore as \\_, as text mode needs it (common practice)', () => {
+    const doc = read({
+      'paper.tex':
+        PREAMBLE +
+        '\\begin{skeintable}{id, jones}\n\\begin{tabular}{ll}\nId & $V$ \\\\\nknot\\_3.1 & \\\\\n\\texttt{knot\\_3.1} & $t$ \\\\\n\\end{tabular}\n\\end{skeintable}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.fills.map((f) => f.entry.target)).toEqual(['knot_3.1']);
+    expect(doc.claims.map((c) => c.target)).toEqual(['knot_3.1']);
+  });
+
   it('reads skein tables: empty cells are fill-ins, filled cells claims, header rows skipped', () => {
     const doc = read({
       'paper.tex':
