@@ -225,6 +225,16 @@ class Extractor {
       this.error('markup-invalid', `\`:${name}\` has an empty \`${TARGET_ATTRIBUTE}\`: write the id of a diagram, e.g. {of=trefoil}`, start, end);
       return SKIP;
     }
+    const extra = Object.keys(node.attributes ?? {}).filter((k) => k !== TARGET_ATTRIBUTE);
+    if (extra.length > 0 && (isClaimKey(name) || isFillKey(name))) {
+      const braces = this.text.lastIndexOf('{', end - 1);
+      this.error(
+        'markup-invalid',
+        `\`:${name}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a claim or fill-in takes only ${TARGET_ATTRIBUTE}=ID; remove the rest`,
+        braces >= start ? braces : start,
+        end,
+      );
+    }
     const hasLabel = this.text[start + 1 + name.length] === '[';
     if (!hasLabel) {
       if (!isFillKey(name)) {
@@ -311,6 +321,10 @@ class Extractor {
       return;
     }
     let notation = this.settings.notation;
+    const extra = Object.keys(node.attributes ?? {}).filter((k) => k !== 'notation');
+    if (extra.length > 0) {
+      this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a table takes only notation=pd|braid|gauss|dt; remove the rest`, start, lineEnd(this.text, start));
+    }
     const declared = node.attributes?.['notation'];
     if (declared) {
       if (isNotation(declared)) notation = declared;

@@ -100,6 +100,18 @@ describe('fill-ins', () => {
     ]);
   });
 
+  it('refuses attributes it would drop unread, on claims, fill-ins and tables, and still judges the claim', async () => {
+    const text = `${TREFOIL}\n:jones{of=tref fo=1} :writhe[$2$]{of=tref #x .y}\n\n:::invariants{notaton=braid}\n| diagram | writhe |\n|---|---|\n| tref | |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([
+      `error markup-invalid ${positionOf(text, '{of=tref fo')}`,
+      `error claim-contradicted ${positionOf(text, '$2$')}`,
+      `error markup-invalid ${positionOf(text, '{of=tref #x')}`,
+      `error markup-invalid ${positionOf(text, ':::invariants')}`,
+    ]);
+    expect(r.diagnostics.map((d) => d.message.split(':')[1])).toEqual([' unknown attribute `fo`', ' wrong writhe', ' unknown attributes `id`, `class`', ' unknown attribute `notaton`']);
+  });
+
   it('refuses a fill-in of a value that is only checked', async () => {
     const text = `${TREFOIL}\n:alternating{of=tref}\n`;
     const r = await processMarkdown(text);
