@@ -277,6 +277,10 @@ class ManuscriptReader {
   private input(file: SourceFile, item: Extract<ScanItem, { kind: 'input' }>, splices: Splice[], open: readonly string[]): void {
     const written = trim(item.path).text;
     const command = `\\${item.command}{${written}}`;
+    if (written === '' || written.endsWith('/')) {
+      this.error(file, item.path, 'latex-argument-missing', `${command} names no file: write the file's name, e.g. \\${item.command}{sections/examples}`);
+      return;
+    }
     // TeX tries name.tex first and then the name as written, unless it already ends in .tex; \include reads name.tex.
     const names = written.endsWith('.tex') ? [written] : item.command === 'include' ? [`${written}.tex`] : [`${written}.tex`, written];
     // TeX looks for the file from the directory it runs in (the manuscript's), not from the including file's.

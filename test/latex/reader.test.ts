@@ -249,6 +249,12 @@ describe('\\input and \\include', () => {
     expect(doc.files).toHaveLength(1);
   });
 
+  it('an \\input or \\include naming no file says so', () => {
+    const doc = read({ 'paper.tex': '\\input{}\n\\include{ }\n\\input{sections/}\n' });
+    expect(places(doc)).toEqual(['latex-argument-missing@paper.tex:1:8', 'latex-argument-missing@paper.tex:2:10', 'latex-argument-missing@paper.tex:3:8']);
+    expect(doc.diagnostics[2]!.message).toBe('\\input{sections/} names no file: write the file\'s name, e.g. \\input{sections/examples}');
+  });
+
   it('reports missing and circular includes without reading on', () => {
     const doc = read({
       'paper.tex': '\\input{none}\n\\input{a}\n',
