@@ -5,6 +5,8 @@
  * JSON numbers (halves and quarters are exact in binary).
  */
 import type { BoundReason, DiagramReport, LinkingNumber } from '../core/analyze/report.ts';
+import { DEFAULT_CONVENTION, type Convention, type SignatureSign } from '../core/convention/convention.ts';
+import { signatureInConvention } from '../core/invariants/classical/signature.ts';
 import type { Notation } from '../core/diagram/model.ts';
 import type { InputError } from '../core/errors.ts';
 import type { TextSpan } from '../core/diagnostics/diagnostic.ts';
@@ -57,8 +59,10 @@ export interface ComputeJson {
   readonly conway: PolynomialJson;
   /** det(L) = |Δ(−1)|, a decimal string (it can exceed 2^53). */
   readonly determinant: string;
-  /** σ(L) with σ(positive trefoil) = −2, whatever the document convention. */
+  /** σ(L) in the sign of `signatureSign`, the one `--convention signature=…` declares. */
   readonly signature: number;
+  /** The sign the positive (right-handed) trefoil's signature has in `signature`: negative gives −2. */
+  readonly signatureSign: SignatureSign;
 }
 
 export interface InvalidCodeJson {
@@ -77,7 +81,7 @@ export function polynomialJson(p: Laurent, variable: PolynomialJson['variable'])
   return { variable, terms: p.terms().map(([e, c]) => [e, c.toString()] as const) };
 }
 
-export function computeJson(code: string, r: DiagramReport): ComputeJson {
+export function computeJson(code: string, r: DiagramReport, convention: Convention = DEFAULT_CONVENTION): ComputeJson {
   return {
     code,
     notation: r.notation,
@@ -114,7 +118,8 @@ export function computeJson(code: string, r: DiagramReport): ComputeJson {
     alexander: polynomialJson(r.classical.alexander, 't'),
     conway: polynomialJson(r.classical.conway, 'z'),
     determinant: r.classical.determinant.toString(),
-    signature: r.classical.signature,
+    signature: signatureInConvention(r.classical.signature, convention.signatureSign),
+    signatureSign: convention.signatureSign,
   };
 }
 

@@ -16,6 +16,7 @@ import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notat
 import { computeJson, invalidCodeJson } from '../compute-json.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
+import { signatureInConvention } from '../../core/invariants/classical/signature.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../core/diagnostics/diagnostic.ts';
 import { judgeClaim, judgementToDiagnostics, parseClaimAssignment, unreadableClaimDiagnostic, type ClaimAssignment } from '../../core/claims/index.ts';
 import { exitStatus, formatDiagnostic, judgementJson, unreadableClaimJson, type JudgementJson, type UnreadableClaimJson } from '../../report/index.ts';
@@ -64,8 +65,28 @@ function linkingLine(linking: readonly LinkingNumber[]): string {
   return `${nonZero.map(show).join(', ')}${zeros > 0 ? `; lk = 0 for the other ${zeros} pair${zeros === 1 ? '' : 's'}` : ''}`;
 }
 
+/** Δ, ∇, det and σ (in the declared sign, which the line names), and the genus bounds. */
+function classicalLines(r: DiagramReport, convention: Convention): string[] {
+  const c = r.classical;
+  const sigma = signatureInConvention(c.signature, convention.signatureSign);
+  const sign = `sign convention: positive trefoil ${convention.signatureSign === 'negative' ? '-2' : '+2'}`;
+  const lines = [
+    `  Alexander Δ(t) = ${c.alexander.toPlainString('t')}  (Conway normalisation${c.split ? '; 0 for a split link' : ''})`,
+    `  Conway   ∇(z) = ${c.conway.toPlainString('z')}`,
+    `  det      ${c.determinant}, signature ${signed(sigma)}  (${sign})`,
+  ];
+  if (!c.split) {
+    const lower = Math.max(...c.genusBounds.filter((b) => b.bound === 'lower').map((b) => b.value));
+    const upper = c.genusBounds.find((b) => b.bound === 'upper')!.value;
+    const value = lower === upper ? `${upper}` : `between ${lower} and ${upper}`;
+    const surface = r.components === 1 ? '' : ' (connected Seifert surfaces)';
+    lines.push(`  genus    ${value}${surface}: span Δ and |σ| give at least ${lower}, Seifert's algorithm on this diagram a surface of genus ${upper}`);
+  }
+  return lines;
+}
+
 /** The human summary of one analysed code: a heading line and indented facts. */
-export function plainSummary(position: number, code: string, r: DiagramReport): string {
+export function plainSummary(position: number, code: string, r: DiagramReport, convention: Convention = DEFAULT_CONVENTION): string {
   const lines: string[] = [];
   lines.push(`#${position} ${r.notation} ${JSON.stringify(code)}`);
   lines.push(`  ${count(r.crossings, 'crossing')}, ${count(r.components, 'component')}, writhe ${signed(r.writhe)} (${r.positiveCrossings} positive, ${r.negativeCrossings} negative)`);
@@ -76,6 +97,7 @@ export function plainSummary(position: number, code: string, r: DiagramReport): 
   const adequacy = r.adequate ? 'adequate' : r.aAdequate ? 'A-adequate only' : r.bAdequate ? 'B-adequate only' : 'neither A- nor B-adequate';
   lines.push(`  diagram  ${yesNo(r.connected, 'connected', 'split into several pieces')}, ${yesNo(r.reduced, 'reduced', 'not reduced')}, ${yesNo(r.alternating, 'alternating', 'not alternating')}, ${adequacy}`);
   lines.push(`           all-A state ${count(r.stateCircles.a, 'circle')}, all-B state ${count(r.stateCircles.b, 'circle')}`);
+  lines.push(...classicalLines(r, convention));
   if (r.nugatory.length > 0) lines.push(`  nugatory crossing${r.nugatory.length === 1 ? '' : 's'} (from 0): ${r.nugatory.join(', ')}`);
   if (r.linking.length > 0) lines.push(`  linking  ${linkingLine(r.linking)}`);
   const c = r.crossingNumber;
@@ -243,8 +265,9 @@ export const computeCommand: CliCommand = {
       if (outcome.ok) {
         const claims = args.claims.length > 0 ? judgeCodeClaims(position, outcome.report, reports, args, color) : undefined;
         claimDiagnostics.push(...(claims?.diagnostics ?? []));
-        const json = claims ? { ...computeJson(code, outcome.report), claims: claims.json } : computeJson(code, outcome.report);
-        const plain = claims ? `${plainSummary(position, code, outcome.report)}\n${claims.plain}` : plainSummary(position, code, outcome.report);
+        const json = claims ? { ...computeJson(code, outcome.report, args.convention), claims: claims.json } : computeJson(code, outcome.report, args.convention);
+        const summary = plainSummary(position, code, outcome.report, args.convention);
+        const plain = claims ? `${summary}\n${claims.plain}` : summary;
         process.stdout.write(args.json ? `${JSON.stringify(json)}\n` : `${plain}\n\n`);
         return;
       }
