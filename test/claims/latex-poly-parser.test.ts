@@ -60,6 +60,8 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     ['$t + t^3 - t^4$', poly([1, 1], [3, 1], [4, -1])],
     ['  $$-t^{1/2} - t^{5/2}$$ ', poly([0.5, -1], [2.5, -1])],
     ['\\(V(t) = t\\)', poly([1, 1])],
+    ['$t + t^3 - t^4$.', poly([1, 1], [3, 1], [4, -1])],
+    ['$t + t^3 - t^4.$', poly([1, 1], [3, 1], [4, -1])],
     // Unicode superscripts, as in prose: V(positive trefoil) = t + t³ − t⁴, from memory.
     ['t + t³ − t⁴', poly([1, 1], [3, 1], [4, -1])],
     ['−t⁻⁴ + t⁻³ + t⁻¹', poly([-4, -1], [-3, 1], [-1, 1])],

@@ -79,7 +79,8 @@ const SUPERSCRIPTS: Readonly<Record<string, string>> = {
  */
 function outerDelimiters(text: string): Set<number> {
   const start = text.length - text.trimStart().length;
-  const end = text.trimEnd().length;
+  // Sentence punctuation may follow the closing delimiter (`$…$.`); the tokenizer drops it.
+  const end = text.trimEnd().replace(/[.,;]$/, '').trimEnd().length;
   const inner = text.slice(start, end);
   for (const [open, close] of [['$$', '$$'], ['$', '$'], ['\\(', '\\)'], ['\\[', '\\]']] as const) {
     if (inner.length >= open.length + close.length && inner.startsWith(open) && inner.endsWith(close)) {
@@ -142,8 +143,8 @@ function tokenize(text: string): Token[] {
         tokens.push(TIMES_COMMANDS.has(name) ? { kind: 'op', text: '*', start: i, end: j } : { kind: 'command', text: name, start: i, end: j });
       }
       i = j;
-    } else if ('.,;'.includes(ch) && text.slice(i + 1).trim() === '') {
-      // Sentence punctuation closing the formula (`… - t^4.`) is not part of the value.
+    } else if ('.,;'.includes(ch) && [...text.slice(i + 1)].every((c, k) => /\s/.test(c) || delimiters.has(i + 1 + k))) {
+      // Sentence punctuation closing the formula (`… - t^4.`, `$… - t^4.$`) is not part of the value.
       break;
     } else if ('+-*/^_()[]{}='.includes(ch)) {
       tokens.push({ kind: 'op', text: ch, start: i, end: i + 1 });
