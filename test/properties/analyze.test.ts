@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import type { DiagramReport } from '../../src/core/analyze/report.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
+import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import { mirrorDiagram } from '../../src/core/diagram/model.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 import { bracketByStateSum } from '../../src/core/invariants/state-sum.ts';
@@ -145,5 +146,17 @@ describe('adequate non-alternating diagrams (Thistlethwaite 1988)', () => {
     expect(r.adequate).toBe(true);
     expect(r.span).toBeLessThan(10);
     expect(r.crossingNumber).toMatchObject({ lower: 10, upper: 10, exact: 10 });
+  });
+});
+
+describe('a non-alternating knot no theorem here decides', () => {
+  it('8_19 from its DT code 4 8 -12 2 -14 -16 -6 -10 (code and V = t^3 + t^5 − t^8 from memory): bounds 5 to 8, not exact, although c(8_19) = 8', () => {
+    const r = analyzeDiagram(parseDiagramCode('4 8 -12 2 -14 -16 -6 -10', 'dt'));
+    expect(r.jones.equals(Laurent.fromTerms([[3, 1], [5, 1], [8, -1]])) || r.jones.equals(Laurent.fromTerms([[-3, 1], [-5, 1], [-8, -1]]))).toBe(true);
+    // A positive diagram (all 8 crossings positive), non-alternating and adequate on one side only, so only span V and n bound it.
+    expect(r.writhe).toBe(8);
+    expect(r.alternating).toBe(false);
+    expect([r.aAdequate, r.bAdequate]).toEqual([true, false]);
+    expect(r.crossingNumber).toMatchObject({ lower: 5, upper: 8, exact: null });
   });
 });
