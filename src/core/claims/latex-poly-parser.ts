@@ -443,7 +443,7 @@ class PolynomialParser {
     if (this.isOp(t, '{')) return this.parsePrimary();
     if (t.kind === 'number') return this.singleDigit(t);
     if (t.kind === 'letter') return this.parsePrimary();
-    if (t.kind === 'end') fail(`stray \`\\${command.text}\`: it needs ${what}, e.g. \`\\frac{1}{2}\``, command);
+    if (t.kind === 'end') fail(`stray \`\\${command.text}\`: it needs ${what}, e.g. \`${command.text === 'sqrt' ? '\\sqrt{t}' : '\\frac{1}{2}'}\``, command);
     fail(`\`\\${command.text}\` needs ${what} in braces here`, t);
   }
 
@@ -464,7 +464,16 @@ class PolynomialParser {
 
   private parseSquareRoot(): Spanned<Laurent> {
     const command = this.next();
-    if (this.isOp(this.peek(), '[')) fail('only square roots are read: remove the root index `[…]`', this.peek());
+    const open = this.peek();
+    if (this.isOp(open, '[')) {
+      // `\sqrt[2]{t}` is a square root written out; any other index is not read.
+      const index = this.peek(1);
+      const close = this.peek(2);
+      if (!(index.kind === 'number' && index.text === '2' && this.isOp(close, ']'))) {
+        fail('only square roots are read: remove the root index `[…]`', { start: open.start, end: (this.isOp(close, ']') ? close : index).end });
+      }
+      this.pos += 3;
+    }
     const radicand = this.parseArgument(command, 'a radicand');
     return { value: this.power(radicand, { value: rational(1, 2), start: command.start, end: radicand.end }), start: command.start, end: radicand.end };
   }
