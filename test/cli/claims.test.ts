@@ -84,6 +84,21 @@ describe('skeinproof compute --claim', () => {
     expect(badConvention.status).toBe(2);
     expect(badConvention.stderr).toMatch(/ascending, descending/);
   });
+  it('says a claim that does not apply is not applicable, not unreadable, and exits 2', () => {
+    const run = skeinproof('compute', '-n', 'braid', '1 1 1', '--claim', 'linking=1');
+    expect(run.status).toBe(2);
+    expect(run.stdout).toContain('    linking = 1: not applicable');
+    expect(run.stdout).toContain('[claim-inapplicable]');
+  });
+  it('reads crossing-number claims as authors write them (c(3₁) = 3, from memory)', () => {
+    const run = skeinproof('compute', '--json', '-n', 'braid', '1 1 1', '--claim', 'crossing-number=c(K) \\le 7', '--claim', 'crossing_number=3 \\le c(K) \\le 5');
+    expect(run.status).toBe(0);
+    const [claims] = claimsOf(run.stdout);
+    expect(claims!.map((c) => [c['key'], c['verdict']])).toEqual([
+      ['crossing-number', 'agrees'],
+      ['crossing-number', 'agrees'],
+    ]);
+  });
   it('names another code of the same run as the source of a swapped value', () => {
     const run = skeinproof('compute', '--json', '-n', 'braid', '1 1 1', '1 -2 1 -2', '--claim', 'jones=t + t^3 - t^4');
     const [first, second] = claimsOf(run.stdout);

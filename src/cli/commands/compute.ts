@@ -170,7 +170,7 @@ function judgeCodeClaims(position: number, report: DiagramReport, others: Readon
     } catch (error) {
       if (!isInputError(error)) throw error;
       json.push(unreadableClaimJson(claim.key, claim.value, error));
-      lines.push(`    ${claim.key} = ${claim.value.trim()}: unreadable`);
+      lines.push(`    ${claim.key} = ${claim.value.trim()}: ${error.ruleId === 'claim-inapplicable' ? 'not applicable' : 'unreadable'}`);
       found = [unreadableClaimDiagnostic(error, locate)];
     }
     diagnostics.push(...found);
