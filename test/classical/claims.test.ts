@@ -43,6 +43,20 @@ describe('claims about the classical invariants', () => {
     const one = judge('alexander', '-t^{-1} + 5 - t', figureEight);
     expect(one.diagnosis).toMatchObject({ kind: 'one-coefficient', term: { exponent: 0, computed: '3', claimed: '5' } });
   });
+  it('explain a non-zero Δ, ∇ or det claimed for a split diagram: split links have Δ = ∇ = det = 0 (from memory: Conway skein relation)', () => {
+    const trefoilBesideCircle = analyzeDiagram(closeBraid([1, 1, 1], 3));
+    const one = judge('alexander', '1', trefoilBesideCircle);
+    expect(one.verdict).toBe('contradicts');
+    expect(one.diagnosis?.kind).toBe('none');
+    expect(one.diagnosis?.detail).toMatch(/2 separate pieces, so the link is split and its Alexander polynomial is 0$/);
+    // Multiplying the pieces' values gives the connected sum's (trefoil · unknot), not the split union's.
+    for (const [key, text] of [['alexander', 't - 1 + t^{-1}'], ['conway', '1 + z^2'], ['determinant', '3']] as const) {
+      const product = judge(key, text, trefoilBesideCircle);
+      expect(product.verdict).toBe('contradicts');
+      expect(product.diagnosis?.detail).toMatch(/product of the pieces' values, which is the .* of their connected sum, not of the split union/);
+    }
+    expect(judge('alexander', '0', trefoilBesideCircle).verdict).toBe('agrees');
+  });
   it('name the value of another diagram of the document as swapped', () => {
     const others = new Map([['eight', figureEight]]);
     expect(judge('determinant', '5', trefoil, DEFAULT_CONVENTION, others).diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'eight' });

@@ -172,6 +172,7 @@ function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: str
       };
     }
   }
+  if (report.classical.split) return swappedWith(ctx, (other) => polynomialOf(key, other).equals(claim), NOUNS[key]) ?? splitDiagnosis(key, claim, report);
   const difference = claim.sub(computed);
   if (difference.termCount === 1) {
     const exponent = difference.exponents[0]!;
@@ -188,6 +189,26 @@ function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: str
       detail: 'no common slip (sign, power of the variable, Alexander for Conway, one coefficient, another diagram) explains the difference',
     }
   );
+}
+
+/**
+ * A non-zero value claimed for a split diagram: Δ, ∇ and det of a split link are 0 (the
+ * skein relation gives ∇ = 0), and the likeliest slip is the product of the pieces' values,
+ * which belongs to their connected sum.
+ */
+function splitDiagnosis(key: ClassicalKey, claim: Laurent | bigint, report: DiagramReport): Diagnosis {
+  const { pieces } = report.classical;
+  const product =
+    typeof claim === 'bigint'
+      ? pieces.reduce((x, p) => x * p.determinant, 1n) === claim
+      : pieces.reduce((x, p) => x.mul(key === 'alexander' ? p.alexander : p.conway), Laurent.one).equals(claim);
+  const noun = key === 'determinant' ? 'determinant' : NOUNS[key];
+  return {
+    kind: 'none',
+    detail:
+      `the diagram falls into ${pieces.length} separate pieces, so the link is split and its ${noun} is 0` +
+      (product ? `; the claim is the product of the pieces' values, which is the ${noun} of their connected sum, not of the split union` : ''),
+  };
 }
 
 function judgeInteger(key: 'determinant' | 'signature', text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
@@ -221,6 +242,7 @@ function judgeInteger(key: 'determinant' | 'signature', text: string, report: Di
     }
   }
   diagnosis ??= swappedWith(ctx, (other) => valueOf(other) === claimed, noun);
+  if (!diagnosis && key === 'determinant' && report.classical.split) diagnosis = splitDiagnosis(key, claimed, report);
   if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) {
     return {
       ...base,

@@ -44,6 +44,11 @@ export interface ClassicalInvariants {
   readonly goeritzUncorrected: readonly number[];
   /** The projection has more than one piece (free loops count), so the link is split. */
   readonly split: boolean;
+  /**
+   * Δ, ∇ and det of each piece of the projection (one entry when it is connected): what an
+   * author may have multiplied for a split diagram, which gives the value of their connected sum.
+   */
+  readonly pieces: readonly { readonly alexander: Laurent; readonly conway: Laurent; readonly determinant: bigint }[];
   /** Seifert circles of the diagram, free loops included. */
   readonly seifertCircles: number;
   /** Bounds on the genus of a Seifert surface of the link (for links: of any connected one). */
@@ -111,6 +116,7 @@ export function classicalInvariants(d: LinkDiagram): ClassicalInvariants {
     traczykSignature: traczyk,
     goeritzUncorrected: split ? [] : pieces[0]!.goeritzUncorrected,
     split,
+    pieces: pieces.map((p) => ({ alexander: p.alexander, conway: p.conway, determinant: p.determinant })),
     seifertCircles: circles,
     genusBounds: split ? [] : genusBounds(alexander, signature, mu, d.crossings.length, circles),
   };
