@@ -196,6 +196,7 @@ class ManuscriptReader {
   }
 
   private fill(file: SourceFile, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[]): void {
+    if (this.inDefinition(file, item.span, `\\${item.macro}`, [item.id, item.key], ' (the flat copy keeps it as written, so it needs the package)')) return;
     const id = this.validId(file, trim(item.id), item.span, `\\${item.macro}`, `\\${item.macro}{trefoil}`);
     let key: FillKey | undefined;
     if (typeof item.key === 'string') key = item.key as FillKey;
@@ -218,6 +219,7 @@ class ManuscriptReader {
 
   private claim(file: SourceFile, item: Extract<ScanItem, { kind: 'claim' }>, splices: Splice[]): void {
     splices.push({ kind: 'text', span: item.span, text: file.text.slice(item.value.start, item.value.end) });
+    if (this.inDefinition(file, item.span, '\\skeinclaim', [item.id, item.key, item.value], '')) return;
     const id = this.validId(file, trim(item.id), item.span, '\\skeinclaim', '\\skeinclaim{trefoil}{jones}{…}');
     const key = trim(item.key);
     if (!isClaimKey(key.text)) {
@@ -491,6 +493,21 @@ class ManuscriptReader {
     if (/^\d+$/.test(value.text) && Number(value.text) >= 1) return Number(value.text);
     this.error(file, value, 'latex-option-invalid', `strands must be a positive whole number (the braid's strand count), not \`${value.text}\``);
     return null;
+  }
+
+  /**
+   * A fill-in or claim whose arguments hold a macro parameter (`\skeinjones{#1}` in a \newcommand) stands
+   * for values skeinproof cannot know: it is noted and left alone, its uses are not seen.
+   */
+  private inDefinition(file: SourceFile, span: Span, macro: string, args: readonly (Arg | string)[], flat: string): boolean {
+    if (!args.some((a) => typeof a !== 'string' && a.text.includes('#'))) return false;
+    this.diagnostics.push({
+      severity: 'warning',
+      ruleId: 'latex-macro-parameter',
+      message: `this ${macro} takes its arguments from a macro parameter, so skeinproof cannot tell which value it stands for and neither checks nor fills it, nor its uses${flat}: write the fill-ins and claims themselves where the values appear`,
+      location: file.location(span.start, span.end),
+    });
+    return true;
   }
 
   private error(file: SourceFile, span: Span, ruleId: string, message: string): void {

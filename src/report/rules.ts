@@ -45,7 +45,8 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'latex-input-missing', description: 'An \\input or \\include names a file that does not exist.' },
   { id: 'latex-input-cycle', description: 'An \\input or \\include reads a file that is already being read.' },
   { id: 'latex-convention-twice', description: 'The convention is declared more than once in a LaTeX manuscript.' },
-  { id: 'latex-convention-misplaced', description: '\\skeinconvention comes after \\begin{document}, where LaTeX no longer accepts it.' },
+  { id: 'latex-convention-misplaced', description: '\\skeinconvention comes after \\begin{document} or before \\usepackage{skeinproof}, where LaTeX does not accept it.' },
+  { id: 'latex-macro-parameter', description: 'A LaTeX fill-in or claim takes its arguments from a macro parameter (inside \\newcommand), so skeinproof cannot check or fill it.' },
 ];
 
 export function ruleDescription(id: string): string {

@@ -173,6 +173,17 @@ describe('located errors in the markup', () => {
     expect(places(read({ 'paper.tex': '\\skeinconvention{jones=q}\n' }))).toEqual([]);
   });
 
+  it('a fill-in or claim inside a macro definition, with a parameter for an argument, is a warning and left alone', () => {
+    const doc = read({
+      'paper.tex':
+        '\\newcommand{\\J}[1]{$V(#1) = \\skeinjones{#1}$}\n\\newcommand{\\C}[2]{\\skeinclaim{#1}{jones}{#2}}\n\\newcommand{\\W}{\\skeinvalue{k}{##1}}\n',
+    });
+    expect(places(doc)).toEqual(['latex-macro-parameter@paper.tex:1:29', 'latex-macro-parameter@paper.tex:2:20', 'latex-macro-parameter@paper.tex:3:17']);
+    expect(doc.diagnostics.map((d) => d.severity)).toEqual(['warning', 'warning', 'warning']);
+    expect(doc.fills).toEqual([]);
+    expect(doc.claims).toEqual([]);
+  });
+
   it('strands belongs to braid words only', () => {
     const doc = read({ 'paper.tex': '\\begin{skeincode}{id=k, notation=dt, strands=3}\n4 6 2\n\\end{skeincode}\n' });
     expect(places(doc)).toEqual(['latex-option-invalid@paper.tex:1:46']);
