@@ -370,6 +370,16 @@ class ManuscriptReader {
       const place = `skein table ${table}, row ${row.number}`;
       // A row that is one \multicolumn is a label inside the table (`\multicolumn{3}{l}{Torus knots}`), like a spacer.
       if (row.cells.length === 1 && /^\\multicolumn(?![A-Za-z])/.test(row.cells[0]!.content.text)) continue;
+      const input = row.cells.find((c) => /\\(input|include)(?![A-Za-z])/.test(c.content.text));
+      if (input) {
+        this.error(
+          file,
+          input.content,
+          'latex-table-malformed',
+          `${place}: skeinproof reads a skein table's rows where the table is written, not from \\input or \\include files: move these rows into the table (or \\input the whole skeintable)`,
+        );
+        continue;
+      }
       const multi = row.cells.find((c) => c.content.text.includes('\\multicolumn'));
       if (multi) {
         this.error(file, multi.content, 'latex-table-malformed', `${place}: a skein table cannot hold \\multicolumn; give every column its own cell`);

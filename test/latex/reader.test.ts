@@ -260,6 +260,15 @@ describe('\\input and \\include', () => {
     expect(doc.files).toHaveLength(1);
   });
 
+  it('rows of a skein table read from an \\input file are refused with a reason', () => {
+    const doc = read({
+      'paper.tex': PREAMBLE + '\\begin{skeintable}{id, jones}\n\\begin{tabular}{ll}\nK & V \\\\\n\\input{rows}\n\\end{tabular}\n\\end{skeintable}\n',
+      'rows.tex': 'k & \\\\\n',
+    });
+    expect(places(doc)).toEqual(['latex-table-malformed@paper.tex:7:1']);
+    expect(doc.diagnostics[0]!.message).toContain('not from \\input or \\include files');
+  });
+
   it('an \\input or \\include naming no file says so', () => {
     const doc = read({ 'paper.tex': '\\input{}\n\\include{ }\n\\input{sections/}\n' });
     expect(places(doc)).toEqual(['latex-argument-missing@paper.tex:1:8', 'latex-argument-missing@paper.tex:2:10', 'latex-argument-missing@paper.tex:3:8']);
