@@ -8,7 +8,7 @@ import type { Code, Html, InlineCode, Nodes, PhrasingContent, Root, Table, Table
 import type { ContainerDirective, TextDirective } from 'mdast-util-directive';
 import { visit, SKIP } from 'unist-util-visit';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
-import type { Diagnostic, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
 import type { Notation } from '../../src/core/diagram/model.ts';
 import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
 import { alignValue, mapSpan, SourceText, type OffsetMap } from './source-text.ts';
@@ -54,6 +54,8 @@ export interface ExtractedManuscript {
   readonly actions: ReadonlyMap<Nodes, NodeAction>;
   /** Problems in skeinproof's own markup (bad settings, unknown columns, …). */
   readonly problems: readonly Diagnostic[];
+  /** Ids of diagrams whose block or row was refused before its code was read (e.g. an unknown notation), with the place of the refusal. */
+  readonly refusedIds: ReadonlyMap<string, SourceLocation>;
 }
 
 export interface ExtractOptions {
@@ -72,6 +74,7 @@ class Extractor {
   private readonly edits: TextEdit[] = [];
   private readonly actions = new Map<Nodes, NodeAction>();
   private readonly problems: Diagnostic[] = [];
+  private readonly refused = new Map<string, SourceLocation>();
   private settings: ManuscriptSettings = { convention: {} };
   /** The extent of the table cell visited last, to tell a fill-in written in a cell. */
   private cell: [number, number] = [-1, -1];
@@ -110,7 +113,13 @@ class Extractor {
       edits: [...this.edits].sort((a, b) => a.start - b.start || a.end - b.end),
       actions: this.actions,
       problems: this.problems,
+      refusedIds: this.refused,
     };
+  }
+
+  /** Records that the diagram `id` (when the author wrote one) was refused at `at`, so references to it are not also unknown ids. */
+  private refuse(id: string | undefined, at: number): void {
+    if (id && !this.refused.has(id)) this.refused.set(id, this.source.location(at));
   }
 
   private inCell(offset: number): boolean {
@@ -167,6 +176,7 @@ class Extractor {
         if (isNotation(s.value)) notation = s.value;
         else {
           this.error('markup-invalid', `diagram block: unknown notation \`${s.value}\`: write one of ${NOTATION_NAMES.join(', ')}`, metaStart + s.valueStart, metaStart + s.valueEnd);
+          this.refuse(settings.find((x) => x.key === 'id')?.value, metaStart + s.valueStart);
           return;
         }
       } else if (s.key === 'strands') {
@@ -191,6 +201,7 @@ class Extractor {
     }
     if (notation === undefined) {
       this.error('markup-invalid', `diagram \`${id}\` names no notation: add notation=pd|braid|gauss|dt, or set a default notation in the front matter`, start, firstLineEnd);
+      this.refuse(id, start);
       return;
     }
     const codeStart = firstLineEnd < end ? nextLineStart(this.text, firstLineEnd) : end;
@@ -382,6 +393,7 @@ class Extractor {
           if (isNotation(written)) rowNotation = written;
           else {
             this.error('markup-invalid', `table row ${rowNumber}: unknown notation \`${written}\`: write one of ${NOTATION_NAMES.join(', ')}`, c.start, c.end);
+            this.refuse(rowIdWritten(this.text, diagramCell), c.start);
             return;
           }
         }
@@ -435,6 +447,7 @@ class Extractor {
     const id = before !== '' ? before : `table row ${rowNumber} at line ${this.source.point(s).line}`;
     if (notation === undefined) {
       this.error('markup-invalid', `table row ${rowNumber}: the code's notation is not known: add a \`${ROW_NOTATION_COLUMN}\` column, {notation=…} on \`:::${TABLE_DIRECTIVE}\`, or a default in the front matter`, cs, ce);
+      this.refuse(before, cs);
       return undefined;
     }
     if (before !== '' && !isUsableId(before)) {
@@ -459,6 +472,14 @@ class Extractor {
 
 const STRAY_HINT = 'Keep the label [ … ] on one line and write {of=ID} right after it; in a pipeline of your own, add remark-directive.';
 const STRAY_IN_HTML_HINT = 'Markdown is not read inside raw HTML up to the next blank line: put a blank line after the HTML tag, or move the claim out of the HTML.';
+
+/** The id written before a row's code (`weave-4 \`1 -2\``), if any. */
+function rowIdWritten(text: string, cell: TableCell): string | undefined {
+  const [s] = offsets(cell);
+  const code = cell.children.find((c): c is InlineCode => c.type === 'inlineCode');
+  if (!code) return undefined;
+  return text.slice(s, offsets(code)[0]).replace(/^\|/, '').trim() || undefined;
+}
 
 function offsets(node: Nodes): [number, number] {
   return [node.position?.start.offset ?? 0, node.position?.end.offset ?? 0];

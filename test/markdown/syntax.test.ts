@@ -117,6 +117,20 @@ describe('fill-ins', () => {
     ]);
   });
 
+  it('does not also call the id of a refused block or row unknown: a note points at the refusal', async () => {
+    const text = '```skein id=b notation=knotty\n1 1\n```\n\n:::invariants\n| diagram | notation | writhe |\n|---|---|---|\n| r1 `1 1` | morse | |\n:::\n\n:jones{of=b} :writhe[$2$]{of=r1} :jones{of=zz}\n';
+    const r = await processMarkdown(text);
+    const last = text.split('\n').length - 1;
+    expect(placed(r.diagnostics)).toEqual([
+      `error markup-invalid ${positionOf(text, 'knotty')}`,
+      `error markup-invalid ${positionOf(text, 'morse')}`,
+      `note target-invalid ${last}:1`,
+      `note target-invalid ${positionOf(text, '$2$')}`,
+      `error target-unknown ${positionOf(text, ':jones{of=zz}')}`,
+    ]);
+    expect(r.diagnostics[2]!.message).toBe(`the jones fill-in for \`b\` is not filled in: the diagram \`b\` was refused (doc.md:${positionOf(text, 'knotty')})`);
+  });
+
   it('refuses a fill-in of a value that is only checked', async () => {
     const text = `${TREFOIL}\n:alternating{of=tref}\n`;
     const r = await processMarkdown(text);

@@ -54,13 +54,13 @@ export function runSession(input: SessionInput): SessionResult {
   // One error per unknown id per line: a table row naming a missing diagram is one mistake, not one per column.
   const reportedUnknown = new Set<string>();
   /** `subject` names the claim or fill-in ("the Jones polynomial claimed for `k`", or a table cell). */
-  const unknownTarget = (target: string, locate: Locator, subject: string): Diagnostic[] => {
+  const unknownTarget = (target: string, locate: Locator, subject: string, verb: string): Diagnostic[] => {
     const location = locate();
     const key = `${target}\u0000${location.file}\u0000${location.start.line}`;
     if (reportedUnknown.has(key)) return [];
     reportedUnknown.add(key);
     const message = `${subject}: no diagram has the id \`${target}\``;
-    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, knownIds) }];
+    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, knownIds), data: { target, subject, verb } }];
   };
   const skippedBecauseInvalid = (target: string, locate: Locator, subject: string, verb: string): Diagnostic => ({
     severity: 'note',
@@ -69,7 +69,7 @@ export function runSession(input: SessionInput): SessionResult {
     location: locate(),
   });
   const missing = (target: string, locate: Locator, subject: string, verb: string): Diagnostic[] =>
-    invalid.has(target) ? [skippedBecauseInvalid(target, locate, subject, verb)] : unknownTarget(target, locate, subject);
+    invalid.has(target) ? [skippedBecauseInvalid(target, locate, subject, verb)] : unknownTarget(target, locate, subject, verb);
 
   for (const claim of input.claims) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
