@@ -1,6 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { PLAIN_CLASSICAL_LIMIT } from '../../src/cli/commands/compute.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -50,6 +51,13 @@ describe('compute --json: the classical keys', () => {
     expect(stdout).toContain('Alexander Δ(t) = 0  (Conway normalisation; 0 for a split link)');
     expect(stdout).toContain('det      0, signature -2');
     expect(stdout).not.toContain('genus');
+  });
+  it('leave them out of the plain summary of a diagram above the size limit, saying how to get them', () => {
+    const word = Array.from({ length: PLAIN_CLASSICAL_LIMIT + 1 }, (_, k) => (k % 2 === 0 ? 1 : -2)).join(' ');
+    const { status, stdout } = skeinproof('compute', '--notation', 'braid', word);
+    expect(status).toBe(0);
+    expect(stdout).toContain(`classical not shown above ${PLAIN_CLASSICAL_LIMIT} crossings`);
+    expect(stdout).not.toContain('Alexander Δ(t)');
   });
   it('checks classical claims from the command line, in the declared signature sign', () => {
     const agrees = skeinproof('compute', '--notation', 'braid', '1 1 1', '--claim', 'signature=2', '--claim', 'determinant=3', '--convention', 'signature=positive');

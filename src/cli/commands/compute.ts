@@ -65,8 +65,16 @@ function linkingLine(linking: readonly LinkingNumber[]): string {
   return `${nonZero.map(show).join(', ')}${zeros > 0 ? `; lk = 0 for the other ${zeros} pair${zeros === 1 ? '' : 's'}` : ''}`;
 }
 
+/** The largest diagram whose plain summary includes the classical invariants. */
+export const PLAIN_CLASSICAL_LIMIT = 400;
+
 /** Δ, ∇, det and σ (in the declared sign, which the line names), and the genus bounds. */
 function classicalLines(r: DiagramReport, convention: Convention): string[] {
+  // Δ costs about n³ (seconds at 300 crossings, half a minute at 1000) while the bracket of a thin
+  // diagram takes milliseconds: a large summary should not wait for what the user did not ask for.
+  if (r.crossings > PLAIN_CLASSICAL_LIMIT) {
+    return [`  classical not shown above ${PLAIN_CLASSICAL_LIMIT} crossings (Δ takes about n³ time); --json or a --claim about them computes Δ, ∇, det and σ`];
+  }
   const c = r.classical;
   const sigma = signatureInConvention(c.signature, convention.signatureSign);
   const sign = `sign convention: positive trefoil ${convention.signatureSign === 'negative' ? '-2' : '+2'}`;
