@@ -109,6 +109,18 @@ describe('build', () => {
     expect(readFileSync(out, 'utf8')).toContain('V = $q^2 + q^6 - q^8$, writhe $3$.');
   });
 
+  it('keeps a JSON or SARIF report on stderr one parseable document when nothing is written', () => {
+    const doc = join(work, 'g.md');
+    writeFileSync(doc, TREFOIL);
+    for (const format of ['json', 'sarif']) {
+      const r = skeinproof(['build', '--format', format, doc, '-o', join(work, `g-${format}.md`)]);
+      expect(r.status).toBe(1);
+      expect(r.stdout).toBe('');
+      expect(() => JSON.parse(r.stderr)).not.toThrow();
+    }
+    expect(skeinproof(['build', doc, '-o', join(work, 'g-text.md')]).stderr).toContain('nothing written because the check failed');
+  });
+
   it('writes nothing when a warning fails the check under --strict', () => {
     // A DT code fixes a knot only up to mirror image, so the mirror's value is only a warning.
     const doc = join(work, 'e.md');

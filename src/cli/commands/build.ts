@@ -53,7 +53,8 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
   const status = exitStatusFor(result.diagnostics, failed, strict);
   const inputs = result.inputs;
   if (failed && !args.forceWrite) {
-    if (result.outputs.length > 0) process.stderr.write('skeinproof: nothing written because the check failed; fix the errors above, or pass --force-write\n');
+    // A JSON or SARIF report on stderr must stay one document that tools can parse; the exit status says the same.
+    if (result.outputs.length > 0 && args.report === 'text') process.stderr.write('skeinproof: nothing written because the check failed; fix the errors above, or pass --force-write\n');
     return { status, inputs };
   }
   for (const output of result.outputs) {
