@@ -204,6 +204,11 @@ class Extractor {
       this.refuse(id, start);
       return;
     }
+    if (strands !== undefined && notation !== 'braid') {
+      const at = settings.find((x) => x.key === 'strands')!;
+      this.error('markup-invalid', `diagram \`${id}\`: strands=${strands} applies to braid words only; a ${notation} code counts its own strands, so remove it`, metaStart + at.keyStart, metaStart + at.valueEnd);
+      strands = undefined;
+    }
     const codeStart = firstLineEnd < end ? nextLineStart(this.text, firstLineEnd) : end;
     const codeEnd = Math.max(codeStart, closingFenceStart(this.text, codeStart, end));
     const map = alignValue(this.text, codeStart, codeEnd, node.value);

@@ -23,6 +23,15 @@ describe('diagram blocks', () => {
     expect(r.diagnostics).toEqual([]);
   });
 
+  it('refuses strands on a code that is not a braid word, at the setting', async () => {
+    const text = '```skein id=k notation=pd strands=3\n(4,2,5,1) (2,6,3,5) (6,4,1,3)\n```\n\n:writhe{of=k}\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, 'strands')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/braid words only/);
+    // The code itself is still read: the positive trefoil's writhe is 3 (from memory).
+    expect(r.built.endsWith('$3$\n')).toBe(true);
+  });
+
   it('judges a header claim and points at its value', async () => {
     const text = '```skein id=k notation=braid writhe=2\n1 1 1\n```\n';
     const r = await processMarkdown(text);
