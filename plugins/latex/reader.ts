@@ -338,8 +338,10 @@ class ManuscriptReader {
 
   private table(file: SourceFile, item: Extract<ScanItem, { kind: 'table' }>, splices: Splice[]): void {
     const table = ++this.tables;
-    splices.push({ kind: 'text', span: item.beginSpan, text: '' });
-    splices.push({ kind: 'text', span: item.endSpan, text: '' });
+    // The package's environment ignores the spaces after its \begin and \end (\ignorespaces, \ignorespacesafterend),
+    // and a removed wrapper must not leave an empty line, which TeX reads as a paragraph break.
+    splices.push({ kind: 'text', span: withSpacesAfter(file.text, item.beginSpan), text: '' });
+    splices.push({ kind: 'text', span: withSpacesAfter(file.text, item.endSpan), text: '' });
     const head = this.tableHead(file, item.options);
     const columns = splitTopLevel(item.columns, ',').map(trim);
     const idColumns = columns.flatMap((c, i) => (c.text === 'id' ? [i + 1] : []));
@@ -523,6 +525,12 @@ class ManuscriptReader {
   private error(file: SourceFile, span: Span, ruleId: string, message: string): void {
     this.diagnostics.push({ severity: 'error', ruleId, message, location: file.location(span.start, span.end) });
   }
+}
+
+/** The span and the spaces after it up to and including the end of its line, as TeX's \ignorespaces skips them. */
+function withSpacesAfter(text: string, span: Span): Span {
+  const m = /^[ \t]*(\r?\n)?/.exec(text.slice(span.end, span.end + 200))!;
+  return { start: span.start, end: span.end + m[0].length };
 }
 
 /** A locator for spans of `arg`'s text, in its file. */

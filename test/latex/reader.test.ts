@@ -311,7 +311,7 @@ describe('building', () => {
       '\\documentclass{article}\n\\usepackage{amsmath}\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}\n\n\\begin{document}\n' +
         '\\begin{flushleft}\\ttfamily\n1 1% Hopf\n\\end{flushleft}\n' +
         'Values: $-t^{5/2} - t^{1/2}$, $w = 2$, claimed $2$.\n' +
-        '\n\\begin{tabular}{ll}\nId & span\\\\\nh & \\ensuremath{2} \\\\\n\\end{tabular}\n\n\\end{document}\n',
+        '\\begin{tabular}{ll}\nId & span\\\\\nh & \\ensuremath{2} \\\\\n\\end{tabular}\n\\end{document}\n',
     );
   });
 

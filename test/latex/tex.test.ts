@@ -4,6 +4,7 @@
  * after each way of building, and the PDF is read back with pdftotext.
  * Every run happens in a temporary copy.
  */
+import { execFileSync } from 'node:child_process';
 import { copyFileSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import fc from 'fast-check';
@@ -473,6 +474,39 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(packageWarnings(run.log, 'skeinproof').filter((w) => w.startsWith('Value'))).toEqual([
       "Value `writhe' of `AB' is not computed yet on input line 5.",
     ]);
+  });
+
+  it('the flat copy lays out a skein table inside a paragraph as the package does (the wrapper leaves no space)', async () => {
+    // The package's environment ignores the spaces after \\begin{skeintable}{…} and \\end{skeintable}, as LaTeX's
+    // \\ignorespaces and \\ignorespacesafterend do; the same line must come out of both, read with pdftotext -layout.
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n\\end{skeincode}',
+      'Before the table:',
+      '\\begin{skeintable}[head=0]{id, writhe}',
+      '\\begin{tabular}{ll}',
+      'a & \\\\',
+      '\\end{tabular}',
+      '\\end{skeintable}',
+      'after the table.',
+      '\\end{document}',
+    ].join('\n');
+    const layouts: string[] = [];
+    for (const flat of [false, true]) {
+      const dir = workDir('inline-table', !flat);
+      writeFileSync(join(dir, 'inline.tex'), paper);
+      const result = await latexFormat.build(join(dir, 'inline.tex'), flat ? { output: join(dir, 'inline-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) writeFileSync(o.path, o.content);
+      const stem = flat ? 'inline-flat' : 'inline';
+      expect(pdflatex(dir, `${stem}.tex`).ok).toBe(true);
+      layouts.push(execFileSync('pdftotext', ['-layout', '-enc', 'UTF-8', join(dir, `${stem}.pdf`), '-'], { encoding: 'utf8' }));
+    }
+    // The writhe of the positive trefoil (from memory): 3.
+    expect(layouts[0]).toMatch(/Before the table:\s+a\s+3\s+after the table\./);
+    expect(layouts[1]).toBe(layouts[0]);
   });
 
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
