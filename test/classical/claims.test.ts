@@ -43,6 +43,14 @@ describe('claims about the classical invariants', () => {
     const one = judge('alexander', '-t^{-1} + 5 - t', figureEight);
     expect(one.diagnosis).toMatchObject({ kind: 'one-coefficient', term: { exponent: 0, computed: '3', claimed: '5' } });
   });
+  it('state no span bound when Δ = 0: the 2-component unlink drawn with two crossings bounds an annulus, genus 0 (from memory)', () => {
+    const unlinkWithCrossings = analyzeDiagram(closeBraid([1, -1], 2));
+    expect(unlinkWithCrossings.classical.alexander.isZero).toBe(true);
+    const spanBound = unlinkWithCrossings.classical.genusBounds.find((b) => b.reason === 'alexander-span')!;
+    expect(spanBound.text).toBe('Δ = 0 has no span, so it gives no lower bound.');
+    const statement = typesetValue('genus', unlinkWithCrossings, DEFAULT_CONVENTION);
+    expect(statement.kind === 'text' && statement.text).toMatch(/^The Alexander polynomial is \$0\$, which bounds nothing, .* so the genus is \$0\$\.$/);
+  });
   it('explain a non-zero Δ, ∇ or det claimed for a split diagram: split links have Δ = ∇ = det = 0 (from memory: Conway skein relation)', () => {
     const trefoilBesideCircle = analyzeDiagram(closeBraid([1, 1, 1], 3));
     const one = judge('alexander', '1', trefoilBesideCircle);

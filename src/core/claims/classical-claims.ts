@@ -75,8 +75,11 @@ export function genusStatement(report: DiagramReport): Typeset {
   return {
     kind: 'text',
     text:
-      `The Alexander polynomial has $\\operatorname{span} \\Delta = ${classical.alexander.span}$ and the signature has $|\\sigma| = ${Math.abs(classical.signature)}$; ` +
-      `both are at most $${inequality}$ for ${surface}, so $g \\ge ${lower}$. ` +
+      (classical.alexander.isZero
+        ? `The Alexander polynomial is $0$, which bounds nothing, and the signature has $|\\sigma| = ${Math.abs(classical.signature)}$, ` +
+          `at most $${inequality}$ for ${surface}, so $g \\ge ${lower}$. `
+        : `The Alexander polynomial has $\\operatorname{span} \\Delta = ${classical.alexander.span}$ and the signature has $|\\sigma| = ${Math.abs(classical.signature)}$; ` +
+          `both are at most $${inequality}$ for ${surface}, so $g \\ge ${lower}$. `) +
       `Seifert's algorithm on this diagram (${plural(report.crossings, 'crossing')}, ${plural(classical.seifertCircles, 'Seifert circle')}) builds such a surface of genus $${upper}$, ${conclusion}.`,
   };
 }

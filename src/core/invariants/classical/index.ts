@@ -130,8 +130,9 @@ function genusBounds(alexander: Laurent, signature: number, mu: number, crossing
     bound: 'lower',
     value: spanBound,
     reason: 'alexander-span',
-    text:
-      mu === 1
+    text: alexander.isZero
+      ? 'Δ = 0 has no span, so it gives no lower bound.'
+      : mu === 1
         ? `span Δ = ${alexander.span} is at most twice the genus of any Seifert surface, so the genus is at least ${spanBound}.`
         : `span Δ = ${alexander.span} is at most 2g + μ − 1 for a connected Seifert surface of genus g of this ${mu}-component link, so g ≥ ${spanBound}.`,
   });
