@@ -211,6 +211,18 @@ class Extractor {
     }
     const codeStart = firstLineEnd < end ? nextLineStart(this.text, firstLineEnd) : end;
     const codeEnd = Math.max(codeStart, closingFenceStart(this.text, codeStart, end));
+    if (codeEnd === end && this.text.slice(end).trim() === '' && end > codeStart) {
+      // CommonMark lets a fence run to the end of the document; here it is nearly always a forgotten closing fence.
+      const fence = /^[ \t]*(`{3,}|~{3,})/.exec(this.text.slice(this.text.lastIndexOf('\n', start) + 1, firstLineEnd))?.[1] ?? '```';
+      this.error(
+        'markup-invalid',
+        `diagram block \`${id}\` is never closed, so the rest of the document (line ${this.source.point(codeStart).line} on) is read as its code and nothing there is checked: add a line ${fence} after the code`,
+        start,
+        firstLineEnd,
+      );
+      this.refuse(id, start);
+      return;
+    }
     const map = alignValue(this.text, codeStart, codeEnd, node.value);
     const headerAt = idAt;
     this.diagrams.push({

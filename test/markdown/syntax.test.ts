@@ -32,6 +32,18 @@ describe('diagram blocks', () => {
     expect(r.built.endsWith('$3$\n')).toBe(true);
   });
 
+  it('reports a diagram block never closed at its fence, instead of reading the rest of the document as code', async () => {
+    for (const fence of ['```', '~~~~']) {
+      const text = `Before.\n\n${fence}skein id=k notation=braid\n1 1 1\n\nThe writhe is :writhe[$2$]{of=k}.\n`;
+      const r = await processMarkdown(text);
+      expect(placed(r.diagnostics)).toEqual(['error markup-invalid 3:1']);
+      expect(r.diagnostics[0]!.message).toBe(`diagram block \`k\` is never closed, so the rest of the document (line 4 on) is read as its code and nothing there is checked: add a line ${fence} after the code`);
+    }
+    // Closed by the end of its block quote, as CommonMark closes it, the block is fine.
+    const quoted = '> ```skein id=k notation=braid\n> 1 1 1\n\nThe writhe is :writhe[$3$]{of=k}.\n';
+    expect((await processMarkdown(quoted)).diagnostics).toEqual([]);
+  });
+
   it('judges a header claim and points at its value', async () => {
     const text = '```skein id=k notation=braid writhe=2\n1 1 1\n```\n';
     const r = await processMarkdown(text);
