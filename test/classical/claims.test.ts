@@ -65,6 +65,11 @@ describe('claims about the classical invariants', () => {
     }
     expect(judge('alexander', '0', trefoilBesideCircle).verdict).toBe('agrees');
   });
+  it('name ∇ written in t instead of z (trefoil ∇ = 1 + z², from memory)', () => {
+    const j = judge('conway', '1 + t^2', trefoil);
+    expect(j.verdict).toBe('contradicts');
+    expect(j.diagnosis).toMatchObject({ kind: 'normalization', detail: 'the claim has the coefficients of the computed Conway polynomial but is written in t; the Conway polynomial is a polynomial in z' });
+  });
   it('name the value of another diagram of the document as swapped', () => {
     const others = new Map([['eight', figureEight]]);
     expect(judge('determinant', '5', trefoil, DEFAULT_CONVENTION, others).diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'eight' });

@@ -148,6 +148,12 @@ function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: str
             : 'the claim is the Alexander polynomial Δ(t); the Conway polynomial ∇(z) satisfies Δ(t) = ∇(t^{1/2} − t^{−1/2})',
       };
     }
+    if (claim.equals(computed)) {
+      return {
+        kind: 'normalization',
+        detail: `the claim has the coefficients of the computed ${NOUNS[key]} but is written in ${claimLetter}; the ${NOUNS[key]} is a polynomial in ${letter}`,
+      };
+    }
     return { kind: 'none', detail: `the claim is written in ${claimLetter}, but the ${NOUNS[key]} is written in ${letter}, and it matches no other form of the value` };
   }
   if (!computed.isZero && claim.equals(computed.neg())) {
