@@ -327,6 +327,13 @@ describe('building', () => {
     );
   });
 
+  it('a fill-in in a document without diagrams is told how LaTeX declares one', () => {
+    const doc = read({ 'paper.tex': PREAMBLE + '\\skeinjones{k}\n\\end{document}\n' });
+    const session = runSession({ diagrams: doc.diagrams, claims: [], fills: doc.fills.map((f) => f.entry), convention: DEFAULT_CONVENTION });
+    expect(session.diagnostics.map((d) => d.ruleId)).toEqual(['target-unknown']);
+    expect(session.diagnostics[0]!.hints!.join(' ')).toContain('a `skeincode` environment (LaTeX)');
+  });
+
   it('the sidecar holds one definition per value, named as the package reads them', () => {
     const { doc, session } = build();
     // MD5 of the manuscript as in RFC 1321, here computed by the md5sum tool of GNU coreutils for the same bytes.

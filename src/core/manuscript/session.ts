@@ -120,7 +120,7 @@ function compareLocations(a: SourceLocation | undefined, b: SourceLocation | und
 
 /** Suggests the closest known id (edit distance at most 2), then lists the ids. */
 function hintsForUnknown(target: string, known: readonly string[]): string[] {
-  if (known.length === 0) return ['The document defines no named diagram yet: add a `skein` block (or a LaTeX diagram) with this id.'];
+  if (known.length === 0) return ['The document defines no named diagram yet: add a `skein` block (Markdown) or a `skeincode` environment (LaTeX) with this id.'];
   const close = known
     .map((id) => ({ id, d: editDistance(id.toLowerCase(), target.toLowerCase()) }))
     // Two edits turn any two-letter id into any other: only suggest ids closer than that.
