@@ -18,7 +18,7 @@ import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
 import { NOTATIONS } from '../../src/core/notation/index.ts';
 import { readKeyValues, splitTopLevel, trim, slice } from './key-values.ts';
 import { maskLatex } from './mask.ts';
-import { scanLatex, type Arg, type ScanItem, type Span } from './scanner.ts';
+import { FILL_SHORTCUTS, scanLatex, type Arg, type ScanItem, type Span } from './scanner.ts';
 import { SourceFile } from './source-file.ts';
 import { splitTabular } from './tabular.ts';
 
@@ -79,6 +79,8 @@ const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
  */
 const VALUE_SUPPORT =
   '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}';
+/** A fill-in macro (\skeinvalue or a shortcut) in a text. */
+const FILL_MACRO = new RegExp(`\\\\(skeinvalue|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
 /** Characters a diagram code may contain that plain LaTeX would not print as typed. */
 const SPECIAL_IN_CODE = /[\^_&#$~]/g;
 
@@ -421,6 +423,8 @@ class ManuscriptReader {
           splices.push({ kind: 'fill', span: cell.raw, fill: this.fills.length - 1 });
           return;
         }
+        // A fill-in macro written in the cell is read as a fill-in where it stands, not as a claimed value.
+        if (FILL_MACRO.test(cell.content.text)) return;
         if (!isClaimKey(key)) {
           this.error(file, cell.content, 'latex-cell-filled', `${context}: the \`${key}\` column is filled in by skeinproof; leave its cells empty`);
           return;

@@ -49,6 +49,17 @@ describe('what the reader extracts', () => {
     expect(doc.claims[2]!.locate().start).toMatchObject({ line: 8, column: 56 });
   });
 
+  it('a fill-in macro written in a key column is a fill-in, not a claimed value', () => {
+    const doc = read({
+      'paper.tex':
+        PREAMBLE +
+        '\\begin{skeintable}{id, jones, statement}\n\\begin{tabular}{lll}\nId & $V$ & \\\\\nk & $\\skeinjones{k}$ & \\skeinvalue{k}{statement} \\\\\n\\end{tabular}\n\\end{skeintable}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.claims).toEqual([]);
+    expect(doc.fills.map((f) => [f.target.kind, f.entry.key])).toEqual([['macro', 'jones'], ['macro', 'statement']]);
+  });
+
   it('an id cell may write an underscore as \\_, as text mode needs it (common practice)', () => {
     const doc = read({
       'paper.tex':
