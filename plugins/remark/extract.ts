@@ -99,6 +99,7 @@ class Extractor {
     visit(this.tree, (node) => {
       if (node.type === 'tableCell') this.cell = offsets(node); // visited before the directives in it
       if (node.type === 'code' && node.lang === DIAGRAM_FENCE_LANGUAGE) this.diagramBlock(node);
+      else if (node.type === 'code' && node.lang?.startsWith(DIAGRAM_FENCE_LANGUAGE)) this.misspelledFence(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
       // Markdown inside a raw HTML block (`<div>` up to the next blank line) is not parsed, so nor are claims there.
@@ -236,6 +237,18 @@ class Extractor {
     for (const c of headerClaims) {
       this.claims.push({ target: id, key: c.key, text: c.value, locate: this.fixedLocator(c.at, c.end), context: `the header of diagram ${id}` });
     }
+  }
+
+  /** ```skein,id=k or ```skeinid=k: meant as a diagram, but the info string's first word is not `skein`. */
+  private misspelledFence(node: Code): void {
+    const [start] = offsets(node);
+    const at = this.text.indexOf(node.lang!, start);
+    this.error(
+      'markup-invalid',
+      `\`${node.lang}\` is not read as a diagram: the info string must start with the word \`${DIAGRAM_FENCE_LANGUAGE}\` and a space, e.g. \`\`\`${DIAGRAM_FENCE_LANGUAGE} id=trefoil notation=braid`,
+      at,
+      at + node.lang!.length,
+    );
   }
 
   // :jones{of=K} (fill-in) and :jones[$…$]{of=K} (claim)

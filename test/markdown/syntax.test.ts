@@ -44,6 +44,13 @@ describe('diagram blocks', () => {
     expect((await processMarkdown(quoted)).diagnostics).toEqual([]);
   });
 
+  it('reports an info string that runs the settings into `skein`, and leaves other languages alone', async () => {
+    const text = '```skein,id=k notation=braid\n1 1 1\n```\n\n```skeinid=m\n1\n```\n\n```skeleton\nx\n```\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, 'skein,id')}`, `error markup-invalid ${positionOf(text, 'skeinid')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/must start with the word `skein` and a space/);
+  });
+
   it('judges a header claim and points at its value', async () => {
     const text = '```skein id=k notation=braid writhe=2\n1 1 1\n```\n';
     const r = await processMarkdown(text);
