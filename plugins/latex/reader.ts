@@ -79,8 +79,8 @@ const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
  */
 const VALUE_SUPPORT =
   '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}';
-/** A fill-in macro (\skeinvalue or a shortcut) in a text. */
-const FILL_MACRO = new RegExp(`\\\\(skeinvalue|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
+/** A fill-in macro (\skeinvalue or a shortcut) or \skeinclaim in a text. */
+const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
 /** Characters a diagram code may contain that plain LaTeX would not print as typed. */
 const SPECIAL_IN_CODE = /[\^_&#$~]/g;
 
@@ -423,8 +423,8 @@ class ManuscriptReader {
           splices.push({ kind: 'fill', span: cell.raw, fill: this.fills.length - 1 });
           return;
         }
-        // A fill-in macro written in the cell is read as a fill-in where it stands, not as a claimed value.
-        if (FILL_MACRO.test(cell.content.text)) return;
+        // A fill-in or claim macro written in the cell is read where it stands, not as the cell's claimed value.
+        if (SKEIN_MACRO.test(cell.content.text)) return;
         if (!isClaimKey(key)) {
           this.error(file, cell.content, 'latex-cell-filled', `${context}: the \`${key}\` column is filled in by skeinproof; leave its cells empty`);
           return;

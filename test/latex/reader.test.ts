@@ -49,14 +49,14 @@ describe('what the reader extracts', () => {
     expect(doc.claims[2]!.locate().start).toMatchObject({ line: 8, column: 56 });
   });
 
-  it('a fill-in macro written in a key column is a fill-in, not a claimed value', () => {
+  it('a fill-in or claim macro written in a key column is read as itself, not as the cell\'s claimed value', () => {
     const doc = read({
       'paper.tex':
         PREAMBLE +
-        '\\begin{skeintable}{id, jones, statement}\n\\begin{tabular}{lll}\nId & $V$ & \\\\\nk & $\\skeinjones{k}$ & \\skeinvalue{k}{statement} \\\\\n\\end{tabular}\n\\end{skeintable}\n',
+        '\\begin{skeintable}{id, jones, statement}\n\\begin{tabular}{lll}\nId & $V$ & \\\\\nk & $\\skeinjones{k}$ & \\skeinvalue{k}{statement} \\\\\nk & \\skeinclaim{k}{jones}{$t$} & \\\\\n\\end{tabular}\n\\end{skeintable}\n',
     });
     expect(doc.diagnostics).toEqual([]);
-    expect(doc.claims).toEqual([]);
+    expect(doc.claims.map((c) => [c.key, c.text])).toEqual([['jones', 't']]);
     expect(doc.fills.map((f) => [f.target.kind, f.entry.key])).toEqual([['macro', 'jones'], ['macro', 'statement']]);
   });
 
