@@ -98,6 +98,18 @@ describe('Alexander and Conway polynomials: identities on random diagrams', () =
       checked++;
     }
   });
+  it('links too: a minor of the one-variable Fox matrix is Δ up to ±t^(k/2) (from memory: Fox, with Torres: (t − 1)·Δ(t, …, t) of the multivariable polynomial)', () => {
+    const random = rng(77);
+    let checked = 0;
+    while (checked < 25) {
+      const d = randomDiagram(random, 10, 4);
+      // The helper needs one Wirtinger arc per crossing: every component must pass under somewhere.
+      const everyComponentPassesUnder = d.components.every((comp) => d.crossings.some((c) => comp.includes(c.edges[0])));
+      if (componentCount(d) < 2 || d.freeLoops > 0 || d.crossings.length < 2 || !everyComponentPassesUnder) continue;
+      expect(equalUpToUnit(foxAlexander(d), alexander(d))).toBe(true);
+      checked++;
+    }
+  });
   it('does not depend on which face holds the point at infinity', () => {
     const random = rng(14);
     for (let trial = 0; trial < 15; trial++) {
