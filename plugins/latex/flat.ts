@@ -5,6 +5,7 @@
  * the replaced spans are copied as written.
  */
 import type { Typeset } from '../../src/core/claims/api.ts';
+import { asciiLatex } from './ascii.ts';
 import type { LatexDocument, LatexFill, Splice } from './reader.ts';
 import type { SourceFile } from './source-file.ts';
 
@@ -37,7 +38,8 @@ function replacement(doc: LatexDocument, file: SourceFile, s: Splice, values: re
     case 'fill': {
       const value = values[s.fill];
       if (value === undefined) return file.text.slice(s.span.start, s.span.end);
-      return fillText(doc.fills[s.fill]!, value, file.text.slice(s.span.start, s.span.end));
+      const ascii: Typeset = value.kind === 'math' ? { ...value, latex: asciiLatex(value.latex) } : { ...value, text: asciiLatex(value.text) };
+      return fillText(doc.fills[s.fill]!, ascii, file.text.slice(s.span.start, s.span.end));
     }
   }
 }

@@ -7,6 +7,7 @@
 import { createHash } from 'node:crypto';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { Typeset } from '../../src/core/claims/api.ts';
+import { asciiLatex } from './ascii.ts';
 import type { LatexDocument } from './reader.ts';
 
 /** `paper.tex` → `paper.skein.tex` beside it: the package looks for \jobname.skein.tex. */
@@ -35,7 +36,7 @@ export function sidecarText(doc: LatexDocument, values: readonly (Typeset | unde
   doc.fills.forEach((fill, k) => {
     const value = values[k];
     if (value === undefined) return;
-    const [kind, content] = value.kind === 'math' ? ['m', value.latex] : ['t', value.text];
+    const [kind, content] = value.kind === 'math' ? ['m', asciiLatex(value.latex)] : ['t', asciiLatex(value.text)];
     const t = fill.target;
     const line =
       t.kind === 'macro' ? `\\skein@value{${t.id}}{${t.key}}{${kind}}{${content}}` : `\\skein@cell{${t.table}}{${t.row}}{${t.column}}{${kind}}{${content}}`;

@@ -509,6 +509,34 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(layouts[1]).toBe(layouts[0]);
   });
 
+  it('computed sentences compile in a document read as latin1 (inputenc), in both builds', async () => {
+    // inputenc with latin1 reads each byte as one character, so the UTF-8 bytes of a dash are errors (inputenc
+    // manual); LaTeX writes the en dash `--` in every encoding (common practice).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage[latin1]{inputenc}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\skeinstatement{a}',
+      '\\end{document}',
+    ].join('\n');
+    for (const flat of [false, true]) {
+      const dir = workDir('latin1', !flat);
+      writeFileSync(join(dir, 'latin.tex'), paper);
+      const result = await latexFormat.build(join(dir, 'latin.tex'), flat ? { output: join(dir, 'latin-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) {
+        expect(o.content).toMatch(/^[\x00-\x7F]*$/);
+        writeFileSync(o.path, o.content);
+      }
+      const run = pdflatex(dir, flat ? 'latin-flat.tex' : 'latin.tex');
+      expect(run.ok).toBe(true);
+      expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+      expect(squeeze(run.text)).toContain('Kauffman\u2013Murasugi\u2013Thistlethwaite');
+    }
+  });
+
   it('TeX and the reader agree on which cells are empty, over random tables', () => {
     // Every cell the reader would fill gets a sidecar value that logs its place; TeX must log exactly those,
     // and must find no other empty cell to warn about.
