@@ -23,7 +23,7 @@ import { extractManuscript, type ExtractedManuscript } from './extract.ts';
 import { fillTree } from './fill-tree.ts';
 import type { ManuscriptSettings } from './front-matter.ts';
 import { SourceText } from './source-text.ts';
-import type { Splice } from './splice.ts';
+import { keepMathApart, type Splice } from './splice.ts';
 import { typesetMarkdown } from './typeset-markdown.ts';
 
 export interface SkeinproofOptions {
@@ -81,7 +81,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
         if (value !== undefined) splices.push({ start, end, text: typesetMarkdown(value, r.place) });
       }
     }
-    file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices };
+    file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices: keepMathApart(raw, splices) };
     if (options.fill !== false) fillTree(tree, manuscript.actions, session.fills);
   };
 }

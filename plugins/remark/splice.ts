@@ -38,3 +38,41 @@ export function sourceOffsetOf(splices: readonly Splice[], splicedOffset: number
   }
   return splicedOffset - shift;
 }
+
+/**
+ * Splices that would make two math spans touch (`$V =$` then a typeset `$t$`,
+ * or claim markup removed between them) get a space there: `$$` would open
+ * display math instead. Returns the splices sorted, with those spaces added.
+ */
+export function keepMathApart(source: string, splices: readonly Splice[]): Splice[] {
+  const out = [...splices].sort((a, b) => a.start - b.start || a.end - b.end).map((s) => ({ ...s }));
+  /** The output character just before splice i (earlier splices already adjusted). */
+  const charBefore = (i: number): string | undefined => {
+    let at = out[i]!.start;
+    for (let j = i - 1; j >= 0 && out[j]!.end === at; j--) {
+      if (out[j]!.text !== '') return out[j]!.text[out[j]!.text.length - 1];
+      at = out[j]!.start;
+    }
+    return source[at - 1];
+  };
+  /** The output character just after splice i. */
+  const charAfter = (i: number): string | undefined => {
+    let at = out[i]!.end;
+    for (let j = i + 1; j < out.length && out[j]!.start === at; j++) {
+      if (out[j]!.text !== '') return out[j]!.text[0];
+      at = out[j]!.end;
+    }
+    return source[at];
+  };
+  out.forEach((s, i) => {
+    const before = charBefore(i);
+    const after = charAfter(i);
+    if (s.text === '') {
+      if (before === '$' && after === '$') s.text = ' ';
+      return;
+    }
+    if (before === '$' && s.text.startsWith('$')) s.text = ` ${s.text}`;
+    if (after === '$' && s.text.endsWith('$')) s.text = `${s.text} `;
+  });
+  return out;
+}

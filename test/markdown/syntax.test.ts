@@ -97,6 +97,19 @@ describe('fill-ins', () => {
     expect(r.built).toBe(`${TREFOIL}\nV = $t + t^3 - t^4$, bracket $A^{-7} - A^{-3} - A^5$, span $3$, writhe $3$.\n`);
   });
 
+  it('keeps a filled-in value or a claim apart from math written right beside it ($$ would open display math)', async () => {
+    const text = `${TREFOIL}\nA $V=$:jones{of=tref}, :writhe{of=tref}$+1$, $V=$:jones[$t + t^3 - t^4$]{of=tref}$.$\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built.endsWith('A $V=$ $t + t^3 - t^4$, $3$ $+1$, $V=$ $t + t^3 - t^4$ $.$\n')).toBe(true);
+    // Read again, every value is its own inline math span and none is display math.
+    const math: string[] = [];
+    visit(unified().use(remarkParse).use(remarkMath).parse(r.built), (n) => {
+      if (n.type === 'inlineMath' || n.type === 'math') math.push(`${n.type}:${(n as InlineMath).value}`);
+    });
+    expect(math.slice(-7)).toEqual(['inlineMath:V=', 'inlineMath:t + t^3 - t^4', 'inlineMath:3', 'inlineMath:+1', 'inlineMath:V=', 'inlineMath:t + t^3 - t^4', 'inlineMath:.']);
+  });
+
   it('writes the crossing-number statement as prose naming the theorem', async () => {
     const r = await processMarkdown(`${FIGURE_EIGHT}\n:statement{of=fig8}\n`);
     expect(r.diagnostics).toEqual([]);
