@@ -291,13 +291,14 @@ class ManuscriptReader {
     const base = dirname(resolve(this.mainPath));
     for (const name of names) {
       const absolute = resolve(base, name);
-      const inside = relative(this.root, this.real(absolute));
-      if (isAbsolute(written) || inside === '..' || inside.startsWith(`..${sep}`) || isAbsolute(inside)) {
+      const real = this.real(absolute);
+      if (isAbsolute(written) || isOutside(this.root, real)) {
+        const link = !isAbsolute(written) && !isOutside(this.root, absolute) ? ` (${name} is a symbolic link to ${real})` : '';
         this.error(
           file,
           item.path,
           'latex-input-outside',
-          `${command} reads a file outside the paper's directory ${this.root}: skeinproof only follows files inside it; move the file there and name it by a relative path`,
+          `${command} reads a file outside the paper's directory ${this.root}${link}: skeinproof only follows files inside it; move the file there and name it by a relative path`,
         );
         return;
       }
@@ -529,6 +530,11 @@ class ManuscriptReader {
   private error(file: SourceFile, span: Span, ruleId: string, message: string): void {
     this.diagnostics.push({ severity: 'error', ruleId, message, location: file.location(span.start, span.end) });
   }
+}
+
+function isOutside(root: string, path: string): boolean {
+  const inside = relative(root, path);
+  return inside === '..' || inside.startsWith(`..${sep}`) || isAbsolute(inside);
 }
 
 /** The span and the spaces after it up to and including the end of its line, as TeX's \ignorespaces skips them. */

@@ -269,6 +269,8 @@ describe('\\input and \\include', () => {
       'latex-input-outside@paper.tex:7:8',
     ]);
     expect(doc.diagnostics[0]!.message).toContain("outside the paper's directory");
+    expect(doc.diagnostics[3]!.message).toContain('(link.tex is a symbolic link to /elsewhere/link.tex)');
+    expect(doc.diagnostics[0]!.message).not.toContain('symbolic link');
     expect(doc.files).toHaveLength(1);
   });
 
