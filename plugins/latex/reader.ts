@@ -210,7 +210,7 @@ class ManuscriptReader {
           file,
           written,
           'latex-key-unknown',
-          `\`${written.text}\` is not a value skeinproof can fill in: write one of ${FILL_KEYS.join(', ')}`,
+          `${written.text === '' ? 'no key is given' : `\`${written.text}\` is not a value skeinproof can fill in`}: write one of ${FILL_KEYS.join(', ')}`,
         );
       }
     }
@@ -225,7 +225,8 @@ class ManuscriptReader {
     const id = this.validId(file, trim(item.id), item.span, '\\skeinclaim', '\\skeinclaim{trefoil}{jones}{…}');
     const key = trim(item.key);
     if (!isClaimKey(key.text)) {
-      this.error(file, key, 'latex-key-unknown', `\`${key.text}\` is not a claim skeinproof can check: write one of ${CLAIM_KEYS.join(', ')}`);
+      const what = key.text === '' ? 'no key is given' : `\`${key.text}\` is not a claim skeinproof can check`;
+      this.error(file, key, 'latex-key-unknown', `${what}: write one of ${CLAIM_KEYS.join(', ')}`);
       return;
     }
     if (id !== undefined) this.addClaim(file, id, key.text, item.value, undefined);
@@ -357,16 +358,18 @@ class ManuscriptReader {
         `a skein table needs exactly one \`id\` column (it has ${idColumns.length}): name the column holding the diagram ids \`id\``,
       );
     }
-    for (const c of columns) {
-      if (c.text === 'id' || c.text === '-' || isClaimKey(c.text) || isFillKey(c.text)) continue;
+    columns.forEach((c, i) => {
+      if (c.text === 'id' || c.text === '-' || isClaimKey(c.text) || isFillKey(c.text)) return;
       valid = false;
+      if (c.text === '' && columns.length === 1) return; // no columns at all: the missing id column says it
+      const what = c.text === '' ? `column ${i + 1} has no key` : `\`${c.text}\` is not a column skeinproof knows`;
       this.error(
         file,
         c,
         'latex-key-unknown',
-        `\`${c.text}\` is not a column skeinproof knows: write \`id\`, \`-\` for a free column, or one of ${[...new Set([...CLAIM_KEYS, ...FILL_KEYS])].join(', ')}`,
+        `${what}: write \`id\`, \`-\` for a free column, or one of ${[...new Set([...CLAIM_KEYS, ...FILL_KEYS])].join(', ')}`,
       );
-    }
+    });
     if (!valid) return;
     const idColumn = idColumns[0]!;
     for (const row of splitTabular(item.body)) {

@@ -196,6 +196,16 @@ describe('located errors in the markup', () => {
     expect(doc.claims).toEqual([]);
   });
 
+  it('an empty key or column says that no key is given', () => {
+    const doc = read({
+      'paper.tex':
+        '\\skeinvalue{k}{ }\n\\skeinclaim{k}{}{3}\n\\begin{skeintable}{id,,jones}\n\\begin{tabular}{lll}\nx\\\\\n\\end{tabular}\n\\end{skeintable}\n' +
+        '\\begin{skeintable}{}\n\\begin{tabular}{l}\nx\\\\\n\\end{tabular}\n\\end{skeintable}\n',
+    });
+    expect(places(doc)).toEqual(['latex-key-unknown@paper.tex:1:17', 'latex-key-unknown@paper.tex:2:16', 'latex-key-unknown@paper.tex:3:23', 'latex-table-malformed@paper.tex:8:20']);
+    expect(doc.diagnostics.slice(0, 3).map((d) => d.message.split(':')[0])).toEqual(['no key is given', 'no key is given', 'column 2 has no key']);
+  });
+
   it('strands belongs to braid words only', () => {
     const doc = read({ 'paper.tex': '\\begin{skeincode}{id=k, notation=dt, strands=3}\n4 6 2\n\\end{skeincode}\n' });
     expect(places(doc)).toEqual(['latex-option-invalid@paper.tex:1:46']);
