@@ -121,6 +121,18 @@ describe('build', () => {
     expect(skeinproof(['build', doc, '-o', join(work, 'g-text.md')]).stderr).toContain('nothing written because the check failed');
   });
 
+  it('gives in the JSON report the exit status the run ends with, also when the document itself is strict', () => {
+    // A DT code fixes a knot only up to mirror image, so the mirror's value is a warning, which `strict: true` fails.
+    const doc = join(work, 'h.md');
+    writeFileSync(doc, '---\nskeinproof:\n  strict: true\n---\n\n```skein id=k notation=dt\n4 6 2\n```\n\n:jones[$t^{-1}+t^{-3}-t^{-4}$]{of=k}\n');
+    const checked = skeinproof(['check', '--format', 'json', doc]);
+    expect(checked.status).toBe(1);
+    expect((JSON.parse(checked.stdout) as { exitStatus: number }).exitStatus).toBe(1);
+    const built = skeinproof(['build', '--format', 'json', doc, '-o', join(work, 'h.out.md')]);
+    expect(built.status).toBe(1);
+    expect((JSON.parse(built.stderr) as { exitStatus: number }).exitStatus).toBe(1);
+  });
+
   it('writes nothing when a warning fails the check under --strict', () => {
     // A DT code fixes a knot only up to mirror image, so the mirror's value is only a warning.
     const doc = join(work, 'e.md');

@@ -49,7 +49,7 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
   const result = await format.build(path, args.options);
   const strict = args.options.strict === true;
   const failed = resultFailed(result, strict);
-  if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict, process.stderr.isTTY === true));
+  if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict || failed, process.stderr.isTTY === true));
   const status = exitStatusFor(result.diagnostics, failed, strict);
   const inputs = result.inputs;
   if (failed && !args.forceWrite) {

@@ -77,7 +77,12 @@ export function exitStatusFor(diagnostics: readonly Diagnostic[], failed: boolea
   return failed && status === 0 ? EXIT_FAILED_CHECK : status;
 }
 
-/** The report of all diagnostics; the human one quotes the file texts under each message. */
+/**
+ * The report of all diagnostics; the human one quotes the file texts under each message.
+ * `strict` is the strictness that decided the run: the command line's, or true when the
+ * check failed (a document's own `strict` may fail it on warnings), so the JSON report's
+ * exit status is the one the process ends with.
+ */
 export function reportDiagnostics(diagnostics: readonly Diagnostic[], format: ReportFormat, files: readonly string[], strict: boolean, color: boolean): string {
   if (format === 'json') return formatJsonReport(diagnostics, { strict });
   if (format === 'sarif') return formatSarif(diagnostics);
@@ -123,7 +128,7 @@ export const checkCommand: CliCommand = {
       failed ||= resultFailed(result, args.options.strict === true);
     }
     const strict = args.options.strict === true;
-    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict, process.stdout.isTTY === true));
+    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, process.stdout.isTTY === true));
     return exitStatusFor(diagnostics, failed, strict);
   },
 };
