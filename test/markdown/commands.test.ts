@@ -131,6 +131,10 @@ describe('build', () => {
     const built = skeinproof(['build', '--format', 'json', doc, '-o', join(work, 'h.out.md')]);
     expect(built.status).toBe(1);
     expect((JSON.parse(built.stderr) as { exitStatus: number }).exitStatus).toBe(1);
+    // The text report says why "0 errors" fails.
+    const text = skeinproof(['check', doc]);
+    expect(text.stdout.endsWith('0 errors, 1 warning\nthe check fails on these warnings: strictness is on (--strict, or `strict: true` in the front matter)\n')).toBe(true);
+    expect(skeinproof(['check', doc.replace('h.md', 'a.md')]).stdout).not.toContain('strictness is on');
   });
 
   it('writes nothing when a warning fails the check under --strict', () => {

@@ -11,7 +11,7 @@ import type { Argv } from 'yargs';
 import type { Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
-import { EXIT_BAD_INPUT, EXIT_FAILED_CHECK, exitStatus, formatHumanReport, formatJsonReport, formatSarif } from '../../report/index.ts';
+import { EXIT_BAD_INPUT, EXIT_FAILED_CHECK, countDiagnostics, exitStatus, formatHumanReport, formatJsonReport, formatSarif } from '../../report/index.ts';
 import { formatFor, knownExtensions } from '../formats/registry.ts';
 import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/types.ts';
 import type { CliCommand } from './index.ts';
@@ -95,7 +95,11 @@ export function reportDiagnostics(diagnostics: readonly Diagnostic[], format: Re
       // An unreadable file is already a diagnostic of its own.
     }
   }
-  return formatHumanReport(diagnostics, { sources, color });
+  const report = formatHumanReport(diagnostics, { sources, color });
+  const { errors, warnings } = countDiagnostics(diagnostics);
+  // "0 errors" and a failing status would puzzle a reader who did not ask for --strict (the front matter did).
+  const why = strict && errors === 0 && warnings > 0 ? 'the check fails on these warnings: strictness is on (--strict, or `strict: true` in the front matter)\n' : '';
+  return report + why;
 }
 
 export function usage(message: string): number {
