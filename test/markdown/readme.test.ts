@@ -48,5 +48,8 @@ describe('the README section on Markdown manuscripts', () => {
   it('lists every fill-in and every claim the plugin knows, and no other', () => {
     expect(new Set(namesIn('Fill-ins: '))).toEqual(new Set(FILL_KEYS));
     expect(new Set(namesIn('Claims can be made about '))).toEqual(new Set(CLAIM_KEYS));
+    // The table columns said to need a value in every cell are the claims that are not fill-ins.
+    const needValue = namesIn('- An **empty cell**');
+    expect(new Set(needValue)).toEqual(new Set(CLAIM_KEYS.filter((k) => !(FILL_KEYS as readonly string[]).includes(k))));
   });
 });
