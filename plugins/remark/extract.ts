@@ -158,6 +158,7 @@ class Extractor {
     let notation: Notation | undefined = this.settings.notation;
     let strands: number | undefined;
     const seen = new Set<string>();
+    let refusedAt: number | undefined;
     const headerClaims: { key: ClaimKey; value: string; at: number; end: number }[] = [];
     for (const s of settings) {
       const at = metaStart + s.keyStart;
@@ -177,8 +178,7 @@ class Extractor {
         if (isNotation(s.value)) notation = s.value;
         else {
           this.error('markup-invalid', `diagram block: unknown notation \`${s.value}\`: write one of ${NOTATION_NAMES.join(', ')}`, metaStart + s.valueStart, metaStart + s.valueEnd);
-          this.refuse(settings.find((x) => x.key === 'id')?.value, metaStart + s.valueStart);
-          return;
+          refusedAt ??= metaStart + s.valueStart; // the other settings are still checked
         }
       } else if (s.key === 'strands') {
         const n = Number(s.value);
@@ -198,6 +198,10 @@ class Extractor {
     }
     if (id === undefined) {
       if (!seen.has('id')) this.error('markup-invalid', 'diagram block has no id: add id=NAME after `skein` so the text can refer to it', start, firstLineEnd);
+      return;
+    }
+    if (refusedAt !== undefined) {
+      this.refuse(id, refusedAt);
       return;
     }
     if (notation === undefined) {

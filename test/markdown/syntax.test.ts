@@ -23,6 +23,17 @@ describe('diagram blocks', () => {
     expect(r.diagnostics).toEqual([]);
   });
 
+  it('checks every setting of a header with an unknown notation, not only those before it', async () => {
+    const text = '```skein id=k notation=morse colour=red writhe\n1 1 1\n```\n\n:writhe{of=k}\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([
+      `error markup-invalid ${positionOf(text, 'morse')}`,
+      `error markup-invalid ${positionOf(text, 'colour')}`,
+      `error markup-invalid ${positionOf(text, 'writhe\n')}`,
+      `note target-invalid ${positionOf(text, ':writhe')}`,
+    ]);
+  });
+
   it('refuses strands on a code that is not a braid word, at the setting', async () => {
     const text = '```skein id=k notation=pd strands=3\n(4,2,5,1) (2,6,3,5) (6,4,1,3)\n```\n\n:writhe{of=k}\n';
     const r = await processMarkdown(text);
