@@ -67,6 +67,23 @@ async function refuseProtected(target: string, protect: readonly string[]): Prom
   }
 }
 
+const WRITE_FAILURES: Readonly<Record<string, string>> = {
+  EACCES: 'permission denied: the directory is not writable for you',
+  EPERM: 'the operation is not permitted there',
+  ENOSPC: 'the disk is full',
+  EDQUOT: 'the disk quota is used up',
+  EROFS: 'the file system is read-only',
+  ENAMETOOLONG: 'the file name is too long',
+};
+
+/** Why writing `target` failed, in the user's terms (the temporary file's name means nothing to them). */
+export function describeWriteFailure(target: string, e: unknown): string {
+  if (e instanceof OutputRefused) return e.message;
+  const code = (e as NodeJS.ErrnoException).code;
+  const reason = (code && WRITE_FAILURES[code]) ?? (e as Error).message;
+  return `cannot write ${target}: ${reason}; nothing was written there`;
+}
+
 /** Makes the rename itself durable; some file systems do not allow it, which is harmless. */
 async function syncDirectory(dir: string): Promise<void> {
   let h: FileHandle | undefined;

@@ -7,7 +7,7 @@ import { existsSync, linkSync, mkdtempSync, readdirSync, readFileSync, rmSync, w
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { OutputRefused, writeFileAtomic } from '../../src/cli/write-atomic.ts';
+import { describeWriteFailure, OutputRefused, writeFileAtomic } from '../../src/cli/write-atomic.ts';
 import { ROOT, skeinproof } from './cli.ts';
 
 const work = mkdtempSync(join(tmpdir(), 'skeinproof-atomic-'));
@@ -35,6 +35,18 @@ describe('writeFileAtomic', () => {
     await expect(failing).rejects.toThrow('disk full (injected)');
     expect(readFileSync(target, 'utf8')).toBe('previous content');
     expect(readdirSync(work).filter((f) => f.includes('failing.txt'))).toEqual(['failing.txt']);
+  });
+
+  it('describes a failed write in plain words, without the temporary file it used', async () => {
+    const target = join(work, 'full.txt');
+    const full = writeFileAtomic(target, BIG, {
+      writeChunk: async () => {
+        throw Object.assign(new Error(`ENOSPC: no space left on device, write '${join(work, '.full.txt.1.tmp')}'`), { code: 'ENOSPC' });
+      },
+    });
+    const error = await full.catch((e: unknown) => e);
+    expect(describeWriteFailure(target, error)).toBe(`cannot write ${target}: the disk is full; nothing was written there`);
+    expect(existsSync(target)).toBe(false);
   });
 
   it('refuses to replace a protected file, also through a hard link', async () => {

@@ -5,7 +5,7 @@
  * is never overwritten; each output appears whole or not at all.
  */
 import type { Argv } from 'yargs';
-import { OutputRefused, writeFileAtomic } from '../write-atomic.ts';
+import { describeWriteFailure, writeFileAtomic } from '../write-atomic.ts';
 import type { FormatOptions } from '../formats/types.ts';
 import { EXIT_USAGE, exitStatusFor, formatOf, manuscriptOptions, readManuscriptArgs, reportDiagnostics, resultFailed, usage, type ManuscriptArgs } from './check.ts';
 import type { CliCommand } from './index.ts';
@@ -61,8 +61,7 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
     try {
       await writeFileAtomic(output.path, output.content, { protect: result.inputs });
     } catch (e) {
-      const reason = e instanceof OutputRefused ? e.message : `cannot write ${output.path}: ${(e as Error).message}`;
-      process.stderr.write(`skeinproof: ${reason}\n`);
+      process.stderr.write(`skeinproof: ${describeWriteFailure(output.path, e)}\n`);
       return { status: EXIT_USAGE, inputs };
     }
     process.stdout.write(`wrote ${output.path}\n`);
