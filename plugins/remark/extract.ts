@@ -119,8 +119,8 @@ class Extractor {
   }
 
   /** Records that the diagram `id` (when the author wrote one) was refused at `at`, so references to it are not also unknown ids. */
-  private refuse(id: string | undefined, at: number): void {
-    if (id && !this.refused.has(id)) this.refused.set(id, this.source.location(at));
+  private refuse(id: string | undefined, at: number | SourceLocation): void {
+    if (id && !this.refused.has(id)) this.refused.set(id, typeof at === 'number' ? this.source.location(at) : at);
   }
 
   private inCell(offset: number): boolean {
@@ -205,8 +205,11 @@ class Extractor {
       return;
     }
     if (notation === undefined) {
-      this.error('markup-invalid', `diagram \`${id}\` names no notation: add notation=pd|braid|gauss|dt, or set a default notation in the front matter`, start, firstLineEnd);
-      this.refuse(id, start);
+      // A default the front matter got wrong is one error there, not one more per diagram.
+      if (!this.settings.notationRefused) {
+        this.error('markup-invalid', `diagram \`${id}\` names no notation: add notation=pd|braid|gauss|dt, or set a default notation in the front matter`, start, firstLineEnd);
+      }
+      this.refuse(id, this.settings.notationRefused ?? start);
       return;
     }
     if (strands !== undefined && notation !== 'braid') {
@@ -480,8 +483,10 @@ class Extractor {
     // An unnamed row's diagram gets an id no author can write (ids have no spaces).
     const id = before !== '' ? before : `table row ${rowNumber} at line ${this.source.point(s).line}`;
     if (notation === undefined) {
-      this.error('markup-invalid', `table row ${rowNumber}: the code's notation is not known: add a \`${ROW_NOTATION_COLUMN}\` column, {notation=…} on \`:::${TABLE_DIRECTIVE}\`, or a default in the front matter`, cs, ce);
-      this.refuse(before, cs);
+      if (!this.settings.notationRefused) {
+        this.error('markup-invalid', `table row ${rowNumber}: the code's notation is not known: add a \`${ROW_NOTATION_COLUMN}\` column, {notation=…} on \`:::${TABLE_DIRECTIVE}\`, or a default in the front matter`, cs, ce);
+      }
+      this.refuse(before, this.settings.notationRefused ?? cs);
       return undefined;
     }
     if (before !== '' && !isUsableId(before)) {

@@ -13,7 +13,7 @@ import type { Yaml } from 'mdast';
 import { isMap, isScalar, parseDocument, type Node as YamlNode } from 'yaml';
 import type { Convention } from '../../src/core/convention/convention.ts';
 import { readConventionSettings, splitConventionText, type SettingSpans } from '../../src/core/convention/settings.ts';
-import type { Diagnostic, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
 import type { Notation } from '../../src/core/diagram/model.ts';
 import type { SourceText } from './source-text.ts';
 import { NOTATION_NAMES, isNotation } from './syntax.ts';
@@ -26,6 +26,8 @@ export interface ManuscriptSettings {
   readonly strict?: boolean;
   /** The front matter's `title`, used for the HTML page. */
   readonly title?: string;
+  /** Where the front matter names a default notation that is not one (already an error there). */
+  readonly notationRefused?: SourceLocation;
 }
 
 export function readFrontMatter(node: Yaml, source: SourceText): { settings: ManuscriptSettings; problems: Diagnostic[] } {
@@ -44,6 +46,7 @@ export function readFrontMatter(node: Yaml, source: SourceText): { settings: Man
   let notation: Notation | undefined;
   let strict: boolean | undefined;
   let title: string | undefined;
+  let notationRefused: SourceLocation | undefined;
   if (doc.errors.length > 0) {
     for (const e of doc.errors) problem(`the front matter is not valid YAML: ${e.message.split('\n')[0]}`, e.pos);
     return { settings: { convention }, problems };
@@ -66,7 +69,10 @@ export function readFrontMatter(node: Yaml, source: SourceText): { settings: Man
     } else if (key === 'notation') {
       const written = isScalar(value) ? String(value.value) : '';
       if (isNotation(written)) notation = written;
-      else problem(`front matter: unknown default notation \`${written}\`: write one of ${NOTATION_NAMES.join(', ')}`, value?.range);
+      else {
+        problem(`front matter: unknown default notation \`${written}\`: write one of ${NOTATION_NAMES.join(', ')}`, value?.range);
+        notationRefused = source.location(...at(value?.range));
+      }
     } else if (key === 'strict') {
       if (isScalar(value) && typeof value.value === 'boolean') strict = value.value;
       else problem('front matter: `strict` must be true or false', value?.range);
@@ -75,7 +81,13 @@ export function readFrontMatter(node: Yaml, source: SourceText): { settings: Man
     }
   }
   return {
-    settings: { convention, ...(notation ? { notation } : {}), ...(strict !== undefined ? { strict } : {}), ...(title ? { title } : {}) },
+    settings: {
+      convention,
+      ...(notation ? { notation } : {}),
+      ...(strict !== undefined ? { strict } : {}),
+      ...(title ? { title } : {}),
+      ...(notationRefused ? { notationRefused } : {}),
+    },
     problems,
   };
 }

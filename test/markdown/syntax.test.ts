@@ -322,6 +322,14 @@ describe('front matter', () => {
     expect(r.built.endsWith('$q^2 + q^6 - q^8$ $q^2 + q^6 - q^8$\n')).toBe(true);
   });
 
+  it('reports a wrong default notation once, at the front matter, not again at every diagram that relies on it', async () => {
+    const text = '---\nskeinproof:\n  notation: braids\n---\n\n```skein id=k\n1 1 1\n```\n\n:::invariants\n| diagram | writhe |\n|---|---|\n| r `1 1` | |\n:::\n\n:writhe[$3$]{of=k}\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error front-matter-invalid ${positionOf(text, 'braids')}`, `note target-invalid ${positionOf(text, '$3$')}`]);
+    expect(r.diagnostics[1]!.message).toContain(`was refused (doc.md:${positionOf(text, 'braids')})`);
+    expect(r.failed).toBe(true);
+  });
+
   it('locates a bad convention value and an unknown setting', async () => {
     const text = `---\nskeinproof:\n  convention: { jones: x }\n  colour: blue\n---\n`;
     const r = await processMarkdown(text);
