@@ -82,6 +82,33 @@ describe('knots of seven crossings from their DT codes (from memory: knot tables
   }
 });
 
+describe('non-alternating knots, where Traczyk does not apply and the Goeritz route is the only second opinion (from memory: knot tables)', () => {
+  it('8₁₉ = T(3,4): Δ = t³ − t² + 1 − t⁻² + t⁻³, det 3, σ = −6 for the positive braid', () => {
+    const c = classicalInvariants(closeBraid([1, 2, 1, 2, 1, 2, 1, 2], 3));
+    expect(c.alexander.equals(Laurent.fromTerms([[-3, 1], [-2, -1], [0, 1], [2, -1], [3, 1]]))).toBe(true);
+    expect(c.determinant).toBe(3n);
+    expect(c.signature).toBe(-6);
+    expect(c.traczykSignature).toBeNull();
+  });
+  it('10₁₂₄ = T(3,5): det 1, σ = −8 for the positive braid', () => {
+    const c = classicalInvariants(closeBraid([1, 2, 1, 2, 1, 2, 1, 2, 1, 2], 3));
+    expect(c.determinant).toBe(1n);
+    expect(c.signature).toBe(-8);
+  });
+  it('8₂₀ (braid σ₁³σ₂⁻¹σ₁⁻³σ₂⁻¹): Δ = t² − 2t + 3 − 2t⁻¹ + t⁻², det 9, σ = 0', () => {
+    const c = classicalInvariants(closeBraid([1, 1, 1, -2, -1, -1, -1, -2], 3));
+    expect(c.alexander.equals(Laurent.fromTerms([[-2, 1], [-1, -2], [0, 3], [1, -2], [2, 1]]))).toBe(true);
+    expect(c.determinant).toBe(9n);
+    expect(c.signature).toBe(0);
+  });
+  it('8₂₁ (DT 4 8 −12 2 14 −6 16 10): Δ = −t² + 4t − 5 + 4t⁻¹ − t⁻², det 15, |σ| = 2', () => {
+    const c = classicalInvariants(parseDiagramCode('4 8 -12 2 14 -6 16 10', 'dt'));
+    expect(c.alexander.equals(Laurent.fromTerms([[-2, -1], [-1, 4], [0, -5], [1, 4], [2, -1]]))).toBe(true);
+    expect(c.determinant).toBe(15n);
+    expect(Math.abs(c.signature)).toBe(2);
+  });
+});
+
 describe('links', () => {
   it('(2, n) torus links and knots: ∇ by the skein recursion ∇ₙ = z·∇ₙ₋₁ + ∇ₙ₋₂, det n, σ = −(n − 1) (from memory)', () => {
     const z = Laurent.monomial(1);
