@@ -1,11 +1,13 @@
 /**
  * One LaTeX file as read: its text, the name it is reported under, and the
- * mapping from 0-based offsets to 1-based line:column positions.
+ * mapping from 0-based offsets to 1-based line:column positions (shared with
+ * the Markdown front end through LineIndex).
  */
 import type { SourceLocation, SourcePoint } from '../../src/core/diagnostics/diagnostic.ts';
+import { LineIndex } from '../../src/core/diagnostics/line-index.ts';
 
 export class SourceFile {
-  private readonly lineStarts: readonly number[];
+  private readonly lines: LineIndex;
 
   constructor(
     /** The path shown in diagnostics (as the user named it, or relative to it for included files). */
@@ -14,26 +16,14 @@ export class SourceFile {
     readonly absolutePath: string,
     readonly text: string,
   ) {
-    const starts = [0];
-    for (let i = 0; i < text.length; i++) if (text.charCodeAt(i) === 10) starts.push(i + 1);
-    this.lineStarts = starts;
+    this.lines = new LineIndex(text);
   }
 
   point(offset: number): SourcePoint {
-    const at = Math.max(0, Math.min(offset, this.text.length));
-    let lo = 0;
-    let hi = this.lineStarts.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (this.lineStarts[mid]! <= at) lo = mid;
-      else hi = mid - 1;
-    }
-    return { line: lo + 1, column: at - this.lineStarts[lo]! + 1, offset: at };
+    return this.lines.point(offset);
   }
 
   location(start: number, end?: number): SourceLocation {
-    return end === undefined || end <= start
-      ? { file: this.displayPath, start: this.point(start) }
-      : { file: this.displayPath, start: this.point(start), end: this.point(end) };
+    return this.lines.location(this.displayPath, start, end);
   }
 }

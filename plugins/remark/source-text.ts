@@ -5,36 +5,24 @@
  * an offset into the value is not an offset into the file).
  */
 import type { SourceLocation, SourcePoint, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+import { LineIndex } from '../../src/core/diagnostics/line-index.ts';
 
 export class SourceText {
-  private readonly lineStarts: number[] = [0];
+  private readonly lines: LineIndex;
 
   constructor(
     readonly text: string,
     readonly file: string,
   ) {
-    for (let i = 0; i < text.length; i++) {
-      const ch = text.charCodeAt(i);
-      // \r\n, \n and a lone \r each end a line, as in CommonMark.
-      if (ch === 10 || (ch === 13 && text.charCodeAt(i + 1) !== 10)) this.lineStarts.push(i + 1);
-    }
+    this.lines = new LineIndex(text);
   }
 
   point(offset: number): SourcePoint {
-    const clamped = Math.max(0, Math.min(offset, this.text.length));
-    let lo = 0;
-    let hi = this.lineStarts.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (this.lineStarts[mid]! <= clamped) lo = mid;
-      else hi = mid - 1;
-    }
-    return { line: lo + 1, column: clamped - this.lineStarts[lo]! + 1, offset: clamped };
+    return this.lines.point(offset);
   }
 
   location(start: number, end?: number): SourceLocation {
-    const loc: SourceLocation = { file: this.file, start: this.point(start) };
-    return end === undefined || end <= start ? loc : { ...loc, end: this.point(end) };
+    return this.lines.location(this.file, start, end);
   }
 }
 
