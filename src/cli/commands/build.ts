@@ -4,6 +4,7 @@
  * Nothing is written when the check fails unless --force-write asks; the input
  * is never overwritten; each output appears whole or not at all.
  */
+import { wantsColor } from '../terminal.ts';
 import type { Argv } from 'yargs';
 import { describeWriteFailure, writeFileAtomic } from '../write-atomic.ts';
 import type { FormatOptions } from '../formats/types.ts';
@@ -49,7 +50,7 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
   const result = await format.build(path, args.options);
   const strict = args.options.strict === true;
   const failed = resultFailed(result, strict);
-  if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict || failed, process.stderr.isTTY === true));
+  if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict || failed, wantsColor(process.stderr)));
   const status = exitStatusFor(result.diagnostics, failed, strict);
   const inputs = result.inputs;
   if (failed && !args.forceWrite) {

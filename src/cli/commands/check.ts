@@ -5,6 +5,7 @@
  * Also holds what `build` and `watch` share with it: the manuscript options,
  * reading them from the command line, and reporting diagnostics.
  */
+import { wantsColor } from '../terminal.ts';
 import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Argv } from 'yargs';
@@ -132,7 +133,7 @@ export const checkCommand: CliCommand = {
       failed ||= resultFailed(result, args.options.strict === true);
     }
     const strict = args.options.strict === true;
-    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, process.stdout.isTTY === true));
+    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, wantsColor(process.stdout)));
     return exitStatusFor(diagnostics, failed, strict);
   },
 };

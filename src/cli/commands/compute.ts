@@ -7,6 +7,7 @@
  * The per-code pipeline (`computeCode`) and the renderers are exported so
  * options such as claims can hook into the same steps.
  */
+import { wantsColor } from '../terminal.ts';
 import type { Argv } from 'yargs';
 import { analyzeDiagram } from '../../core/analyze/analyze.ts';
 import type { DiagramReport, LinkingNumber } from '../../core/analyze/report.ts';
@@ -266,7 +267,7 @@ export const computeCommand: CliCommand = {
     // Every analysed code, so a claim equal to another code's value is diagnosed as swapped.
     const reports = new Map(outcomes.flatMap((o, i) => (o.ok ? [[`<code ${i + 1}>`, o.report] as const] : [])));
     const claimDiagnostics: Diagnostic[] = [];
-    const color = process.stdout.isTTY === true;
+    const color = wantsColor(process.stdout);
     outcomes.forEach((outcome, i) => {
       const position = i + 1;
       const code = outcome.code;
