@@ -7,7 +7,6 @@
  * The per-code pipeline (`computeCode`) and the renderers are exported so
  * options such as claims can hook into the same steps.
  */
-import { wantsColor } from '../terminal.ts';
 import type { Argv } from 'yargs';
 import { analyzeDiagram } from '../../core/analyze/analyze.ts';
 import type { DiagramReport, LinkingNumber } from '../../core/analyze/report.ts';
@@ -17,12 +16,14 @@ import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notat
 import { computeJson, invalidCodeJson } from '../compute-json.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
+import { conventionBracket, conventionJones, jonesLetter } from '../../core/convention/convert.ts';
 import { signatureInConvention } from '../../core/invariants/classical/signature.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../core/diagnostics/diagnostic.ts';
 import { judgeClaim, judgementToDiagnostics, parseClaimAssignment, unreadableClaimDiagnostic, type ClaimAssignment } from '../../core/claims/index.ts';
 import { exitStatus, formatDiagnostic, judgementJson, unreadableClaimJson, type JudgementJson, type UnreadableClaimJson } from '../../report/index.ts';
 import { toFraction } from '../../core/poly/laurent.ts';
 import type { CliCommand } from './index.ts';
+import { wantsColor } from '../terminal.ts';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
 
@@ -103,6 +104,14 @@ export function plainSummary(position: number, code: string, r: DiagramReport, c
   lines.push(`           span ${r.span}, degrees ${degree(r.jonesMinDegree)} to ${degree(r.jonesMaxDegree)}`);
   lines.push(`  bracket  <D> = ${r.bracket.toPlainString('A')}`);
   lines.push(`           span ${r.bracketSpan}, degrees ${r.bracketMinDegree} to ${r.bracketMaxDegree}  (unit normalisation <O> = 1)`);
+  // The summary keeps the reference variables above; a declared convention gets its own lines too.
+  if (convention.jonesVariable !== 't') {
+    const letter = jonesLetter(convention.jonesVariable);
+    lines.push(`  declared (jones=${convention.jonesVariable})  V(${letter}) = ${conventionJones(r.jones, convention).toPlainString(letter)}`);
+  }
+  if (convention.bracketNormalization !== 'unit') {
+    lines.push(`  declared (bracket=${convention.bracketNormalization})  <D> = ${conventionBracket(r.bracket, convention).toPlainString('A')}`);
+  }
   const adequacy = r.adequate ? 'adequate' : r.aAdequate ? 'A-adequate only' : r.bAdequate ? 'B-adequate only' : 'neither A- nor B-adequate';
   lines.push(`  diagram  ${yesNo(r.connected, 'connected', 'split into several pieces')}, ${yesNo(r.reduced, 'reduced', 'not reduced')}, ${yesNo(r.alternating, 'alternating', 'not alternating')}, ${adequacy}`);
   lines.push(`           all-A state ${count(r.stateCircles.a, 'circle')}, all-B state ${count(r.stateCircles.b, 'circle')}`);
