@@ -103,6 +103,9 @@ describe('refusing unreadable claims with a located, compiler-style message', ()
     ['unbalanced brace', 't^{2', 2, 3, /unbalanced braces.*never closed/],
     ['unbalanced group', '{t + 1', 0, 1, /unbalanced braces/],
     ['extra closing brace', 't + 1}', 5, 6, /closes no/],
+    // An unclosed exponent brace is reported as such, not as whatever the exponent swallowed (common practice: TeX braces must balance).
+    ['an unclosed exponent brace before more terms', 't + t^{3 - t^4', 6, 7, /unbalanced braces: this `\{` is never closed/],
+    ['an unclosed group brace inside the value', '-t^{1/2} - {t^{5/2}', 11, 12, /unbalanced braces: this `\{` is never closed/],
     ['stray \\frac', 't + \\frac', 4, 9, /stray `\\frac`/],
     ['non-integer coefficient', '1.5t + 1', 0, 3, /decimal `1.5`/],
     ['unknown variable', 'x^2 + 1', 0, 1, /unknown variable `x`.*written in t/],
@@ -180,6 +183,18 @@ describe('number claims', () => {
       expect(e).toBeInstanceOf(InputError);
       expect((e as InputError).message).toBe('the decimal `2.5` cannot be read: write the span of the Jones polynomial as an integer or a fraction such as `5/2`');
       expect((e as InputError).span).toEqual({ start: 0, end: 3 });
+    }
+  });
+  it('refuse a decimal in an integer claim without suggesting a fraction, which such a value cannot be (common practice: writhe, components and crossing number are whole)', () => {
+    for (const [text, what] of [['2.5', 'the writhe'], ['1.5', 'the number of components']] as const) {
+      try {
+        readInteger(text, what);
+        throw new Error('not refused');
+      } catch (e) {
+        expect(e).toBeInstanceOf(InputError);
+        expect((e as InputError).message).toBe(`the decimal \`${text}\` cannot be read: write ${what} as an integer`);
+        expect((e as InputError).span).toEqual({ start: 0, end: 3 });
+      }
     }
   });
   it('skip a left-hand side holding a decimal, as it is not part of the value', () => {

@@ -155,7 +155,7 @@ function range(low: number, high: number, text: string): CrossingNumberClaim {
 
 function integerAt(segment: Segment): number {
   try {
-    const r = readNumber(segment.text, 'the crossing number');
+    const r = readNumber(segment.text, 'the crossing number', true);
     if (r.q !== 1 || r.p < 0) throw new InputError(UNREADABLE, `a crossing number is a natural number, not ${r.q === 1 ? r.p : `${r.p}/${r.q}`}`, { start: 0, end: segment.text.length });
     return r.p;
   } catch (e) {

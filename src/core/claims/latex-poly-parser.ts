@@ -17,6 +17,8 @@ export interface PolynomialReadOptions {
   readonly variables: readonly string[];
   /** What the value is, for messages: "a Jones polynomial". */
   readonly what?: string;
+  /** A number claim that must be whole (a writhe, not a span): its messages suggest no fraction. */
+  readonly whole?: boolean;
 }
 
 export interface ReadPolynomial {
@@ -237,17 +239,29 @@ class PolynomialParser {
 
   /** `V(t) = t + t^3 - t^4`: the value is what follows the last `=` outside any group; stray characters after it are refused. */
   private skipLeftHandSide(): void {
+    this.checkBraces();
     this.findLeftHandSide();
     const stray = this.tokens.slice(this.pos).find((t) => t.kind === 'stray' || t.kind === 'decimal');
     if (stray?.kind === 'decimal') {
       fail(
         this.readingNumber
-          ? `the decimal \`${stray.text}\` cannot be read: write ${this.what()} as an integer or a fraction such as \`5/2\``
+          ? `the decimal \`${stray.text}\` cannot be read: write ${this.what()} as an integer${this.options.whole ? '' : ' or a fraction such as `5/2`'}`
           : `the decimal \`${stray.text}\` cannot be read: coefficients are integers, and exponents are written as fractions such as \`5/2\``,
         stray,
       );
     }
     if (stray) fail(`unexpected character \`${stray.text}\`: a polynomial is made of integers, its variable, + − · ^ and brackets`, stray);
+  }
+
+  /** TeX braces must balance; an unclosed `{` is the fault, not whatever its group swallowed. */
+  private checkBraces(): void {
+    const open: Token[] = [];
+    for (const t of this.tokens) {
+      if (this.isOp(t, '{')) open.push(t);
+      else if (this.isOp(t, '}') && !open.pop()) this.unexpected(t);
+    }
+    const unclosed = open.pop();
+    if (unclosed) fail('unbalanced braces: this `{` is never closed; add `}`', unclosed);
   }
 
   private findLeftHandSide(): void {
@@ -647,8 +661,8 @@ export function readPolynomial(text: string, options: PolynomialReadOptions): Re
 }
 
 /** Reads a number claim (`7`, `-3`, `5/2`, `\tfrac{5}{2}`); throws InputError `claim-unreadable`. */
-export function readNumber(text: string, what: string): Rational {
-  return new PolynomialParser(text, { variables: [], what }).readNumber();
+export function readNumber(text: string, what: string, whole = false): Rational {
+  return new PolynomialParser(text, { variables: [], what, whole }).readNumber();
 }
 
 const PLAIN_INTEGER = /^\s*([+\-−]?)\s*(\{?)\s*(\d+)\s*(\}?)\s*[.,;]?\s*$/;
@@ -664,7 +678,7 @@ export function readInteger(text: string, what: string): bigint {
     const magnitude = BigInt(plain[3]!);
     return plain[1] === '' || plain[1] === '+' ? magnitude : -magnitude;
   }
-  const r = readNumber(text, what);
+  const r = readNumber(text, what, true);
   if (r.q !== 1) throw new InputError(UNREADABLE, `${what} is an integer, but the claim is ${r.p}/${r.q}`, { start: 0, end: text.length });
   return BigInt(r.p);
 }
