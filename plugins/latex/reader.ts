@@ -414,7 +414,7 @@ class ManuscriptReader {
         const key = column.text;
         if (key === 'id' || key === '-') return;
         const cell = row.cells[i]!;
-        const context = `${place}, column ${i + 1}`;
+        const context = `${place} (${id}), column ${i + 1} (${key})`;
         if (cell.content.text === '') {
           if (!isFillKey(key)) {
             this.error(file, cell.raw, 'latex-cell-empty', `${context} is empty, but skeinproof does not typeset \`${key}\`: write the value to have it checked`);

@@ -72,6 +72,8 @@ describe('what the reader extracts', () => {
     expect(doc.claims.map((c) => c.target)).toEqual(['knot_3.1']);
   });
 
+  // A message about a cell names the row's diagram and the column's key besides their numbers, as the
+  // Markdown tables' messages do (common practice: a compiler names what it points at).
   it('reads skein tables: empty cells are fill-ins, filled cells claims, header rows skipped', () => {
     const doc = read({
       'paper.tex':
@@ -85,8 +87,8 @@ describe('what the reader extracts', () => {
       ['k2', 'crossing-number', 4, 4],
     ]);
     expect(doc.claims.map((c) => [c.target, c.key, c.text, c.context])).toEqual([
-      ['k1', 'crossing-number', '3', 'skein table 1, row 3, column 4'],
-      ['k2', 'jones', 't^2', 'skein table 1, row 4, column 3'],
+      ['k1', 'crossing-number', '3', 'skein table 1, row 3 (k1), column 4 (crossing-number)'],
+      ['k2', 'jones', 't^2', 'skein table 1, row 4 (k2), column 3 (jones)'],
     ]);
     // The claim `3` of k1 is on line 9 (1-based), column 18.
     expect(doc.claims[0]!.locate().start).toMatchObject({ line: 9, column: 18 });
