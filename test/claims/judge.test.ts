@@ -272,6 +272,8 @@ describe('crossing-number claims against proven bounds', () => {
     const j = judge('crossing-number', '4', report);
     expect(j.verdict).toBe('contradicts');
     expect(j.theorem).toBe('nugatory-removal');
+    // The reason reads as a sentence for a single nugatory crossing (common practice of English grammar).
+    expect(j.reason).toContain('The nugatory crossing can be undone by turning over one side of the diagram, leaving 3 crossings.');
     expect(judge('crossing-number', '3', report).verdict).toBe('agrees');
   });
   it('non-alternating adequate: the crossing count is exact by Thistlethwaite', () => {

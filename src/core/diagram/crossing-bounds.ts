@@ -83,7 +83,7 @@ function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
 function nugatoryUpperBound(p: DiagramProperties): BoundReason {
   const k = p.nugatory.length;
   if (k === 0) return reason('upper', p.crossings, 'trivial', `The diagram itself has ${p.crossings} crossings.`);
-  return reason('upper', p.crossings - k, 'nugatory-removal', `Each of the ${k} nugatory crossing${k === 1 ? '' : 's'} can be undone by turning over one side of the diagram, leaving ${p.crossings - k} crossings.`);
+  return reason('upper', p.crossings - k, 'nugatory-removal', `${k === 1 ? 'The nugatory crossing' : `Each of the ${k} nugatory crossings`} can be undone by turning over one side of the diagram, leaving ${p.crossings - k} crossings.`);
 }
 
 function theoremsFixingTheCrossingNumber(p: DiagramProperties): BoundReason[] {
