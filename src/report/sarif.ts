@@ -23,7 +23,8 @@ export function pathToUri(path: string): string {
 }
 
 function resultMessage(d: Diagnostic): string {
-  const parts = [d.message];
+  // A message may end without a full stop; the SARIF text joins whole sentences.
+  const parts = [/[.!?]$/.test(d.message) ? d.message : `${d.message}.`];
   if (d.claimed !== undefined && d.severity !== 'note') parts.push(`Claimed: ${d.claimed}.`);
   if (d.computed !== undefined && d.computed !== '' && d.severity !== 'note') parts.push(`Computed: ${d.computed}.`);
   for (const hint of d.hints ?? []) parts.push(hint);

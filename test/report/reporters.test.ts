@@ -112,6 +112,8 @@ describe('SARIF 2.1.0 reporter', () => {
     ]);
     const first = results[0]!;
     expect(first.message.text).toContain('Computed: t + t^3 - t^4.');
+    // The plain-text message is sentences joined by spaces, each closed by a full stop (SARIF 2.1.0 §3.11.8 asks for complete sentences).
+    expect(first.message.text).toMatch(/[.!?] Claimed: t \+ t\^3 \+ t\^4\. /);
     expect(log.runs[0]!.tool.driver.rules![first.ruleIndex!]!.id).toBe(first.ruleId);
     const physical = first.locations![0]!.physicalLocation!;
     expect(physical.artifactLocation).toEqual({ uri: 'notes.md', index: 0 });
