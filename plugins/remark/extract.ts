@@ -279,8 +279,7 @@ class Extractor {
       this.error(
         'markup-invalid',
         `\`:${name}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a claim or fill-in takes only ${TARGET_ATTRIBUTE}=ID; remove the rest`,
-        braces >= start ? braces : start,
-        end,
+        ...this.attributeAt(extra[0]!, braces >= start ? braces : start, end),
       );
     }
     const hasLabel = this.text[start + 1 + name.length] === '[';
@@ -354,6 +353,17 @@ class Extractor {
     return { text: trimmed, locate: this.fixedLocator(from + lead, from + lead + trimmed.length) };
   }
 
+  /**
+   * Where the attribute `key` is written in the attribute list from `from` (its `{`) to `to`: its name,
+   * or the `#`/`.` of the shorthands that stand for `id` and `class`; the whole list when it cannot be found.
+   */
+  private attributeAt(key: string, from: number, to: number): readonly [number, number] {
+    const shorthand = key === 'id' ? '#' : key === 'class' ? '\\.' : undefined;
+    const pattern = shorthand ? `${shorthand}[^\\s}.#]*` : `${key.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?=[\\s=}])`;
+    const m = new RegExp(`(?<=[{\\s])${pattern}`).exec(this.text.slice(from, to));
+    return m ? [from + m.index, from + m.index + m[0].length] : [from, to];
+  }
+
   private addFill(target: string, key: FillKey, locate: Locator, context: string | undefined, edit: TextEdit, node: Nodes): void {
     this.actions.set(node, { kind: 'fill', fill: this.fills.length });
     this.fills.push({ target, key, locate, ...(context ? { context } : {}) });
@@ -371,7 +381,13 @@ class Extractor {
     let notation = this.settings.notation;
     const extra = Object.keys(node.attributes ?? {}).filter((k) => k !== 'notation');
     if (extra.length > 0) {
-      this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a table takes only notation=pd|braid|gauss|dt; remove the rest`, start, lineEnd(this.text, start));
+      const fenceEnd = lineEnd(this.text, start);
+      const braces = this.text.indexOf('{', start);
+      this.error(
+        'markup-invalid',
+        `\`:::${TABLE_DIRECTIVE}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a table takes only notation=pd|braid|gauss|dt; remove the rest`,
+        ...(braces >= 0 && braces < fenceEnd ? this.attributeAt(extra[0]!, braces, fenceEnd) : ([start, fenceEnd] as const)),
+      );
     }
     const declared = node.attributes?.['notation'];
     if (declared) {

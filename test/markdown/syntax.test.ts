@@ -156,10 +156,11 @@ describe('fill-ins', () => {
     const text = `${TREFOIL}\n:jones{of=tref fo=1} :writhe[$2$]{of=tref #x .y}\n\n:::invariants{notaton=braid}\n| diagram | writhe |\n|---|---|\n| tref | |\n:::\n`;
     const r = await processMarkdown(text);
     expect(placed(r.diagnostics)).toEqual([
-      `error markup-invalid ${positionOf(text, '{of=tref fo')}`,
+      // Each error points at the first attribute it refuses (common practice: a compiler points at the offending token).
+      `error markup-invalid ${positionOf(text, 'fo=1')}`,
       `error claim-contradicted ${positionOf(text, '$2$')}`,
-      `error markup-invalid ${positionOf(text, '{of=tref #x')}`,
-      `error markup-invalid ${positionOf(text, ':::invariants')}`,
+      `error markup-invalid ${positionOf(text, '#x')}`,
+      `error markup-invalid ${positionOf(text, 'notaton')}`,
     ]);
     expect(r.diagnostics.map((d) => /unknown attributes? [^:]*|wrong writhe/.exec(d.message)?.[0])).toEqual([
       'unknown attribute `fo`',
