@@ -5,7 +5,7 @@
  * directories are watched, not the files.
  */
 import { existsSync, watch, type FSWatcher } from 'node:fs';
-import { basename, dirname, resolve } from 'node:path';
+import { basename, dirname, join, relative, resolve } from 'node:path';
 import type { Argv } from 'yargs';
 import { buildOnce, buildOptions, readBuildArgs } from './build.ts';
 import { formatOf, usage } from './check.ts';
@@ -33,7 +33,8 @@ export const watchCommand: CliCommand = {
     const onEvent = (dir: string) => (_event: string, name: string | Buffer | null) => {
       if (name !== null && !watched.has(resolve(dir, String(name)))) return;
       clearTimeout(timer);
-      const changed = name === null ? path : String(name);
+      // The changed file is named as the reports name it: relative to the manuscript as it was given.
+      const changed = name === null ? path : join(dirname(path), relative(dirname(resolve(path)), resolve(dir, String(name))));
       timer = setTimeout(() => rebuild(`${changed} changed, rebuilding`), DEBOUNCE_MS);
     };
     const watchDirectoriesOf = (files: readonly string[]): void => {
