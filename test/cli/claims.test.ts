@@ -71,6 +71,15 @@ describe('skeinproof compute --claim', () => {
     expect(plain.stdout).toMatch(/warning: crossing number claim undecided: .*between 3 and 6/);
     expect(skeinproof(...args, '--strict').status).toBe(1);
   });
+  it('lets the mirror value of a DT code agree with a warning, which fails only with --strict (DT codes fix a knot up to mirror image: common practice; V(left trefoil) = t⁻¹ + t⁻³ − t⁻⁴, from memory)', () => {
+    const args = ['compute', '-n', 'dt', '4 6 2', '--claim', 'jones=t^{-1}+t^{-3}-t^{-4}'];
+    const plain = skeinproof(...args);
+    expect(plain.status).toBe(0);
+    expect(plain.stdout).toMatch(/warning: .*\[claim-mirror-only\]/);
+    expect(skeinproof(...args, '--strict').status).toBe(1);
+    const json = skeinproof(...args, '--json');
+    expect(claimsOf(json.stdout)[0]![0]).toMatchObject({ verdict: 'agrees', diagnosis: { kind: 'mirror' }, computed: 't + t^3 - t^4' });
+  });
   it('exits 2 for an unreadable claim and points at the bad character', () => {
     const run = skeinproof('compute', '-n', 'braid', '1 1 1', '--claim', 'jones=t + x');
     expect(run.status).toBe(2);
