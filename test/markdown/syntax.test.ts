@@ -431,6 +431,15 @@ describe('table rows in more detail', () => {
     expect(placed(r.diagnostics)).toEqual([`error target-unknown ${positionOf(text, '$3$')}`]);
   });
 
+  it('reports every reference in prose to an unknown diagram, also two on one line (each is a place to fix)', async () => {
+    const text = `${TREFOIL}\nSee :jones{of=tre} and :writhe[$3$]{of=tre}.\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([
+      `error target-unknown ${positionOf(text, ':jones{of=tre}')}`,
+      `error target-unknown ${positionOf(text, '$3$')}`,
+    ]);
+  });
+
   it('lets a directive in a cell speak for itself', async () => {
     const text = `${TREFOIL}${FIGURE_EIGHT}\n:::invariants\n| diagram | writhe |\n|---|---|\n| tref | :writhe{of=fig8} |\n:::\n`;
     const r = await processMarkdown(text);

@@ -51,12 +51,13 @@ export function runSession(input: SessionInput): SessionResult {
   }
 
   const knownIds = [...new Set(input.diagrams.filter((d) => d.unnamed !== true).map((d) => d.id))];
-  // One error per unknown id per line: a table row naming a missing diagram is one mistake, not one per column.
+  // A table row naming a missing diagram is one mistake, not one per column: one error per unknown id per
+  // line among table cells (entries with a context). Each reference in prose is its own error, even on one line.
   const reportedUnknown = new Set<string>();
   /** `subject` names the claim or fill-in ("the Jones polynomial claimed for `k`", or a table cell). */
-  const unknownTarget = (target: string, locate: Locator, subject: string, verb: string): Diagnostic[] => {
+  const unknownTarget = (target: string, locate: Locator, subject: string, verb: string, inTable: boolean): Diagnostic[] => {
     const location = locate();
-    const key = `${target}\u0000${location.file}\u0000${location.start.line}`;
+    const key = `${target}\u0000${location.file}\u0000${location.start.line}${inTable ? '' : `:${location.start.column}`}`;
     if (reportedUnknown.has(key)) return [];
     reportedUnknown.add(key);
     const message = `${subject}: no diagram has the id \`${target}\``;
@@ -68,14 +69,14 @@ export function runSession(input: SessionInput): SessionResult {
     message: `${subject} is not ${verb}: the code of \`${target}\` is invalid (${place(invalid.get(target)!.locateCode())})`,
     location: locate(),
   });
-  const missing = (target: string, locate: Locator, subject: string, verb: string): Diagnostic[] =>
-    invalid.has(target) ? [skippedBecauseInvalid(target, locate, subject, verb)] : unknownTarget(target, locate, subject, verb);
+  const missing = (target: string, locate: Locator, subject: string, verb: string, inTable: boolean): Diagnostic[] =>
+    invalid.has(target) ? [skippedBecauseInvalid(target, locate, subject, verb)] : unknownTarget(target, locate, subject, verb, inTable);
 
   for (const claim of input.claims) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
     const report = reports.get(claim.target);
     if (!report) {
-      diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked'));
+      diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
       continue;
     }
     try {
@@ -91,7 +92,7 @@ export function runSession(input: SessionInput): SessionResult {
     const subject = fill.context ?? `the ${fill.key} fill-in for \`${fill.target}\``;
     const report = reports.get(fill.target);
     if (!report) {
-      diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in'));
+      diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
       return undefined;
     }
     try {
