@@ -172,6 +172,7 @@ class Extractor {
         idAt = metaStart + s.valueStart;
         if (!isUsableId(id)) {
           this.error('markup-invalid', `diagram id \`${id}\` is not usable: ${ID_RULE}`, idAt, metaStart + s.valueEnd);
+          this.refuse(id, idAt); // a reference to it gets a note pointing here, not an error of its own
           id = undefined;
         }
       } else if (s.key === 'notation') {

@@ -440,6 +440,12 @@ describe('table rows in more detail', () => {
     ]);
   });
 
+  it('an unusable id is one error at the id; a reference to it gets a note pointing there, not a second error', async () => {
+    const text = '```skein id="k<1" notation=braid\n1 1 1\n```\n\nSee :writhe[$3$]{of="k<1"}.\n';
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, 'k<1')}`, `note target-invalid ${positionOf(text, '$3$')}`]);
+  });
+
   it('lets a directive in a cell speak for itself', async () => {
     const text = `${TREFOIL}${FIGURE_EIGHT}\n:::invariants\n| diagram | writhe |\n|---|---|\n| tref | :writhe{of=fig8} |\n:::\n`;
     const r = await processMarkdown(text);
