@@ -1,4 +1,7 @@
 import { spawn, spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
@@ -172,5 +175,42 @@ describe('skeinproof compute (plain)', () => {
     expect(stderr).not.toContain('EPIPE');
     expect(stderr).not.toMatch(/\n\s+at /);
     expect(status).toBe(0);
+  });
+});
+
+describe('skeinproof compute: options given more than once', () => {
+  it('reads every --convention given, instead of silently dropping them all (σ(positive trefoil) = +2 in the positive sign, from memory)', () => {
+    const { status, stdout, stderr } = skeinproof('compute', '--json', '-n', 'braid', '--convention', 'signature=positive', '--convention', 'jones=q', '1 1 1');
+    expect(stderr).toBe('');
+    expect(status).toBe(0);
+    expect(jsonLines(stdout)[0]).toMatchObject({ signature: 2, signatureSign: 'positive' });
+  });
+  it('refuses one key set to two values across repeated --convention options, as within one', () => {
+    const { status, stdout, stderr } = skeinproof('compute', '-n', 'braid', '--convention', 'signature=positive', '--convention', 'signature=negative', '1 1 1');
+    expect(status).toBe(2);
+    expect(stdout).toBe('');
+    expect(stderr).toContain('signature');
+  });
+  it('build reads every --convention given too: V(positive trefoil) = t + t^3 − t^4 (from memory) is q^2 + q^6 − q^8, typeset descending', () => {
+    const work = mkdtempSync(join(tmpdir(), 'skeinproof-repeated-'));
+    try {
+      const doc = join(work, 'k.md');
+      writeFileSync(doc, '```skein id=k notation=braid\n1 1 1\n```\n\nV = :jones{of=k}.\n');
+      const r = skeinproof('build', '--convention', 'jones=q', '--convention', 'order=descending', doc);
+      expect(r.stderr).toBe('');
+      expect(r.status).toBe(0);
+      expect(readFileSync(join(work, 'k.filled.md'), 'utf8')).toContain('V = $-q^8 + q^6 + q^2$.');
+    } finally {
+      rmSync(work, { recursive: true, force: true });
+    }
+  });
+  it('names a repeated --notation or --strands instead of echoing the values joined by a comma', () => {
+    const notation = skeinproof('compute', '-n', 'pd', '-n', 'braid', '1 1');
+    expect(notation.status).toBe(2);
+    expect(notation.stderr).toContain('--notation is given 2 times (pd, braid)');
+    expect(notation.stderr).not.toContain('pd,braid');
+    const strands = skeinproof('compute', '-n', 'braid', '--strands', '3', '--strands', '4', '1 1');
+    expect(strands.status).toBe(2);
+    expect(strands.stderr).toContain('--strands is given 2 times (3, 4)');
   });
 });

@@ -16,6 +16,7 @@ import { EXIT_BAD_INPUT, EXIT_FAILED_CHECK, countDiagnostics, exitStatus, format
 import { formatFor, knownExtensions } from '../formats/registry.ts';
 import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/types.ts';
 import type { CliCommand } from './index.ts';
+import { conventionOptionText } from '../repeated-option.ts';
 
 export const EXIT_USAGE = EXIT_BAD_INPUT;
 
@@ -41,8 +42,9 @@ export function manuscriptOptions(y: Argv): Argv {
 /** The shared options, or a usage message. */
 export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArgs | string {
   let convention: Partial<Convention> | undefined;
-  if (typeof args['convention'] === 'string') {
-    const read = parseConventionText(args['convention']);
+  const conventionText = conventionOptionText(args['convention']);
+  if (conventionText !== undefined) {
+    const read = parseConventionText(conventionText);
     if (!read.ok) return `--convention: ${read.errors.map((e) => e.message).join('; ')}`;
     convention = read.settings;
   }

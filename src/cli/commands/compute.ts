@@ -24,6 +24,7 @@ import { exitStatus, formatDiagnostic, judgementJson, unreadableClaimJson, type 
 import { toFraction } from '../../core/poly/laurent.ts';
 import type { CliCommand } from './index.ts';
 import { wantsColor } from '../terminal.ts';
+import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
 
@@ -212,6 +213,8 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   if (codes.length === 0) {
     return 'no diagram code given: write one code per argument, e.g. skeinproof compute "(4,2,5,1) (2,6,3,5) (6,4,1,3)".';
   }
+  const repeated = repeatedOptionMessage('notation', args['notation']) ?? repeatedOptionMessage('strands', args['strands']);
+  if (repeated !== undefined) return repeated;
   const strands = args['strands'] as number | undefined;
   if (strands !== undefined && !(Number.isInteger(strands) && strands >= 1)) {
     return `--strands needs a positive whole number of strands${Number.isNaN(strands) ? '' : `, not ${strands}`}.`;
@@ -231,8 +234,9 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
     }
   }
   let convention = DEFAULT_CONVENTION;
-  if (typeof args['convention'] === 'string') {
-    const read = parseConventionText(args['convention']);
+  const conventionText = conventionOptionText(args['convention']);
+  if (conventionText !== undefined) {
+    const read = parseConventionText(conventionText);
     if (!read.ok) return `--convention: ${read.errors.map((e) => e.message).join('; ')}.`;
     convention = { ...DEFAULT_CONVENTION, ...read.settings };
   }
@@ -257,7 +261,7 @@ export const computeCommand: CliCommand = {
       .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true, 'parse-numbers': false, 'parse-positional-numbers': false })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
       // Case-insensitive, as the notations are usually written in capitals (PD, DT) in prose.
-      .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, coerce: (value: unknown) => String(value).toLowerCase(), describe: 'How the codes are written' })
+      .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, coerce: (value: unknown) => (Array.isArray(value) ? value.map((v) => String(v).toLowerCase()) : String(value).toLowerCase()), describe: 'How the codes are written' })
       .option('strands', { type: 'number', describe: 'Braid words: the number of strands, when more than the largest generator + 1' })
       .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' })
       // Not `array: true`, which would swallow the codes that follow; repeating the flag collects the claims.
