@@ -11,7 +11,7 @@ import { basename, dirname, isAbsolute, join, relative, resolve, sep } from 'nod
 import type { Notation } from '../../src/core/diagram/model.ts';
 import type { Convention } from '../../src/core/convention/convention.ts';
 import { readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
-import type { Diagnostic, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
+import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
 import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
 import { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
@@ -64,6 +64,8 @@ export interface LatexDocument {
   readonly convention: Partial<Convention>;
   /** Problems with the markup itself, located in the file where they are. */
   readonly diagnostics: readonly Diagnostic[];
+  /** Ids of skeincode environments refused for their options (notation, strands), with the place of the environment. */
+  readonly refusedIds: ReadonlyMap<string, SourceLocation>;
   readonly splices: ReadonlyMap<SourceFile, readonly Splice[]>;
 }
 
@@ -92,6 +94,7 @@ class ManuscriptReader {
   private readonly root: string;
   private readonly files: SourceFile[] = [];
   private readonly diagrams: DiagramEntry[] = [];
+  private readonly refusedIds = new Map<string, SourceLocation>();
   private readonly claims: ClaimEntry[] = [];
   private readonly fills: LatexFill[] = [];
   private readonly diagnostics: Diagnostic[] = [];
@@ -133,6 +136,7 @@ class ManuscriptReader {
       fills: this.fills,
       convention: this.convention,
       diagnostics: [...this.diagnostics].sort((a, b) => rank(a) - rank(b) || a.location!.start.offset! - b.location!.start.offset!),
+      refusedIds: this.refusedIds,
       splices: this.splices,
     };
   }
@@ -183,7 +187,11 @@ class ManuscriptReader {
       splices.push({ kind: 'text', span: { start: at, end: at + 1 }, text: `\\string${m[0]}` });
     }
     splices.push({ kind: 'text', span: item.endSpan, text: '\\end{flushleft}' });
-    if (id === undefined || notation === undefined || strands === null) return;
+    if (id === undefined) return;
+    if (notation === undefined || strands === null) {
+      if (!this.refusedIds.has(id)) this.refusedIds.set(id, file.location(item.beginSpan.start, item.beginSpan.end));
+      return;
+    }
     const code = trim(item.body);
     const idValue = options.get('id')!;
     this.diagrams.push({

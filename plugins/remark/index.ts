@@ -15,7 +15,7 @@ import type { Root } from 'mdast';
 import type { VFile } from 'vfile';
 import type { Convention } from '../../src/core/convention/convention.ts';
 import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
-import type { Diagnostic, SourceLocation } from '../../src/core/diagnostics/diagnostic.ts';
+import type { Diagnostic } from '../../src/core/diagnostics/diagnostic.ts';
 import type { Notation } from '../../src/core/diagram/model.ts';
 import type { SessionResult } from '../../src/core/manuscript/api.ts';
 import { runSession } from '../../src/core/manuscript/session.ts';
@@ -65,9 +65,8 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
     const manuscript = extractManuscript(tree, source, options.notation ? { notation: options.notation } : {});
     const convention: Convention = { ...DEFAULT_CONVENTION, ...manuscript.settings.convention, ...options.convention };
     const strict = options.strict ?? manuscript.settings.strict ?? false;
-    const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict });
-    const sessionDiagnostics = session.diagnostics.map((d) => forRefusedTarget(d, manuscript.refusedIds));
-    const diagnostics = [...manuscript.problems, ...sessionDiagnostics].sort(byPosition);
+    const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict, refused: manuscript.refusedIds });
+    const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
     const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
     for (const d of diagnostics) reportOnFile(file, d);
     const splices: Splice[] = [];
@@ -97,21 +96,6 @@ function reportOnFile(file: VFile, d: Diagnostic): void {
   if (d.claimed !== undefined) message.actual = d.claimed;
   if (d.computed !== undefined) message.expected = [d.computed];
   if (d.hints && d.hints.length > 0) message.note = d.hints.join('\n');
-}
-
-/** A reference to a diagram whose block was refused is not a second mistake: a note pointing at the refusal, not an unknown id. */
-function forRefusedTarget(d: Diagnostic, refused: ReadonlyMap<string, SourceLocation>): Diagnostic {
-  const target = d.ruleId === 'target-unknown' ? d.data?.['target'] : undefined;
-  const at = typeof target === 'string' ? refused.get(target) : undefined;
-  if (!at) return d;
-  const subject = String(d.data?.['subject']);
-  const verb = String(d.data?.['verb']);
-  return {
-    severity: 'note',
-    ruleId: 'target-invalid',
-    message: `${subject} is not ${verb}: the diagram \`${target}\` was refused (${at.file}:${at.start.line}:${at.start.column})`,
-    ...(d.location ? { location: d.location } : {}),
-  };
 }
 
 function byPosition(a: Diagnostic, b: Diagnostic): number {

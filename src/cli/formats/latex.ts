@@ -46,6 +46,7 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     fills: doc.fills.map((f) => f.entry),
     convention: { ...DEFAULT_CONVENTION, ...doc.convention, ...options.convention },
     ...(options.strict ? { strict: true } : {}),
+    refused: doc.refusedIds,
   });
   const diagnostics = inDocumentOrder([...doc.diagnostics, ...session.diagnostics], doc);
   const failed = session.failed || doc.diagnostics.some((d) => d.severity === 'error');

@@ -55,6 +55,11 @@ export interface SessionInput {
   readonly convention: Convention;
   /** Warnings count as failures. */
   readonly strict?: boolean;
+  /**
+   * Ids of diagrams the front end refused before their code was read (bad markup), with the place of
+   * the refusal: a reference to one is not a second mistake, so it gets a note pointing there.
+   */
+  readonly refused?: ReadonlyMap<string, SourceLocation>;
 }
 
 export interface SessionResult {

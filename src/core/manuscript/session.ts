@@ -55,13 +55,13 @@ export function runSession(input: SessionInput): SessionResult {
   // line among table cells (entries with a context). Each reference in prose is its own error, even on one line.
   const reportedUnknown = new Set<string>();
   /** `subject` names the claim or fill-in ("the Jones polynomial claimed for `k`", or a table cell). */
-  const unknownTarget = (target: string, locate: Locator, subject: string, verb: string, inTable: boolean): Diagnostic[] => {
+  const unknownTarget = (target: string, locate: Locator, subject: string, inTable: boolean): Diagnostic[] => {
     const location = locate();
     const key = `${target}\u0000${location.file}\u0000${location.start.line}${inTable ? '' : `:${location.start.column}`}`;
     if (reportedUnknown.has(key)) return [];
     reportedUnknown.add(key);
     const message = `${subject}: no diagram has the id \`${target}\``;
-    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, knownIds), data: { target, subject, verb } }];
+    return [{ severity: 'error', ruleId: 'target-unknown', message, location, hints: hintsForUnknown(target, knownIds), data: { target } }];
   };
   const skippedBecauseInvalid = (target: string, locate: Locator, subject: string, verb: string): Diagnostic => ({
     severity: 'note',
@@ -69,8 +69,17 @@ export function runSession(input: SessionInput): SessionResult {
     message: `${subject} is not ${verb}: the code of \`${target}\` is invalid (${place(invalid.get(target)!.locateCode())})`,
     location: locate(),
   });
-  const missing = (target: string, locate: Locator, subject: string, verb: string, inTable: boolean): Diagnostic[] =>
-    invalid.has(target) ? [skippedBecauseInvalid(target, locate, subject, verb)] : unknownTarget(target, locate, subject, verb, inTable);
+  const skippedBecauseRefused = (target: string, at: SourceLocation, locate: Locator, subject: string, verb: string): Diagnostic => ({
+    severity: 'note',
+    ruleId: 'target-invalid',
+    message: `${subject} is not ${verb}: the diagram \`${target}\` was refused (${place(at)})`,
+    location: locate(),
+  });
+  const missing = (target: string, locate: Locator, subject: string, verb: string, inTable: boolean): Diagnostic[] => {
+    if (invalid.has(target)) return [skippedBecauseInvalid(target, locate, subject, verb)];
+    const refusedAt = input.refused?.get(target);
+    return refusedAt ? [skippedBecauseRefused(target, refusedAt, locate, subject, verb)] : unknownTarget(target, locate, subject, inTable);
+  };
 
   for (const claim of input.claims) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
