@@ -64,7 +64,7 @@ export interface LatexDocument {
   readonly convention: Partial<Convention>;
   /** Problems with the markup itself, located in the file where they are. */
   readonly diagnostics: readonly Diagnostic[];
-  /** Ids of skeincode environments refused for their options (notation, strands), with the place of the environment. */
+  /** Ids of skeincode environments refused (never closed, or bad notation or strands), with the place of the environment. */
   readonly refusedIds: ReadonlyMap<string, SourceLocation>;
   readonly splices: ReadonlyMap<SourceFile, readonly Splice[]>;
 }
@@ -157,6 +157,7 @@ class ManuscriptReader {
   private item(file: SourceFile, item: ScanItem, splices: Splice[], open: readonly string[]): void {
     switch (item.kind) {
       case 'code':
+      case 'unclosed-code':
         return this.code(file, item, splices);
       case 'fill':
         return this.fill(file, item, splices);
@@ -176,11 +177,15 @@ class ManuscriptReader {
     }
   }
 
-  private code(file: SourceFile, item: Extract<ScanItem, { kind: 'code' }>, splices: Splice[]): void {
+  private code(file: SourceFile, item: Extract<ScanItem, { kind: 'code' | 'unclosed-code' }>, splices: Splice[]): void {
     const options = this.keyValues(file, item.options, [...CODE_KEYS, ...CLAIM_KEYS], '\\begin{skeincode}');
     const id = this.validId(file, options.get('id'), item.beginSpan, '\\begin{skeincode}{…}', 'id=trefoil');
     const notation = this.validNotation(file, options.get('notation'), item.beginSpan);
     const strands = this.validStrands(file, options.get('strands'), notation);
+    if (item.kind === 'unclosed-code') {
+      if (id !== undefined) this.refuse(id, file, item.beginSpan);
+      return;
+    }
     splices.push({ kind: 'text', span: item.beginSpan, text: '\\begin{flushleft}\\ttfamily' });
     for (const m of item.body.text.matchAll(SPECIAL_IN_CODE)) {
       const at = item.body.start + m.index;
@@ -189,7 +194,7 @@ class ManuscriptReader {
     splices.push({ kind: 'text', span: item.endSpan, text: '\\end{flushleft}' });
     if (id === undefined) return;
     if (notation === undefined || strands === null) {
-      if (!this.refusedIds.has(id)) this.refusedIds.set(id, file.location(item.beginSpan.start, item.beginSpan.end));
+      this.refuse(id, file, item.beginSpan);
       return;
     }
     const code = trim(item.body);
@@ -203,6 +208,11 @@ class ManuscriptReader {
       locateHeader: locatorFor(file, idValue),
     });
     for (const [key, value] of options) if (isClaimKey(key)) this.addClaim(file, id, key, value, undefined);
+  }
+
+  /** Records that the skeincode `id` at `at` was refused, so references to it get a note, not an unknown-id error. */
+  private refuse(id: string, file: SourceFile, at: Span): void {
+    if (!this.refusedIds.has(id)) this.refusedIds.set(id, file.location(at.start, at.end));
   }
 
   private fill(file: SourceFile, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[]): void {

@@ -33,6 +33,8 @@ export const FILL_SHORTCUTS: Readonly<Record<string, string>> = {
 
 export type ScanItem =
   | { readonly kind: 'code'; readonly span: Span; readonly beginSpan: Span; readonly endSpan: Span; readonly options: Arg; readonly body: Arg }
+  /** A skeincode that is never closed (reported here): its options are still read, and its id refused. */
+  | { readonly kind: 'unclosed-code'; readonly beginSpan: Span; readonly options: Arg }
   | {
       readonly kind: 'fill';
       readonly span: Span;
@@ -238,6 +240,7 @@ class Scanner {
     const endSpan = this.codeEnd(options.next);
     if (!endSpan) {
       this.problem('latex-environment-unclosed', '\\begin{skeincode} is never closed: add \\end{skeincode} after the code', { start, end: options.next });
+      this.items.push({ kind: 'unclosed-code', beginSpan: { start, end: options.next }, options: options.arg });
       this.pos = options.next;
       return;
     }

@@ -44,3 +44,28 @@ it('a reference to a refused skeincode gets a note pointing at it, not an unknow
   ]);
   expect(found[2]!.message).toBe(`the writhe claimed for \`k\` is not checked: the diagram \`k\` was refused (${paper}:4:1)`);
 });
+
+it('a skeincode never closed still has its options read, and a reference to it gets a note', () => {
+  const paper = join(work, 'unclosed.tex');
+  writeFileSync(
+    paper,
+    [
+      '\\documentclass{article}', // 1
+      '\\usepackage{skeinproof}', // 2
+      '\\begin{document}', // 3
+      'After \\skeinclaim{k}{writhe}{7}.', // 4: `7` at column 30
+      '\\begin{skeincode}{id=k, notation=braid, bogus=1}', // 5: `bogus` at column 41
+      '1 1 1', // 6
+      '\\end{document}',
+      '',
+    ].join('\n'),
+  );
+  const r = skeinproof(['check', paper, '--format', 'json']);
+  expect(r.status).toBe(2);
+  const found = (JSON.parse(r.stdout) as { diagnostics: { severity: string; ruleId: string; location: { start: { line: number; column: number } } }[] }).diagnostics;
+  expect(found.map((d) => `${d.severity} ${d.ruleId} ${d.location.start.line}:${d.location.start.column}`)).toEqual([
+    'note target-invalid 4:30',
+    'error latex-environment-unclosed 5:1',
+    'error latex-key-unknown 5:41',
+  ]);
+});

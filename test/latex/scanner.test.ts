@@ -146,7 +146,8 @@ describe('arguments', () => {
   it('an unclosed skeincode environment is located at its \\begin', () => {
     const text = 'intro\n\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n';
     const { problems, items } = scan(text);
-    expect(items).toHaveLength(0);
+    // Its options are still handed on, to be checked and to name the diagram that is refused.
+    expect(items.map((i) => i.kind === 'unclosed-code' && i.options.text)).toEqual(['id=a, notation=braid']);
     expect(problems.map((p) => [p.ruleId, p.span.start])).toEqual([['latex-environment-unclosed', text.indexOf('\\begin')]]);
   });
   it('reads a code environment with exact offsets of options and body', () => {
