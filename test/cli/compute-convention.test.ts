@@ -22,3 +22,12 @@ describe('compute prints the declared convention beside the reference values', (
     expect(run('compute', '-n', 'braid', '1 1 1').stdout).not.toContain('declared');
   });
 });
+
+describe('compute honours the declared term order in its declared lines', () => {
+  it('positive trefoil, order=descending: V = −t^4 + t^3 + t (the terms of t + t³ − t⁴, Jones 1985, highest power first)', () => {
+    const result = run('compute', '-n', 'braid', '1 1 1', '--convention', 'order=descending');
+    expect(result.status).toBe(0);
+    expect(result.stdout).toContain('declared (jones=t, order=descending)  V(t) = -t^4 + t^3 + t');
+    expect(result.stdout).toContain('declared (bracket=unit, order=descending)  <D> = -A^5 - A^(-3) + A^(-7)');
+  });
+});

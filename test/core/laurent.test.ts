@@ -29,3 +29,11 @@ describe('Laurent polynomials (exact arithmetic, common practice)', () => {
     expect(() => Laurent.monomial(1 / 3)).toThrow(RangeError);
   });
 });
+
+describe('plain text order (common practice: either order is a valid way to write a polynomial)', () => {
+  it('writes the highest power first when asked', () => {
+    const v = Laurent.fromTerms([[1, 1], [3, 1], [4, -1]]);
+    expect(v.toPlainString('t')).toBe('t + t^3 - t^4');
+    expect(v.toPlainString('t', 'descending')).toBe('-t^4 + t^3 + t');
+  });
+});

@@ -106,12 +106,13 @@ export function plainSummary(position: number, code: string, r: DiagramReport, c
   lines.push(`  bracket  <D> = ${r.bracket.toPlainString('A')}`);
   lines.push(`           span ${r.bracketSpan}, degrees ${r.bracketMinDegree} to ${r.bracketMaxDegree}  (unit normalisation <O> = 1)`);
   // The summary keeps the reference variables above; a declared convention gets its own lines too.
-  if (convention.jonesVariable !== 't') {
+  const orderNote = convention.termOrder === 'ascending' ? '' : `, order=${convention.termOrder}`;
+  if (convention.jonesVariable !== 't' || convention.termOrder !== 'ascending') {
     const letter = jonesLetter(convention.jonesVariable);
-    lines.push(`  declared (jones=${convention.jonesVariable})  V(${letter}) = ${conventionJones(r.jones, convention).toPlainString(letter)}`);
+    lines.push(`  declared (jones=${convention.jonesVariable}${orderNote})  V(${letter}) = ${conventionJones(r.jones, convention).toPlainString(letter, convention.termOrder)}`);
   }
-  if (convention.bracketNormalization !== 'unit') {
-    lines.push(`  declared (bracket=${convention.bracketNormalization})  <D> = ${conventionBracket(r.bracket, convention).toPlainString('A')}`);
+  if (convention.bracketNormalization !== 'unit' || convention.termOrder !== 'ascending') {
+    lines.push(`  declared (bracket=${convention.bracketNormalization}${orderNote})  <D> = ${conventionBracket(r.bracket, convention).toPlainString('A', convention.termOrder)}`);
   }
   const adequacy = r.adequate ? 'adequate' : r.aAdequate ? 'A-adequate only' : r.bAdequate ? 'B-adequate only' : 'neither A- nor B-adequate';
   lines.push(`  diagram  ${yesNo(r.connected, 'connected', 'split into several pieces')}, ${yesNo(r.reduced, 'reduced', 'not reduced')}, ${yesNo(r.alternating, 'alternating', 'not alternating')}, ${adequacy}`);

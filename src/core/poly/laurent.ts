@@ -204,10 +204,12 @@ export class Laurent {
   }
 
   /** A plain, unambiguous text form, e.g. `-t^(1/2) - t^(5/2)`; for logs and plain CLI output. */
-  toPlainString(variable: string): string {
+  toPlainString(variable: string, order: 'ascending' | 'descending' = 'ascending'): string {
     if (this.isZero) return '0';
     const parts: string[] = [];
-    this.terms().forEach(([e, c], i) => {
+    const terms = this.terms();
+    if (order === 'descending') terms.reverse();
+    terms.forEach(([e, c], i) => {
       const negative = c < 0n;
       const abs = negative ? -c : c;
       const sign = i === 0 ? (negative ? '-' : '') : negative ? ' - ' : ' + ';
