@@ -39,6 +39,11 @@ const MAX_EXPANDED_POWER = 64;
 /** … and the widest expansion, in units of the variable's exponent. */
 const MAX_EXPANDED_SPAN = 4096;
 const MAX_EXPONENT = 100000;
+/**
+ * The deepest nesting of ( [ { read. The parser descends once per open bracket, so a bound keeps
+ * the call stack small for any input; no value an author types comes near it.
+ */
+export const MAX_NESTING = 100;
 
 /**
  * `stray`: a character no value contains; `decimal`: a number with a decimal point. Both are refused
@@ -240,6 +245,7 @@ class PolynomialParser {
   /** `V(t) = t + t^3 - t^4`: the value is what follows the last `=` outside any group; stray characters after it are refused. */
   private skipLeftHandSide(): void {
     this.checkBraces();
+    this.checkNesting();
     this.findLeftHandSide();
     const stray = this.tokens.slice(this.pos).find((t) => t.kind === 'stray' || t.kind === 'decimal');
     if (stray?.kind === 'decimal') {
@@ -262,6 +268,17 @@ class PolynomialParser {
     }
     const unclosed = open.pop();
     if (unclosed) fail('unbalanced braces: this `{` is never closed; add `}`', unclosed);
+  }
+
+  /** Refuses brackets nested deeper than MAX_NESTING, at the first bracket past the limit. */
+  private checkNesting(): void {
+    let depth = 0;
+    for (const t of this.tokens) {
+      if (t.kind !== 'op') continue;
+      if ('([{'.includes(t.text) && ++depth > MAX_NESTING) {
+        fail(`brackets nested more than ${MAX_NESTING} deep: this \`${t.text}\` opens level ${depth}; a value is not read past ${MAX_NESTING} levels of ( [ {, so write it with fewer brackets`, t);
+      } else if (')]}'.includes(t.text)) depth = Math.max(0, depth - 1);
+    }
   }
 
   private findLeftHandSide(): void {
