@@ -12,7 +12,7 @@ import type { SessionResult } from '../../core/manuscript/api.ts';
 import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '../../../plugins/latex/reader.ts';
 import { flatText } from '../../../plugins/latex/flat.ts';
 import { sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
-import type { FormatOptions, FormatResult, ManuscriptFormat } from './types.ts';
+import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat } from './types.ts';
 
 const diskFiles: LatexFileSystem = {
   read(path) {
@@ -71,7 +71,7 @@ function inputsOf(doc: LatexDocument): string[] {
 
 export const latexFormat: ManuscriptFormat = {
   name: 'latex',
-  extensions: ['.tex', '.ltx'],
+  extensions: FORMAT_EXTENSIONS.latex,
 
   async check(path, options): Promise<FormatResult> {
     const { doc, diagnostics, failed } = checkManuscript(path, options);

@@ -13,8 +13,7 @@ import { unified } from 'unified';
 import { VFile } from 'vfile';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import remarkSkeinproof, { applySplices, sourceOffsetOf, SourceText, type SkeinproofData } from '../../../plugins/remark/index.ts';
-import { renderHtmlPage } from '../html/page.ts';
-import type { FormatOptions, FormatResult, ManuscriptFormat, OutputFile } from './types.ts';
+import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat, type OutputFile } from './types.ts';
 
 const HTML_EXTENSIONS = ['.html', '.htm'];
 
@@ -62,7 +61,7 @@ export function defaultOutputPath(input: string, html: boolean): string {
 
 export const markdownFormat: ManuscriptFormat = {
   name: 'markdown',
-  extensions: ['.md', '.markdown'],
+  extensions: FORMAT_EXTENSIONS.markdown,
 
   async check(path, options): Promise<FormatResult> {
     const checked = await checkManuscript(path, options);
@@ -81,6 +80,8 @@ export const markdownFormat: ManuscriptFormat = {
     const diagnostics = [...data.diagnostics];
     if (!html) outputs.push({ path: output, content: filled });
     else {
+      // The HTML stack (rehype, KaTeX) loads only when a page is written.
+      const { renderHtmlPage } = await import('../html/page.ts');
       const page = await renderHtmlPage(filled, {
         title: data.settings.title ?? basename(path, extname(path)),
         allowHtml: options.allowHtml === true,

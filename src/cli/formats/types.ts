@@ -41,3 +41,6 @@ export interface ManuscriptFormat {
   check(path: string, options: FormatOptions): Promise<FormatResult>;
   build(path: string, options: FormatOptions): Promise<FormatResult>;
 }
+
+/** File extensions of each format; the registry picks a format by these without loading its module. */
+export const FORMAT_EXTENSIONS = { markdown: ['.md', '.markdown'], latex: ['.tex', '.ltx'] } as const;

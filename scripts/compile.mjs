@@ -1,0 +1,72 @@
+#!/usr/bin/env node
+// Compiles the command line ahead of time (run by `npm ci` through the `prepare` script, and by the
+// test suite's global setup), so `bin/skeinproof.js` starts without transpiling anything.
+// Everything is bundled, packages too (one file read instead of hundreds of module resolutions, and
+// the installed tool needs no runtime packages). Dynamic imports become chunks of their own, so a
+// command loads only the stacks it uses.
+import { build } from 'esbuild';
+import { cpSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const finalDir = join(root, 'dist');
+// Built beside dist/ and swapped in, so a command started meanwhile finds the old build or the new one, never half of one.
+const outdir = join(root, `dist.building-${process.pid}`);
+rmSync(outdir, { recursive: true, force: true });
+const result = await build({
+  absWorkingDir: root,
+  entryPoints: { main: 'src/cli/main.ts' },
+  outdir,
+  bundle: true,
+  splitting: true,
+  format: 'esm',
+  platform: 'node',
+  target: 'node20',
+  chunkNames: 'chunks/[name]-[hash]',
+  // Bundled CommonJS packages call require(); an ES module has none of its own.
+  banner: { js: "import { createRequire as skeinCreateRequire } from 'node:module'; const require = skeinCreateRequire(import.meta.url);" },
+  logLevel: 'warning',
+  metafile: true,
+});
+writeFileSync(join(outdir, 'build-graph.json'), `${JSON.stringify(buildGraph(result.metafile), null, 1)}\n`);
+
+// The HTML page inlines KaTeX's stylesheet and fonts; the installed tool reads them from dist/katex.
+const katexDist = dirname(createRequire(import.meta.url).resolve('katex/dist/katex.min.css'));
+mkdirSync(join(outdir, 'katex'));
+cpSync(join(katexDist, 'katex.min.css'), join(outdir, 'katex', 'katex.min.css'));
+cpSync(join(katexDist, 'fonts'), join(outdir, 'katex', 'fonts'), { recursive: true, filter: (path) => !/\.(woff|ttf)$/.test(path) });
+
+const previous = `${finalDir}.old-${process.pid}`;
+try {
+  renameSync(finalDir, previous);
+} catch (error) {
+  if (error.code !== 'ENOENT') throw error;
+}
+renameSync(outdir, finalDir);
+rmSync(previous, { recursive: true, force: true });
+
+/**
+ * Which sources and packages each output file holds and which outputs it imports statically:
+ * the lazy-loading test reads it to name the packages behind the chunks a command loaded.
+ */
+function buildGraph(metafile) {
+  const graph = {};
+  for (const [path, output] of Object.entries(metafile.outputs)) {
+    const packages = new Set();
+    const sources = [];
+    for (const input of Object.keys(output.inputs)) {
+      const inPackage = /^(?:.*\/)?node_modules\/((?:@[^/]+\/)?[^/]+)/.exec(input);
+      if (inPackage) packages.add(inPackage[1]);
+      else sources.push(input);
+    }
+    graph[path.replace(/^dist\.building-\d+\//, '')] = {
+      entryPoint: output.entryPoint ?? null,
+      staticImports: output.imports.filter((i) => i.kind === 'import-statement' && !i.external).map((i) => i.path.replace(/^dist\.building-\d+\//, '')),
+      packages: [...packages].sort(),
+      sources,
+    };
+  }
+  return graph;
+}
