@@ -23,8 +23,11 @@ import { SourceFile } from './source-file.ts';
 import { splitTabular } from './tabular.ts';
 
 export interface LatexFileSystem {
-  /** The text of the file, or undefined when there is none. */
-  read(absolutePath: string): string | undefined;
+  /**
+   * The text of the file; undefined when there is none; `notRegular` (what the file is: "a named pipe") when
+   * it exists but is no regular file, which skeinproof never reads (a pipe would block, a device never end).
+   */
+  read(absolutePath: string): string | { readonly notRegular: string } | undefined;
   /** The path with symbolic links resolved; identity when not given. */
   realpath?(absolutePath: string): string;
 }
@@ -120,9 +123,11 @@ class ManuscriptReader {
   read(): LatexDocument {
     const absolute = resolve(this.mainPath);
     const text = this.fs.read(absolute);
-    const main = new SourceFile(this.mainPath, absolute, text ?? '');
+    const main = new SourceFile(this.mainPath, absolute, typeof text === 'string' ? text : '');
     if (text === undefined) {
       this.error(main, { start: 0, end: 0 }, 'file-unreadable', `cannot read ${this.mainPath}: there is no such file, or it cannot be opened; check the path`);
+    } else if (typeof text !== 'string') {
+      this.error(main, { start: 0, end: 0 }, 'file-unreadable', `cannot read ${this.mainPath}: it is ${text.notRegular}, not a regular file; skeinproof reads manuscripts from regular files only`);
     } else {
       this.visit(main, [absolute]);
     }
@@ -327,6 +332,15 @@ class ManuscriptReader {
       }
       const text = this.fs.read(absolute);
       if (text === undefined) continue;
+      if (typeof text !== 'string') {
+        this.error(
+          file,
+          item.path,
+          'file-unreadable',
+          `${command}: ${name} is ${text.notRegular}, not a regular file; skeinproof reads only regular files (TeX would wait on a pipe or read a device without end): replace it by the file it stands for`,
+        );
+        return;
+      }
       const included = new SourceFile(join(dirname(this.mainPath), name), absolute, text);
       splices.push({ kind: 'include', span: item.span, file: included, command: item.command });
       this.visit(included, [...open, absolute]);

@@ -4,7 +4,7 @@
  * sidecar `paper.skein.tex` that \usepackage{skeinproof} reads, or with -o a
  * flat copy that needs no package.
  */
-import { readFileSync, realpathSync } from 'node:fs';
+import { closeSync, constants, fstatSync, openSync, readFileSync, realpathSync, type Stats } from 'node:fs';
 import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import { runSession } from '../../core/manuscript/session.ts';
@@ -14,12 +14,27 @@ import { flatText } from '../../../plugins/latex/flat.ts';
 import { sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
 import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat } from './types.ts';
 
+/**
+ * Reads regular files only. The file is opened without blocking and checked on the open descriptor: opening a
+ * named pipe for reading would wait for a writer forever, and a device file never ends.
+ */
 const diskFiles: LatexFileSystem = {
   read(path) {
+    let fd: number;
     try {
-      return readFileSync(path, 'utf8');
+      fd = openSync(path, constants.O_RDONLY | constants.O_NONBLOCK);
     } catch {
       return undefined;
+    }
+    try {
+      const stats = fstatSync(fd);
+      if (stats.isDirectory()) return undefined; // TeX does not read a directory either: try the next name
+      if (!stats.isFile()) return { notRegular: specialFileKind(stats) };
+      return readFileSync(fd, 'utf8');
+    } catch {
+      return undefined;
+    } finally {
+      closeSync(fd);
     }
   },
   realpath(path) {
@@ -30,6 +45,13 @@ const diskFiles: LatexFileSystem = {
     }
   },
 };
+
+function specialFileKind(stats: Stats): string {
+  if (stats.isFIFO()) return 'a named pipe';
+  if (stats.isSocket()) return 'a socket';
+  if (stats.isCharacterDevice() || stats.isBlockDevice()) return 'a device file';
+  return 'not a regular file';
+}
 
 interface Checked {
   readonly doc: LatexDocument;
