@@ -294,6 +294,18 @@ class ManuscriptReader {
         this.error(file, kv.keySpan, 'convention-invalid', `convention setting \`${kv.key}\` has no value: write it as key=value, e.g. jones=q`);
         continue;
       }
+      // A key written twice could keep only one of its values, as on the command line (--convention).
+      if (Object.hasOwn(record, kv.key)) {
+        if (record[kv.key]!.trim().toLowerCase() !== kv.value.text.trim().toLowerCase()) {
+          this.error(
+            file,
+            kv.keySpan,
+            'convention-invalid',
+            `convention setting \`${kv.key}\` is given twice with different values (${record[kv.key]}, then ${kv.value.text}) in ${command}; keep one`,
+          );
+        }
+        continue;
+      }
       record[kv.key] = kv.value.text;
       spans[kv.key] = { key: kv.keySpan, value: kv.value };
     }

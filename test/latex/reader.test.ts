@@ -243,6 +243,22 @@ describe('located errors in the markup', () => {
     expect(doc.files.map((f) => f.displayPath)).toEqual(['/paper/paper.tex', '/paper/ch.v2.tex', '/paper/..notes.tex', '/paper/other.v3', '/paper/x.tex']);
   });
 
+  it('a convention setting given twice with different values is an error, in \\skeinconvention and in package options (as on the command line)', () => {
+    const doc = read({ 'paper.tex': '\\usepackage{skeinproof}\n\\skeinconvention{jones=q, order=descending, jones = t}\n' });
+    expect(places(doc)).toEqual(['convention-invalid@paper.tex:2:45']);
+    expect(doc.diagnostics[0]!.message).toBe(
+      'convention setting `jones` is given twice with different values (q, then t) in \\skeinconvention; keep one',
+    );
+    const options = read({ 'paper.tex': '\\usepackage[jones=q,jones=t]{skeinproof}\n' });
+    expect(places(options)).toEqual(['convention-invalid@paper.tex:1:21']);
+    // Names of the same setting in other cases or spellings are one setting too (README: conventions).
+    expect(places(read({ 'paper.tex': '\\usepackage[jones=q,Jones=t]{skeinproof}\n' }))).toHaveLength(1);
+    // The same value twice says the same thing twice, as on the command line.
+    const same = read({ 'paper.tex': '\\usepackage[jones=q, jones=q]{skeinproof}\n' });
+    expect(same.diagnostics).toEqual([]);
+    expect(same.convention).toEqual({ jonesVariable: 'q' });
+  });
+
   it('a bad convention setting is located at its key or value', () => {
     const doc = read({ 'paper.tex': '\\skeinconvention{jones=w, colour=blue}\n\\skeinconvention{order=ascending}\n' });
     expect(places(doc)).toEqual(['convention-invalid@paper.tex:1:24', 'convention-invalid@paper.tex:1:27', 'latex-convention-twice@paper.tex:2:1']);
