@@ -86,8 +86,12 @@ const VALUE_SUPPORT =
   '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}';
 /** A fill-in macro (\skeinvalue or a shortcut) or \skeinclaim in a text. */
 const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
-/** Characters a diagram code may contain that plain LaTeX would not print as typed. */
-const SPECIAL_IN_CODE = /[\^_&#$~]/g;
+/**
+ * Characters a diagram code may contain that plain LaTeX would not print as typed: TeX's specials, and the minus
+ * sign U+2212 and Unicode spaces the notations read (JavaScript's \s), which 8-bit LaTeX has no glyph for. The
+ * package typesets the last two as - and a space, and so does the flat copy.
+ */
+const SPECIAL_IN_CODE = /[\^_&#$~]|(\u2212)|([\s\v])/gu;
 
 export function readLatexManuscript(mainPath: string, fs: LatexFileSystem): LatexDocument {
   return new ManuscriptReader(mainPath, fs).read();
@@ -193,8 +197,10 @@ class ManuscriptReader {
     }
     splices.push({ kind: 'text', span: item.beginSpan, text: '\\begin{flushleft}\\ttfamily' });
     for (const m of item.body.text.matchAll(SPECIAL_IN_CODE)) {
+      if (m[2] !== undefined && /[\t\n\r\f ]/.test(m[2])) continue; // spaces LaTeX reads as spaces
       const at = item.body.start + m.index;
-      splices.push({ kind: 'text', span: { start: at, end: at + 1 }, text: `\\string${m[0]}` });
+      const text = m[1] !== undefined ? '-' : m[2] !== undefined ? ' ' : `\\string${m[0]}`;
+      splices.push({ kind: 'text', span: { start: at, end: at + m[0].length }, text });
     }
     splices.push({ kind: 'text', span: item.endSpan, text: '\\end{flushleft}' });
     if (id === undefined) return;

@@ -607,4 +607,52 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       for (const v of ['t + t^3 - t^4', 't^{-2} - t^{-1} + 1 - t + t^2']) expect(squeeze(run.text)).toContain(asPdfText(v));
     }
   });
+
+  it('a code with the minus sign U+2212 and Unicode spaces, which the reader accepts, typesets under pdflatex before and after both builds', async () => {
+    // pdflatex's utf8 inputenc stops on a character it has no definition for ("Unicode character … not set up",
+    // utf8.def); U+2212 is what text copied from a typeset paper carries (README: notations).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=eight, notation=braid}',
+      '1 \u22122 1\u2009\u22122\u00a0\u3000',
+      '\\end{skeincode}',
+      'V is \\skeinjones{eight}.',
+      '\\end{document}',
+    ].join('\n');
+    const before = workDir('unicode-code', true);
+    writeFileSync(join(before, 'code.tex'), paper);
+    const raw = pdflatex(before, 'code.tex');
+    expect(raw.ok, raw.log.split('\n').filter((l) => l.startsWith('!')).join('\n')).toBe(true);
+    expect(squeeze(raw.text)).toContain('1-21-2');
+    for (const flat of [false, true]) {
+      const dir = workDir('unicode-code', !flat);
+      writeFileSync(join(dir, 'code.tex'), paper);
+      const result = await latexFormat.build(join(dir, 'code.tex'), flat ? { output: join(dir, 'code-flat.tex') } : {});
+      expect(result.diagnostics).toEqual([]);
+      for (const o of result.outputs) writeFileSync(o.path, o.content);
+      const run = pdflatex(dir, flat ? 'code-flat.tex' : 'code.tex');
+      expect(run.ok, run.log.split('\n').filter((l) => l.startsWith('!')).join('\n')).toBe(true);
+      expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+      // The figure-eight knot (from memory): V = t^{-2} - t^{-1} + 1 - t + t^2.
+      expect(squeeze(run.text)).toContain('1-21-2');
+      expect(squeeze(run.text)).toContain(asPdfText('V is t^{-2} - t^{-1} + 1 - t + t^2.'));
+    }
+  });
+
+  it('a skeincode never closed stops LaTeX with an error that names skeincode, not the package internals', () => {
+    // LaTeX reports an environment ended by the wrong \\end as "\\begin{X} on input line N ended by \\end{Y}"
+    // (latex.ltx, \\@badend), naming the environment the author opened.
+    const dir = workDir('unclosed-code', true);
+    writeFileSync(
+      join(dir, 'open.tex'),
+      '\\documentclass{article}\n\\usepackage{skeinproof}\n\\begin{document}\n\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n\n\\end{document}\n',
+    );
+    const run = pdflatex(dir, 'open.tex');
+    expect(run.ok).toBe(false);
+    const errors = unwrapLog(run.log).split('\n').filter((l) => l.startsWith('! '));
+    expect(errors[0]).toBe('! LaTeX Error: \\begin{skeincode} on input line 4 ended by \\end{document}.');
+    expect(run.log).not.toContain('flushleft');
+  });
 });
