@@ -40,7 +40,10 @@ export type CodeOutcome =
 export function computeCode(code: string, notation: Notation, options: ParseOptions = {}): CodeOutcome {
   try {
     const diagram = parseDiagramCode(code, notation, options);
-    return { ok: true, code, notation, report: analyzeDiagram(diagram) };
+    const report = analyzeDiagram(diagram);
+    // Every summary shows the bracket, and a diagram too wide for it is an input error of the code.
+    void report.bracket;
+    return { ok: true, code, notation, report };
   } catch (error) {
     if (isInputError(error)) return { ok: false, code, notation, error };
     throw error;

@@ -1,61 +1,71 @@
 /**
- * analyzeDiagram: every invariant and property of one diagram, computed once,
- * as a DiagramReport that front ends and the claims layer only read.
+ * analyzeDiagram: the DiagramReport of one diagram, whose every field is
+ * computed on first read and then kept (one report per diagram object), so a
+ * document pays only for the invariants it states, fills or tabulates.
+ * Registered invariants add their own values through `valueOf` (see
+ * src/core/invariants/registry/lazy.ts).
  */
 import { componentCount } from '../diagram/model.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import { diagramProperties } from '../diagram/properties.ts';
+import type { DiagramProperties } from '../diagram/properties.ts';
 import { crossingNumberBounds } from '../diagram/crossing-bounds.ts';
 import { splitPieces } from '../diagram/operations.ts';
 import { kauffmanBracket } from '../invariants/bracket.ts';
 import { jonesFromBracket } from '../invariants/jones.ts';
 import { classicalInvariants } from '../invariants/classical/index.ts';
-import type { ClassicalInvariants } from '../invariants/classical/index.ts';
+import { defineLazy } from '../invariants/registry/lazy.ts';
 import type { DiagramReport } from './report.ts';
 
+const reports = new WeakMap<LinkDiagram, DiagramReport>();
+
 export function analyzeDiagram(d: LinkDiagram): DiagramReport {
-  // The classical invariants cost seconds on diagrams of hundreds of crossings: computed on first read.
-  let classical: ClassicalInvariants | undefined;
-  const properties = diagramProperties(d);
-  const { bracket, boundaryWidth } = kauffmanBracket(d);
-  const jones = jonesFromBracket(bracket, properties.writhe);
-  const report: Omit<DiagramReport, 'classical'> = {
-    diagram: d,
-    notation: d.notation,
-    crossings: properties.crossings,
-    components: componentCount(d),
-    writhe: properties.writhe,
-    positiveCrossings: properties.signs.positive,
-    negativeCrossings: properties.signs.negative,
-    linking: properties.linking,
-    bracket,
-    jones,
-    span: jones.span,
+  let report = reports.get(d);
+  if (!report) reports.set(d, (report = lazyReport(d)));
+  return report;
+}
+
+function lazyReport(d: LinkDiagram): DiagramReport {
+  let properties: DiagramProperties | undefined;
+  const props = (): DiagramProperties => (properties ??= diagramProperties(d));
+  let contraction: ReturnType<typeof kauffmanBracket> | undefined;
+  const bracketResult = () => (contraction ??= kauffmanBracket(d));
+  const report = { diagram: d, notation: d.notation, chiralityFixed: d.chiralityFixed } as Record<string, unknown>;
+  const r = report as unknown as DiagramReport;
+  const fields: Record<string, () => unknown> = {
+    crossings: () => props().crossings,
+    components: () => componentCount(d),
+    writhe: () => props().writhe,
+    positiveCrossings: () => props().signs.positive,
+    negativeCrossings: () => props().signs.negative,
+    linking: () => props().linking,
+    bracket: () => bracketResult().bracket,
+    jones: () => jonesFromBracket(r.bracket, r.writhe),
+    span: () => r.jones.span,
     // The bracket and V of a diagram are never zero, so the degrees exist.
-    jonesMinDegree: jones.minDegree ?? 0,
-    jonesMaxDegree: jones.maxDegree ?? 0,
-    bracketSpan: bracket.span,
-    bracketMinDegree: bracket.minDegree ?? 0,
-    bracketMaxDegree: bracket.maxDegree ?? 0,
-    connected: properties.connected,
-    nugatory: properties.nugatory,
-    reduced: properties.reduced,
-    alternating: properties.alternating,
-    aAdequate: properties.aAdequate,
-    bAdequate: properties.bAdequate,
-    adequate: properties.adequate,
-    stateCircles: properties.stateCircles,
-    chiralityFixed: d.chiralityFixed,
-    crossingNumber: crossingNumberBounds({
-      properties,
-      jonesSpan: jones.span,
-      // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
-      pieces: properties.connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece).crossingNumber),
-    }),
-    boundaryWidth,
+    jonesMinDegree: () => r.jones.minDegree ?? 0,
+    jonesMaxDegree: () => r.jones.maxDegree ?? 0,
+    bracketSpan: () => r.bracket.span,
+    bracketMinDegree: () => r.bracket.minDegree ?? 0,
+    bracketMaxDegree: () => r.bracket.maxDegree ?? 0,
+    connected: () => props().connected,
+    nugatory: () => props().nugatory,
+    reduced: () => props().reduced,
+    alternating: () => props().alternating,
+    aAdequate: () => props().aAdequate,
+    bAdequate: () => props().bAdequate,
+    adequate: () => props().adequate,
+    stateCircles: () => props().stateCircles,
+    crossingNumber: () =>
+      crossingNumberBounds({
+        properties: props(),
+        jonesSpan: r.jones.span,
+        // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
+        pieces: props().connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece).crossingNumber),
+      }),
+    boundaryWidth: () => bracketResult().boundaryWidth,
+    classical: () => classicalInvariants(d),
   };
-  return Object.defineProperty(report, 'classical', {
-    enumerable: true,
-    get: () => (classical ??= classicalInvariants(d)),
-  }) as DiagramReport;
+  for (const [name, compute] of Object.entries(fields)) defineLazy(report, name, compute);
+  return r;
 }

@@ -6,26 +6,11 @@
 import type { DiagramReport, TheoremId } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 
-/** Invariants an author can state a value for. */
-export type ClaimKey =
-  | 'jones'
-  | 'bracket'
-  | 'span'
-  | 'bracket-span'
-  | 'min-degree'
-  | 'max-degree'
-  | 'writhe'
-  | 'crossings'
-  | 'components'
-  | 'linking'
-  | 'alternating'
-  | 'reduced'
-  | 'adequate'
-  | 'crossing-number'
-  | 'alexander'
-  | 'conway'
-  | 'determinant'
-  | 'signature';
+/**
+ * A key an author can state a value for: one of the claim keys of the
+ * registered invariants (`CLAIM_KEYS`, src/core/invariants/registry).
+ */
+export type ClaimKey = string;
 
 export type Verdict = 'agrees' | 'contradicts' | 'undecided';
 
@@ -66,21 +51,8 @@ export interface JudgeContext {
   readonly selfId?: string;
 }
 
-/** Values a document can ask to have typeset. */
-export type FillKey =
-  | 'jones'
-  | 'bracket'
-  | 'span'
-  | 'writhe'
-  | 'crossings'
-  | 'components'
-  | 'crossing-number'
-  | 'statement'
-  | 'alexander'
-  | 'conway'
-  | 'determinant'
-  | 'signature'
-  | 'genus';
+/** A value a document can ask to have typeset: one of the fill keys of the registered invariants (`FILL_KEYS`). */
+export type FillKey = string;
 
 /**
  * A typeset value: `math` is LaTeX for inline math (without delimiters);

@@ -14,6 +14,7 @@
 import type { InputError } from '../errors.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../diagnostics/diagnostic.ts';
 import type { ClaimKey, DiagnosisKind, Judgement } from './api.ts';
+import { CLAIM_KEYS, claimSpec } from '../invariants/registry/index.ts';
 
 export const CLAIM_RULES = {
   contradicted: 'claim-contradicted',
@@ -25,26 +26,8 @@ export const CLAIM_RULES = {
   codeInvalid: 'code-invalid',
 } as const;
 
-export const CLAIM_NOUNS: Readonly<Record<ClaimKey, string>> = {
-  jones: 'Jones polynomial',
-  bracket: 'Kauffman bracket',
-  span: 'span of V',
-  'bracket-span': 'span of the bracket',
-  'min-degree': 'lowest degree of V',
-  'max-degree': 'highest degree of V',
-  writhe: 'writhe',
-  crossings: 'crossing count',
-  components: 'component count',
-  linking: 'linking number',
-  alternating: 'alternating',
-  reduced: 'reduced',
-  adequate: 'adequate',
-  'crossing-number': 'crossing number',
-  alexander: 'Alexander polynomial',
-  conway: 'Conway polynomial',
-  determinant: 'determinant',
-  signature: 'signature',
-};
+/** The invariant of each claim key in words, from the registry. */
+export const CLAIM_NOUNS: Readonly<Record<ClaimKey, string>> = Object.fromEntries(CLAIM_KEYS.map((key) => [key, claimSpec(key)!.noun]));
 
 /** What to do about each slip, one sentence; the slip itself is named in the message. */
 const FIX_HINTS: Readonly<Record<DiagnosisKind, (j: Judgement) => string | undefined>> = {

@@ -229,7 +229,12 @@ function subjectOf(key: PolynomialKey, report: DiagramReport, convention: Conven
  * (Subjects read only these three fields.)
  */
 function mirrorReport(report: DiagramReport): DiagramReport {
-  return { ...report, jones: report.jones.substitutePower(-1), bracket: report.bracket.substitutePower(-1), writhe: -report.writhe };
+  // Not a spread: that would compute every lazy field of the report.
+  return Object.create(report, {
+    jones: { value: report.jones.substitutePower(-1) },
+    bracket: { value: report.bracket.substitutePower(-1) },
+    writhe: { value: -report.writhe },
+  }) as DiagramReport;
 }
 
 export function judgePolynomialClaim(key: PolynomialKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {

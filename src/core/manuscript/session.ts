@@ -2,8 +2,9 @@
  * runSession: the format-independent pass over one manuscript (contract in
  * ./api.ts). Markdown and LaTeX front ends both call it:
  *
- * 1. every diagram is parsed and analysed once; a duplicate id is an error at
- *    the second header, a bad code an error inside the code;
+ * 1. every diagram is parsed once (its invariants are computed when first
+ *    needed); a duplicate id is an error at the second header, a bad code an
+ *    error inside the code;
  * 2. every claim is judged against its diagram's report (unknown targets and
  *    unreadable values are located errors);
  * 3. every fill-in is typeset in the document's convention.
@@ -16,7 +17,7 @@ import type { DiagramReport } from '../analyze/report.ts';
 import { CLAIM_NOUNS, invalidCodeDiagnostic, judgeClaim, judgementToDiagnostics, typesetValue, unreadableClaimDiagnostic } from '../claims/index.ts';
 import type { Typeset } from '../claims/api.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
-import { isInputError } from '../errors.ts';
+import { isInputError, type InputError } from '../errors.ts';
 import { parseDiagramCode } from '../notation/index.ts';
 import type { DiagramEntry, Locator, SessionInput, SessionResult } from './api.ts';
 
@@ -81,6 +82,19 @@ export function runSession(input: SessionInput): SessionResult {
     return refusedAt ? [skippedBecauseRefused(target, refusedAt, locate, subject, verb)] : unknownTarget(target, locate, subject, inTable);
   };
 
+  /**
+   * Invariants are computed on first use, so a diagram can turn out too large for an engine only when a
+   * claim or fill-in asks for it. That is the code's problem, reported once at the code like an invalid
+   * one; the claims and fill-ins of that diagram then get the same note as those of an invalid code.
+   */
+  const diagramLevel = (e: InputError, target: string): void => {
+    const entry = input.diagrams.find((d) => d.id === target)!;
+    reports.delete(target);
+    invalid.set(target, entry);
+    diagnostics.push(invalidCodeDiagnostic(e, entry.locateCode, target));
+  };
+  const isDiagramLevel = (e: InputError): boolean => !e.ruleId.startsWith('claim-');
+
   for (const claim of input.claims) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
     const report = reports.get(claim.target);
@@ -93,7 +107,10 @@ export function runSession(input: SessionInput): SessionResult {
       diagnostics.push(...judgementToDiagnostics(judgement, claim.locate(), claim.context));
     } catch (e) {
       if (!isInputError(e)) throw e;
-      diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, subject));
+      if (isDiagramLevel(e)) {
+        diagramLevel(e, claim.target);
+        diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
+      } else diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, subject));
     }
   }
 
@@ -108,7 +125,10 @@ export function runSession(input: SessionInput): SessionResult {
       return typesetValue(fill.key, report, input.convention);
     } catch (e) {
       if (!isInputError(e)) throw e;
-      diagnostics.push(unreadableClaimDiagnostic(e, fill.locate, subject));
+      if (isDiagramLevel(e)) {
+        diagramLevel(e, fill.target);
+        diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
+      } else diagnostics.push(unreadableClaimDiagnostic(e, fill.locate, subject));
       return undefined;
     }
   });
