@@ -10,7 +10,6 @@ export interface RuleDescription {
 
 export const RULES: readonly RuleDescription[] = [
   { id: 'claim-contradicted', description: 'A value stated in the manuscript contradicts the value computed from its diagram code.' },
-  { id: 'claim-unexplained', description: 'A contradicted value that no common slip (mirror, sign, shift, normalisation, one coefficient, another diagram) explains.' },
   { id: 'claim-undecided', description: 'The proven bounds do not settle a stated crossing number.' },
   { id: 'claim-mirror-only', description: 'A stated value matches only the mirror image, which a DT code cannot tell apart.' },
   { id: 'claim-unreadable', description: 'A stated value cannot be read as a polynomial, number or yes/no answer.' },

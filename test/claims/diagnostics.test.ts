@@ -36,12 +36,10 @@ describe('judgementToDiagnostics', () => {
     expect(d!.message).toMatch(/^row 2, column V: wrong Jones polynomial: .*every sign reversed/);
     expect(d!.hints).toEqual(['Check the overall sign of the value.']);
   });
-  it('adds a claim-unexplained warning when no slip explains the contradiction', () => {
+  it('gives one message for one problem: a contradiction no slip explains is one error whose hint says to recheck the whole value', () => {
     const ds = diagnose('jones', '1 + t^{9}');
-    expect(ds.map((d) => [d.severity, d.ruleId])).toEqual([
-      ['error', 'claim-contradicted'],
-      ['warning', 'claim-unexplained'],
-    ]);
+    expect(ds.map((d) => [d.severity, d.ruleId])).toEqual([['error', 'claim-contradicted']]);
+    expect(ds[0]!.hints).toEqual(['No common slip explains the difference: recheck the whole value rather than one term or sign.']);
   });
   it('warns on an undecided crossing number and names the theorem in the data', () => {
     const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));

@@ -102,6 +102,13 @@ describe('slip diagnoses, each on its slip and not on a correct claim', () => {
       c.check?.(j.diagnosis!);
     });
   }
+  it('one-exponent: a single term at the wrong power (t + t^3 - t^5 for the trefoil t + t^3 - t^4, Jones 1985, from memory)', () => {
+    const j = judge('jones', 't + t^3 - t^5', rightTrefoil);
+    expect(j.diagnosis).toMatchObject({ kind: 'one-exponent', exponent: { computed: 4, claimed: 5, coefficient: '-1' } });
+    expect(j.reason).toBe('the claim differs from the computed value t + t^3 - t^4; only one exponent differs: the term -t^4 is written -t^5');
+    // A term moved onto a power the value already has is not one wrong exponent.
+    expect(judge('jones', 't - t^3 + t^3', rightTrefoil).diagnosis?.kind).not.toBe('one-exponent');
+  });
   it('swapped: the figure-eight value stated for the trefoil, when the document has both', () => {
     const others = new Map([
       ['tref', rightTrefoil],

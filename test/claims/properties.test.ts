@@ -2,7 +2,7 @@
  * Properties over random diagrams (closures of random braid words): a value
  * typeset in any convention is judged to agree; a claim built by one slip is
  * contradicted and diagnosed as that slip or as one tried before it (the order
- * is mirror, negated, shifted, normalization, one-coefficient, swapped), never
+ * is mirror, negated, shifted, normalization, one-coefficient, one-exponent, swapped), never
  * as `none`; a correct claim never carries a diagnosis.
  */
 import { describe, expect, it } from 'vitest';
@@ -15,7 +15,7 @@ import { InputError } from '../../src/core/errors.ts';
 import { rng, randomDiagram } from '../support/random-diagrams.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 
-const ORDER: readonly DiagnosisKind[] = ['mirror', 'negated', 'shifted', 'normalization', 'one-coefficient', 'swapped'];
+const ORDER: readonly DiagnosisKind[] = ['mirror', 'negated', 'shifted', 'normalization', 'one-coefficient', 'one-exponent', 'swapped'];
 
 const conventionArb: fc.Arbitrary<Convention> = fc.record({
   jonesVariable: fc.constantFrom('t', 't-inverse', 'q', 'q-graded'),

@@ -70,10 +70,20 @@ describe('claims about the classical invariants', () => {
     expect(j.verdict).toBe('contradicts');
     expect(j.diagnosis).toMatchObject({ kind: 'normalization', detail: 'the claim has the coefficients of the computed Conway polynomial but is written in t; the Conway polynomial is a polynomial in z' });
   });
-  it('name the value of another diagram of the document as swapped', () => {
+  it('name the polynomial of another diagram of the document as swapped, but not an integer that merely coincides', () => {
     const others = new Map([['eight', figureEight]]);
-    expect(judge('determinant', '5', trefoil, DEFAULT_CONVENTION, others).diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'eight' });
-    expect(judge('alexander', '-t^{-1} + 3 - t', trefoil, DEFAULT_CONVENTION, others).diagnosis?.kind).toBe('swapped');
+    expect(judge('alexander', '-t^{-1} + 3 - t', trefoil, DEFAULT_CONVENTION, others).diagnosis).toMatchObject({ kind: 'swapped', otherDiagram: 'eight' });
+    // det(4₁) = 5 (from memory) stated for the trefoil (det 3): many knots share a small determinant, so no swap is claimed.
+    const det = judge('determinant', '5', trefoil, DEFAULT_CONVENTION, others);
+    expect(det.verdict).toBe('contradicts');
+    expect(det.diagnosis).toBeUndefined();
+    expect(det.reason).toBe('the determinant is 3, not 5');
+    expect(judge('signature', '0', trefoil, DEFAULT_CONVENTION, others).diagnosis).toBeUndefined(); // σ(4₁) = 0, from memory
+  });
+  it('name one term written at the wrong power (Δ(3₁) = t⁻¹ − 1 + t, from memory)', () => {
+    const j = judge('alexander', 't^{-1} - 1 + t^2', trefoil);
+    expect(j.diagnosis).toMatchObject({ kind: 'one-exponent', exponent: { computed: 1, claimed: 2, coefficient: '1' } });
+    expect(j.reason).toContain('only one exponent differs: the term t is written t^2');
   });
   it('name a signature read off a Goeritz matrix without the Gordon–Litherland correction', () => {
     const uncorrected = trefoil.classical.goeritzUncorrected.find((g) => g !== trefoil.classical.signature)!;

@@ -72,4 +72,30 @@ describe('runSession', () => {
     expect(runSession(input).failed).toBe(false);
     expect(runSession({ ...input, strict: true }).failed).toBe(true);
   });
+
+  it('names two table cells under one key that hold each other\'s values as swapped, and a lone coincidence as nothing (det 3₁ = 3, det 4₁ = 5, det 5₁ = 5: from memory)', () => {
+    const cell = (target: string, key: string, text: string, line: number): ClaimEntry => ({ ...claim(target, key, text, line), context: `row ${line}, column ${key}` });
+    const exchanged = runSession({
+      diagrams: [diagram('tref', '1 1 1', 1), diagram('fig8', '1 -2 1 -2', 2)],
+      claims: [cell('tref', 'determinant', '5', 3), cell('fig8', 'determinant', '3', 4)],
+      fills: [],
+      convention: DEFAULT_CONVENTION,
+    });
+    expect(exchanged.diagnostics.map((d) => (d.data as { diagnosis?: { kind: string; otherDiagram?: string } }).diagnosis)).toMatchObject([
+      { kind: 'swapped', otherDiagram: 'fig8' },
+      { kind: 'swapped', otherDiagram: 'tref' },
+    ]);
+    expect(exchanged.diagnostics[0]!.message).toBe(
+      "row 3, column determinant: wrong determinant: the determinant is 3, not 5: the claim is the determinant of diagram `fig8`, whose cell under the same key holds this diagram's value: the two cells are exchanged",
+    );
+    const coincidence = runSession({
+      diagrams: [diagram('tref', '1 1 1', 1), diagram('cinq', '1 1 1 1 1', 2)],
+      claims: [claim('tref', 'determinant', '5', 3), cell('cinq', 'determinant', '5', 4)],
+      fills: [],
+      convention: DEFAULT_CONVENTION,
+    });
+    expect(coincidence.diagnostics).toHaveLength(1);
+    expect(coincidence.diagnostics[0]!.message).toBe('wrong determinant: the determinant is 3, not 5');
+    expect(coincidence.diagnostics[0]!.hints).toEqual([]);
+  });
 });

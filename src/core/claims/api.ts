@@ -14,7 +14,7 @@ export type ClaimKey = string;
 
 export type Verdict = 'agrees' | 'contradicts' | 'undecided';
 
-export type DiagnosisKind = 'mirror' | 'negated' | 'shifted' | 'normalization' | 'one-coefficient' | 'swapped' | 'none';
+export type DiagnosisKind = 'mirror' | 'negated' | 'shifted' | 'normalization' | 'one-coefficient' | 'one-exponent' | 'swapped' | 'none';
 
 export interface Diagnosis {
   readonly kind: DiagnosisKind;
@@ -24,6 +24,8 @@ export interface Diagnosis {
   readonly shift?: number;
   /** `one-coefficient`: the term that differs. */
   readonly term?: { readonly exponent: number; readonly computed: string; readonly claimed: string };
+  /** `one-exponent`: the one term whose exponent differs, as computed and as claimed. */
+  readonly exponent?: { readonly computed: number; readonly claimed: number; readonly coefficient: string };
   /** `swapped`: the id of the diagram whose value the claim is. */
   readonly otherDiagram?: string;
 }

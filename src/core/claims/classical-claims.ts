@@ -6,13 +6,14 @@
  * Diagnoses, tried in this order:
  * - alexander, conway: negated (for an even number of components this is also
  *   the mirror image's value), shifted (times ±t^k: an unnormalised Δ),
- *   normalization (Δ written for ∇ or ∇ for Δ), one-coefficient, swapped, none.
+ *   normalization (Δ written for ∇ or ∇ for Δ), one-coefficient, one-exponent, swapped, none.
  *   `mirror` does not apply on its own: the mirror image has the same Δ for a knot
  *   and −Δ (already `negated`) for an even number of components.
- * - determinant: negated (the sign of Δ(−1) kept), swapped, none.
+ * - determinant: negated (the sign of Δ(−1) kept), none.
  * - signature: mirror (−σ: the mirror image, or the other sign convention),
  *   normalization (sign(G) of a Goeritz matrix without the Gordon–Litherland
- *   correction), swapped, none.
+ *   correction), none.
+ *   (A swap of integers between two table cells is named by the session.)
  */
 import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
@@ -21,6 +22,7 @@ import { Laurent } from '../poly/laurent.ts';
 import type { Diagnosis, JudgeContext, Judgement, Typeset } from './api.ts';
 import { readInteger, readPolynomial } from './latex-poly-parser.ts';
 import { numberLatex, polynomialLatex, styleOf } from './typeset.ts';
+import { oneCoefficientSlip, oneExponentSlip } from './polynomial-slips.ts';
 
 export type ClassicalKey = 'alexander' | 'conway' | 'determinant' | 'signature';
 
@@ -182,20 +184,12 @@ function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: str
     }
   }
   if (report.classical.split) return swappedWith(ctx, (other) => polynomialOf(key, other).equals(claim), NOUNS[key]) ?? splitDiagnosis(key, claim, report);
-  const difference = claim.sub(computed);
-  if (difference.termCount === 1) {
-    const exponent = difference.exponents[0]!;
-    const term = { exponent, computed: computed.coefficient(exponent).toString(), claimed: claim.coefficient(exponent).toString() };
-    const power =
-      exponent === 0
-        ? 'the constant term'
-        : `the coefficient of ${polynomialLatex(Laurent.monomial(exponent), letter, { order: 'ascending', halfPowers: 'power' })}`;
-    return { kind: 'one-coefficient', term, detail: `only ${power} differs: computed ${term.computed}, claimed ${term.claimed}` };
-  }
+  const termSlip = oneCoefficientSlip(claim, computed, letter) ?? oneExponentSlip(claim, computed, letter);
+  if (termSlip) return termSlip;
   return (
     swappedWith(ctx, (other) => polynomialOf(key, other).equals(claim), NOUNS[key]) ?? {
       kind: 'none',
-      detail: 'no common slip (sign, power of the variable, Alexander for Conway, one coefficient, another diagram) explains the difference',
+      detail: 'no common slip (sign, power of the variable, Alexander for Conway, one coefficient or exponent, another diagram) explains the difference',
     }
   );
 }
@@ -250,7 +244,8 @@ function judgeInteger(key: 'determinant' | 'signature', text: string, report: Di
       };
     }
   }
-  diagnosis ??= swappedWith(ctx, (other) => valueOf(other) === claimed, noun);
+  // A small integer shared with another diagram is a coincidence, not evidence of a swap: swaps of
+  // integers are named only for two table cells of one column holding each other's values (the session).
   if (!diagnosis && key === 'determinant' && report.classical.split) diagnosis = splitDiagnosis(key, claimed, report);
   if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) {
     return {

@@ -3,7 +3,6 @@
  *
  * Rule ids (our own):
  *   claim-contradicted  error    the stated value is refuted by the computation
- *   claim-unexplained   warning  accompanies a contradiction no common slip explains: recheck the value by hand
  *   claim-undecided     warning  the proven bounds do not settle a crossing-number claim
  *   claim-mirror-only   warning  the claim holds for the mirror image only, and the code (DT) cannot tell them apart
  *   claim-unreadable    error    the claimed value cannot be read
@@ -18,7 +17,6 @@ import { CLAIM_KEYS, claimSpec } from '../invariants/registry/index.ts';
 
 export const CLAIM_RULES = {
   contradicted: 'claim-contradicted',
-  unexplained: 'claim-unexplained',
   undecided: 'claim-undecided',
   mirrorOnly: 'claim-mirror-only',
   unreadable: 'claim-unreadable',
@@ -39,8 +37,9 @@ const FIX_HINTS: Readonly<Record<DiagnosisKind, (j: Judgement) => string | undef
       : 'Recheck the writhe factor (−A³)^{−w} and the normalisation of the unknot.',
   normalization: () => 'Rewrite the value in the convention the document declares, or declare the convention it is written in.',
   'one-coefficient': (j) => (j.diagnosis?.term ? `Correct that one coefficient to ${j.diagnosis.term.computed}.` : undefined),
+  'one-exponent': (j) => (j.diagnosis?.exponent ? `Correct that exponent to ${j.diagnosis.exponent.computed}.` : undefined),
   swapped: (j) => `The value belongs to \`${j.diagnosis?.otherDiagram}\`: check which diagram the claim is attached to.`,
-  none: () => undefined,
+  none: () => 'No common slip explains the difference: recheck the whole value rather than one term or sign.',
 };
 
 function claimData(j: Judgement): Record<string, unknown> {
@@ -57,8 +56,8 @@ function where(location: SourceLocation | undefined) {
 }
 
 /**
- * The diagnostics for one judgement: none when it agrees plainly; an error
- * when contradicted (plus a `claim-unexplained` warning when no slip explains
+ * The diagnostics for one judgement: none when it agrees plainly; one error
+ * when contradicted (its hint says what to recheck, also when no slip explains
  * it); a warning when undecided or agreeing only up to mirror image.
  * `context` (e.g. "row 3, column V") prefixes the message.
  */
@@ -82,14 +81,7 @@ export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, 
     ...shared,
     hints,
   };
-  if (j.diagnosis?.kind !== 'none') return [error];
-  const unexplained: Diagnostic = {
-    severity: 'warning',
-    ruleId: CLAIM_RULES.unexplained,
-    message: `${prefix}no common slip explains the wrong ${noun}; recheck the whole value rather than one term or sign`,
-    ...shared,
-  };
-  return [error, unexplained];
+  return [error];
 }
 
 /** A diagnostic for bad input (unreadable claim, invalid code), located through the caller's locator. */

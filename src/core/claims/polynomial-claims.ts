@@ -2,7 +2,7 @@
  * Judging a claimed Jones polynomial or Kauffman bracket: exact equality in
  * the document's convention, and on a mismatch the first common slip that
  * explains it, tried in a fixed order: mirror, negated, shifted,
- * normalization, one-coefficient, swapped, none.
+ * normalization, one-coefficient, one-exponent, swapped, none.
  */
 import { Laurent } from '../poly/laurent.ts';
 import type { DiagramReport } from '../analyze/report.ts';
@@ -11,6 +11,7 @@ import { bracketToConvention, conventionBracket, conventionJones, jonesLetter, j
 import type { Diagnosis, JudgeContext, Judgement } from './api.ts';
 import { readPolynomial } from './latex-poly-parser.ts';
 import { polynomialLatex, styleOf } from './typeset.ts';
+import { oneCoefficientSlip, oneExponentSlip } from './polynomial-slips.ts';
 
 export type PolynomialKey = 'jones' | 'bracket';
 
@@ -200,24 +201,15 @@ function diagnose(claim: Laurent, claimLetter: string, subject: Subject, ctx: Ju
   }
   const normal = subject.alternatives.find((a) => a.letter === letter && a.value.equals(claim));
   if (normal) return { kind: 'normalization', detail: normal.detail };
-  const difference = claim.sub(computed);
-  if (difference.termCount === 1) {
-    const exponent = difference.exponents[0]!;
-    const term = { exponent, computed: computed.coefficient(exponent).toString(), claimed: claim.coefficient(exponent).toString() };
-    const power = exponent === 0 ? 'the constant term' : `the coefficient of ${monomialLatex(letter, exponent, false)}`;
-    return {
-      kind: 'one-coefficient',
-      term,
-      detail: `only ${power} differs: computed ${term.computed}, claimed ${term.claimed}`,
-    };
-  }
+  const termSlip = oneCoefficientSlip(claim, computed, letter) ?? oneExponentSlip(claim, computed, letter);
+  if (termSlip) return termSlip;
   for (const [id, other] of ctx.others ?? []) {
     if (id === ctx.selfId) continue;
     if (subject.valueOf(other).equals(claim)) {
       return { kind: 'swapped', otherDiagram: id, detail: `the claim is the ${subject.noun} of diagram \`${id}\` of this document` };
     }
   }
-  return { kind: 'none', detail: 'no common slip (mirror image, sign, power shift, normalisation, one coefficient, another diagram) explains the difference' };
+  return { kind: 'none', detail: 'no common slip (mirror image, sign, power shift, normalisation, one coefficient or exponent, another diagram) explains the difference' };
 }
 
 function subjectOf(key: PolynomialKey, report: DiagramReport, convention: Convention): Subject {

@@ -15,11 +15,12 @@
 import { analyzeDiagram } from '../analyze/analyze.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import { CLAIM_NOUNS, invalidCodeDiagnostic, judgeClaim, judgementToDiagnostics, typesetValue, unreadableClaimDiagnostic } from '../claims/index.ts';
-import type { Typeset } from '../claims/api.ts';
+import type { Judgement, Typeset } from '../claims/api.ts';
+import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
 import { parseDiagramCode } from '../notation/index.ts';
-import type { DiagramEntry, Locator, SessionInput, SessionResult } from './api.ts';
+import type { ClaimEntry, DiagramEntry, Locator, SessionInput, SessionResult } from './api.ts';
 
 export function runSession(input: SessionInput): SessionResult {
   const diagnostics: Diagnostic[] = [];
@@ -95,6 +96,7 @@ export function runSession(input: SessionInput): SessionResult {
   };
   const isDiagramLevel = (e: InputError): boolean => !e.ruleId.startsWith('claim-');
 
+  const judged: JudgedClaim[] = [];
   for (const claim of input.claims) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
     const report = reports.get(claim.target);
@@ -104,7 +106,7 @@ export function runSession(input: SessionInput): SessionResult {
     }
     try {
       const judgement = judgeClaim(claim.key, claim.text, report, { convention: input.convention, others: reports, selfId: claim.target });
-      diagnostics.push(...judgementToDiagnostics(judgement, claim.locate(), claim.context));
+      judged.push({ claim, judgement });
     } catch (e) {
       if (!isInputError(e)) throw e;
       if (isDiagramLevel(e)) {
@@ -112,6 +114,10 @@ export function runSession(input: SessionInput): SessionResult {
         diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
       } else diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, subject));
     }
+  }
+
+  for (const { claim, judgement } of withCellSwaps(judged, reports, input.convention)) {
+    diagnostics.push(...judgementToDiagnostics(judgement, claim.locate(), claim.context));
   }
 
   const fills: (Typeset | undefined)[] = input.fills.map((fill) => {
@@ -136,6 +142,51 @@ export function runSession(input: SessionInput): SessionResult {
   const ordered = diagnostics.map((d, i) => ({ d, i })).sort((a, b) => compareLocations(a.d.location, b.d.location) || a.i - b.i).map((x) => x.d);
   const failed = ordered.some((d) => d.severity === 'error' || (input.strict === true && d.severity === 'warning'));
   return { diagnostics: ordered, fills, reports, failed };
+}
+
+interface JudgedClaim {
+  readonly claim: ClaimEntry;
+  readonly judgement: Judgement;
+}
+
+/**
+ * Two table cells under one key, each contradicted and each holding the other's diagram's value, are
+ * an exchange: named `swapped` on both (the evidence a lone equal integer is not).
+ */
+function withCellSwaps(judged: readonly JudgedClaim[], reports: ReadonlyMap<string, DiagramReport>, convention: Convention): JudgedClaim[] {
+  const agreesFor = (claim: ClaimEntry, target: string): boolean => {
+    try {
+      return judgeClaim(claim.key, claim.text, reports.get(target)!, { convention }).verdict === 'agrees';
+    } catch (e) {
+      if (isInputError(e)) return false;
+      throw e;
+    }
+  };
+  const open = (j: JudgedClaim): boolean =>
+    j.claim.context !== undefined && j.judgement.verdict === 'contradicts' && (j.judgement.diagnosis === undefined || j.judgement.diagnosis.kind === 'none');
+  const result = [...judged];
+  for (let a = 0; a < result.length; a++) {
+    if (!open(result[a]!)) continue;
+    for (let b = a + 1; b < result.length; b++) {
+      const [x, y] = [result[a]!, result[b]!];
+      if (!open(y) || y.claim.key !== x.claim.key || y.claim.target === x.claim.target) continue;
+      if (!reports.has(x.claim.target) || !reports.has(y.claim.target)) continue;
+      if (!agreesFor(x.claim, y.claim.target) || !agreesFor(y.claim, x.claim.target)) continue;
+      result[a] = { claim: x.claim, judgement: swappedWithCell(x.judgement, y.claim.target) };
+      result[b] = { claim: y.claim, judgement: swappedWithCell(y.judgement, x.claim.target) };
+      break;
+    }
+  }
+  return result;
+}
+
+function swappedWithCell(j: Judgement, otherDiagram: string): Judgement {
+  const noun = CLAIM_NOUNS[j.key];
+  const detail = `the claim is the ${noun} of diagram \`${otherDiagram}\`, whose cell under the same key holds this diagram's value: the two cells are exchanged`;
+  // A `none` diagnosis ends the reason with its own sentence, which the swap replaces.
+  const unexplained = j.diagnosis?.kind === 'none' ? `; ${j.diagnosis.detail}` : undefined;
+  const reason = unexplained && j.reason.endsWith(unexplained) ? `${j.reason.slice(0, -unexplained.length)}; ${detail}` : `${j.reason}: ${detail}`;
+  return { ...j, diagnosis: { kind: 'swapped', otherDiagram, detail }, reason };
 }
 
 function place(loc: SourceLocation): string {
