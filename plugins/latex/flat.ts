@@ -6,6 +6,7 @@
  */
 import type { Typeset } from '../../src/core/claims/api.ts';
 import { asciiLatex } from './ascii.ts';
+import { endsWithControlWord } from './expansion.ts';
 import type { LatexDocument, LatexFill, Splice } from './reader.ts';
 import type { SourceFile } from './source-file.ts';
 
@@ -14,21 +15,35 @@ export function flatText(doc: LatexDocument, values: readonly (Typeset | undefin
 }
 
 function flatFile(doc: LatexDocument, file: SourceFile, values: readonly (Typeset | undefined)[]): string {
-  const splices = [...(doc.splices.get(file) ?? [])].sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+  return spliced(doc, file.text, doc.splices.get(file) ?? [], values);
+}
+
+function spliced(doc: LatexDocument, text: string, unordered: readonly Splice[], values: readonly (Typeset | undefined)[]): string {
+  const splices = [...unordered].sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
   let out = '';
   let at = 0;
   for (const s of splices) {
     if (s.span.start < at) continue; // inside a span already replaced
-    out += file.text.slice(at, s.span.start) + replacement(doc, file, s, values);
+    out += text.slice(at, s.span.start);
+    out += replacement(doc, text, s, values, out, text.slice(s.span.end, s.span.end + 1));
     at = s.span.end;
   }
-  return out + file.text.slice(at);
+  return out + text.slice(at);
 }
 
-function replacement(doc: LatexDocument, file: SourceFile, s: Splice, values: readonly (Typeset | undefined)[]): string {
+/** `before`: the flat text so far; `after`: the character that follows the replaced span. */
+function replacement(doc: LatexDocument, text: string, s: Splice, values: readonly (Typeset | undefined)[], before: string, after: string): string {
   switch (s.kind) {
     case 'text':
       return s.text;
+    case 'expansion': {
+      let expanded = spliced(doc, s.text, s.splices, values);
+      // TeX reads a control word up to the first non-letter: keep the tokens at both ends of the expansion apart from
+      // their neighbours, as they were (`\foo\mymacro{…}`, an expansion ending in `\relax` before a letter or a space).
+      if (endsWithControlWord(before) && /^[A-Za-z]/.test(expanded)) expanded = ` ${expanded}`;
+      if (endsWithControlWord(expanded)) expanded += /^[A-Za-z]/.test(after) ? ' ' : /^\s/.test(after) ? '{}' : '';
+      return expanded;
+    }
     case 'include': {
       let body = flatFile(doc, s.file, values);
       // TeX ends every line, the last one too; without this a final comment would swallow what follows.
@@ -37,9 +52,9 @@ function replacement(doc: LatexDocument, file: SourceFile, s: Splice, values: re
     }
     case 'fill': {
       const value = values[s.fill];
-      if (value === undefined) return file.text.slice(s.span.start, s.span.end);
+      if (value === undefined) return text.slice(s.span.start, s.span.end);
       const ascii: Typeset = value.kind === 'math' ? { ...value, latex: asciiLatex(value.latex) } : { ...value, text: asciiLatex(value.text) };
-      return fillText(doc.fills[s.fill]!, ascii, file.text.slice(s.span.start, s.span.end));
+      return fillText(doc.fills[s.fill]!, ascii, text.slice(s.span.start, s.span.end));
     }
   }
 }
@@ -52,6 +67,8 @@ function fillText(fill: LatexFill, value: Typeset, written: string): string {
       const typed = /[\\^_{}]/.test(value.latex) ? `\\detokenize{${value.latex}}` : value.latex;
       return `\\texorpdfstring{$${value.latex}$}{${typed}}`;
     }
+    // In a macro's definition or use the mode is TeX's to know when it expands the macro: a form for both, as the package's.
+    if (t.anyMode) return value.kind === 'math' ? `\\ensuremath{${value.latex}}` : `\\ifmmode\\mbox{${value.text}}\\else ${value.text}\\fi`;
     if (value.kind === 'math') return t.math ? value.latex : `$${value.latex}$`;
     return t.math ? `\\mbox{${value.text}}` : value.text;
   }

@@ -84,15 +84,18 @@ export function maskLatex(source: string): string {
   return out.join('');
 }
 
-/** The letters of a control word starting at `at`, or undefined for a control symbol. */
-export function controlWord(text: string, at: number): string | undefined {
+/**
+ * The letters of a control word starting at `at`, or undefined for a control symbol. `atLetter`: `@` is a
+ * letter too, as in package files (and after \makeatletter).
+ */
+export function controlWord(text: string, at: number, atLetter = false): string | undefined {
   let k = at;
-  while (k < text.length && isLetter(text.charCodeAt(k))) k++;
+  while (k < text.length && isLetter(text.charCodeAt(k), atLetter)) k++;
   return k === at ? undefined : text.slice(at, k);
 }
 
-function isLetter(code: number): boolean {
-  return (code >= 65 && code <= 90) || (code >= 97 && code <= 122);
+function isLetter(code: number, atLetter = false): boolean {
+  return (code >= 65 && code <= 90) || (code >= 97 && code <= 122) || (atLetter && code === 64);
 }
 
 function lineEnd(text: string, from: number): number {

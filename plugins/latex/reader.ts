@@ -18,8 +18,9 @@ import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
 import { NOTATIONS } from '../../src/core/notation/index.ts';
 import { readKeyValues, splitTopLevel, trim, slice } from './key-values.ts';
 import { maskLatex } from './mask.ts';
-import { FILL_SHORTCUTS, scanLatex, type Arg, type ScanItem, type Span } from './scanner.ts';
-import { SourceFile } from './source-file.ts';
+import { FILL_SHORTCUTS, scanLatexItems, type Arg, type DefinitionItem, type ScanItem, type Span } from './scanner.ts';
+import { SourceFile, type TextOrigin } from './source-file.ts';
+import { expandUse, type Expansion, type MacroDefinition } from './expansion.ts';
 import { splitTabular } from './tabular.ts';
 
 export interface LatexFileSystem {
@@ -34,7 +35,15 @@ export interface LatexFileSystem {
 
 /** Where a fill-in's value goes: a macro of a named diagram, or an empty cell of a skein table. */
 export type FillTarget =
-  | { readonly kind: 'macro'; readonly id: string; readonly key: FillKey; readonly math: boolean; readonly inTitle: boolean }
+  | {
+      readonly kind: 'macro';
+      readonly id: string;
+      readonly key: FillKey;
+      readonly math: boolean;
+      readonly inTitle: boolean;
+      /** Set in a macro's definition or use, where the mode it is typeset in is only known when TeX expands it. */
+      readonly anyMode?: true;
+    }
   | {
       readonly kind: 'cell';
       readonly table: number;
@@ -54,7 +63,9 @@ export interface LatexFill {
 export type Splice =
   | { readonly kind: 'text'; readonly span: Span; readonly text: string }
   | { readonly kind: 'fill'; readonly span: Span; readonly fill: number }
-  | { readonly kind: 'include'; readonly span: Span; readonly file: SourceFile; readonly command: 'input' | 'include' };
+  | { readonly kind: 'include'; readonly span: Span; readonly file: SourceFile; readonly command: 'input' | 'include' }
+  /** A use of an author's macro whose definition holds skeinproof markup: replaced by its expansion, itself spliced. */
+  | { readonly kind: 'expansion'; readonly span: Span; readonly text: string; readonly splices: readonly Splice[] };
 
 export interface LatexDocument {
   readonly main: SourceFile;
@@ -86,6 +97,12 @@ const VALUE_SUPPORT =
   '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}';
 /** A fill-in macro (\skeinvalue or a shortcut) or \skeinclaim in a text. */
 const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
+/** What a macro's body may hold that makes skeinproof read it at each use: its markup, or an \input of a file named by a parameter. */
+const MARKUP_OR_INPUT = new RegExp(`${SKEIN_MACRO.source}|\\\\(input|include)(?![A-Za-z])`);
+/** How deep expansions of macros inside macros go before skeinproof stops (TeX would loop on a macro that uses itself). */
+const MAX_EXPANSION_DEPTH = 32;
+/** How much text all expansions of one manuscript may make: macros that use others twice over grow exponentially. */
+const MAX_EXPANDED_CHARACTERS = 4_000_000;
 /**
  * Characters a diagram code may contain that plain LaTeX would not print as typed: TeX's specials, and the minus
  * sign U+2212 and Unicode spaces the notations read (JavaScript's \s), which 8-bit LaTeX has no glyph for. The
@@ -106,6 +123,11 @@ class ManuscriptReader {
   private readonly fills: LatexFill[] = [];
   private readonly diagnostics: Diagnostic[] = [];
   private readonly splices = new Map<SourceFile, Splice[]>();
+  /** The author's macros whose definitions hold skeinproof markup, by name: read at each use. */
+  private readonly macros = new Map<string, MacroDefinition>();
+  /** The definitions recorded in `macros`: the markup in their bodies is read at the uses, not where it is written. */
+  private readonly recorded = new WeakSet<DefinitionItem>();
+  private expandedCharacters = 0;
   private convention: Partial<Convention> = {};
   /** Where the convention was declared: the file and the command (\skeinconvention or the package options). */
   private conventionAt: { readonly file: SourceFile; readonly command: string } | undefined;
@@ -158,18 +180,24 @@ class ManuscriptReader {
     this.files.push(file);
     const splices: Splice[] = [];
     this.splices.set(file, splices);
-    const scan = scanLatex(maskLatex(file.text));
+    const masked = maskLatex(file.text);
+    const atLetter = /\.(sty|cls)$/i.test(file.absolutePath);
+    const scan = scanLatexItems(masked, { macros: this.macros, atLetter });
+    for (const item of scan.items) this.item(file, masked, item, splices, open, 0);
     for (const p of scan.problems) this.error(file, p.span, p.ruleId, p.message);
-    for (const item of scan.items) this.item(file, item, splices, open);
   }
 
-  private item(file: SourceFile, item: ScanItem, splices: Splice[], open: readonly string[]): void {
+  private item(file: SourceFile, masked: string, item: ScanItem, splices: Splice[], open: readonly string[], depth: number): void {
     switch (item.kind) {
+      case 'definition':
+        return this.definition(file, masked, item, /\.(sty|cls)$/i.test(file.absolutePath));
+      case 'use':
+        return this.use(file, masked, item, splices, open, depth);
       case 'code':
       case 'unclosed-code':
         return this.code(file, item, splices);
       case 'fill':
-        return this.fill(file, item, splices);
+        return this.fill(file, item, splices, false);
       case 'claim':
         return this.claim(file, item, splices);
       case 'convention':
@@ -226,8 +254,8 @@ class ManuscriptReader {
     if (!this.refusedIds.has(id)) this.refusedIds.set(id, file.location(at.start, at.end));
   }
 
-  private fill(file: SourceFile, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[]): void {
-    if (this.inDefinition(file, item.span, `\\${item.macro}`, [item.id, item.key], ' (the flat copy keeps it as written, so it needs the package)')) return;
+  private fill(file: TextOrigin, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[], expanded: boolean): void {
+    if (this.readAtUses(file, item.definition, item.span, `\\${item.macro}`, [item.id, item.key], ' (the flat copy keeps it as written, so it needs the package)')) return;
     const id = this.validId(file, trim(item.id), item.span, `\\${item.macro}`, `\\${item.macro}{trefoil}`);
     let key: FillKey | undefined;
     if (typeof item.key === 'string') key = item.key as FillKey;
@@ -245,12 +273,16 @@ class ManuscriptReader {
     }
     if (id === undefined || key === undefined) return;
     splices.push({ kind: 'fill', span: item.span, fill: this.fills.length });
-    this.fills.push({ entry: { target: id, key, locate: locatorFor(file, item.span) }, target: { kind: 'macro', id, key, math: item.math, inTitle: item.inTitle } });
+    const anyMode = expanded || item.definition !== undefined ? { anyMode: true as const } : {};
+    this.fills.push({
+      entry: { target: id, key, locate: locatorFor(file, item.span) },
+      target: { kind: 'macro', id, key, math: item.math, inTitle: item.inTitle && !expanded, ...anyMode },
+    });
   }
 
-  private claim(file: SourceFile, item: Extract<ScanItem, { kind: 'claim' }>, splices: Splice[]): void {
+  private claim(file: TextOrigin, item: Extract<ScanItem, { kind: 'claim' }>, splices: Splice[]): void {
     splices.push({ kind: 'text', span: item.span, text: file.text.slice(item.value.start, item.value.end) });
-    if (this.inDefinition(file, item.span, '\\skeinclaim', [item.id, item.key, item.value], '')) return;
+    if (this.readAtUses(file, item.definition, item.span, '\\skeinclaim', [item.id, item.key, item.value], '')) return;
     const id = this.validId(file, trim(item.id), item.span, '\\skeinclaim', '\\skeinclaim{trefoil}{jones}{…}');
     const key = trim(item.key);
     if (!isClaimKey(key.text)) {
@@ -261,7 +293,7 @@ class ManuscriptReader {
     if (id !== undefined) this.addClaim(file, id, key.text, item.value, undefined);
   }
 
-  private addClaim(file: SourceFile, target: string, key: ClaimKey, value: Arg, context: string | undefined): void {
+  private addClaim(file: TextOrigin, target: string, key: ClaimKey, value: Arg, context: string | undefined): void {
     const text = withoutMathDelimiters(value);
     this.claims.push({ target, key, text: text.text, locate: locatorFor(file, text), ...(context !== undefined ? { context } : {}) });
   }
@@ -320,7 +352,8 @@ class ManuscriptReader {
     else for (const e of read.errors) this.error(file, e.span ?? span, e.ruleId, e.message);
   }
 
-  private input(file: SourceFile, item: Extract<ScanItem, { kind: 'input' }>, splices: Splice[], open: readonly string[]): void {
+  private input(file: TextOrigin, item: Extract<ScanItem, { kind: 'input' }>, splices: Splice[], open: readonly string[]): void {
+    if (this.readAtUses(file, item.definition, item.span, `\\${item.command}`, [item.path], '')) return;
     const written = trim(item.path).text;
     const command = `\\${item.command}{${written}}`;
     if (written === '' || written.endsWith('/')) {
@@ -478,7 +511,7 @@ class ManuscriptReader {
           return;
         }
         // A fill-in or claim macro written in the cell is read where it stands, not as the cell's claimed value.
-        if (SKEIN_MACRO.test(cell.content.text)) return;
+        if (this.holdsMarkup(cell.content.text)) return;
         if (!isClaimKey(key)) {
           this.error(file, cell.content, 'latex-cell-filled', `${context}: the \`${key}\` column is filled in by skeinproof; leave its cells empty`);
           return;
@@ -486,6 +519,11 @@ class ManuscriptReader {
         this.addClaim(file, id, key, cell.content, context);
       });
     }
+  }
+
+  /** Whether a text holds skeinproof markup, written or through one of the author's recorded macros. */
+  private holdsMarkup(text: string): boolean {
+    return SKEIN_MACRO.test(text) || [...text.matchAll(/\\([A-Za-z@]+)/g)].some((m) => this.macros.has(m[1]!));
   }
 
   private tableHead(file: SourceFile, options: Arg | undefined): number {
@@ -526,7 +564,7 @@ class ManuscriptReader {
     return result;
   }
 
-  private validId(file: SourceFile, id: Arg | undefined, at: Span, where: string, example: string): string | undefined {
+  private validId(file: TextOrigin, id: Arg | undefined, at: Span, where: string, example: string): string | undefined {
     if (id === undefined || id.text === '') {
       this.error(file, at, 'latex-id-missing', `${where} names no diagram: give it an id, e.g. ${example}`);
       return undefined;
@@ -566,21 +604,77 @@ class ManuscriptReader {
   }
 
   /**
-   * A fill-in or claim whose arguments hold a macro parameter (`\skeinjones{#1}` in a \newcommand) stands
-   * for values skeinproof cannot know: it is noted and left alone, its uses are not seen.
+   * Whether markup in a macro's definition is left to the uses of the macro: always in a definition recorded for
+   * expansion; and in any other whose parameters fill its arguments (delimited \def parameters, argument types
+   * other than mandatory and one optional first), which skeinproof cannot expand: that is a warning, and the
+   * markup is left alone.
    */
-  private inDefinition(file: SourceFile, span: Span, macro: string, args: readonly (Arg | string)[], flat: string): boolean {
+  private readAtUses(file: TextOrigin, definition: DefinitionItem | undefined, span: Span, macro: string, args: readonly (Arg | string)[], flat: string): boolean {
+    if (definition === undefined) return false;
+    if (this.recorded.has(definition)) return true;
     if (!args.some((a) => typeof a !== 'string' && a.text.includes('#'))) return false;
     this.diagnostics.push({
       severity: 'warning',
       ruleId: 'latex-macro-parameter',
-      message: `this ${macro} takes its arguments from a macro parameter, so skeinproof cannot tell which value it stands for and neither checks nor fills it, nor its uses${flat}: write the fill-ins and claims themselves where the values appear`,
+      message: `this ${macro} takes its arguments from the parameters of \\${definition.name}, which skeinproof cannot expand (it expands parameters #1…#9 read one after another, and an optional first one), so it neither checks nor fills it at the uses of \\${definition.name}${flat}: define \\${definition.name} with \\newcommand, or write the markup itself where the values appear`,
       location: file.location(span.start, span.end),
     });
     return true;
   }
 
-  private error(file: SourceFile, span: Span, ruleId: string, message: string): void {
+  /** A definition whose body holds skeinproof markup (or a use of a macro that does) is recorded, to be read at each use. */
+  private definition(file: TextOrigin, masked: string, item: DefinitionItem, atLetter: boolean): void {
+    const body = item.body.text;
+    const holds = MARKUP_OR_INPUT.test(body) || this.holdsMarkup(body);
+    if (item.params === 0 || !item.expandable || !holds) {
+      this.macros.delete(item.name); // a redefinition without markup
+      return;
+    }
+    const two = (a: Arg) => ({ raw: file.text.slice(a.start, a.end), masked: masked.slice(a.start, a.end) });
+    this.recorded.add(item);
+    this.macros.set(item.name, {
+      params: item.params,
+      optional: item.optionalDefault !== undefined,
+      body: two(item.body),
+      optionalDefault: item.optionalDefault && two(item.optionalDefault),
+      atLetter,
+    });
+  }
+
+  /** A use of a recorded macro: its expansion is read like the text around it (fill-ins, claims, \input, nested uses). */
+  private use(file: TextOrigin, masked: string, item: Extract<ScanItem, { kind: 'use' }>, splices: Splice[], open: readonly string[], depth: number): void {
+    const macro = this.macros.get(item.name)!;
+    const args = item.args.filter((a) => a !== undefined);
+    if (this.readAtUses(file, item.definition, item.span, `\\${item.name}`, args, '')) return;
+    if (depth >= MAX_EXPANSION_DEPTH || this.expandedCharacters > MAX_EXPANDED_CHARACTERS) {
+      const why = depth >= MAX_EXPANSION_DEPTH ? `goes ${MAX_EXPANSION_DEPTH} macros deep (does a macro use itself?)` : `has made over ${MAX_EXPANDED_CHARACTERS} characters of expansions`;
+      this.error(file, item.span, 'latex-macro-loop', `expanding \\${item.name} here ${why}, so skeinproof stops: a macro that TeX could never finish expanding holds no value to check; write the markup itself here`);
+      return;
+    }
+    const expansion = expandUse(macro, file, masked, item.span, item.args);
+    this.expandedCharacters += expansion.text.length;
+    const inner: Splice[] = [];
+    const scan = scanLatexItems(expansion.masked, { macros: this.macros, atLetter: macro.atLetter });
+    for (const found of scan.items) this.expandedItem(expansion, found, inner, open, depth + 1);
+    for (const p of scan.problems) this.error(expansion, p.span, p.ruleId, p.message);
+    splices.push({ kind: 'expansion', span: item.span, text: expansion.text, splices: inner });
+  }
+
+  /** What an expansion may hold: fill-ins, claims, inputs and further uses (diagrams, tables and conventions belong in the document). */
+  private expandedItem(expansion: Expansion, item: ScanItem, splices: Splice[], open: readonly string[], depth: number): void {
+    switch (item.kind) {
+      case 'fill':
+        return this.fill(expansion, item, splices, true);
+      case 'claim':
+        return this.claim(expansion, item, splices);
+      case 'input':
+        return this.input(expansion, item, splices, open);
+      case 'use':
+        return this.use(expansion, expansion.masked, item, splices, open, depth);
+    }
+  }
+
+  private error(file: TextOrigin, span: Span, ruleId: string, message: string): void {
     this.diagnostics.push({ severity: 'error', ruleId, message, location: file.location(span.start, span.end) });
   }
 }
@@ -597,7 +691,7 @@ function withSpacesAfter(text: string, span: Span): Span {
 }
 
 /** A locator for spans of `arg`'s text, in its file. */
-function locatorFor(file: SourceFile, arg: Span): Locator {
+function locatorFor(file: TextOrigin, arg: Span): Locator {
   return (span?: TextSpan) => (span ? file.location(arg.start + span.start, arg.start + span.end) : file.location(arg.start, arg.end));
 }
 

@@ -31,6 +31,37 @@ export const FILL_SHORTCUTS: Readonly<Record<string, string>> = {
   skeinstatement: 'statement',
 };
 
+/**
+ * A macro definition (\newcommand and its relatives, \def and its relatives, \NewDocumentCommand): its
+ * body is scanned as usual, and the items found in it point back at it.
+ */
+export interface DefinitionItem {
+  readonly kind: 'definition';
+  readonly span: Span;
+  readonly name: string;
+  /** The number of parameters (#1 … #n). */
+  readonly params: number;
+  /** The default of an optional first argument (\newcommand\x[2][default]{…}, O{default}). */
+  readonly optionalDefault: Arg | undefined;
+  readonly body: Arg;
+  /** False when its parameters are written in a way skeinproof does not expand (delimited \def parameters, other argument types). */
+  readonly expandable: boolean;
+}
+
+/** How a use of a macro reads its arguments. */
+export interface MacroShape {
+  readonly params: number;
+  /** Whether the first parameter is an optional argument in brackets. */
+  readonly optional: boolean;
+}
+
+export interface ScanOptions {
+  /** Macros whose uses are reported as `use` items (read live: the caller may add to it while scanning). */
+  readonly macros?: ReadonlyMap<string, MacroShape>;
+  /** `@` is a letter (package files). */
+  readonly atLetter?: boolean;
+}
+
 export type ScanItem =
   | { readonly kind: 'code'; readonly span: Span; readonly beginSpan: Span; readonly endSpan: Span; readonly options: Arg; readonly body: Arg }
   /** A skeincode that is never closed (reported here): its options are still read, and its id refused. */
@@ -44,10 +75,15 @@ export type ScanItem =
       readonly math: boolean;
       /** In the title of a sectioning command, which hyperref also turns into a PDF bookmark. */
       readonly inTitle: boolean;
+      /** The innermost macro definition whose body holds it. */
+      readonly definition: DefinitionItem | undefined;
     }
-  | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg }
+  | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg; readonly definition: DefinitionItem | undefined }
   | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
-  | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg }
+  | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg; readonly definition: DefinitionItem | undefined }
+  | DefinitionItem
+  /** A use of one of the macros in ScanOptions.macros, with its arguments (an optional one not given is undefined). */
+  | { readonly kind: 'use'; readonly span: Span; readonly name: string; readonly args: readonly (Arg | undefined)[]; readonly definition: DefinitionItem | undefined }
   | { readonly kind: 'package'; readonly span: Span; readonly options: Arg | undefined; readonly list: Arg }
   /** `\begin{document}`: the preamble ends here. */
   | { readonly kind: 'document'; readonly span: Span }
@@ -92,13 +128,31 @@ interface Frame {
   readonly closer: Closer;
 }
 
-export function scanLatex(text: string): ScanResult {
-  return new Scanner(text).run();
+/** Commands that define a macro, by the way they are written. */
+const LATEX_DEFINERS: ReadonlySet<string> = new Set(['newcommand', 'renewcommand', 'providecommand', 'DeclareRobustCommand']);
+const TEX_DEFINERS: ReadonlySet<string> = new Set(['def', 'gdef', 'edef', 'xdef']);
+const DOCUMENT_DEFINERS: ReadonlySet<string> = new Set(['NewDocumentCommand', 'RenewDocumentCommand', 'ProvideDocumentCommand', 'DeclareDocumentCommand']);
+/** Commands after which a macro's name is not a use of it (`\let\a\b`, `\show\b`). */
+const NAMING_BEFORE = /(?:\\(?:let|futurelet)\s*\\[A-Za-z@]+\s*=?\s*|\\(?:let|futurelet|show|meaning|string|noexpand|ShowCommand)\s*)$/;
+
+export function scanLatex(text: string, options: ScanOptions = {}): ScanResult {
+  const scan = scanLatexItems(text, options);
+  const items = [...scan.items];
+  return { items, problems: scan.problems };
+}
+
+/**
+ * The items one at a time, so that the caller can act on each (follow an \input, record a definition) before
+ * the scan reads on; `problems` fills up as the items are read.
+ */
+export function scanLatexItems(text: string, options: ScanOptions = {}): { readonly items: Iterable<ScanItem>; readonly problems: readonly ScanProblem[] } {
+  const scanner = new Scanner(text, options);
+  return { items: scanner.run(), problems: scanner.problems };
 }
 
 class Scanner {
-  private readonly items: ScanItem[] = [];
-  private readonly problems: ScanProblem[] = [];
+  private items: ScanItem[] = [];
+  readonly problems: ScanProblem[] = [];
   private readonly stack: Frame[] = [];
   /** The mode the next `{` opens, after \text-like (text) or \ensuremath (math) commands. */
   private pendingMode: boolean | undefined;
@@ -109,12 +163,22 @@ class Scanner {
   private unclosedReported = false;
   /** The arguments of sectioning commands read so far (their insides are scanned as usual). */
   private readonly titles: Span[] = [];
+  /** The macro definitions read so far (their bodies are scanned as usual). */
+  private readonly definitions: DefinitionItem[] = [];
 
-  constructor(private readonly text: string) {}
+  constructor(
+    private readonly text: string,
+    private readonly options: ScanOptions,
+  ) {}
 
-  run(): ScanResult {
+  *run(): Generator<ScanItem> {
     const t = this.text;
     while (this.pos < t.length) {
+      if (this.items.length > 0) {
+        const ready = this.items;
+        this.items = [];
+        yield* ready;
+      }
       const ch = t[this.pos]!;
       if (ch === '\\') this.command();
       else if (ch === '$') this.dollar();
@@ -130,7 +194,7 @@ class Scanner {
         this.pos++;
       }
     }
-    return { items: this.items, problems: this.problems };
+    yield* this.items;
   }
 
   private inMath(): boolean {
@@ -159,7 +223,7 @@ class Scanner {
   private command(): void {
     const start = this.pos;
     this.unclosedReported = false;
-    const name = controlWord(this.text, start + 1);
+    const name = controlWord(this.text, start + 1, this.options.atLetter);
     if (name === undefined) {
       const symbol = this.text[start + 1];
       if (symbol === '(' || symbol === '[') this.stack.push({ math: true, closer: symbol === '(' ? '\\)' : '\\]' });
@@ -178,6 +242,9 @@ class Scanner {
     }
     this.pendingMode = undefined;
     if (SECTIONING.has(name)) return this.title();
+    if (LATEX_DEFINERS.has(name)) return this.latexDefinition(start);
+    if (TEX_DEFINERS.has(name)) return this.texDefinition(start);
+    if (DOCUMENT_DEFINERS.has(name)) return this.documentDefinition(start);
     switch (name) {
       case 'begin':
         return this.begin(start);
@@ -196,8 +263,124 @@ class Scanner {
       case 'skeinclaim':
         return this.claim(start);
       default:
-        if (Object.hasOwn(FILL_SHORTCUTS, name)) this.fill(start, name, FILL_SHORTCUTS[name]!);
+        if (Object.hasOwn(FILL_SHORTCUTS, name)) return this.fill(start, name, FILL_SHORTCUTS[name]!);
+        if (this.options.macros?.has(name) && !NAMING_BEFORE.test(this.text.slice(Math.max(0, start - 80), start))) this.use(start, name);
     }
+  }
+
+  /** `\newcommand*{\name}[n][default]{body}` (and \renewcommand, \providecommand, \DeclareRobustCommand). */
+  private latexDefinition(start: number): void {
+    const at = this.text[this.pos] === '*' ? this.pos + 1 : this.pos;
+    const name = this.definedName(at);
+    if (!name) return;
+    const count = this.bracket(name.next);
+    const written = count && /^\s*\d\s*$/.test(count.arg.text);
+    const params = written ? Number(count.arg.text) : 0;
+    const optional = count ? this.bracket(count.next) : undefined;
+    const body = this.group(optional?.next ?? count?.next ?? name.next);
+    if (!body) return;
+    this.defined(start, name.name, params, optional?.arg, body, count === undefined || written === true);
+  }
+
+  /** `\def\name#1#2{body}` (and \gdef, \edef, \xdef): only undelimited parameters are expanded. */
+  private texDefinition(start: number): void {
+    const name = this.definedName(this.pos);
+    if (!name) return;
+    const open = this.text.indexOf('{', name.next);
+    if (open < 0 || open - name.next > 200) return;
+    const parameterText = this.text.slice(name.next, open);
+    const body = this.group(open);
+    if (!body) return;
+    const simple = /^(?:#[1-9])*$/.test(parameterText) && [...parameterText.matchAll(/#(\d)/g)].every((m, i) => Number(m[1]) === i + 1);
+    this.defined(start, name.name, (parameterText.match(/#/g) ?? []).length, undefined, body, simple);
+  }
+
+  /** `\NewDocumentCommand\name{O{default} m m}{body}`: mandatory arguments, and an optional first one with a default. */
+  private documentDefinition(start: number): void {
+    const name = this.definedName(this.pos);
+    if (!name) return;
+    const spec = this.group(name.next);
+    if (!spec) return;
+    const body = this.group(spec.next);
+    if (!body) return;
+    const form = /^\s*(?:O\s*\{([^{}]*)\})?((?:\s*m)*)\s*$/.exec(spec.arg.text);
+    const mandatory = form ? (form[2]!.match(/m/g) ?? []).length : 0;
+    let optional: Arg | undefined;
+    if (form?.[1] !== undefined) {
+      const at = spec.arg.start + spec.arg.text.indexOf('{') + 1;
+      optional = { text: form[1], start: at, end: at + form[1].length };
+    }
+    const params = form ? mandatory + (optional ? 1 : 0) : (spec.arg.text.match(/[A-Za-z]/g) ?? []).length;
+    this.defined(start, name.name, params, optional, body, form !== null);
+  }
+
+  /** The name a definition defines: `\name` or `{\name}`. */
+  private definedName(at: number): { name: string; next: number } | undefined {
+    const braced = this.delimited(at, '{', '}', false);
+    const m = braced ? /^\s*\\([A-Za-z@]+)\s*$/.exec(braced.arg.text) : /^\s*\\/.exec(this.text.slice(at, at + 100));
+    if (!m) return undefined;
+    if (braced) return { name: m[1]!, next: braced.next };
+    const nameStart = at + m[0].length;
+    const name = controlWord(this.text, nameStart, this.options.atLetter);
+    return name === undefined ? undefined : { name, next: nameStart + name.length };
+  }
+
+  private defined(start: number, name: string, params: number, optionalDefault: Arg | undefined, body: { arg: Arg; next: number }, expandable: boolean): void {
+    const item: DefinitionItem = { kind: 'definition', span: { start, end: body.next }, name, params, optionalDefault, body: body.arg, expandable };
+    this.items.push(item);
+    this.definitions.push(item);
+    this.pos = body.arg.start - 1; // the body is read on as usual, from its brace
+  }
+
+  /** The innermost definition whose body holds `at`. */
+  private definitionAt(at: number): DefinitionItem | undefined {
+    for (let k = this.definitions.length - 1; k >= 0; k--) {
+      const d = this.definitions[k]!;
+      if (d.body.start <= at && at < d.body.end) return d;
+    }
+    return undefined;
+  }
+
+  /** A use of a known macro: its arguments as TeX reads them, a braced group or else one token each. */
+  private use(start: number, name: string): void {
+    const shape = this.options.macros!.get(name)!;
+    const args: (Arg | undefined)[] = [];
+    let at = this.pos;
+    if (shape.optional) {
+      const optional = this.bracket(at);
+      args.push(optional?.arg);
+      if (optional) at = optional.next;
+    }
+    while (args.length < shape.params) {
+      const arg = this.undelimited(at);
+      if (!arg) {
+        this.missing(
+          `\\${name} takes ${shape.params} argument${shape.params > 1 ? 's' : ''}, and its definition holds skeinproof markup, but argument ${args.length + 1} is missing here: give each in braces`,
+          { start, end: at },
+        );
+        this.pos = at;
+        return;
+      }
+      args.push(arg.arg);
+      at = arg.next;
+    }
+    this.items.push({ kind: 'use', span: { start, end: at }, name, args, definition: this.definitionAt(start) });
+    this.pos = at; // the arguments are read with the expansion, not here
+  }
+
+  /** An undelimited macro argument as TeX reads it: after spaces (not a blank line), a braced group or one token. */
+  private undelimited(at: number): { arg: Arg; next: number } | undefined {
+    const braced = this.group(at);
+    if (braced) return braced;
+    if (this.unclosedReported) return undefined;
+    const t = this.text;
+    const m = /^[ \t]*(?:\r?\n[ \t]*)?/.exec(t.slice(at, at + 200))!;
+    const k = at + m[0].length;
+    const ch = t[k];
+    if (ch === undefined || ch === '}' || ch === '\n' || ch === '\r' || ch === '{') return undefined;
+    const word = ch === '\\' ? controlWord(t, k + 1, this.options.atLetter) : undefined;
+    const end = ch === '\\' ? k + 1 + (word?.length ?? 1) : k + 1;
+    return { arg: { text: t.slice(k, end), start: k, end }, next: end };
   }
 
   private begin(start: number): void {
@@ -332,7 +515,7 @@ class Scanner {
   private input(start: number, command: 'input' | 'include'): void {
     const braced = this.group(this.pos);
     if (braced) {
-      this.items.push({ kind: 'input', span: { start, end: braced.next }, command, path: braced.arg });
+      this.items.push({ kind: 'input', span: { start, end: braced.next }, command, path: braced.arg, definition: this.definitionAt(start) });
       this.pos = braced.next;
       return;
     }
@@ -344,7 +527,7 @@ class Scanner {
     }
     const pathStart = this.pos + bare[0].length - bare[1]!.length;
     const end = this.pos + bare[0].length;
-    this.items.push({ kind: 'input', span: { start, end }, command, path: { text: bare[1]!, start: pathStart, end } });
+    this.items.push({ kind: 'input', span: { start, end }, command, path: { text: bare[1]!, start: pathStart, end }, definition: this.definitionAt(start) });
     this.pos = end;
   }
 
@@ -377,16 +560,16 @@ class Scanner {
     const inTitle = this.titles.some((t) => t.start <= start && start < t.end);
     if (fixedKey !== undefined) {
       const args = this.requiredGroups(start, `\\${macro}`, ['diagram id'], `e.g. \\${macro}{trefoil}`);
-      if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: fixedKey, math, inTitle });
+      if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: fixedKey, math, inTitle, definition: this.definitionAt(start) });
       return;
     }
     const args = this.requiredGroups(start, `\\${macro}`, ['diagram id', 'key'], `e.g. \\${macro}{trefoil}{jones}`);
-    if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: args[1]!, math, inTitle });
+    if (args) this.items.push({ kind: 'fill', span: { start, end: this.pos }, macro, id: args[0]!, key: args[1]!, math, inTitle, definition: this.definitionAt(start) });
   }
 
   private claim(start: number): void {
     const args = this.requiredGroups(start, '\\skeinclaim', ['diagram id', 'key', 'value'], 'e.g. \\skeinclaim{trefoil}{jones}{t + t^3 - t^4}');
-    if (args) this.items.push({ kind: 'claim', span: { start, end: this.pos }, id: args[0]!, key: args[1]!, value: args[2]! });
+    if (args) this.items.push({ kind: 'claim', span: { start, end: this.pos }, id: args[0]!, key: args[1]!, value: args[2]!, definition: this.definitionAt(start) });
   }
 
   /** Reads the braced arguments a macro needs; reports the first one missing. */

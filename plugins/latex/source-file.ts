@@ -6,7 +6,13 @@
 import type { SourceLocation, SourcePoint } from '../../src/core/diagnostics/diagnostic.ts';
 import { LineIndex } from '../../src/core/diagnostics/line-index.ts';
 
-export class SourceFile {
+/** A text whose offsets can be located in the author's files: a file, or the expansion of a macro's use. */
+export interface TextOrigin {
+  readonly text: string;
+  location(start: number, end?: number): SourceLocation;
+}
+
+export class SourceFile implements TextOrigin {
   private readonly lines: LineIndex;
 
   constructor(

@@ -45,7 +45,8 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'latex-input-cycle', description: 'An \\input or \\include reads a file that is already being read.' },
   { id: 'latex-convention-twice', description: 'The convention is declared more than once in a LaTeX manuscript.' },
   { id: 'latex-convention-misplaced', description: '\\skeinconvention comes after \\begin{document} or before \\usepackage{skeinproof}, where LaTeX does not accept it.' },
-  { id: 'latex-macro-parameter', description: 'A LaTeX fill-in or claim takes its arguments from a macro parameter (inside \\newcommand), so skeinproof cannot check or fill it.' },
+  { id: 'latex-macro-parameter', description: 'A LaTeX fill-in or claim takes its arguments from the parameters of a macro that skeinproof cannot expand (delimited \\def parameters, other argument types), so it is not checked or filled at the uses.' },
+  { id: 'latex-macro-loop', description: 'Expanding an author\'s LaTeX macro never ends (a macro that uses itself) or grows beyond the expansion limit.' },
 ];
 
 export function ruleDescription(id: string): string {

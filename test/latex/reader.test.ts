@@ -187,17 +187,6 @@ describe('located errors in the markup', () => {
     expect(places(read({ 'paper.tex': '\\skeinconvention{jones=q}\n' }))).toEqual([]);
   });
 
-  it('a fill-in or claim inside a macro definition, with a parameter for an argument, is a warning and left alone', () => {
-    const doc = read({
-      'paper.tex':
-        '\\newcommand{\\J}[1]{$V(#1) = \\skeinjones{#1}$}\n\\newcommand{\\C}[2]{\\skeinclaim{#1}{jones}{#2}}\n\\newcommand{\\W}{\\skeinvalue{k}{##1}}\n',
-    });
-    expect(places(doc)).toEqual(['latex-macro-parameter@paper.tex:1:29', 'latex-macro-parameter@paper.tex:2:20', 'latex-macro-parameter@paper.tex:3:17']);
-    expect(doc.diagnostics.map((d) => d.severity)).toEqual(['warning', 'warning', 'warning']);
-    expect(doc.fills).toEqual([]);
-    expect(doc.claims).toEqual([]);
-  });
-
   it('an empty key or column says that no key is given', () => {
     const doc = read({
       'paper.tex':
@@ -389,3 +378,114 @@ describe('building', () => {
     ]);
   });
 });
+
+// TeX expands a macro by putting its arguments in place of #1…#9 in its body (The TeXbook, ch. 20), dropping the
+// braces of a braced argument; an undelimited argument without braces is one token. \newcommand's [n][default]
+// gives the first of n parameters a default when no [optional] argument follows (LaTeX manual, common practice).
+describe("the author's macros with parameters", () => {
+  const MACROS =
+    '\\newcommand\\jonesof[2]{\\skeinclaim{#1}{jones}{#2}}\n' + // 1
+    '\\newcommand{\\J}[1]{$V(#1) = \\skeinjones{#1}$}\n' + // 2
+    '\\newcommand\\val[2][jones]{\\skeinvalue{#2}{#1}}\n' + // 3
+    '\\def\\writheof#1#2{\\skeinclaim{#1}{writhe}{#2}}\n' + // 4
+    '\\NewDocumentCommand\\spanof{O{span} m}{\\skeinvalue{#2}{#1}}\n' + // 5
+    '\\newcommand\\trefclaim[1]{\\jonesof{tref}{#1}}\n'; // 6: a macro using another
+
+  it('reads the markup of a definition at each use, located at the arguments written there', () => {
+    const doc = read({
+      'paper.tex':
+        MACROS +
+        'A $V = \\jonesof{tref}{t + t^3 - t^4}$ and \\jonesof{eight}{1}.\n' + // 7
+        '\\J{tref}, \\val{tref}, \\val[writhe]{tref}, \\writheof{tref}{3}, \\writheof k3, \\spanof{tref}, \\spanof[jones]{k}.\n' + // 8
+        '\\trefclaim{t+t^3-t^4}\n', // 9
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.claims.map((c) => `${c.target} ${c.key} ${c.text} ${c.locate().start.line}:${c.locate().start.column}`)).toEqual([
+      'tref jones t + t^3 - t^4 7:23',
+      'eight jones 1 7:59',
+      'tref writhe 3 8:59',
+      'k writhe 3 8:74', // \writheof k3: the tokens k and 3
+      'tref jones t+t^3-t^4 9:12', // through \trefclaim and \jonesof, still at the argument written in line 9
+    ]);
+    expect(doc.fills.map((f) => `${f.entry.target} ${f.entry.key} ${f.entry.locate().start.line}:${f.entry.locate().start.column}`)).toEqual([
+      'tref jones 8:1', // a fill-in from the body is located at the whole use
+      'tref jones 8:11',
+      'tref writhe 8:23',
+      'tref span 8:77',
+      'k jones 8:92',
+    ]);
+    // The definitions themselves hold no value to check: nothing is read, nothing is warned about there.
+    expect(doc.fills.every((f) => f.target.kind === 'macro' && f.target.anyMode === true)).toBe(true);
+  });
+
+  it('a mistake in the body is reported at each use, one in an argument where it is written', () => {
+    const doc = read({
+      'paper.tex': '\\newcommand\\bad[1]{\\skeinclaim{#1}{jonse}{t}}\n\\newcommand\\C[2]{\\skeinclaim{#1}{jones}{#2}}\nx \\bad{k}\n\\C{no id}{t}\n',
+    });
+    expect(places(doc)).toEqual(['latex-key-unknown@paper.tex:3:3', 'latex-id-invalid@paper.tex:4:4']);
+  });
+
+  it('the flat copy puts each use\'s expansion in its place, with the values filled in a form for text and math', () => {
+    const files = {
+      'paper.tex':
+        '\\usepackage{skeinproof}\n\\newcommand\\jonesof[2]{\\skeinclaim{#1}{jones}{#2}}\n\\newcommand\\J[1]{\\skeinjones{#1}}\n' +
+        '\\newcommand\\Rel[1]{\\relax#1}\n\\begin{document}\n\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}\n' +
+        '$V = \\jonesof{tref}{t + t^3 - t^4}$, \\J{tref} and $\\J{tref}$.\n',
+    };
+    const doc = read(files);
+    expect(doc.diagnostics).toEqual([]);
+    const session = runSession({ diagrams: doc.diagrams, claims: doc.claims, fills: doc.fills.map((f) => f.entry), convention: DEFAULT_CONVENTION });
+    const flat = flatText(doc, session.fills).split('\n');
+    // The definitions stay (the claim's is reduced to its value); each use becomes its expansion.
+    expect(flat[1]).toBe('\\newcommand\\jonesof[2]{#2}');
+    expect(flat[2]).toBe('\\newcommand\\J[1]{\\skeinjones{#1}}');
+    // The positive trefoil (from memory): V = t + t^3 - t^4.
+    expect(flat[8]).toBe('$V = t + t^3 - t^4$, \\ensuremath{t + t^3 - t^4} and $\\ensuremath{t + t^3 - t^4}$.');
+  });
+
+  it('an expansion keeps control words apart from the letters around it, as TeX reads them', () => {
+    const doc = read({
+      'paper.tex': '\\newcommand\\C[2]{\\skeinclaim{#1}{writhe}{#2}\\relax}\n\\newcommand\\D[1]{\\relax#1\\skeinclaim{k}{span}{2}}\n\\C{k}{3}x \\C{k}{3} y\\D{z}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    const flat = flatText(doc, []).split('\n');
+    expect(flat[2]).toBe('3\\relax x 3\\relax{} y\\relax z2');
+  });
+
+  it('parameters written in ways skeinproof does not expand get a warning at the markup', () => {
+    const doc = read({
+      'paper.tex': '\\def\\D#1.{\\skeinjones{#1}}\n\\newcommand{\\W}{\\skeinvalue{k}{##1}}\n\\NewDocumentCommand\\E{s m}{\\skeinjones{#2}}\n\\D k. \\E{k}\n',
+    });
+    expect(places(doc)).toEqual(['latex-macro-parameter@paper.tex:1:11', 'latex-macro-parameter@paper.tex:2:17', 'latex-macro-parameter@paper.tex:3:28']);
+    expect(doc.diagnostics[0]!.message).toContain('parameters of \\D');
+    expect(doc.diagnostics.map((d) => d.severity)).toEqual(['warning', 'warning', 'warning']);
+    expect(doc.fills).toEqual([]);
+  });
+
+  it('a use missing an argument, and a macro that uses itself, are errors at the use', () => {
+    const missing = read({ 'paper.tex': '\\newcommand\\C[2]{\\skeinclaim{#1}{jones}{#2}}\nx \\C{k}\n\nnext paragraph\n' });
+    expect(places(missing)).toEqual(['latex-argument-missing@paper.tex:2:3']);
+    const loop = read({ 'paper.tex': '\\newcommand\\R[1]{\\skeinjones{#1}\\R{#1}}\n\\R{k}\n' });
+    expect(places(loop)).toEqual(['latex-macro-loop@paper.tex:2:1']);
+  });
+
+  it('naming a macro (\\let, \\show) is not a use of it', () => {
+    const doc = read({ 'paper.tex': '\\newcommand\\C[2]{\\skeinclaim{#1}{jones}{#2}}\n\\let\\Cold\\C\n{k}{t}\n\\show\\C\n' });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.claims).toEqual([]);
+  });
+
+  it('macros defined in an \\input file are expanded after it, and a macro may \\input a file named by its argument', () => {
+    const doc = read({
+      'paper.tex': '\\input{macros}\n\\newcommand\\chapterfile[1]{\\input{parts/#1}}\n\\jonesof{k}{t}\n\\chapterfile{one}\n',
+      'macros.tex': '\\newcommand\\jonesof[2]{\\skeinclaim{#1}{jones}{#2}}\n',
+      'parts/one.tex': '\\jonesof{m}{1}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.claims.map((c) => `${c.target} ${c.locate().file.replace('/paper/', '')}:${c.locate().start.line}:${c.locate().start.column}`)).toEqual([
+      'k paper.tex:3:13',
+      'm parts/one.tex:1:13',
+    ]);
+  });
+});
+

@@ -26,6 +26,7 @@ import {
   squeeze,
   tempDir,
   unwrapLog,
+  type TexRun,
 } from './support.ts';
 
 if (!hasPdflatex) console.warn(`test/latex/tex.test.ts skipped: ${NO_TEX_REASON}`);
@@ -82,6 +83,30 @@ async function build(dir: string, output?: string): Promise<void> {
   const result = await latexFormat.build(join(dir, 'rope-atlas.tex'), output ? { output: join(dir, output) } : {});
   expect(result.failed).toBe(false);
   for (const o of result.outputs) writeFileSync(o.path, o.content);
+}
+
+/** TeX's error lines of a run, for the assertion message. */
+function texErrors(run: TexRun): string {
+  return run.log
+    .split('\n')
+    .filter((l) => l.startsWith('!'))
+    .join('\n');
+}
+
+/**
+ * Builds `paper` (as `stem.tex`) the one way or the other (the sidecar with the package, or the flat copy
+ * without it), expecting no diagnostics, and compiles the result: it must compile without warnings.
+ */
+async function buildAndCompile(paper: string, stem: string, flat: boolean): Promise<TexRun> {
+  const dir = workDir(stem, !flat);
+  writeFileSync(join(dir, `${stem}.tex`), paper);
+  const result = await latexFormat.build(join(dir, `${stem}.tex`), flat ? { output: join(dir, `${stem}-flat.tex`) } : {});
+  expect(result.diagnostics).toEqual([]);
+  for (const o of result.outputs) writeFileSync(o.path, o.content);
+  const run = pdflatex(dir, flat ? `${stem}-flat.tex` : `${stem}.tex`);
+  expect(run.ok, texErrors(run)).toBe(true);
+  expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+  return run;
 }
 
 describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
@@ -624,17 +649,10 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     const before = workDir('unicode-code', true);
     writeFileSync(join(before, 'code.tex'), paper);
     const raw = pdflatex(before, 'code.tex');
-    expect(raw.ok, raw.log.split('\n').filter((l) => l.startsWith('!')).join('\n')).toBe(true);
+    expect(raw.ok, texErrors(raw)).toBe(true);
     expect(squeeze(raw.text)).toContain('1-21-2');
     for (const flat of [false, true]) {
-      const dir = workDir('unicode-code', !flat);
-      writeFileSync(join(dir, 'code.tex'), paper);
-      const result = await latexFormat.build(join(dir, 'code.tex'), flat ? { output: join(dir, 'code-flat.tex') } : {});
-      expect(result.diagnostics).toEqual([]);
-      for (const o of result.outputs) writeFileSync(o.path, o.content);
-      const run = pdflatex(dir, flat ? 'code-flat.tex' : 'code.tex');
-      expect(run.ok, run.log.split('\n').filter((l) => l.startsWith('!')).join('\n')).toBe(true);
-      expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+      const run = await buildAndCompile(paper, 'code', flat);
       // The figure-eight knot (from memory): V = t^{-2} - t^{-1} + 1 - t + t^2.
       expect(squeeze(run.text)).toContain('1-21-2');
       expect(squeeze(run.text)).toContain(asPdfText('V is t^{-2} - t^{-1} + 1 - t + t^2.'));
@@ -655,4 +673,40 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(errors[0]).toBe('! LaTeX Error: \\begin{skeincode} on input line 4 ended by \\end{document}.');
     expect(run.log).not.toContain('flushleft');
   });
+
+  it("the author's macros: claims and fill-ins through macros with parameters are checked at each use, and typeset in text and math in both builds", async () => {
+    // TeX puts a macro's arguments in place of #1…#9 (The TeXbook, ch. 20); \ensuremath typesets in text and math
+    // alike (LaTeX manual). The claims are true, so the build passes; a wrong one fails it at the use (second part).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\newcommand\\jonesof[2]{\\skeinclaim{#1}{jones}{#2}}',
+      '\\newcommand\\Vof[2][jones]{\\skeinvalue{#2}{#1}}',
+      '\\def\\trefJ{\\skeinjones{tref}}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      'A: $V = \\jonesof{tref}{t + t^3 - t^4}$. B: \\Vof{tref}. C: $w = \\Vof[writhe]{tref}$. D: \\trefJ. E: $\\trefJ$.',
+      '\\end{document}',
+    ].join('\n');
+    const before = workDir('macros', true);
+    writeFileSync(join(before, 'macros.tex'), paper);
+    const raw = pdflatex(before, 'macros.tex');
+    expect(raw.ok).toBe(true);
+    // Once per value and line: jones and writhe of tref.
+    expect(packageWarnings(raw.log, 'skeinproof').filter((w) => w.startsWith('Value'))).toHaveLength(2);
+    for (const flat of [false, true]) {
+      const run = await buildAndCompile(paper, 'macros', flat);
+      // The positive trefoil (from memory): V = t + t^3 - t^4, writhe 3.
+      const v = asPdfText('t + t^3 - t^4');
+      expect(squeeze(run.text)).toContain(`A:V=${v}.B:${v}.C:w=3.D:${v}.E:${v}.`);
+    }
+    const wrong = workDir('macros-wrong', false);
+    writeFileSync(join(wrong, 'macros.tex'), paper.replace('{t + t^3 - t^4}$', '{t + t^3 - t^5}$'));
+    const failed = await latexFormat.check(join(wrong, 'macros.tex'), {});
+    expect(failed.failed).toBe(true);
+    const contradiction = failed.diagnostics.find((d) => d.ruleId === 'claim-contradicted')!;
+    // Line 10, at the value written in the use: `A: $V = \jonesof{tref}{` is 23 characters.
+    expect(`${contradiction.location!.start.line}:${contradiction.location!.start.column}`).toBe('10:24');
+  });
 });
+
