@@ -19,6 +19,8 @@ export interface ComputeJson {
   readonly code: string;
   readonly notation: Notation;
   readonly chiralityFixed: boolean;
+  /** What the diagram is when built from a family (or a literal torus braid), e.g. "the torus knot T(3, 4)"; else null. */
+  readonly family: string | null;
   readonly [field: string]: unknown;
 }
 
@@ -35,7 +37,7 @@ export interface InvalidCodeJson {
 }
 
 export function computeJson(code: string, r: DiagramReport, convention: Convention = DEFAULT_CONVENTION): ComputeJson {
-  const json: Record<string, unknown> = { code, notation: r.notation, chiralityFixed: r.chiralityFixed };
+  const json: Record<string, unknown> = { code, notation: r.notation, chiralityFixed: r.chiralityFixed, family: r.family?.description ?? null };
   for (const invariant of INVARIANTS) for (const field of invariant.json) json[field.field] = field.value(r, convention);
   return json as ComputeJson;
 }

@@ -32,6 +32,20 @@ function validCodes(notation: Notation, count: number): string[] {
   const random = rng(notation.length * 1000 + 17);
   const codes: string[] = [];
   while (codes.length < count) {
+    if (notation === 'family') {
+      const n = () => randomInt(random, -7, 7) || 1;
+      const templates = [
+        () => `torus ${n()} ${n()}`,
+        () => `pretzel ${n()} ${n()} ${n()}`,
+        () => `montesinos ${n()}/${randomInt(random, 1, 5)} ${n()}/3 ${n()}`,
+        () => `two-bridge ${2 * randomInt(random, 1, 9) + 1}/2`,
+        () => `twist ${n()}`,
+        () => `sum (torus 2 ${n()}) (mirror (twist ${n()}))`,
+        () => `split (pretzel ${n()} ${n()}) (two-bridge 5/${randomInt(random, 1, 4)})`,
+      ];
+      codes.push(templates[randomInt(random, 0, templates.length - 1)]!());
+      continue;
+    }
     if (notation === 'braid') {
       const strands = randomInt(random, 2, 5);
       codes.push(randomBraidWord(random, strands, randomInt(random, 1, 10)).join(' '));
@@ -71,12 +85,13 @@ const mutation = fc.record({
   other: fc.nat(200),
   replacement,
 });
-const NOTATION_LIST: Notation[] = ['pd', 'braid', 'gauss', 'dt'];
+const NOTATION_LIST: Notation[] = ['pd', 'braid', 'gauss', 'dt', 'family'];
 const ALPHABET: Record<Notation, string[]> = {
   pd: ['(', ')', '[', ']', ',', ' ', '\n', '1', '2', '3', '4', '5', '6', '-', '\u2212', '0', 'a'],
   braid: [' ', ',', '1', '2', '3', '-', '\u2212', '+', '0', '.', 'x', '\t', '[', ']', '('],
   gauss: ['o', 'u', 'O', 'U', '1', '2', '3', '4', '+', '-', '\u2212', '(', ')', ' ', ',', 'x'],
   dt: [' ', ',', '2', '4', '6', '8', '1', '0', '-', '\u2212', '+', 'a', '1', '2', '[', ']', '(', ')'],
+  family: ['torus ', 'pretzel ', 'montesinos ', 'two-bridge ', 'twist ', 'mirror ', 'sum ', 'split ', '(', ')', ' ', ',', '/', '1', '2', '3', '-', '\u2212', '0', 'x'],
 };
 
 describe('fuzzing the parsers', () => {

@@ -104,6 +104,7 @@ export function plainSummary(position: number, code: string, r: DiagramReport, c
   const lines: string[] = [];
   lines.push(`#${position} ${r.notation} ${JSON.stringify(code)}`);
   lines.push(`  ${count(r.crossings, 'crossing')}, ${count(r.components, 'component')}, writhe ${signed(r.writhe)} (${r.positiveCrossings} positive, ${r.negativeCrossings} negative)`);
+  if (r.family) lines.push(`  family   ${r.family.description}`);
   lines.push(`  Jones    V(t) = ${r.jones.toPlainString('t')}`);
   lines.push(`           span ${r.span}, degrees ${degree(r.jonesMinDegree)} to ${degree(r.jonesMaxDegree)}`);
   lines.push(`  bracket  <D> = ${r.bracket.toPlainString('A')}`);

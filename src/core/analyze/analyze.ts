@@ -16,6 +16,7 @@ import { jonesFromBracket } from '../invariants/jones.ts';
 import { classicalInvariants } from '../invariants/classical/index.ts';
 import { defineLazy } from '../invariants/registry/lazy.ts';
 import type { DiagramReport } from './report.ts';
+import { describeFamily, familyOf } from '../families/identity.ts';
 
 const reports = new WeakMap<LinkDiagram, DiagramReport>();
 
@@ -30,6 +31,7 @@ function lazyReport(d: LinkDiagram): DiagramReport {
   const props = (): DiagramProperties => (properties ??= diagramProperties(d));
   let contraction: ReturnType<typeof kauffmanBracket> | undefined;
   const bracketResult = () => (contraction ??= kauffmanBracket(d));
+  const family = familyOf(d);
   const report = { diagram: d, notation: d.notation, chiralityFixed: d.chiralityFixed } as Record<string, unknown>;
   const r = report as unknown as DiagramReport;
   const fields: Record<string, () => unknown> = {
@@ -62,7 +64,9 @@ function lazyReport(d: LinkDiagram): DiagramReport {
         jonesSpan: r.jones.span,
         // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
         pieces: props().connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece).crossingNumber),
+        ...(family ? { family } : {}),
       }),
+    family: () => (family ? { identity: family, description: describeFamily(family, componentCount(d)) } : undefined),
     boundaryWidth: () => bracketResult().boundaryWidth,
     classical: () => classicalInvariants(d),
   };

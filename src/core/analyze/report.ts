@@ -5,6 +5,7 @@
 import type { Laurent } from '../poly/laurent.ts';
 import type { LinkDiagram, Notation } from '../diagram/model.ts';
 import type { ClassicalInvariants } from '../invariants/classical/index.ts';
+import type { FamilyIdentity } from '../families/identity.ts';
 
 /** Theorems a bound can rest on; the claims layer names them in its verdicts. */
 export type TheoremId =
@@ -15,7 +16,10 @@ export type TheoremId =
   | 'split-span-bound' // span V ≤ c(L) + μ − 1 without a non-splitness certificate
   | 'split-union' // crossing numbers add under split union: bound each piece of a disconnected diagram
   | 'thistlethwaite-adequate' // a reduced adequate diagram has minimal crossing number
-  | 'trivial'; // no crossings / unknot facts
+  | 'trivial' // no crossings / unknot facts
+  | 'murasugi-torus' // c(T(p, q)) = min(|p|(|q|−1), |q|(|p|−1)) for torus knots (Murasugi 1991)
+  | 'lickorish-thistlethwaite' // reduced Montesinos diagrams with ≥ 3 tangles are minimal (1988)
+  | 'two-bridge-alternating'; // the continued fraction of one sign draws a reduced alternating diagram (KMT)
 
 export interface BoundReason {
   readonly bound: 'lower' | 'upper' | 'exact';
@@ -74,4 +78,6 @@ export interface DiagramReport {
   readonly boundaryWidth: number;
   /** Alexander and Conway polynomials, determinant, signature (σ(positive trefoil) = −2) and genus bounds. */
   readonly classical: ClassicalInvariants;
+  /** What the diagram is, when it was built from a family or is a literal torus braid, and how reports name it. */
+  readonly family?: { readonly identity: FamilyIdentity; readonly description: string };
 }

@@ -173,6 +173,9 @@ export const THEOREM_NAMES: Readonly<Record<TheoremId, string>> = {
   'split-union': 'the additivity of crossing numbers under split union',
   'thistlethwaite-adequate': "Thistlethwaite's theorem on adequate diagrams",
   trivial: 'counting the crossings of the diagram',
+  'murasugi-torus': "Murasugi's theorem on torus knots",
+  'lickorish-thistlethwaite': 'the Lickorish–Thistlethwaite theorem on reduced Montesinos diagrams',
+  'two-bridge-alternating': 'the Kauffman–Murasugi–Thistlethwaite theorem for the alternating diagram of a two-bridge link',
 };
 
 function reasonFor(report: DiagramReport, bound: BoundReason['bound']): BoundReason | undefined {
@@ -279,6 +282,10 @@ export function crossingNumberStatement(report: DiagramReport, convention: Conve
         return `The diagram has ${crossingsPhrase} and is reduced, adequate and connected, so by Thistlethwaite's theorem on adequate diagrams its crossing number is $${exact}$.`;
       case 'split-union':
         return `The diagram falls apart into separate pieces whose crossing numbers are known, and crossing numbers add under split union, so the crossing number is $${exact}$.`;
+      case 'murasugi-torus':
+      case 'lickorish-thistlethwaite':
+      case 'two-bridge-alternating':
+        return familyStatement(report, exactReason.theorem, exact);
       default:
         return `${lowerBoundClause(report, spanPhrase, spanSymbol)}, and the diagram has ${crossingsPhrase}${
           k > 0 ? `, $${k}$ of them nugatory,` : ','
@@ -287,6 +294,19 @@ export function crossingNumberStatement(report: DiagramReport, convention: Conve
   }
   const upperSource = k > 0 ? `removing its $${k}$ nugatory crossing${k === 1 ? '' : 's'}` : `the diagram itself, with ${crossingsPhrase},`;
   return `${lowerBoundClause(report, spanPhrase, spanSymbol)}, and ${upperSource} shows it is at most $${upper}$. The bounds do not meet: ${gapExplanation(report)}.`;
+}
+
+/** The statement for a crossing number decided by a theorem about the diagram's family. */
+function familyStatement(report: DiagramReport, theorem: 'murasugi-torus' | 'lickorish-thistlethwaite' | 'two-bridge-alternating', exact: number): string {
+  const name = report.family?.description ?? 'the link';
+  switch (theorem) {
+    case 'murasugi-torus':
+      return `The diagram is ${name}, so by Murasugi's theorem on torus knots, $c(T(p,q)) = \\min(|p|(|q|-1), |q|(|p|-1))$, its crossing number is $${exact}$.`;
+    case 'lickorish-thistlethwaite':
+      return `The diagram is the standard diagram of ${name}, a reduced Montesinos diagram with at least three rational tangles, so by the Lickorish–Thistlethwaite theorem its $${exact}$ crossings are the fewest possible and the crossing number is $${exact}$.`;
+    case 'two-bridge-alternating':
+      return `The diagram is ${name}, drawn reduced and alternating from a continued fraction whose terms all have one sign, so by the Kauffman–Murasugi–Thistlethwaite theorem its crossing number is the sum of the terms, $${exact}$.`;
+  }
 }
 
 /** "Here span V = 3, so by … the crossing number is at least $3$", in the terms of the theorem behind the lower bound. */

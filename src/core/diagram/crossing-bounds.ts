@@ -5,6 +5,8 @@
  */
 import type { BoundReason, CrossingNumberBounds, TheoremId } from '../analyze/report.ts';
 import type { DiagramProperties } from './properties.ts';
+import { describeFamily, type FamilyIdentity } from '../families/identity.ts';
+import { gcd } from '../families/build.ts';
 
 /** What the bounds need to know: the diagram's properties and the span of its Jones polynomial. */
 export interface CrossingBoundInput {
@@ -16,9 +18,11 @@ export interface CrossingBoundInput {
    * contribute 0 and are not listed).
    */
   readonly pieces?: readonly CrossingNumberBounds[];
+  /** What the diagram is, when it was built from a family (or is a literal torus braid). */
+  readonly family?: FamilyIdentity;
 }
 
-export function crossingNumberBounds({ properties: p, jonesSpan, pieces }: CrossingBoundInput): CrossingNumberBounds {
+export function crossingNumberBounds({ properties: p, jonesSpan, pieces, family }: CrossingBoundInput): CrossingNumberBounds {
   const n = p.crossings;
   if (n === 0) {
     const text = 'The diagram has no crossings, so it shows an unlink of circles, whose crossing number is 0.';
@@ -28,6 +32,7 @@ export function crossingNumberBounds({ properties: p, jonesSpan, pieces }: Cross
   let lower = spanLowerBound(p, jonesSpan);
   const upper = nugatoryUpperBound(p);
   const exactReasons = theoremsFixingTheCrossingNumber(p);
+  if (family) exactReasons.push(...familyTheorems(p, family));
   if (pieces && !p.connected) {
     const split = splitUnionBounds(pieces, p.pieces);
     if (split.lower.value > lower.value) lower = split.lower;
@@ -64,6 +69,9 @@ const THEOREM_TITLES: Readonly<Record<BoundReason['theorem'], string>> = {
   'thistlethwaite-adequate': 'Thistlethwaite',
   trivial: 'the crossing count',
   'split-union': 'the pieces of a split diagram, summed',
+  'murasugi-torus': 'Murasugi, torus knots',
+  'lickorish-thistlethwaite': 'Lickorish–Thistlethwaite, reduced Montesinos diagrams',
+  'two-bridge-alternating': 'Kauffman–Murasugi–Thistlethwaite, two-bridge links',
 };
 
 function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
@@ -100,6 +108,45 @@ function theoremsFixingTheCrossingNumber(p: DiagramProperties): BoundReason[] {
     found.push(reason('exact', n, 'thistlethwaite-adequate', `The diagram is connected, reduced and adequate, and such a diagram has the fewest crossings of any diagram of its link (Thistlethwaite), so c = ${n}.`));
   }
   return found;
+}
+
+/**
+ * Theorems about the family a diagram was built from, each applied only
+ * within its published statement:
+ * - torus knots T(p, q), gcd(p, q) = 1, |p|, |q| ≥ 2: c = min(|p|(|q|−1), |q|(|p|−1))
+ *   (K. Murasugi, On the braid index of alternating links, Trans. AMS 326 (1991)).
+ *   Torus links (gcd > 1) are left to the other theorems.
+ * - a reduced Montesinos diagram with at least three rational tangles has the
+ *   fewest crossings (W. B. R. Lickorish and M. B. Thistlethwaite, Some links with
+ *   non-trivial polynomials and their crossing-numbers, Comment. Math. Helv. 63
+ *   (1988)). Applied only to pretzel diagrams P(a₁, …, a_k), k ≥ 3, every |aᵢ| ≥ 2,
+ *   which are reduced Montesinos diagrams; other tangles are left out.
+ * - a two-bridge link drawn from a continued fraction with all terms of one sign
+ *   and no nugatory twist is a reduced alternating connected diagram
+ *   (Kauffman–Murasugi–Thistlethwaite), so c = the sum of the terms' absolute values.
+ */
+function familyTheorems(p: DiagramProperties, family: FamilyIdentity): BoundReason[] {
+  const name = describeFamily(family, p.components);
+  switch (family.kind) {
+    case 'torus': {
+      const [a, b] = [Math.abs(family.p), Math.abs(family.q)];
+      if (a < 2 || b < 2 || gcd(a, b) !== 1) return [];
+      const c = Math.min(a * (b - 1), b * (a - 1));
+      const how = family.fromBraid ? 'The braid word is literally a torus braid, so its closure is' : 'The diagram is';
+      return [reason('exact', c, 'murasugi-torus', `${how} ${name}, and a torus knot T(p, q) has crossing number min(|p|(|q| − 1), |q|(|p| − 1)) (Murasugi 1991, Trans. Amer. Math. Soc. 326), so c = min(${a}·${b - 1}, ${b}·${a - 1}) = ${c}.`)];
+    }
+    case 'montesinos': {
+      const columns = family.pretzel;
+      if (!columns || columns.length < 3 || columns.some((x) => Math.abs(x) < 2)) return [];
+      return [reason('exact', p.crossings, 'lickorish-thistlethwaite', `The diagram is the standard diagram of ${name}: a Montesinos diagram of ${columns.length} ≥ 3 rational tangles 1/aᵢ with every |aᵢ| ≥ 2, hence reduced, and a reduced Montesinos diagram with at least three rational tangles has the fewest crossings of any diagram of its link (Lickorish–Thistlethwaite 1988, Comment. Math. Helv. 63), so c = ${columns.map((x) => Math.abs(x)).join(' + ')} = ${p.crossings}.`)];
+    }
+    case 'two-bridge': {
+      if (Math.abs(family.p) < 2 || !p.alternating || !p.reduced || !p.connected) return [];
+      const total = family.terms.reduce((s, b) => s + Math.abs(b), 0);
+      if (total !== p.crossings) return [];
+      return [reason('exact', total, 'two-bridge-alternating', `The diagram is ${name}, drawn from the continued fraction [${family.terms.join(', ')}] whose terms all have one sign; that drawing is reduced, alternating and connected, so its crossing count, the sum of the terms, is the crossing number (Kauffman–Murasugi–Thistlethwaite): c = ${total}.`)];
+    }
+  }
 }
 
 /**

@@ -15,7 +15,7 @@
 
 export type Sign = 1 | -1;
 
-export type Notation = 'pd' | 'braid' | 'gauss' | 'dt';
+export type Notation = 'pd' | 'braid' | 'gauss' | 'dt' | 'family';
 
 export interface Crossing {
   /** Edge ids at slots 0..3, counterclockwise from the incoming under-edge. */

@@ -43,7 +43,9 @@ export function runSession(input: SessionInput): SessionResult {
     }
     firstHeader.set(entry.id, header);
     try {
-      const diagram = parseDiagramCode(entry.code, entry.notation, entry.strands !== undefined ? { strands: entry.strands } : {});
+      // A family may name diagrams defined before it (mirror, sum, split).
+      const named = (id: string) => reports.get(id)?.diagram;
+      const diagram = parseDiagramCode(entry.code, entry.notation, entry.strands !== undefined ? { strands: entry.strands, named } : { named });
       reports.set(entry.id, analyzeDiagram(diagram));
     } catch (e) {
       if (!isInputError(e)) throw e;

@@ -5,6 +5,8 @@
  */
 import { closeBraid } from '../diagram/braid-closure.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
+import { markFamily } from '../families/identity.ts';
+import { torusBraidParameters } from '../families/recognize.ts';
 import { codeError, integerValue, isOversizedInteger, listTokens, quote, wholeSpan, type Token } from './common.ts';
 
 /** Larger indices are refused: they would only add thousands of untouched strands. */
@@ -55,5 +57,8 @@ export function parseBraidWord(text: string, options: { strands?: number } = {})
     }
     strands = options.strands;
   }
-  return closeBraid(word, strands);
+  const closure = closeBraid(word, strands);
+  // A literal torus braid is the torus link T(p, q), so theorems about torus links apply to its closure.
+  const torus = torusBraidParameters(word, strands);
+  return torus ? markFamily(closure, { kind: 'torus', ...torus, fromBraid: true }) : closure;
 }

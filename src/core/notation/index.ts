@@ -9,15 +9,18 @@ import { parseBraidWord } from './braid.ts';
 import { parseDtCode } from './dt.ts';
 import { parseGaussCode } from './gauss.ts';
 import { parsePdCode } from './pd.ts';
+import { parseFamily } from '../families/parse.ts';
 
 export { printDtCode, printGaussCode, printPdCode } from './print.ts';
 
 export interface ParseOptions {
   /** Braid words: the number of strands, when more than the largest index + 1. */
   readonly strands?: number;
+  /** Family codes: the diagram an earlier id of the document names (for mirror, sum, split). */
+  readonly named?: (id: string) => LinkDiagram | undefined;
 }
 
-export const NOTATIONS: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt'];
+export const NOTATIONS: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt', 'family'];
 
 /**
  * Every pair of components gets a linking number, so the report grows with the
@@ -49,5 +52,7 @@ function parseInNotation(text: string, notation: Notation, options?: ParseOption
       return parseGaussCode(text);
     case 'dt':
       return parseDtCode(text);
+    case 'family':
+      return parseFamily(text, options?.named ? { named: options.named } : {});
   }
 }
