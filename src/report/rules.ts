@@ -21,6 +21,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'target-invalid', description: 'A claim or fill-in is skipped because its diagram code is invalid.' },
   { id: 'id-duplicate', description: 'Two diagrams of the manuscript share one id.' },
   { id: 'file-unreadable', description: 'An input file cannot be read.' },
+  { id: 'encoding-invalid', description: 'An input file is not valid UTF-8; the first bad byte is named.' },
   { id: 'front-matter-invalid', description: 'The manuscript front matter cannot be read.' },
   { id: 'markup-invalid', description: 'The markup around a diagram, claim or fill-in is malformed.' },
   { id: 'math-untypeset', description: 'A formula cannot be typeset.' },

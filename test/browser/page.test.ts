@@ -5,7 +5,7 @@
  * Values from memory (standard tables): positive trefoil V = t + t³ − t⁴,
  * figure-eight V = t⁻² − t⁻¹ + 1 − t + t².
  */
-import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium, type Browser } from 'playwright-core';
@@ -74,8 +74,54 @@ describe.skipIf(!available)('the HTML page in chromium', () => {
       const path = await buildPage(sample, `raw-html-${allowHtml}.html`, allowHtml);
       const page = await browser!.newPage();
       await page.goto(pathToFileURL(path).href);
-      expect(await page.locator('#raw').count()).toBe(allowHtml ? 1 : 0);
+      // The sanitizer prefixes the author's ids (against DOM clobbering), as GitHub does.
+      expect(await page.locator('#user-content-raw').count()).toBe(allowHtml ? 1 : 0);
       if (!allowHtml) expect(await page.locator('main').textContent()).toContain('<b id="raw">bold</b>');
+      expect(await page.locator('.katex').count()).toBe(1);
+      await page.close();
+    }
+  }, 30_000);
+
+  it('runs no script of the author’s, navigates nowhere and submits nothing, even without the page’s own policy', async () => {
+    // Vectors from the OWASP XSS filter evasion cheat sheet (common practice). Each would set the marker if it ran.
+    const hit = "document.documentElement.setAttribute('data-pwned','1')";
+    const sample = join(ARTIFACTS, 'hostile.md');
+    mkdirSync(ARTIFACTS, { recursive: true });
+    writeFileSync(
+      sample,
+      [
+        '```skein id=k notation=braid\n1 1 1\n```',
+        '',
+        `[script link](javascript:${hit}) and :jones{of=k}`,
+        '',
+        `<a id="raw-link" href="javascript:${hit}">raw link</a> <img src="nowhere.png" onerror="${hit}"> <svg><script>${hit}</script></svg>`,
+        '',
+        `<details open ontoggle="${hit}"><summary>s</summary>d</details> <div onmouseover="${hit}" style="width:100px;height:50px">hover</div>`,
+        '',
+        '<meta http-equiv="refresh" content="0;url=about:blank#navigated">',
+        '',
+        '<form action="about:blank#submitted"><button id="send">send</button></form>',
+        '',
+      ].join('\n'),
+    );
+    for (const allowHtml of [false, true]) {
+      const path = await buildPage(sample, `hostile-${allowHtml}.html`, allowHtml);
+      // A site that copies the page may have a laxer policy: take ours away, so only the sanitizer protects.
+      const unprotected = join(ARTIFACTS, `hostile-${allowHtml}-no-policy.html`);
+      writeFileSync(unprotected, readFileSync(path, 'utf8').replace(/<meta http-equiv="Content-Security-Policy"[^>]*>/, ''));
+      const page = await browser!.newPage();
+      const url = pathToFileURL(unprotected).href;
+      await page.goto(url);
+      // Follow every link, hover every element and press every button, as a reader might.
+      await page.evaluate(() => {
+        for (const element of document.querySelectorAll('main *')) {
+          element.dispatchEvent(new MouseEvent('mouseover', { bubbles: true }));
+          if (element instanceof HTMLAnchorElement || element instanceof HTMLButtonElement) element.click();
+        }
+      });
+      await page.waitForTimeout(300);
+      expect(page.url()).toBe(url);
+      expect(await page.evaluate(() => document.documentElement.getAttribute('data-pwned'))).toBeNull();
       expect(await page.locator('.katex').count()).toBe(1);
       await page.close();
     }

@@ -78,16 +78,17 @@ describe('each command loads only what it needs', () => {
     expect(matching(packages, HTML_STACK)).toEqual([]);
   });
 
-  it('check of a .md file loads remark but not KaTeX; writing HTML loads KaTeX', () => {
+  it('check of a .md file loads remark and KaTeX (to find math the page could not typeset) but not rehype; writing HTML loads rehype', () => {
     const checked = loadedBy(['check', 'samples/twists-and-weaves.md']);
     expect(checked.status).toBe(0);
     expect(checked.packages.has('remark-parse')).toBe(true);
-    expect(matching(checked.packages, HTML_STACK)).toEqual([]);
+    expect(matching(checked.packages, HTML_STACK)).toEqual(['katex']);
     const out = mkdtempSync(join(tmpdir(), 'skeinproof-page-'));
     try {
       const built = loadedBy(['build', 'samples/twists-and-weaves.md', '-o', join(out, 'page.html')]);
       expect(built.status).toBe(0);
       expect(built.packages.has('katex')).toBe(true);
+      expect(built.packages.has('rehype-sanitize')).toBe(true);
     } finally {
       rmSync(out, { recursive: true, force: true });
     }

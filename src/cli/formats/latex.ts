@@ -12,13 +12,16 @@ import type { SessionResult } from '../../core/manuscript/api.ts';
 import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '../../../plugins/latex/reader.ts';
 import { flatText } from '../../../plugins/latex/flat.ts';
 import { sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
+import { decodeManuscript } from '../utf8.ts';
 import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat } from './types.ts';
 
 /**
  * Reads regular files only. The file is opened without blocking and checked on the open descriptor: opening a
  * named pipe for reading would wait for a writer forever, and a device file never ends.
+ * A file that is not UTF-8 is read with replacement characters, so the reader still follows it, and its
+ * first bad byte is recorded: the check then fails with that error and nothing is built.
  */
-const diskFiles: LatexFileSystem = {
+const diskFiles = (encodingProblems: Map<string, Diagnostic>): LatexFileSystem => ({
   read(path) {
     let fd: number;
     try {
@@ -30,7 +33,11 @@ const diskFiles: LatexFileSystem = {
       const stats = fstatSync(fd);
       if (stats.isDirectory()) return undefined; // TeX does not read a directory either: try the next name
       if (!stats.isFile()) return { notRegular: specialFileKind(stats) };
-      return readFileSync(fd, 'utf8');
+      const bytes = readFileSync(fd);
+      const decoded = decodeManuscript(bytes, path);
+      if (decoded.ok) return decoded.text;
+      encodingProblems.set(path, decoded.problem);
+      return bytes.toString('utf8');
     } catch {
       return undefined;
     } finally {
@@ -44,7 +51,7 @@ const diskFiles: LatexFileSystem = {
       return path;
     }
   },
-};
+});
 
 function specialFileKind(stats: Stats): string {
   if (stats.isFIFO()) return 'a named pipe';
@@ -61,7 +68,17 @@ interface Checked {
 }
 
 function checkManuscript(path: string, options: FormatOptions): Checked {
-  const doc = readLatexManuscript(path, diskFiles);
+  const encodingProblems = new Map<string, Diagnostic>();
+  const doc = readLatexManuscript(path, diskFiles(encodingProblems));
+  // Named as the reader names the file (its display path); a file with such an error is not checked further.
+  const undecodable = doc.files.flatMap((f) => {
+    const problem = encodingProblems.get(f.absolutePath);
+    return problem ? [{ ...problem, message: problem.message.replace(f.absolutePath, f.displayPath), location: { ...problem.location!, file: f.displayPath } }] : [];
+  });
+  if (undecodable.length > 0) {
+    const session = runSession({ diagrams: [], claims: [], fills: [], convention: DEFAULT_CONVENTION });
+    return { doc, session, diagnostics: undecodable, failed: true };
+  }
   const session = runSession({
     diagrams: doc.diagrams,
     claims: doc.claims,

@@ -13,19 +13,36 @@ import { unified } from 'unified';
 import { VFile } from 'vfile';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import remarkSkeinproof, { applySplices, sourceOffsetOf, SourceText, type SkeinproofData } from '../../../plugins/remark/index.ts';
+import type { Splice } from '../../../plugins/remark/splice.ts';
+import type { ContradictedSpan } from '../html/page.ts';
+import { decodeManuscript } from '../utf8.ts';
 import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat, type OutputFile } from './types.ts';
 
 const HTML_EXTENSIONS = ['.html', '.htm'];
 
-type Checked = { readonly ok: true; readonly text: string; readonly data: SkeinproofData } | { readonly ok: false; readonly unreadable: Diagnostic };
+interface CheckedText {
+  readonly ok: true;
+  readonly text: string;
+  readonly data: SkeinproofData;
+  /** The filled-in Markdown the build writes (and the page is made from). */
+  readonly filled: string;
+  /** The plugin's diagnostics and the formulas of the filled-in text KaTeX cannot typeset. */
+  readonly diagnostics: readonly Diagnostic[];
+  readonly failed: boolean;
+}
+
+type Checked = CheckedText | { readonly ok: false; readonly unreadable: Diagnostic };
 
 async function checkManuscript(path: string, options: FormatOptions): Promise<Checked> {
-  let text: string;
+  let bytes: Uint8Array;
   try {
-    text = await readFile(path, 'utf8');
+    bytes = await readFile(path);
   } catch (e) {
     return { ok: false, unreadable: unreadable(path, e) };
   }
+  const decoded = decodeManuscript(bytes, path);
+  if (!decoded.ok) return { ok: false, unreadable: decoded.problem };
+  const text = decoded.text;
   const file = new VFile({ value: text, path });
   const processor = unified()
     .use(remarkParse)
@@ -39,7 +56,70 @@ async function checkManuscript(path: string, options: FormatOptions): Promise<Ch
       ...(options.strict ? { strict: true } : {}),
     });
   await processor.run(processor.parse(file), file);
-  return { ok: true, text, data: file.data.skeinproof! };
+  const data = file.data.skeinproof!;
+  const filled = applySplices(text, data.splices);
+  const untypeset = await untypesetMath(text, filled, data.splices, path, data.diagnostics);
+  // The same strictness the plugin applied: the command line's, else the front matter's.
+  const strict = options.strict ?? data.settings.strict ?? false;
+  const failed = data.failed || (strict && untypeset.length > 0);
+  return { ok: true, text, data, filled, diagnostics: [...data.diagnostics, ...untypeset], failed };
+}
+
+/**
+ * Formulas of the filled-in text that KaTeX cannot typeset, located in the manuscript.
+ * `check` reports them too, so that check and `build --html` agree.
+ */
+async function untypesetMath(text: string, filled: string, splices: readonly Splice[], path: string, reported: readonly Diagnostic[]): Promise<Diagnostic[]> {
+  // KaTeX loads only for a text that can hold math.
+  if (!filled.includes('$')) return [];
+  const { mathProblems } = await import('../html/math-problems.ts');
+  // The parser's offsets count from after a byte order mark, the splices' from the start of the text.
+  const bom = text.startsWith('\uFEFF') ? 1 : 0;
+  const problems = mathProblems(filled);
+  if (problems.length === 0) return [];
+  const source = new SourceText(text.slice(bom), path);
+  // A formula that already has an error inside it (an unreadable claim) gets no second message.
+  const errorsAt = reported.flatMap((d) => (d.severity === 'error' && d.location?.start.offset !== undefined ? [d.location.start.offset] : []));
+  const fresh = problems.filter((p) => {
+    const start = sourceOffsetOf(splices, p.offset + bom) - bom;
+    const end = sourceOffsetOf(splices, p.end + bom) - bom;
+    return !errorsAt.some((at) => at >= start && at <= end);
+  });
+  return fresh.map((p) => ({
+    severity: 'warning',
+    ruleId: 'math-untypeset',
+    message: `KaTeX cannot typeset this formula, so the HTML page would show it in red: ${p.message}`,
+    location: source.location(sourceOffsetOf(splices, p.offset + bom) - bom),
+    hints: ['Correct the LaTeX of this formula in the manuscript (KaTeX supports most, not all, of LaTeX math).'],
+  }));
+}
+
+/** Where a stretch of the manuscript (offsets into the file text) lies in the filled-in text; a stretch inside a replaced part covers all of its replacement. */
+function filledRange(splices: readonly Splice[], start: number, end: number): { start: number; end: number } {
+  const sorted = [...splices].sort((a, b) => a.start - b.start || a.end - b.end);
+  const map = (at: number, side: 'start' | 'end'): number => {
+    let shift = 0;
+    for (const s of sorted) {
+      if (at < s.start || (side === 'end' && at === s.start)) break;
+      if (at < s.end || (side === 'end' && at === s.end)) return side === 'start' ? s.start + shift : s.start + shift + s.text.length;
+      shift += s.text.length - (s.end - s.start);
+    }
+    return at + shift;
+  };
+  return { start: map(start, 'start'), end: Math.max(map(end, 'end'), map(start, 'start') + 1) };
+}
+
+/** The contradicted values of a build written anyway, located in the filled-in text the page is made from. */
+function contradictedSpans(checked: CheckedText): ContradictedSpan[] {
+  const bom = checked.text.startsWith('\uFEFF') ? 1 : 0;
+  return checked.data.diagnostics.flatMap((d) => {
+    const start = d.location?.start.offset;
+    if (d.ruleId !== 'claim-contradicted' || start === undefined) return [];
+    const end = d.location?.end?.offset ?? start + 1;
+    const range = filledRange(checked.data.splices, start + bom, end + bom);
+    const note = d.computed ? `contradicted: computed ${d.computed}` : 'contradicted by the computation';
+    return [{ start: range.start - bom, end: range.end - bom, note }];
+  });
 }
 
 function unreadable(path: string, e: unknown): Diagnostic {
@@ -66,42 +146,31 @@ export const markdownFormat: ManuscriptFormat = {
   async check(path, options): Promise<FormatResult> {
     const checked = await checkManuscript(path, options);
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
-    return { diagnostics: checked.data.diagnostics, outputs: [], inputs: [path], failed: checked.data.failed };
+    return { diagnostics: checked.diagnostics, outputs: [], inputs: [path], failed: checked.failed };
   },
 
   async build(path, options): Promise<FormatResult> {
     const checked = await checkManuscript(path, options);
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
-    const { text, data } = checked;
-    const html = options.html === true || HTML_EXTENSIONS.includes(extname(options.output ?? '').toLowerCase());
-    const output = options.output ?? defaultOutputPath(path, html);
-    const filled = applySplices(text, data.splices);
-    const outputs: OutputFile[] = [];
-    const diagnostics = [...data.diagnostics];
-    if (!html) outputs.push({ path: output, content: filled });
-    else {
-      // The HTML stack (rehype, KaTeX) loads only when a page is written.
-      const { renderHtmlPage } = await import('../html/page.ts');
-      const page = await renderHtmlPage(filled, {
-        title: data.settings.title ?? basename(path, extname(path)),
-        allowHtml: options.allowHtml === true,
-        path: output,
-        ...(data.settings.notation ? { defaultNotation: data.settings.notation } : {}),
-      });
-      outputs.push({ path: output, content: page.html });
-      // The page's offsets count from after a byte order mark, the splices' from the start of the text.
-      const bom = text.startsWith('\uFEFF') ? 1 : 0;
-      const source = new SourceText(text.slice(bom), path);
-      for (const p of page.mathProblems) {
-        diagnostics.push({
-          severity: 'warning',
-          ruleId: 'math-untypeset',
-          message: `KaTeX cannot typeset this formula, so the page shows it in red: ${p.message}`,
-          location: source.location(p.offset === undefined ? 0 : sourceOffsetOf(data.splices, p.offset + bom) - bom),
-          hints: ['Correct the LaTeX of this formula in the manuscript (KaTeX supports most, not all, of LaTeX math).'],
-        });
-      }
-    }
-    return { diagnostics, outputs, inputs: [path], failed: data.failed };
+    const { data, filled, diagnostics, failed } = checked;
+    const output = options.output ?? defaultOutputPath(path, isHtmlBuild(options));
+    if (!isHtmlBuild(options)) return { diagnostics, outputs: [{ path: output, content: filled }], inputs: [path], failed };
+    // The HTML stack (rehype, KaTeX) loads only when a page is written.
+    const { renderHtmlPage } = await import('../html/page.ts');
+    const page = await renderHtmlPage(filled, {
+      title: data.settings.title ?? basename(path, extname(path)),
+      allowHtml: options.allowHtml === true,
+      path: output,
+      ...(data.settings.notation ? { defaultNotation: data.settings.notation } : {}),
+      // Only a build written despite a failed check has contradicted values to mark.
+      contradicted: contradictedSpans(checked),
+    });
+    const outputs: OutputFile[] = [{ path: output, content: page.html }];
+    return { diagnostics, outputs, inputs: [path], failed };
   },
 };
+
+/** An HTML page is asked for by --html or by an output name ending in .html or .htm. */
+export function isHtmlBuild(options: FormatOptions): boolean {
+  return options.html === true || HTML_EXTENSIONS.includes(extname(options.output ?? '').toLowerCase());
+}
