@@ -96,7 +96,7 @@ function checkPermutation(order: readonly number[], n: number): void {
  * step ("scratch" positions): 0 … oldWidth−1 are the old boundary ends,
  * oldWidth + q is slot q of the new crossing.
  */
-interface StepPlan {
+export interface StepPlan {
   readonly oldWidth: number;
   readonly newWidth: number;
   /** Pairs of scratch positions glued together (an edge between them), flattened. */
@@ -107,7 +107,12 @@ interface StepPlan {
   readonly compact: Int32Array;
 }
 
-function planSteps(d: LinkDiagram, order: readonly number[]): StepPlan[] {
+/**
+ * The absorption steps for `order`. The two ends of edge `cut` (if given) are
+ * never glued, so the last step leaves them open (the Khovanov engine cuts a
+ * knot open this way).
+ */
+export function planSteps(d: LinkDiagram, order: readonly number[], cut = -1): StepPlan[] {
   const { opposite } = indexDiagram(d);
   // Boundary ends are identified by the slot (4c+q) inside the region they hang from.
   let boundary: number[] = [];
@@ -118,7 +123,7 @@ function planSteps(d: LinkDiagram, order: readonly number[]): StepPlan[] {
     const glued = new Uint8Array(w + 4);
     const joins: number[] = [];
     for (let q = 0; q < 4; q++) {
-      if (glued[w + q]) continue;
+      if (glued[w + q] || d.crossings[c]!.edges[q] === cut) continue;
       const far = opposite[4 * c + q]!;
       if (far >> 2 === c) {
         // A kink: the edge runs from this slot to another slot of the same crossing.
