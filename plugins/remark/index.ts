@@ -25,6 +25,7 @@ import type { ManuscriptSettings } from './front-matter.ts';
 import { SourceText } from './source-text.ts';
 import { keepMathApart, type Splice } from './splice.ts';
 import { typesetMarkdown } from './typeset-markdown.ts';
+import type { ComputeLimits } from '../../src/core/limits.ts';
 
 export interface SkeinproofOptions {
   /** Overrides the convention the front matter declares, setting by setting. */
@@ -35,6 +36,8 @@ export interface SkeinproofOptions {
   readonly notation?: Notation;
   /** Replace fill-ins and claim markup in the tree (default true). */
   readonly fill?: boolean;
+  /** Limits on each diagram's work (none by default): a diagram over one is reported, the rest still checked. */
+  readonly limits?: ComputeLimits;
 }
 
 export interface SkeinproofData {
@@ -65,7 +68,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
     const manuscript = extractManuscript(tree, source, options.notation ? { notation: options.notation } : {});
     const convention: Convention = { ...DEFAULT_CONVENTION, ...manuscript.settings.convention, ...options.convention };
     const strict = options.strict ?? manuscript.settings.strict ?? false;
-    const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict, refused: manuscript.refusedIds });
+    const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict, refused: manuscript.refusedIds, ...(options.limits ? { limits: options.limits } : {}) });
     const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
     const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
     for (const d of diagnostics) reportOnFile(file, d);

@@ -8,6 +8,7 @@ import type { DiagramReport } from '../core/analyze/report.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../core/convention/convention.ts';
 import type { Notation } from '../core/diagram/model.ts';
 import type { InputError } from '../core/errors.ts';
+import { isLimitError } from '../core/limits.ts';
 import type { TextSpan } from '../core/diagnostics/diagnostic.ts';
 import { INVARIANTS } from '../core/invariants/registry/index.ts';
 
@@ -36,21 +37,41 @@ export interface InvalidCodeJson {
   };
 }
 
+/**
+ * A field whose computation ran into a limit (src/core/limits.ts) is left out and listed under
+ * `notComputed` (field → error), so the fields that were computed still reach the reader.
+ */
 export function computeJson(code: string, r: DiagramReport, convention: Convention = DEFAULT_CONVENTION): ComputeJson {
   const json: Record<string, unknown> = { code, notation: r.notation, chiralityFixed: r.chiralityFixed, family: r.family?.description ?? null };
-  for (const invariant of INVARIANTS) for (const field of invariant.json) json[field.field] = field.value(r, convention);
+  const notComputed: Record<string, InvalidCodeJson['error']> = {};
+  for (const invariant of INVARIANTS) {
+    for (const field of invariant.json) {
+      try {
+        json[field.field] = field.value(r, convention);
+      } catch (error) {
+        if (!isLimitError(error)) throw error;
+        notComputed[field.field] = errorJson(error);
+      }
+    }
+  }
+  if (Object.keys(notComputed).length > 0) json['notComputed'] = notComputed;
   return json as ComputeJson;
 }
 
+/** The limit errors of the fields `computeJson` left out. */
+export function notComputedErrors(json: ComputeJson): InvalidCodeJson['error'][] {
+  return Object.values((json['notComputed'] ?? {}) as Record<string, InvalidCodeJson['error']>);
+}
+
 export function invalidCodeJson(code: string, notation: Notation, error: InputError): InvalidCodeJson {
+  return { code, notation, error: errorJson(error) };
+}
+
+function errorJson(error: InputError): InvalidCodeJson['error'] {
   return {
-    code,
-    notation,
-    error: {
-      ruleId: error.ruleId,
-      message: error.message,
-      span: error.span ? { start: error.span.start, end: error.span.end } : null,
-      hints: [...error.hints],
-    },
+    ruleId: error.ruleId,
+    message: error.message,
+    span: error.span ? { start: error.span.start, end: error.span.end } : null,
+    hints: [...error.hints],
   };
 }

@@ -17,6 +17,7 @@ import { formatFor, knownExtensions } from '../formats/registry.ts';
 import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/types.ts';
 import type { CliCommand } from './index.ts';
 import { conventionOptionText } from '../repeated-option.ts';
+import { limitOptions, readLimits } from '../limit-options.ts';
 
 export const EXIT_USAGE = EXIT_BAD_INPUT;
 
@@ -30,7 +31,7 @@ export interface ManuscriptArgs {
 
 /** The options every manuscript command takes. */
 export function manuscriptOptions(y: Argv): Argv {
-  return y
+  return limitOptions(y)
     .option('format', { choices: REPORT_FORMATS, default: 'text', describe: 'How problems are reported: text for people, json or sarif for tools' })
     .option('strict', { type: 'boolean', default: false, describe: 'Warnings (undecided or mirror-only claims) fail too' })
     .option('convention', {
@@ -48,9 +49,11 @@ export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArg
     if (!read.ok) return `--convention: ${read.errors.map((e) => e.message).join('; ')}`;
     convention = read.settings;
   }
+  const limits = readLimits(args);
+  if (typeof limits === 'string') return limits;
   return {
     report: args['format'] as ReportFormat,
-    options: { ...(convention ? { convention } : {}), strict: args['strict'] === true },
+    options: { ...(convention ? { convention } : {}), strict: args['strict'] === true, limits },
   };
 }
 

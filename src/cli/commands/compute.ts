@@ -12,8 +12,10 @@ import { analyzeDiagram } from '../../core/analyze/analyze.ts';
 import type { DiagramReport, LinkingNumber } from '../../core/analyze/report.ts';
 import type { Notation } from '../../core/diagram/model.ts';
 import { isInputError, type InputError } from '../../core/errors.ts';
+import { isLimitError, type ComputeLimits, type LimitError } from '../../core/limits.ts';
+import { limitOptions, readLimits } from '../limit-options.ts';
 import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notation/index.ts';
-import { computeJson, invalidCodeJson } from '../compute-json.ts';
+import { computeJson, invalidCodeJson, notComputedErrors } from '../compute-json.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../../core/convention/convert.ts';
@@ -37,11 +39,12 @@ export type CodeOutcome =
   | { readonly ok: false; readonly code: string; readonly notation: Notation; readonly error: InputError };
 
 /** Parses and analyses one code; bad input comes back as an outcome, anything else thrown is a bug. */
-export function computeCode(code: string, notation: Notation, options: ParseOptions = {}): CodeOutcome {
+export function computeCode(code: string, notation: Notation, options: ParseOptions = {}, limits: ComputeLimits = {}): CodeOutcome {
   try {
-    const diagram = parseDiagramCode(code, notation, options);
-    const report = analyzeDiagram(diagram);
-    // Every summary shows the bracket, and a diagram too wide for it is an input error of the code.
+    const maxCrossings = limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {};
+    const diagram = parseDiagramCode(code, notation, { ...options, ...maxCrossings });
+    const report = analyzeDiagram(diagram, limits);
+    // Every summary shows the bracket, and a diagram too wide or too large for it is an input error of the code.
     void report.bracket;
     return { ok: true, code, notation, report };
   } catch (error) {
@@ -74,6 +77,17 @@ function linkingLine(linking: readonly LinkingNumber[]): string {
 /** The largest diagram whose plain summary includes the classical invariants. */
 export const PLAIN_CLASSICAL_LIMIT = 400;
 
+/** The limit the classical invariants ran into, or undefined when they were computed. */
+export function classicalLimit(r: DiagramReport): LimitError | undefined {
+  try {
+    void r.classical;
+    return undefined;
+  } catch (error) {
+    if (isLimitError(error)) return error;
+    throw error;
+  }
+}
+
 /** Δ, ∇, det and σ (in the declared sign, which the line names), and the genus bounds. */
 function classicalLines(r: DiagramReport, convention: Convention): string[] {
   // Δ costs about n³ (seconds at 300 crossings, half a minute at 1000) while the bracket of a thin
@@ -81,6 +95,8 @@ function classicalLines(r: DiagramReport, convention: Convention): string[] {
   if (r.crossings > PLAIN_CLASSICAL_LIMIT) {
     return [`  classical not shown above ${PLAIN_CLASSICAL_LIMIT} crossings (Δ takes about n³ time); --json or a --claim about them computes Δ, ∇, det and σ`];
   }
+  const limit = classicalLimit(r);
+  if (limit) return [`  classical not computed: ${limit.message}`];
   const c = r.classical;
   const sigma = signatureInConvention(c.signature, convention.signatureSign);
   const sign = `sign convention: positive trefoil ${convention.signatureSign === 'negative' ? '-2' : '+2'}`;
@@ -159,6 +175,7 @@ interface ComputeArgs {
   readonly claims: readonly ClaimAssignment[];
   readonly convention: Convention;
   readonly strict: boolean;
+  readonly limits: ComputeLimits;
 }
 
 interface ClaimsOutcome {
@@ -194,7 +211,8 @@ function judgeCodeClaims(position: number, report: DiagramReport, others: Readon
     } catch (error) {
       if (!isInputError(error)) throw error;
       json.push(unreadableClaimJson(claim.key, claim.value, error));
-      lines.push(`    ${claim.key} = ${claim.value.trim()}: ${error.ruleId === 'claim-inapplicable' ? 'not applicable' : 'unreadable'}`);
+      const status = error.ruleId === 'claim-inapplicable' ? 'not applicable' : error.ruleId === 'limit-exceeded' ? 'not computed (over a limit)' : 'unreadable';
+      lines.push(`    ${claim.key} = ${claim.value.trim()}: ${status}`);
       found = [unreadableClaimDiagnostic(error, locate)];
     }
     diagnostics.push(...found);
@@ -238,6 +256,8 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
       return `--claim: ${error.message}.`;
     }
   }
+  const limits = readLimits(args);
+  if (typeof limits === 'string') return limits;
   let convention = DEFAULT_CONVENTION;
   const conventionText = conventionOptionText(args['convention']);
   if (conventionText !== undefined) {
@@ -253,6 +273,7 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
     claims,
     convention,
     strict: args['strict'] === true,
+    limits,
   };
 }
 
@@ -261,7 +282,7 @@ export const computeCommand: CliCommand = {
   command: 'compute [codes..]',
   describe: 'Compute the invariants and diagram properties of each diagram code given',
   builder: (y: Argv) =>
-    y
+    limitOptions(y)
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
       .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true, 'parse-numbers': false, 'parse-positional-numbers': false })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
@@ -281,7 +302,7 @@ export const computeCommand: CliCommand = {
     }
     const parseOptions: ParseOptions = args.strands === undefined ? {} : { strands: args.strands };
     let anyInvalid = false;
-    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions));
+    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions, args.limits));
     // Every analysed code, so a claim equal to another code's value is diagnosed as swapped.
     const reports = new Map(outcomes.flatMap((o, i) => (o.ok ? [[`<code ${i + 1}>`, o.report] as const] : [])));
     const claimDiagnostics: Diagnostic[] = [];
@@ -292,10 +313,24 @@ export const computeCommand: CliCommand = {
       if (outcome.ok) {
         const claims = args.claims.length > 0 ? judgeCodeClaims(position, outcome.report, reports, args, color) : undefined;
         claimDiagnostics.push(...(claims?.diagnostics ?? []));
-        const json = claims ? { ...computeJson(code, outcome.report, args.convention), claims: claims.json } : computeJson(code, outcome.report, args.convention);
-        const summary = plainSummary(position, code, outcome.report, args.convention);
-        const plain = claims ? `${summary}\n${claims.plain}` : summary;
-        process.stdout.write(args.json ? `${JSON.stringify(json)}\n` : `${plain}\n\n`);
+        // Only the output asked for is built: the JSON object reads Δ even where the summary leaves it out.
+        if (args.json) {
+          const json = computeJson(code, outcome.report, args.convention);
+          for (const message of new Set(notComputedErrors(json).map((e) => e.message))) {
+            anyInvalid = true;
+            process.stderr.write(`skeinproof: error[limit-exceeded] in code #${position} (${outcome.notation}): ${message}\n`);
+          }
+          process.stdout.write(`${JSON.stringify(claims ? { ...json, claims: claims.json } : json)}\n`);
+        } else {
+          // The summary shows the classical invariants only up to PLAIN_CLASSICAL_LIMIT crossings.
+          const limit = outcome.report.crossings <= PLAIN_CLASSICAL_LIMIT ? classicalLimit(outcome.report) : undefined;
+          if (limit) {
+            anyInvalid = true;
+            process.stderr.write(`${invalidCodeMessage(position, code, outcome.notation, limit)}\n`);
+          }
+          const summary = plainSummary(position, code, outcome.report, args.convention);
+          process.stdout.write(`${claims ? `${summary}\n${claims.plain}` : summary}\n\n`);
+        }
         return;
       }
       anyInvalid = true;

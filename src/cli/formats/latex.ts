@@ -86,6 +86,7 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     convention: { ...DEFAULT_CONVENTION, ...doc.convention, ...options.convention },
     ...(options.strict ? { strict: true } : {}),
     refused: doc.refusedIds,
+    ...(options.limits ? { limits: options.limits } : {}),
   });
   const diagnostics = inDocumentOrder([...doc.diagnostics, ...session.diagnostics], doc);
   const failed = session.failed || doc.diagnostics.some((d) => d.severity === 'error');

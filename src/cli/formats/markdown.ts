@@ -54,6 +54,7 @@ async function checkManuscript(path: string, options: FormatOptions): Promise<Ch
       fill: false,
       ...(options.convention ? { convention: options.convention } : {}),
       ...(options.strict ? { strict: true } : {}),
+      ...(options.limits ? { limits: options.limits } : {}),
     });
   await processor.run(processor.parse(file), file);
   const data = file.data.skeinproof!;

@@ -5,6 +5,7 @@
  */
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import type { Convention } from '../../core/convention/convention.ts';
+import type { ComputeLimits } from '../../core/limits.ts';
 
 export interface FormatOptions {
   /** Convention given on the command line; overrides what the document declares. */
@@ -14,6 +15,8 @@ export interface FormatOptions {
   readonly output?: string;
   readonly html?: boolean;
   readonly allowHtml?: boolean;
+  /** Limits on each diagram's work (none when absent). */
+  readonly limits?: ComputeLimits;
 }
 
 export interface OutputFile {

@@ -17,20 +17,45 @@ import { classicalInvariants } from '../invariants/classical/index.ts';
 import { defineLazy } from '../invariants/registry/lazy.ts';
 import type { DiagramReport } from './report.ts';
 import { describeFamily, familyOf } from '../families/identity.ts';
+import { withTimeBudget, type ComputeLimits } from '../limits.ts';
 
 const reports = new WeakMap<LinkDiagram, DiagramReport>();
 
-export function analyzeDiagram(d: LinkDiagram): DiagramReport {
+/**
+ * `limits` (none by default; those of the first call for a diagram hold) bound the bracket's state
+ * memory and give each computation (the bracket, the classical invariants) its own time budget; a limit
+ * that is hit throws a LimitError when the field is read, and again at once on every later read.
+ */
+export function analyzeDiagram(d: LinkDiagram, limits: ComputeLimits = {}): DiagramReport {
   let report = reports.get(d);
-  if (!report) reports.set(d, (report = lazyReport(d)));
+  if (!report) reports.set(d, (report = lazyReport(d, limits)));
   return report;
 }
 
-function lazyReport(d: LinkDiagram): DiagramReport {
+/** `compute` once; a failure is remembered and thrown again, so a spent time budget is not spent twice. */
+function once<T>(compute: () => T): () => T {
+  let outcome: { ok: true; value: T } | { ok: false; error: unknown } | undefined;
+  return () => {
+    if (!outcome) {
+      try {
+        outcome = { ok: true, value: compute() };
+      } catch (error) {
+        outcome = { ok: false, error };
+      }
+    }
+    if (!outcome.ok) throw outcome.error;
+    return outcome.value;
+  };
+}
+
+function lazyReport(d: LinkDiagram, limits: ComputeLimits): DiagramReport {
   let properties: DiagramProperties | undefined;
   const props = (): DiagramProperties => (properties ??= diagramProperties(d));
-  let contraction: ReturnType<typeof kauffmanBracket> | undefined;
-  const bracketResult = () => (contraction ??= kauffmanBracket(d));
+  const bracketLimits = limits.maxStateBytes !== undefined ? { maxStateBytes: limits.maxStateBytes } : {};
+  const bracketResult = once(() => withTimeBudget(limits.timeBudgetMs, 'its Kauffman bracket', () => kauffmanBracket(d, undefined, bracketLimits)));
+  const classical = once(() =>
+    withTimeBudget(limits.timeBudgetMs, 'its classical invariants (Alexander and Conway polynomials, determinant, signature)', () => classicalInvariants(d)),
+  );
   const family = familyOf(d);
   const report = { diagram: d, notation: d.notation, chiralityFixed: d.chiralityFixed } as Record<string, unknown>;
   const r = report as unknown as DiagramReport;
@@ -63,12 +88,12 @@ function lazyReport(d: LinkDiagram): DiagramReport {
         properties: props(),
         jonesSpan: r.jones.span,
         // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
-        pieces: props().connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece).crossingNumber),
+        pieces: props().connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece, limits).crossingNumber),
         ...(family ? { family } : {}),
       }),
     family: () => (family ? { identity: family, description: describeFamily(family, componentCount(d)) } : undefined),
     boundaryWidth: () => bracketResult().boundaryWidth,
-    classical: () => classicalInvariants(d),
+    classical,
   };
   for (const [name, compute] of Object.entries(fields)) defineLazy(report, name, compute);
   return r;

@@ -23,6 +23,7 @@ import type { Diagnosis, JudgeContext, Judgement, Typeset } from './api.ts';
 import { readInteger, readPolynomial } from './latex-poly-parser.ts';
 import { numberLatex, polynomialLatex, styleOf } from './typeset.ts';
 import { oneCoefficientSlip, oneExponentSlip } from './polynomial-slips.ts';
+import { withinLimitsOr } from '../limits.ts';
 
 export type ClassicalKey = 'alexander' | 'conway' | 'determinant' | 'signature';
 
@@ -100,7 +101,7 @@ function swappedWith(
   noun: string,
 ): Diagnosis | undefined {
   for (const [id, other] of ctx.others ?? []) {
-    if (id !== ctx.selfId && matches(other)) {
+    if (id !== ctx.selfId && withinLimitsOr(() => matches(other), false)) {
       return { kind: 'swapped', otherDiagram: id, detail: `the claim is the ${noun} of diagram \`${id}\` of this document` };
     }
   }

@@ -12,6 +12,7 @@ import type { Diagnosis, JudgeContext, Judgement } from './api.ts';
 import { readPolynomial } from './latex-poly-parser.ts';
 import { polynomialLatex, styleOf } from './typeset.ts';
 import { oneCoefficientSlip, oneExponentSlip } from './polynomial-slips.ts';
+import { withinLimitsOr } from '../limits.ts';
 
 export type PolynomialKey = 'jones' | 'bracket';
 
@@ -205,7 +206,7 @@ function diagnose(claim: Laurent, claimLetter: string, subject: Subject, ctx: Ju
   if (termSlip) return termSlip;
   for (const [id, other] of ctx.others ?? []) {
     if (id === ctx.selfId) continue;
-    if (subject.valueOf(other).equals(claim)) {
+    if (withinLimitsOr(() => subject.valueOf(other).equals(claim), false)) {
       return { kind: 'swapped', otherDiagram: id, detail: `the claim is the ${subject.noun} of diagram \`${id}\` of this document` };
     }
   }

@@ -29,6 +29,7 @@ import { Laurent } from '../poly/laurent.ts';
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 import { InputError } from '../errors.ts';
 import { planContraction } from './crossing-order.ts';
+import { checkTimeBudget, stateMemoryError } from '../limits.ts';
 
 export interface BracketResult {
   /** ⟨D⟩ ∈ ℤ[A, A⁻¹] with ⟨O⟩ = 1. */
@@ -55,7 +56,7 @@ export const MAX_BOUNDARY_WIDTH = 28;
  * overrides the planned absorption order; the value does not depend on it,
  * only the work does.
  */
-export function kauffmanBracket(d: LinkDiagram, order?: readonly number[]): BracketResult {
+export function kauffmanBracket(d: LinkDiagram, order?: readonly number[], limits: { readonly maxStateBytes?: number } = {}): BracketResult {
   const n = d.crossings.length;
   if (n === 0) {
     if (d.freeLoops === 0) throw new RangeError('the empty diagram (no crossings, no loops) has no Kauffman bracket');
@@ -74,12 +75,42 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[]): Brac
         'or one drawn as a braid closure on fewer strands.',
     );
   }
+  if (limits.maxStateBytes !== undefined) {
+    const bytes = estimateStateBytes(steps);
+    if (bytes > limits.maxStateBytes) throw stateMemoryError(n, boundaryWidth, bytes, limits.maxStateBytes);
+  }
   // Planar diagrams keep all exponents of one state in one class mod 4; a
   // virtual (non-planar) input can break that, and is then redone with step 2.
   const contracted = contract(steps, 4) ?? contract(steps, 2);
   if (!contracted) throw new Error('internal: bracket contraction failed with exponent step 2');
   const bracket = d.freeLoops > 0 ? contracted.mul(LOOP_VALUE.pow(d.freeLoops)) : contracted;
   return { bracket, boundaryWidth };
+}
+
+/** Catalan numbers as doubles: the number of non-crossing matchings of 2m boundary ends. */
+function catalan(m: number): number {
+  let c = 1;
+  for (let i = 0; i < m; i++) c = (c * 2 * (2 * i + 1)) / (i + 2);
+  return c;
+}
+
+/**
+ * An estimate of the peak memory of the contraction, before it runs. After k
+ * crossings at width w there are at most 2^k states and (for a disk-shaped
+ * region) at most Catalan(w/2) of them; each holds a polynomial of about k + 1
+ * terms whose coefficients need one 32-bit limb per ~48 crossings (measured on
+ * alternating closures), kept in two slabs, plus about 250 bytes of bookkeeping
+ * and 100 per limb array. Calibrated against peak resident size at widths 16–24.
+ */
+export function estimateStateBytes(steps: readonly { readonly newWidth: number }[]): number {
+  let peak = 0;
+  steps.forEach((step, k) => {
+    const absorbed = k + 1;
+    const states = Math.min(2 ** absorbed, catalan(step.newWidth / 2));
+    const limbs = 1 + Math.floor(absorbed / 48);
+    peak = Math.max(peak, states * (250 + limbs * (100 + 16 * (absorbed + 1))));
+  });
+  return peak;
 }
 
 function checkPermutation(order: readonly number[], n: number): void {
@@ -233,6 +264,7 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
   const dStride = 4 / step; // index distance between the terms A^(2l−4j) of d^l
 
   for (let k = 0; k < steps.length; k++) {
+    checkTimeBudget();
     const plan = steps[k]!;
     const isLast = k === steps.length - 1;
     const w = plan.oldWidth;

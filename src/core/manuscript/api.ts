@@ -10,6 +10,7 @@ import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../diagnostics/diagnostic.ts';
 import type { ClaimKey, FillKey, Typeset } from '../claims/api.ts';
 import type { DiagramReport } from '../analyze/report.ts';
+import type { ComputeLimits } from '../limits.ts';
 
 /** Maps a span inside an entry's text (or the whole entry, when absent) to the file. */
 export type Locator = (span?: TextSpan) => SourceLocation;
@@ -60,6 +61,8 @@ export interface SessionInput {
    * the refusal: a reference to one is not a second mistake, so it gets a note pointing there.
    */
   readonly refused?: ReadonlyMap<string, SourceLocation>;
+  /** Limits on each diagram's size, memory and time (none when absent); a diagram over one is reported and skipped. */
+  readonly limits?: ComputeLimits;
 }
 
 export interface SessionResult {

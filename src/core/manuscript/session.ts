@@ -19,6 +19,7 @@ import type { Judgement, Typeset } from '../claims/api.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
+import { isLimitError } from '../limits.ts';
 import { parseDiagramCode } from '../notation/index.ts';
 import type { ClaimEntry, DiagramEntry, Locator, SessionInput, SessionResult } from './api.ts';
 
@@ -28,6 +29,8 @@ export function runSession(input: SessionInput): SessionResult {
   /** Ids whose code is invalid: claims about them are not judged (the code's error says why). */
   const invalid = new Map<string, DiagramEntry>();
   const firstHeader = new Map<string, SourceLocation>();
+  /** Ids of valid codes that were not computed because they are over a limit. */
+  const overLimit = new Set<string>();
 
   for (const entry of input.diagrams) {
     const header = entry.locateHeader();
@@ -45,11 +48,13 @@ export function runSession(input: SessionInput): SessionResult {
     try {
       // A family may name diagrams defined before it (mirror, sum, split).
       const named = (id: string) => reports.get(id)?.diagram;
-      const diagram = parseDiagramCode(entry.code, entry.notation, entry.strands !== undefined ? { strands: entry.strands, named } : { named });
-      reports.set(entry.id, analyzeDiagram(diagram));
+      const limits = input.limits ?? {};
+      const parseOptions = { named, ...(entry.strands !== undefined ? { strands: entry.strands } : {}), ...(limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {}) };
+      reports.set(entry.id, analyzeDiagram(parseDiagramCode(entry.code, entry.notation, parseOptions), limits));
     } catch (e) {
       if (!isInputError(e)) throw e;
       invalid.set(entry.id, entry);
+      if (isLimitError(e)) overLimit.add(entry.id);
       diagnostics.push(invalidCodeDiagnostic(e, entry.locateCode, entry.id));
     }
   }
@@ -70,7 +75,7 @@ export function runSession(input: SessionInput): SessionResult {
   const skippedBecauseInvalid = (target: string, locate: Locator, subject: string, verb: string): Diagnostic => ({
     severity: 'note',
     ruleId: 'target-invalid',
-    message: `${subject} is not ${verb}: the code of \`${target}\` is invalid (${place(invalid.get(target)!.locateCode())})`,
+    message: `${subject} is not ${verb}: ${overLimit.has(target) ? `\`${target}\` is over a limit and was not computed` : `the code of \`${target}\` is invalid`} (${place(invalid.get(target)!.locateCode())})`,
     location: locate(),
   });
   const skippedBecauseRefused = (target: string, at: SourceLocation, locate: Locator, subject: string, verb: string): Diagnostic => ({
@@ -94,6 +99,7 @@ export function runSession(input: SessionInput): SessionResult {
     const entry = input.diagrams.find((d) => d.id === target)!;
     reports.delete(target);
     invalid.set(target, entry);
+    if (isLimitError(e)) overLimit.add(target);
     diagnostics.push(invalidCodeDiagnostic(e, entry.locateCode, target));
   };
   const isDiagramLevel = (e: InputError): boolean => !e.ruleId.startsWith('claim-');

@@ -10,6 +10,7 @@ import { parseDtCode } from './dt.ts';
 import { parseGaussCode } from './gauss.ts';
 import { parsePdCode } from './pd.ts';
 import { parseFamily } from '../families/parse.ts';
+import { crossingLimitError } from '../limits.ts';
 
 export { printDtCode, printGaussCode, printPdCode } from './print.ts';
 
@@ -18,6 +19,8 @@ export interface ParseOptions {
   readonly strands?: number;
   /** Family codes: the diagram an earlier id of the document names (for mirror, sum, split). */
   readonly named?: (id: string) => LinkDiagram | undefined;
+  /** Codes with more crossings are refused (a `limit-exceeded` error) before they are parsed. */
+  readonly maxCrossings?: number;
 }
 
 export const NOTATIONS: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt', 'family'];
@@ -30,7 +33,15 @@ export const NOTATIONS: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt', 'fa
 export const MAX_COMPONENTS = 1000;
 
 export function parseDiagramCode(text: string, notation: Notation, options?: ParseOptions): LinkDiagram {
+  // A code is counted before it is read; a family (`torus 3 100`) writes its size as parameters, so its diagram is counted once built.
+  if (options?.maxCrossings !== undefined && notation !== 'family') {
+    const crossings = crossingsWritten(text, notation);
+    if (crossings > options.maxCrossings) throw crossingLimitError(crossings, options.maxCrossings);
+  }
   const diagram = parseInNotation(text, notation, options);
+  if (options?.maxCrossings !== undefined && diagram.crossings.length > options.maxCrossings) {
+    throw crossingLimitError(diagram.crossings.length, options.maxCrossings);
+  }
   const components = componentCount(diagram);
   if (components > MAX_COMPONENTS) {
     const extraStrands = notation === 'braid' ? ' (each strand of a braid that no generator joins to another is a component of its own)' : '';
@@ -40,6 +51,21 @@ export function parseDiagramCode(text: string, notation: Notation, options?: Par
     );
   }
   return diagram;
+}
+
+/** Numbers per crossing in each notation: a braid generator or DT entry is one, a Gauss code visits each crossing twice, a PD tuple has four labels. */
+const NUMBERS_PER_CROSSING: Record<Exclude<Notation, 'family'>, number> = { braid: 1, dt: 1, gauss: 2, pd: 4 };
+
+/** The crossings a code writes, counted from its numbers in one linear pass, before anything is parsed. */
+function crossingsWritten(text: string, notation: Exclude<Notation, 'family'>): number {
+  let numbers = 0;
+  let inNumber = false;
+  for (let i = 0; i < text.length; i++) {
+    const digit = text.charCodeAt(i) >= 48 && text.charCodeAt(i) <= 57;
+    if (digit && !inNumber) numbers++;
+    inNumber = digit;
+  }
+  return Math.ceil(numbers / NUMBERS_PER_CROSSING[notation]);
 }
 
 function parseInNotation(text: string, notation: Notation, options?: ParseOptions): LinkDiagram {

@@ -11,6 +11,7 @@
  * lazily, so the work stays within the band.
  */
 import { bandOrder, type SparseMatrix } from './sparse-matrix.ts';
+import { checkTimeBudget } from '../../limits.ts';
 
 export interface Inertia {
   readonly positive: number;
@@ -68,6 +69,7 @@ export function symmetricInertia(matrix: SparseMatrix): Inertia {
         continue;
       }
     }
+    checkTimeBudget();
     const rowP = current(pivot);
     const p = rowP.get(pivot)!;
     const previous = pivots[pivots.length - 1]!;

@@ -8,6 +8,7 @@
  * exact in a double; no coefficient ever passes through a float.
  */
 import type { SparseMatrix } from './sparse-matrix.ts';
+import { checkTimeBudget } from '../../limits.ts';
 
 const PRIME_CEILING = 1 << 26;
 
@@ -279,6 +280,7 @@ function coefficientsModPrime(a: SparseMatrix, b: SparseMatrix, p: number, recip
   const used = new Set<number>();
   for (let t = 2; xs.length < n + 1; t++) {
     if (used.has(t)) continue;
+    checkTimeBudget();
     const value = pencil.determinantAt(t);
     xs.push(t);
     ys.push(value);
