@@ -293,9 +293,9 @@ class ManuscriptReader {
     if (id !== undefined) this.addClaim(file, id, key.text, item.value, undefined);
   }
 
-  private addClaim(file: TextOrigin, target: string, key: ClaimKey, value: Arg, context: string | undefined): void {
+  private addClaim(file: TextOrigin, target: string, key: ClaimKey, value: Arg, context: string | undefined, cell = false): void {
     const text = withoutMathDelimiters(value);
-    this.claims.push({ target, key, text: text.text, locate: locatorFor(file, text), ...(context !== undefined ? { context } : {}) });
+    this.claims.push({ target, key, text: text.text, locate: locatorFor(file, text), ...(context !== undefined ? { context } : {}), ...(cell ? { cell } : {}) });
   }
 
   private conventionSettings(file: SourceFile, item: Extract<ScanItem, { kind: 'convention' }>, splices: Splice[]): void {
@@ -504,7 +504,7 @@ class ManuscriptReader {
             return;
           }
           this.fills.push({
-            entry: { target: id, key, locate: locatorFor(file, cell.raw), context },
+            entry: { target: id, key, locate: locatorFor(file, cell.raw), context, cell: true },
             target: { kind: 'cell', table, row: row.number, column: i + 1, raw: cell.raw, valueAt: cell.content.start },
           });
           splices.push({ kind: 'fill', span: cell.raw, fill: this.fills.length - 1 });
@@ -516,7 +516,7 @@ class ManuscriptReader {
           this.error(file, cell.content, 'latex-cell-filled', `${context}: the \`${key}\` column is filled in by skeinproof; leave its cells empty`);
           return;
         }
-        this.addClaim(file, id, key, cell.content, context);
+        this.addClaim(file, id, key, cell.content, context, true);
       });
     }
   }

@@ -102,6 +102,7 @@ class Extractor {
       else if (node.type === 'code' && node.lang?.startsWith(DIAGRAM_FENCE_LANGUAGE)) this.misspelledFence(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
+      else if ((node.type === 'leafDirective' || node.type === 'containerDirective') && (isClaimKey(node.name) || isFillKey(node.name))) this.misplacedDirective(node);
       // Markdown inside a raw HTML block (`<div>` up to the next blank line) is not parsed, so nor are claims there.
       else if (node.type === 'text' || node.type === 'html') this.strayMarkup(node);
       return undefined;
@@ -265,10 +266,9 @@ class Extractor {
     const [start, end] = offsets(node);
     const name = node.name;
     if (target === undefined || target === null) {
-      // `:jones` followed by `[` or `{` (also on the next line) is a label or attribute list the parser could not read.
-      const broken = /^[ \t]*(?:\r?\n|\r)?[ \t]*[[{]/.test(this.text.slice(end, end + 40));
-      if (broken && (isClaimKey(name) || isFillKey(name))) this.strayWarning(name, start);
-      return undefined;
+      if (!isClaimKey(name) && !isFillKey(name)) return undefined;
+      this.missingTarget(node, start, end);
+      return SKIP;
     }
     if (target.trim() === '') {
       this.error('markup-invalid', `\`:${name}\` has an empty \`${TARGET_ATTRIBUTE}\`: write the id of a diagram, e.g. {of=trefoil}`, start, end);
@@ -313,24 +313,67 @@ class Extractor {
   }
 
   /**
+   * A directive named after a claim or fill key but without `of` (none at all, `{id=t3}`, `{#t3}`, a misspelt
+   * `{fo=t3}`, or `{of=…}` split off by a space or line break) would go unchecked: an error saying how to write it.
+   */
+  private missingTarget(node: TextDirective, start: number, end: number): void {
+    const name = node.name;
+    const attributes = Object.entries(node.attributes ?? {}).filter((entry): entry is [string, string] => typeof entry[1] === 'string');
+    const hasLabel = this.text[start + 1 + name.length] === '[';
+    const label = hasLabel ? this.text.slice(start + 2 + name.length, matchingBracket(this.text, start + 1 + name.length, end)) : '';
+    const shownLabel = label.length <= 30 ? label : '…';
+    const id = attributes.find(([k]) => k !== 'class')?.[1] || 'ID';
+    const written = hasLabel ? `:${name}[${shownLabel}]{${TARGET_ATTRIBUTE}=${id}}` : `:${name}{${TARGET_ATTRIBUTE}=${id}}`;
+    const usage = hasLabel ? `a claim names its diagram in \`${TARGET_ATTRIBUTE}\`` : `a fill-in names its diagram in \`${TARGET_ATTRIBUTE}\` (a claim also has your value as its label)`;
+    const after = /^([ \t]*(?:\r?\n|\r)?[ \t]*)\{/.exec(this.text.slice(end, end + 200));
+    let problem: string;
+    let at: readonly [number, number] = [start, end];
+    if (attributes.length > 0) {
+      const keys = attributes.map(([k]) => (k === 'id' && this.text.slice(start, end).includes('#') ? '#' : k));
+      problem = `has no \`${TARGET_ATTRIBUTE}\` attribute (it has ${keys.map((k) => `\`${k}\``).join(', ')})`;
+      const braces = this.text.lastIndexOf('{', end - 1);
+      at = this.attributeAt(attributes[0]![0], braces >= start ? braces : start, end);
+    } else if (after && after[1] !== '') {
+      problem = after[1]!.includes('\n') || after[1]!.includes('\r') ? 'is cut off from its {…} by a line break' : 'is cut off from its {…} by a space';
+      at = [start, end + after[0].length];
+    } else problem = `names no diagram`;
+    this.error('markup-invalid', `\`:${name}\` ${problem}, so nothing would be checked or filled in: ${usage}; write ${written}`, at[0], at[1], [
+      `Write {${TARGET_ATTRIBUTE}=ID} right after the ${hasLabel ? 'label' : 'name'}, with no space, where ID is the id of a \`${DIAGRAM_FENCE_LANGUAGE}\` block.`,
+    ]);
+  }
+
+  /** `::jones[…]{of=k}` or `:::jones`: a leaf or container directive named after a value is not read; it must be inline. */
+  private misplacedDirective(node: Nodes & { name: string }): void {
+    const [start, end] = offsets(node);
+    const colons = node.type === 'leafDirective' ? '::' : ':::';
+    this.error(
+      'markup-invalid',
+      `\`${colons}${node.name}\` is not read as a claim or fill-in: claims and fill-ins are text directives with one colon, e.g. :${node.name}[VALUE]{${TARGET_ATTRIBUTE}=ID}`,
+      start,
+      Math.min(end, start + colons.length + node.name.length),
+    );
+  }
+
+  /**
    * Text that looks like one of our directives but was not parsed as one (a
    * label broken over lines, remark-directive missing, raw HTML around it)
    * would silently go unchecked; say so.
    */
   private strayMarkup(node: Text | Html): void {
     const [start, end] = offsets(node);
-    const slice = this.text.slice(start, end);
+    // An HTML comment is the author's way of switching text off, like `%` in LaTeX: what it holds is not read.
+    const slice = node.type === 'html' ? this.text.slice(start, end).replace(/<!--[\s\S]*?(?:-->|$)/g, (c) => c.replace(/[^\r\n]/g, ' ')) : this.text.slice(start, end);
     const pattern = /(?<![\w:\\]):([a-z][a-z-]*)(?=\[|\{of=)/g;
     for (let m = pattern.exec(slice); m !== null; m = pattern.exec(slice)) {
       const name = m[1]!;
       if (!isClaimKey(name) && !isFillKey(name)) continue;
-      this.strayWarning(name, start + m.index, node.type === 'html' ? STRAY_IN_HTML_HINT : undefined);
+      this.strayError(name, start + m.index, node.type === 'html' ? STRAY_IN_HTML_HINT : undefined);
     }
   }
 
-  private strayWarning(name: string, at: number, hint = STRAY_HINT): void {
+  private strayError(name: string, at: number, hint = STRAY_HINT): void {
     this.problems.push({
-      severity: 'warning',
+      severity: 'error',
       ruleId: 'markup-invalid',
       message: `\`:${name}\` here is read as plain text, not as a claim or fill-in, so nothing is checked or filled in`,
       location: this.source.location(at, at + 1 + name.length),
@@ -360,14 +403,15 @@ class Extractor {
    */
   private attributeAt(key: string, from: number, to: number): readonly [number, number] {
     const shorthand = key === 'id' ? '#' : key === 'class' ? '\\.' : undefined;
-    const pattern = shorthand ? `${shorthand}[^\\s}.#]*` : `${key.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?=[\\s=}])`;
+    const named = `${key.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}(?=[\\s=}])`;
+    const pattern = shorthand ? `(?:${named}|${shorthand}[^\\s}.#]*)` : named;
     const m = new RegExp(`(?<=[{\\s])${pattern}`).exec(this.text.slice(from, to));
     return m ? [from + m.index, from + m.index + m[0].length] : [from, to];
   }
 
-  private addFill(target: string, key: FillKey, locate: Locator, context: string | undefined, edit: TextEdit, node: Nodes): void {
+  private addFill(target: string, key: FillKey, locate: Locator, context: string | undefined, edit: TextEdit, node: Nodes, cell = false): void {
     this.actions.set(node, { kind: 'fill', fill: this.fills.length });
-    this.fills.push({ target, key, locate, ...(context ? { context } : {}) });
+    this.fills.push({ target, key, locate, ...(context ? { context } : {}), ...(cell ? { cell } : {}) });
     this.edits.push(edit);
   }
 
@@ -473,11 +517,11 @@ class Extractor {
             return;
           }
           const edit: TextEdit = { start: content.innerStart, end: content.innerEnd, replacement: { fill: this.fills.length, place: 'empty-cell' } };
-          this.addFill(target, column.name, this.fixedLocator(content.innerStart, content.innerEnd), context, edit, cell);
+          this.addFill(target, column.name, this.fixedLocator(content.innerStart, content.innerEnd), context, edit, cell, true);
           return;
         }
         const claim = this.readClaimText(cell.children, content.start, content.end);
-        this.claims.push({ target, key: column.name, text: claim.text, locate: claim.locate, context });
+        this.claims.push({ target, key: column.name, text: claim.text, locate: claim.locate, context, cell: true });
       });
     });
   }

@@ -68,7 +68,17 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
     const manuscript = extractManuscript(tree, source, options.notation ? { notation: options.notation } : {});
     const convention: Convention = { ...DEFAULT_CONVENTION, ...manuscript.settings.convention, ...options.convention };
     const strict = options.strict ?? manuscript.settings.strict ?? false;
-    const session = runSession({ diagrams: manuscript.diagrams, claims: manuscript.claims, fills: manuscript.fills, convention, strict, refused: manuscript.refusedIds, ...(options.limits ? { limits: options.limits } : {}) });
+    const session = runSession({
+      diagrams: manuscript.diagrams,
+      claims: manuscript.claims,
+      fills: manuscript.fills,
+      convention,
+      strict,
+      refused: manuscript.refusedIds,
+      documentStart: source.location(0),
+      markupFound: manuscript.problems.length > 0,
+      ...(options.limits ? { limits: options.limits } : {}),
+    });
     const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
     const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
     for (const d of diagnostics) reportOnFile(file, d);
@@ -80,7 +90,8 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       if ('text' in r) splices.push({ start, end, text: r.text });
       else {
         const value = session.fills[r.fill];
-        if (value !== undefined) splices.push({ start, end, text: typesetMarkdown(value, r.place) });
+        // An empty text is a table cell whose key does not apply to the row's diagram: it stays as written.
+        if (value !== undefined && !(value.kind === 'text' && value.text === '')) splices.push({ start, end, text: typesetMarkdown(value, r.place) });
       }
     }
     file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices: keepMathApart(raw, splices) };

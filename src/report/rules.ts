@@ -24,6 +24,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'encoding-invalid', description: 'An input file is not valid UTF-8; the first bad byte is named.' },
   { id: 'front-matter-invalid', description: 'The manuscript front matter cannot be read.' },
   { id: 'markup-invalid', description: 'The markup around a diagram, claim or fill-in is malformed.' },
+  { id: 'manuscript-unmarked', description: 'A manuscript has no skeinproof markup at all, so nothing in it was checked.' },
   { id: 'math-untypeset', description: 'A formula cannot be typeset.' },
   { id: 'diagram-too-wide', description: 'A diagram is too wide for the bracket engine: every crossing order leaves too many open edge ends.' },
   { id: 'limit-exceeded', description: 'A diagram is over a limit on its crossings, its bracket\'s memory or its time budget, so it (or one of its invariants) is not computed.' },

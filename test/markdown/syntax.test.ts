@@ -129,10 +129,16 @@ describe('fill-ins', () => {
   });
 
   it('leaves directives that are not ours alone', async () => {
-    const text = `${TREFOIL}\nA :span[word]{.note} and :jones without target.\n`;
+    const text = `${TREFOIL}\nA :note[word]{.wide} and :remark without target.\n`;
     const r = await processMarkdown(text);
     expect(r.diagnostics).toEqual([]);
     expect(r.built).toBe(text);
+  });
+
+  it('a directive named after a value is ours even without `of`: an error, not left alone', async () => {
+    const text = `${TREFOIL}\nA :span[word]{.note} and :jones without target.\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, '.note')}`, `error markup-invalid ${positionOf(text, ':jones')}`]);
   });
 
   it('reports an unknown target with a suggestion, at the directive', async () => {
@@ -398,19 +404,18 @@ describe('more error positions', () => {
 });
 
 describe('broken directives', () => {
-  it('warns where a claim would otherwise go unchecked', async () => {
+  it('is an error where a claim would otherwise go unchecked', async () => {
     // A line starting with "+ " inside the label starts a list, so the directive breaks.
     const text = `${TREFOIL}\nA :jones[$t + t^3\n+ t^4$]{of=tref}\n\nB :writhe[$3$]\n{of=tref}\n`;
     const r = await processMarkdown(text);
-    expect(placed(r.diagnostics)).toEqual([`warning markup-invalid ${positionOf(text, ':jones')}`, `warning markup-invalid ${positionOf(text, ':writhe')}`]);
-    expect(r.failed).toBe(false);
-    expect((await processMarkdown(text, { strict: true })).failed).toBe(true);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, ':jones')}`, `error markup-invalid ${positionOf(text, ':writhe')}`]);
+    expect(r.failed).toBe(true);
   });
 
-  it('warns about a claim inside a raw HTML block, which Markdown does not read', async () => {
+  it('is an error for a claim inside a raw HTML block, which Markdown does not read', async () => {
     const text = `${TREFOIL}\n<div class="remark">\nThe writhe is :writhe[$4$]{of=tref}.\n</div>\n\n<span>:writhe[$3$]{of=tref}</span> is read.\n`;
     const r = await processMarkdown(text);
-    expect(placed(r.diagnostics)).toEqual([`warning markup-invalid ${positionOf(text, ':writhe')}`]);
+    expect(placed(r.diagnostics)).toEqual([`error markup-invalid ${positionOf(text, ':writhe')}`]);
     expect(r.diagnostics[0]!.hints?.[0]).toMatch(/raw HTML/);
     expect(r.built).toContain('<span>$3$</span> is read.');
   });

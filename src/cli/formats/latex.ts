@@ -87,6 +87,8 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     ...(options.strict ? { strict: true } : {}),
     refused: doc.refusedIds,
     ...(options.limits ? { limits: options.limits } : {}),
+    documentStart: { file: doc.main.displayPath, start: { line: 1, column: 1 } },
+    markupFound: doc.diagnostics.length > 0,
   });
   const diagnostics = inDocumentOrder([...doc.diagnostics, ...session.diagnostics], doc);
   const failed = session.failed || doc.diagnostics.some((d) => d.severity === 'error');

@@ -103,7 +103,7 @@ function refuse(message: string, start: number, end: number): never {
 /**
  * Reads `7`, `\le 7`, `≥ 5`, `< 8`, `at most 7`, also after a left-hand side
  * (`c(K) \le 7`), turned round (`5 \le c(K)`), or two-sided (`5 \le c(K) \le 7`,
- * `between 5 and 7`, both ends included).
+ * `between 5 and 7`, `5–7`, both ends included).
  */
 export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
   const plain = blankMarkup(text);
@@ -111,6 +111,12 @@ export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
   if (between) {
     const [, lead, low, joint, high] = between as unknown as [string, string, string, string, string];
     return range(integerAt({ text: low, start: lead.length }), integerAt({ text: high, start: lead.length + low.length + joint.length }), text);
+  }
+  // The compact range a table cell is filled with: `6–8`, `6--8`, `$6\textrm{--}8$`.
+  const dashed = /^(\s*\d+\s*)(–|--)(\s*\d+\s*[.,;]?\s*)$/.exec(plain);
+  if (dashed) {
+    const [, low, dash, high] = dashed as unknown as [string, string, string, string];
+    return range(integerAt({ text: low, start: 0 }), integerAt({ text: high, start: low.length + dash.length }), text);
   }
   const relations = findRelations(plain);
   const segments: Segment[] = [];
@@ -249,9 +255,11 @@ export function judgeCrossingNumberClaim(text: string, report: DiagramReport): J
 }
 
 /** The value for a `crossing-number` fill: the number when exact, honest bounds in prose otherwise. */
-export function crossingNumberFill(report: DiagramReport): { kind: 'math'; latex: string } | { kind: 'text'; text: string } {
+/** The exact crossing number, or the range: "between $6$ and $8$" in prose, `6–8` (an en dash) where space is short, as in table cells. */
+export function crossingNumberFill(report: DiagramReport, compact = false): { kind: 'math'; latex: string } | { kind: 'text'; text: string } {
   const { lower, upper, exact } = report.crossingNumber;
   if (exact !== null) return { kind: 'math', latex: `${exact}` };
+  if (compact) return { kind: 'math', latex: `${lower}\\textrm{--}${upper}` };
   return { kind: 'text', text: `between $${lower}$ and $${upper}$` };
 }
 

@@ -7,6 +7,8 @@ import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { FillKey, Typeset } from './api.ts';
 import { FILL_KEYS, fillSpec } from '../invariants/registry/index.ts';
+import type { TypesetOptions } from '../invariants/registry/types.ts';
+import { requireApplicable } from './applicability.ts';
 
 export type * from './api.ts';
 export { judgeClaim, CLAIM_KEYS, isClaimKey } from './judge.ts';
@@ -20,6 +22,7 @@ export {
   CLAIM_NOUNS,
 } from './diagnostics.ts';
 export { readPolynomial, readNumber, UNREADABLE } from './latex-poly-parser.ts';
+export { inapplicableBecause, isNotApplicableMark, NOT_APPLICABLE_MARKS } from './applicability.ts';
 export { polynomialLatex, jonesLatex, bracketLatex, numberLatex } from './typeset.ts';
 export { crossingNumberStatement, readCrossingNumberClaim, THEOREM_NAMES } from './crossing-number.ts';
 export { claimKeyForHeader } from '../invariants/registry/index.ts';
@@ -31,9 +34,10 @@ export function isFillKey(word: string): boolean {
   return fillSpec(word) !== undefined;
 }
 
-/** The typeset value of `key` for the report, in the convention. */
-export function typesetValue(key: FillKey, report: DiagramReport, convention: Convention): Typeset {
+/** The typeset value of `key` for the report, in the convention. Throws `claim-inapplicable` for a key the diagram has no value of. */
+export function typesetValue(key: FillKey, report: DiagramReport, convention: Convention, options: TypesetOptions = {}): Typeset {
   const spec = fillSpec(key);
   if (!spec) throw new Error(`internal: no registered invariant declares the fill key \`${key}\``);
-  return spec.typeset(report, convention);
+  requireApplicable(key, report);
+  return spec.typeset(report, convention, options);
 }

@@ -134,10 +134,9 @@ export function judgeNumberClaim(key: NumberKey, text: string, report: DiagramRe
  * the values for the pairs (1,2), (1,3), …, (2,3), … separated by commas.
  */
 function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
-  if (report.components < 2) {
-    throw new InputError('claim-inapplicable', `a linking number claim needs a link of two or more components, but this diagram has ${report.components}; remove the claim or attach it to a link`);
-  }
-  const pairs = [...report.linking].sort((a, b) => a.components[0] - b.components[0] || a.components[1] - b.components[1]);
+  const why = linkingInapplicable(report);
+  if (why !== undefined) throw new InputError('claim-inapplicable', `${why}; remove the claim or attach it to a link`);
+  const pairs = linkingPairs(report);
   const parts = linkingParts(text);
   if (parts.length !== pairs.length) {
     throw new InputError(
@@ -148,7 +147,7 @@ function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
   }
   const claimed = parts.map((p) => readIntegerAt(p.text, p.start));
   const computedValues = pairs.map((p) => p.value);
-  const computed = computedValues.join(', ');
+  const computed = linkingLatex(report);
   const base = { key: 'linking' as const, claimed: text, computed };
   if (claimed.every((v, i) => v === computedValues[i])) {
     return { ...base, verdict: 'agrees', reason: `the linking number${pairs.length === 1 ? ' is' : 's are'} ${computed}` };
@@ -164,6 +163,21 @@ function judgeLinkingClaim(text: string, report: DiagramReport): Judgement {
     ...(diagnosis ? { diagnosis } : {}),
     reason: `the linking number${pairs.length === 1 ? ' is' : 's are'} ${computed}, not ${claimed.join(', ')}${pairs.length > 1 ? ` (${wrong.length === 1 ? `pair ${wrong[0]} differs` : `pairs ${wrong.join(', ')} differ`})` : ''}${diagnosis ? `: ${diagnosis.detail}` : ''}`,
   };
+}
+
+/** Why a diagram has no linking numbers (a knot), or undefined for a link. */
+export function linkingInapplicable(report: DiagramReport): string | undefined {
+  return report.components < 2 ? `a linking number needs a link of two or more components, but this diagram has ${report.components}` : undefined;
+}
+
+/** The linking numbers of the pairs (1,2), (1,3), …, (2,3), … in that order. */
+function linkingPairs(report: DiagramReport): DiagramReport['linking'][number][] {
+  return [...report.linking].sort((a, b) => a.components[0] - b.components[0] || a.components[1] - b.components[1]);
+}
+
+/** The linking numbers as typeset (and as a claim lists them): one per pair, in the order of `linkingPairs`. */
+export function linkingLatex(report: DiagramReport): string {
+  return linkingPairs(report).map((p) => p.value).join(', ');
 }
 
 /**

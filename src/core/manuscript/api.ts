@@ -40,6 +40,11 @@ export interface ClaimEntry {
   readonly locate: Locator;
   /** For table cells: "row R, column C" naming, used in messages. */
   readonly context?: string;
+  /**
+   * True for a table cell: where the column's key does not apply to the row's diagram (a linking number of a
+   * knot), a not-applicable mark (`—`, `n/a`, …) agrees instead of being an error.
+   */
+  readonly cell?: boolean;
 }
 
 export interface FillEntry {
@@ -47,6 +52,11 @@ export interface FillEntry {
   readonly key: FillKey;
   readonly locate: Locator;
   readonly context?: string;
+  /**
+   * True for an empty table cell: it is typeset compactly (a crossing-number range as `6–8`), and where the
+   * column's key does not apply to the row's diagram it stays empty (an empty text) instead of being an error.
+   */
+  readonly cell?: boolean;
 }
 
 export interface SessionInput {
@@ -63,6 +73,27 @@ export interface SessionInput {
   readonly refused?: ReadonlyMap<string, SourceLocation>;
   /** Limits on each diagram's size, memory and time (none when absent); a diagram over one is reported and skipped. */
   readonly limits?: ComputeLimits;
+  /**
+   * Where the manuscript starts: a manuscript with no diagram, claim or fill-in gets a `manuscript-unmarked`
+   * warning there, unless `markupFound` says the front end met skeinproof markup it refused.
+   */
+  readonly documentStart?: SourceLocation;
+  readonly markupFound?: boolean;
+}
+
+/** What a session checked, for the line a passing run prints instead of a bare "no problems found". */
+export interface SessionCounts {
+  /** Diagrams whose code was read and analysed. */
+  readonly diagrams: number;
+  readonly claimsAgree: number;
+  readonly claimsContradicted: number;
+  readonly claimsUndecided: number;
+  /** Values typeset into the document (fill-ins and empty cells). */
+  readonly valuesFilled: number;
+  /** Of the claims and values above, those in table cells. */
+  readonly tableCells: number;
+  /** Table cells whose key does not apply to the row's diagram, left empty or marked so. */
+  readonly notApplicable: number;
 }
 
 export interface SessionResult {
@@ -73,4 +104,5 @@ export interface SessionResult {
   readonly reports: ReadonlyMap<string, DiagramReport>;
   /** True when an error (or, under strict, a warning) was reported. */
   readonly failed: boolean;
+  readonly counts: SessionCounts;
 }

@@ -7,21 +7,32 @@
  *    error inside the code;
  * 2. every claim is judged against its diagram's report (unknown targets and
  *    unreadable values are located errors);
- * 3. every fill-in is typeset in the document's convention.
+ * 3. every fill-in is typeset in the document's convention;
+ * 4. what was checked is counted, and a manuscript without any markup gets a warning.
  *
  * It only sees entries, locators and a convention, never a file format, and
  * reports everything it finds in one pass, in document order.
  */
 import { analyzeDiagram } from '../analyze/analyze.ts';
 import type { DiagramReport } from '../analyze/report.ts';
-import { CLAIM_NOUNS, invalidCodeDiagnostic, judgeClaim, judgementToDiagnostics, typesetValue, unreadableClaimDiagnostic } from '../claims/index.ts';
+import {
+  CLAIM_NOUNS,
+  inapplicableBecause,
+  invalidCodeDiagnostic,
+  isFillKey,
+  isNotApplicableMark,
+  judgeClaim,
+  judgementToDiagnostics,
+  typesetValue,
+  unreadableClaimDiagnostic,
+} from '../claims/index.ts';
 import type { Judgement, Typeset } from '../claims/api.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
 import { isLimitError } from '../limits.ts';
 import { parseDiagramCode } from '../notation/index.ts';
-import type { ClaimEntry, DiagramEntry, Locator, SessionInput, SessionResult } from './api.ts';
+import type { ClaimEntry, DiagramEntry, Locator, SessionCounts, SessionInput, SessionResult } from './api.ts';
 
 export function runSession(input: SessionInput): SessionResult {
   const diagnostics: Diagnostic[] = [];
@@ -104,6 +115,7 @@ export function runSession(input: SessionInput): SessionResult {
   };
   const isDiagramLevel = (e: InputError): boolean => !e.ruleId.startsWith('claim-');
 
+  const counts: { -readonly [K in keyof SessionCounts]: number } = { diagrams: 0, claimsAgree: 0, claimsContradicted: 0, claimsUndecided: 0, valuesFilled: 0, tableCells: 0, notApplicable: 0 };
   const judged: JudgedClaim[] = [];
   for (const claim of input.claims) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
@@ -111,6 +123,18 @@ export function runSession(input: SessionInput): SessionResult {
     if (!report) {
       diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
       continue;
+    }
+    if (claim.cell) {
+      const cellProblem = notApplicableCell(claim, report, subject, input);
+      if (cellProblem === 'not-applicable') {
+        counts.notApplicable++;
+        continue;
+      }
+      if (cellProblem) {
+        diagnostics.push(cellProblem);
+        if (cellProblem.ruleId === 'claim-contradicted') counts.claimsContradicted++;
+        continue;
+      }
     }
     try {
       const judgement = judgeClaim(claim.key, claim.text, report, { convention: input.convention, others: reports, selfId: claim.target });
@@ -126,6 +150,10 @@ export function runSession(input: SessionInput): SessionResult {
 
   for (const { claim, judgement } of withCellSwaps(judged, reports, input.convention)) {
     diagnostics.push(...judgementToDiagnostics(judgement, claim.locate(), claim.context));
+    if (judgement.verdict === 'agrees') counts.claimsAgree++;
+    else if (judgement.verdict === 'contradicts') counts.claimsContradicted++;
+    else counts.claimsUndecided++;
+    if (claim.cell) counts.tableCells++;
   }
 
   const fills: (Typeset | undefined)[] = input.fills.map((fill) => {
@@ -135,8 +163,15 @@ export function runSession(input: SessionInput): SessionResult {
       diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
       return undefined;
     }
+    if (fill.cell && inapplicableBecause(fill.key, report) !== undefined) {
+      counts.notApplicable++;
+      return { kind: 'text', text: '' };
+    }
     try {
-      return typesetValue(fill.key, report, input.convention);
+      const value = typesetValue(fill.key, report, input.convention, { compact: fill.cell === true });
+      counts.valuesFilled++;
+      if (fill.cell) counts.tableCells++;
+      return value;
     } catch (e) {
       if (!isInputError(e)) throw e;
       if (isDiagramLevel(e)) {
@@ -147,9 +182,58 @@ export function runSession(input: SessionInput): SessionResult {
     }
   });
 
+  const unmarked = input.diagrams.length + input.claims.length + input.fills.length === 0 && !input.markupFound && (input.refused?.size ?? 0) === 0;
+  if (unmarked) {
+    diagnostics.push({
+      severity: 'warning',
+      ruleId: 'manuscript-unmarked',
+      message: 'this manuscript has no skeinproof markup, so nothing in it was checked',
+      ...(input.documentStart ? { location: input.documentStart } : {}),
+      hints: ['Mark each diagram (a `skein` block in Markdown, a `skeincode` environment in LaTeX) and state values as claims or fill-ins; see the README.'],
+    });
+  }
+
   const ordered = diagnostics.map((d, i) => ({ d, i })).sort((a, b) => compareLocations(a.d.location, b.d.location) || a.i - b.i).map((x) => x.d);
   const failed = ordered.some((d) => d.severity === 'error' || (input.strict === true && d.severity === 'warning'));
-  return { diagnostics: ordered, fills, reports, failed };
+  counts.diagrams = reports.size; // diagrams an engine refused on first use are no longer among them
+  return { diagnostics: ordered, fills, reports, failed, counts };
+}
+
+/**
+ * A table cell whose key does not apply to its row's diagram may hold a not-applicable mark ('not-applicable');
+ * a value there is `claim-inapplicable`, and a mark where the key does apply states something false.
+ * Undefined when the cell is an ordinary claim.
+ */
+function notApplicableCell(claim: ClaimEntry, report: DiagramReport, subject: string, input: SessionInput): Diagnostic | 'not-applicable' | undefined {
+  const why = inapplicableBecause(claim.key, report);
+  const marked = isNotApplicableMark(claim.text);
+  const noun = CLAIM_NOUNS[claim.key];
+  if (why !== undefined) {
+    if (marked) return 'not-applicable';
+    return {
+      severity: 'error',
+      ruleId: 'claim-inapplicable',
+      message: `${subject}: ${why}, so this cell holds no value`,
+      location: claim.locate(),
+      hints: ['Leave the cell empty, or write a not-applicable mark such as — or n/a.'],
+    };
+  }
+  if (!marked) return undefined;
+  let computed: Typeset | undefined;
+  try {
+    computed = isFillKey(claim.key) ? typesetValue(claim.key, report, input.convention, { compact: true }) : undefined;
+  } catch (e) {
+    if (!isInputError(e)) throw e; // a diagram too large for an engine: the message goes without the value
+  }
+  return {
+    severity: 'error',
+    ruleId: 'claim-contradicted',
+    message: `${subject}: the cell marks the ${noun} as not applicable, but \`${claim.target}\` has one`,
+    location: claim.locate(),
+    claimed: claim.text.trim(),
+    ...(computed ? { computed: computed.kind === 'math' ? computed.latex : computed.text } : {}),
+    hints: [isFillKey(claim.key) ? 'Leave the cell empty to have the value filled in, or write the value.' : 'Write the value to have it checked.'],
+  };
 }
 
 interface JudgedClaim {

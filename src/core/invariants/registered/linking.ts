@@ -1,12 +1,13 @@
 /** Linking numbers of the pairs of components of a link. */
 import type { Invariant } from '../registry/types.ts';
-import { judgeNumberClaim } from '../../claims/scalar-claims.ts';
+import { judgeNumberClaim, linkingInapplicable, linkingLatex } from '../../claims/scalar-claims.ts';
 
 export const linkingInvariant: Invariant = {
   id: 'linking',
   doc: 'The linking number of each pair of components: half the sum of the signs of the crossings between them.',
   cost: 'instant',
   conventions: [],
+  inapplicable: linkingInapplicable,
   claims: [
     {
       key: 'linking',
@@ -19,7 +20,13 @@ export const linkingInvariant: Invariant = {
       judge: (text, report, ctx) => judgeNumberClaim('linking', text, report, ctx),
     },
   ],
-  fills: [],
+  fills: [
+    {
+      key: 'linking',
+      valueDoc: 'the linking number of a two-component link; for more components, one value per pair in the order of the claims',
+      typeset: (report) => ({ kind: 'math', latex: linkingLatex(report) }),
+    },
+  ],
   json: [
     {
       field: 'linking',

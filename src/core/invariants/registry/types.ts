@@ -48,12 +48,18 @@ export interface ClaimSpec {
   judge(text: string, report: DiagramReport, ctx: JudgeContext): Judgement;
 }
 
+/** How a fill is typeset beyond the convention. */
+export interface TypesetOptions {
+  /** For a table cell: as short as the value allows (a crossing-number range as `6–8`, not a phrase). */
+  readonly compact?: boolean;
+}
+
 /** One value a document can ask to have typeset. */
 export interface FillSpec {
   readonly key: string;
   /** What is filled in, one sentence for the README key table. */
   readonly valueDoc: string;
-  typeset(report: DiagramReport, convention: Convention): Typeset;
+  typeset(report: DiagramReport, convention: Convention, options?: TypesetOptions): Typeset;
 }
 
 /** One field of the `compute --json` object. */
@@ -75,6 +81,12 @@ export interface Invariant {
    * value is read or typeset; empty when the value is written the same way in every document.
    */
   readonly conventions: readonly string[];
+  /**
+   * Why the invariant's keys do not apply to this diagram (a linking number of a knot), or undefined when they
+   * do. A prose claim or fill-in of an inapplicable key is `claim-inapplicable`; a table cell may be empty or
+   * hold a not-applicable mark instead. Absent: the keys apply to every diagram.
+   */
+  readonly inapplicable?: (report: DiagramReport) => string | undefined;
   readonly claims: readonly ClaimSpec[];
   readonly fills: readonly FillSpec[];
   readonly json: readonly JsonField[];

@@ -1,0 +1,112 @@
+/**
+ * Tables as papers write them: knots and links in one table (a link-only column takes an empty cell or a
+ * not-applicable mark in a knot row), linking numbers as fill-ins, and crossing-number ranges filled compactly
+ * in cells. Values: the positive trefoil (closure of the braid 1 1 1) and the positive Hopf link (1 1), whose
+ * linking number is +1 (from memory); the closure of 1 -2 2 1 -2 1 is a trefoil diagram with six crossings, for
+ * which the bounds give only 3 to 6 (span V = 3 by Kauffman–Murasugi–Thistlethwaite, six crossings as drawn).
+ */
+import { describe, expect, it } from 'vitest';
+import { readLatexManuscript } from '../../plugins/latex/reader.ts';
+import { sidecarText } from '../../plugins/latex/sidecar.ts';
+import { flatText } from '../../plugins/latex/flat.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
+import { runSession } from '../../src/core/manuscript/session.ts';
+import { memoryFiles } from '../latex/support.ts';
+import { placed, processMarkdown } from './helpers.ts';
+
+const DIAGRAMS = [
+  '```skein id=t3 notation=braid',
+  '1 1 1',
+  '```',
+  '',
+  '```skein id=hopf notation=braid',
+  '1 1',
+  '```',
+  '',
+  '```skein id=wide notation=braid',
+  '1 -2 2 1 -2 1',
+  '```',
+  '',
+].join('\n');
+
+describe('Markdown: knots and links in one table', () => {
+  it('a knot row takes an empty cell or any not-applicable mark in the linking column; a link row is filled', async () => {
+    const rows = ['| t3 | |', '| t3 | — |', '| t3 | -- |', '| t3 | n/a |', '| t3 | $-$ |', '| t3 | – |', '| hopf | |', '| hopf | $1$ |'];
+    const text = `${DIAGRAMS}:::invariants\n| diagram | linking |\n|---|---|\n${rows.join('\n')}\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toContain('| t3 | |\n| t3 | — |');
+    expect(r.built).toContain('| hopf | $1$ |\n| hopf | $1$ |');
+    expect(r.file.data.skeinproof!.session.counts.notApplicable).toBe(6);
+  });
+
+  it('a value in a knot row, and a not-applicable mark in a link row, are errors', async () => {
+    const text = `${DIAGRAMS}:::invariants\n| diagram | linking | writhe |\n|---|---|---|\n| t3 | $0$ | $3$ |\n| hopf | — | n/a |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual(['error claim-inapplicable 15:8', 'error claim-contradicted 16:10', 'error claim-contradicted 16:14']);
+    expect(r.diagnostics[0]!.message).toMatch(/column linking: a linking number needs a link of two or more components.*holds no value/);
+    expect(r.diagnostics[0]!.hints).toEqual(['Leave the cell empty, or write a not-applicable mark such as — or n/a.']);
+    expect(r.diagnostics[1]!.message).toMatch(/marks the linking number as not applicable, but `hopf` has one/);
+    expect(r.diagnostics[1]!.computed).toBe('1');
+    expect(r.diagnostics[2]!.computed).toBe('2');
+  });
+
+  it('linking is a fill-in in prose; of a knot it is claim-inapplicable', async () => {
+    const text = `${DIAGRAMS}Here lk = :linking{of=hopf}, and :linking{of=t3}.\n`;
+    const r = await processMarkdown(text);
+    expect(r.built).toContain('Here lk = $1$, and :linking{of=t3}.');
+    expect(placed(r.diagnostics)).toEqual(['error claim-inapplicable 12:34']);
+  });
+
+  it('a crossing-number range fills a cell as a compact range and prose as a phrase', async () => {
+    const text = `${DIAGRAMS}In prose :crossing-number{of=wide}.\n\n:::invariants\n| diagram | crossing number |\n|---|---|\n| wide | |\n| wide | $3\\textrm{--}6$ |\n| wide | 3–6 |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toContain('In prose between $3$ and $6$.');
+    expect(r.built).toContain('| wide | $3\\textrm{--}6$ |');
+  });
+});
+
+describe('LaTeX: the same, through the shared session', () => {
+  const paper = [
+    '\\documentclass{article}',
+    '\\usepackage{skeinproof}',
+    '\\begin{document}',
+    '\\begin{skeincode}{id=t3, notation=braid}',
+    '1 1 1',
+    '\\end{skeincode}',
+    '\\begin{skeincode}{id=hopf, notation=braid}',
+    '1 1',
+    '\\end{skeincode}',
+    '\\begin{skeincode}{id=wide, notation=braid}',
+    '1 -2 2 1 -2 1',
+    '\\end{skeincode}',
+    'Linking number \\skeinvalue{hopf}{linking}.',
+    '\\begin{skeintable}{id, linking, crossing-number}',
+    '\\begin{tabular}{lll}',
+    'Diagram & lk & $c$ \\\\',
+    't3 & & \\\\',
+    't3 & --- & \\\\',
+    'hopf & & \\\\',
+    'wide & $-$ & \\\\',
+    '\\end{tabular}',
+    '\\end{skeintable}',
+    '\\end{document}',
+    '',
+  ].join('\n');
+
+  it('fills the link row, leaves the knot rows, and writes the range compactly', () => {
+    const doc = readLatexManuscript('/paper/paper.tex', memoryFiles({ 'paper.tex': paper }));
+    expect(doc.diagnostics).toEqual([]);
+    const session = runSession({ diagrams: doc.diagrams, claims: doc.claims, fills: doc.fills.map((f) => f.entry), convention: DEFAULT_CONVENTION });
+    expect(session.diagnostics).toEqual([]);
+    const sidecar = sidecarText(doc, session.fills);
+    expect(sidecar).toContain('\\skein@value{hopf}{linking}{m}{1}');
+    expect(sidecar).toContain('\\skein@cell{1}{2}{2}{t}{}'); // t3: not applicable, an empty cell
+    expect(sidecar).toContain('\\skein@cell{1}{4}{2}{m}{1}');
+    expect(sidecar).toContain('\\skein@cell{1}{5}{3}{m}{3\\textrm{--}6}');
+    const flat = flatText(doc, session.fills);
+    expect(flat).toContain('Linking number $1$.');
+    expect(flat).toContain('wide & $-$ & \\ensuremath{3\\textrm{--}6} \\\\');
+  });
+});
