@@ -115,10 +115,10 @@ describe('bracket normalisations round-trip hand-worked values', () => {
 
 describe('convention settings from key/value strings', () => {
   it('reads every key, case-insensitively, onto the default', () => {
-    const r = parseConventionSettings({ jones: 'q', Bracket: 'LOOP', order: 'descending', 'half-powers': 'root', signature: 'positive' });
+    const r = parseConventionSettings({ jones: 'q', Bracket: 'LOOP', order: 'descending', 'half-powers': 'root', signature: 'positive', Khovanov: 'Q-Inverse' });
     expect(r).toEqual({
       ok: true,
-      convention: { jonesVariable: 'q', bracketNormalization: 'loop', termOrder: 'descending', halfPowers: 'root', signatureSign: 'positive' },
+      convention: { jonesVariable: 'q', bracketNormalization: 'loop', termOrder: 'descending', halfPowers: 'root', signatureSign: 'positive', khovanovGrading: 'q-inverse' },
     });
   });
   it('accepts the field names as keys', () => {

@@ -28,12 +28,22 @@ export type HalfPowerStyle = 'power' | 'root';
  */
 export type SignatureSign = 'negative' | 'positive';
 
+/**
+ * How Khovanov homology is graded (the right-handed trefoil in each):
+ * - `standard`: cohomological degree t, quantum degree q, q + q³ + t²q⁵ + t³q⁹, ℤ/2 at (3, 7);
+ * - `q-inverse`: the quantum grading negated, q⁻¹ + q⁻³ + t²q⁻⁵ + t³q⁻⁹;
+ * - `homological`: homological indexing (t ↦ t⁻¹), q + q³ + t⁻²q⁵ + t⁻³q⁹;
+ * - `mirror`: the groups of the mirror image, q⁻¹ + q⁻³ + t⁻²q⁻⁵ + t⁻³q⁻⁹, ℤ/2 at (−2, −7).
+ */
+export type KhovanovGrading = 'standard' | 'q-inverse' | 'homological' | 'mirror';
+
 export interface Convention {
   readonly jonesVariable: JonesVariable;
   readonly bracketNormalization: BracketNormalization;
   readonly termOrder: TermOrder;
   readonly halfPowers: HalfPowerStyle;
   readonly signatureSign: SignatureSign;
+  readonly khovanovGrading: KhovanovGrading;
 }
 
 export const DEFAULT_CONVENTION: Convention = {
@@ -42,4 +52,5 @@ export const DEFAULT_CONVENTION: Convention = {
   termOrder: 'ascending',
   halfPowers: 'power',
   signatureSign: 'negative',
+  khovanovGrading: 'standard',
 };

@@ -26,6 +26,7 @@ export const CONVENTION_SETTINGS: readonly SettingSpec[] = [
   { key: 'order', field: 'termOrder', values: ['ascending', 'descending'], meaning: 'the order of terms in typeset polynomials' },
   { key: 'half-powers', field: 'halfPowers', values: ['power', 'root'], meaning: 'how t^{1/2} is typeset' },
   { key: 'signature', field: 'signatureSign', values: ['negative', 'positive'], meaning: 'the sign of the signature of the positive trefoil' },
+  { key: 'khovanov', field: 'khovanovGrading', values: ['standard', 'q-inverse', 'homological', 'mirror'], meaning: 'the grading of Khovanov homology' },
 ];
 
 /** Where each key and value was written, for settings read from one string (the CLI flag). */

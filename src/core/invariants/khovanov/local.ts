@@ -76,11 +76,16 @@ export interface ArcComplex {
   readonly entries: readonly (readonly [from: number, to: number, plain: number, dotted: number])[];
   readonly nPlus: number;
   readonly nMinus: number;
+  /** Work units spent (for the benchmark and the budget). */
+  readonly work: number;
 }
 
 const A_PARTNER = [1, 0, 3, 2];
 const B_PARTNER = [3, 2, 1, 0];
-export const DEFAULT_WORK_BUDGET = 4e8;
+/** Work units charged per gluing or composition on top of its terms (about 10⁶ units per second on the development machine). */
+const WORK_PER_CALL = 16;
+/** About half a minute of work; the deformed run for s gets the same again. */
+export const DEFAULT_WORK_BUDGET = 2e7;
 /** Boundary widths beyond this need more matchings (and loop bits) than the engine keeps. */
 export const MAX_KHOVANOV_WIDTH = 30;
 
@@ -333,7 +338,7 @@ class Stage {
     const boundaryPiece = new Int32Array(lr.count);
     for (let p = 0; p < w; p++) boundaryPiece[lr.loopOf[p]!] = lf.loopOf[p]!;
     const comps = surface.finish(boundaryPiece, lf.count + lg.count);
-    this.tick(f.size * g.size * (1 + comps.size));
+    this.tick(WORK_PER_CALL + f.size * g.size * (1 + comps.size));
     for (const [maskF, cf] of f) {
       for (const [maskG, cg] of g) {
         const dots = new Map<number, number>();
@@ -463,7 +468,7 @@ function absorb(stage: Stage, plan: StepPlan): Stage {
       glued[id]![smoothing] = { matching, circles, objects };
     }
   });
-  stage.tick(2 * stage.objects.length);
+  stage.tick(2 * WORK_PER_CALL * stage.objects.length);
 
   // Scratch loops of an old entry m → m′ with the same smoothing on both ends.
   const identityLoops = (loops: PairLoops, smoothing: number): { loopOf: Int32Array; count: number } => {
@@ -520,7 +525,7 @@ function glueEntry(
   const sourceRoots = source.circles.map((x) => surface.find(scratch.loopOf[x]!));
   const targetRoots = target.circles.map((x) => surface.find(scratch.loopOf[x]!));
   const deformed = next.theory === 'deformed';
-  next.tick(morph.size * source.objects.length * target.objects.length * (1 + comps.size));
+  next.tick(WORK_PER_CALL + morph.size * source.objects.length * target.objects.length * (1 + comps.size));
   for (const [mask, coefficient] of morph) {
     const baseDots = new Map<number, number>();
     for (let i = 0; i < scratch.count; i++) if ((mask >> i) & 1) bump(baseDots, surface.find(i));
@@ -574,7 +579,7 @@ export function arcComplex(d: LinkDiagram, theory: Theory, options: LocalOptions
     for (const [to, morph] of o.out) entries.push([id, to, morph.get(0) ?? 0, morph.get(1) ?? 0]);
   });
   const nMinus = d.crossings.filter((c) => c.sign === -1).length;
-  return { theory, objects: stage.objects.map((o) => ({ h: o.h, s: o.s })), entries, nPlus: n - nMinus, nMinus };
+  return { theory, objects: stage.objects.map((o) => ({ h: o.h, s: o.s })), entries, nPlus: n - nMinus, nMinus, work: meter.work };
 }
 
 /** Closes the arc: each object becomes a circle, labelled 1 (q + 1) or X (q − 1). */

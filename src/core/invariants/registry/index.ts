@@ -24,6 +24,7 @@ import { conwayInvariant } from '../registered/conway.ts';
 import { determinantInvariant } from '../registered/determinant.ts';
 import { signatureInvariant } from '../registered/signature.ts';
 import { genusInvariant } from '../registered/genus.ts';
+import { khovanovInvariant } from '../registered/khovanov.ts';
 
 export type * from './types.ts';
 
@@ -47,6 +48,7 @@ export const INVARIANTS: readonly Invariant[] = [
   determinantInvariant,
   signatureInvariant,
   genusInvariant,
+  khovanovInvariant,
 ];
 
 const claimSpecs = new Map<string, ClaimSpec>();

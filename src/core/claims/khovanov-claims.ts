@@ -1,0 +1,399 @@
+/**
+ * Claims and fill-ins about Khovanov homology: the rational Poincaré
+ * polynomial (unreduced and reduced), the rank and the torsion at one
+ * bidegree, the homological width, thinness and Rasmussen's s, all read and
+ * typeset in the document's Khovanov grading (convention.ts).
+ *
+ * The values come from one computation per diagram (invariants/khovanov),
+ * kept with the diagram; a diagram beyond the engine's budget is reported once
+ * as `khovanov-over-limit`, never a hang.
+ */
+import type { DiagramReport } from '../analyze/report.ts';
+import type { Convention, KhovanovGrading } from '../convention/convention.ts';
+import { InputError } from '../errors.ts';
+import { khovanovReport, isOverBudget, type KhovanovHomology, type KhovanovReport } from '../invariants/khovanov/index.ts';
+import { primaryParts } from '../invariants/khovanov/homology.ts';
+import { mirrorDiagram } from '../diagram/model.ts';
+import { quantity, valueOf } from '../invariants/registry/lazy.ts';
+import type { Diagnosis, JudgeContext, Judgement, Typeset } from './api.ts';
+import { UNREADABLE, readInteger } from './latex-poly-parser.ts';
+import { readYesNo } from './scalar-claims.ts';
+
+export const KHOVANOV_OVER_LIMIT = 'khovanov-over-limit';
+
+type Outcome = { readonly ok: true; readonly value: KhovanovReport } | { readonly ok: false; readonly error: InputError };
+
+const khovanovValue = quantity<Outcome>('khovanov', (report) => {
+  try {
+    return { ok: true, value: khovanovReport(report.diagram) };
+  } catch (e) {
+    if (!isOverBudget(e)) throw e;
+    const n = report.diagram.crossings.length;
+    return {
+      ok: false,
+      error: new InputError(
+        KHOVANOV_OVER_LIMIT,
+        `Khovanov homology of this ${n}-crossing diagram is over the limit of the computation (${e.message}); ` +
+          'give a diagram of the same link with fewer crossings or fewer strands, or leave out the Khovanov claims for it',
+      ),
+    };
+  }
+});
+
+/** The Khovanov data of the report's diagram (computed once); throws `khovanov-over-limit` beyond the budget. */
+export function khovanovOf(report: DiagramReport): KhovanovReport {
+  const outcome = valueOf(report, khovanovValue);
+  if (!outcome.ok) throw outcome.error;
+  return outcome.value;
+}
+
+/** Bigraded groups in a document's grading: ranks and torsion by "i,j". */
+interface Graded {
+  readonly ranks: Map<string, number>;
+  /** Prime-power orders (sorted) by "i,j". */
+  readonly torsion: Map<string, number[]>;
+}
+
+const at = (i: number, j: number): string => `${i + 0},${j + 0}`;
+
+/** Relabels the computed (standard) homology into `grading`. */
+export function inGrading(h: KhovanovHomology, grading: KhovanovGrading): Graded {
+  const rankMove = (i: number, j: number): [number, number] =>
+    grading === 'q-inverse' ? [i, -j] : grading === 'homological' ? [-i, j] : grading === 'mirror' ? [-i, -j] : [i, j];
+  // The mirror's torsion sits one step up (universal coefficients): ℤ/n at (i, j) moves to (1 − i, −j).
+  const torsionMove = (i: number, j: number): [number, number] => (grading === 'mirror' ? [1 - i, -j] : rankMove(i, j));
+  const ranks = new Map<string, number>();
+  for (const [i, j, r] of h.ranks) ranks.set(at(...rankMove(i, j)), r);
+  const torsion = new Map<string, number[]>();
+  for (const [i, j, order, m] of h.torsion) {
+    const k = at(...torsionMove(i, j));
+    const list = torsion.get(k) ?? [];
+    for (let c = 0; c < m; c++) list.push(order);
+    torsion.set(k, list.sort((a, b) => a - b));
+  }
+  return { ranks, torsion };
+}
+
+const GRADING_SLIPS: Record<KhovanovGrading, string> = {
+  standard: 'the standard grading (t cohomological, right-handed trefoil q + q³ + t²q⁵ + t³q⁹)',
+  'q-inverse': 'the quantum grading negated (q ↦ q⁻¹)',
+  homological: 'homological indexing (t ↦ t⁻¹)',
+  mirror: 'the mirror convention (t ↦ t⁻¹ and q ↦ q⁻¹)',
+};
+
+// ---------------------------------------------------------------- reading
+
+/** A Poincaré polynomial as the author wrote it: "i,j" → coefficient. */
+export function readPoincarePolynomial(text: string): Map<string, number> {
+  const terms = new Map<string, number>();
+  let value = text;
+  let offset = 0;
+  const eq = text.lastIndexOf('=');
+  if (eq >= 0) {
+    value = text.slice(eq + 1);
+    offset = eq + 1;
+  }
+  const fail = (message: string, start: number, end: number): never => {
+    throw new InputError(UNREADABLE, message, { start: offset + start, end: offset + end });
+  };
+  const s = value.replace(/\$/g, ' ');
+  let p = 0;
+  const skipSpace = (): void => {
+    for (;;) {
+      const rest = s.slice(p);
+      const m = /^(\s+|\\[,;:! ]|\\cdot\b|\\quad\b|\{\}|\\left\b|\\right\b)/.exec(rest);
+      if (!m) return;
+      p += m[0].length;
+    }
+  };
+  const readExponent = (): number => {
+    skipSpace();
+    const m = /^(\{\s*([+\-−]?)\s*(\d+)\s*\}|([+\-−]?)(\d))/.exec(s.slice(p));
+    if (!m) fail('an exponent must be an integer, as q^{-3} or t^2', p, Math.min(s.length, p + 1));
+    p += m![0].length;
+    const sign = (m![2] ?? m![4]) === '-' || (m![2] ?? m![4]) === '−' ? -1 : 1;
+    return sign * Number(m![3] ?? m![5]);
+  };
+  skipSpace();
+  if (p >= s.length) fail('the claim is empty: write the Poincaré polynomial, e.g. q + q^3 + t^2 q^5 + t^3 q^9', 0, text.length - offset);
+  for (;;) {
+    skipSpace();
+    const termStart = p;
+    let coefficient = 1;
+    const digits = /^\d+/.exec(s.slice(p));
+    if (digits) {
+      coefficient = Number(digits[0]);
+      p += digits[0].length;
+    }
+    let i = 0;
+    let j = 0;
+    let factors = digits ? 1 : 0;
+    for (;;) {
+      skipSpace();
+      const c = s[p];
+      if (c !== 't' && c !== 'q') break;
+      p++;
+      skipSpace();
+      let e = 1;
+      if (s[p] === '^') {
+        p++;
+        e = readExponent();
+      }
+      if (c === 't') i += e;
+      else j += e;
+      factors++;
+    }
+    if (factors === 0) {
+      const bad = s[p] ?? '';
+      if (bad === '-' || bad === '−') fail('a Poincaré polynomial has no negative coefficients (ranks are counted, not signed); the graded Euler characteristic is claimed as the Jones polynomial instead', p, p + 1);
+      fail(`unexpected \`${bad}\`: a Poincaré polynomial is a sum of terms like 2t^{3}q^{-7} in t and q`, p, p + 1);
+    }
+    if (!Number.isSafeInteger(coefficient)) fail('this coefficient is too large to be a rank', termStart, p);
+    const k = at(i, j);
+    terms.set(k, (terms.get(k) ?? 0) + coefficient);
+    skipSpace();
+    if (p >= s.length) break;
+    if (s[p] !== '+') {
+      if (s[p] === '-' || s[p] === '−') fail('a Poincaré polynomial has no negative coefficients (ranks are counted, not signed)', p, p + 1);
+      fail(`unexpected \`${s[p]}\`: terms of a Poincaré polynomial are joined by +`, p, p + 1);
+    }
+    p++;
+  }
+  for (const [k, v] of terms) if (v === 0) terms.delete(k);
+  return terms;
+}
+
+/** "i, j" or "(i, j)" before ":" or "=", then the rest; throws `claim-unreadable`. */
+function readBidegree(text: string, what: string): { i: number; j: number; rest: string; restStart: number } {
+  const m = /^\s*\$?\s*\(?\s*([+\-−]?\d+)\s*,\s*([+\-−]?\d+)\s*\)?\s*[:=]\s*/.exec(text);
+  if (!m) {
+    throw new InputError(UNREADABLE, `a ${what} claim names the bidegree first, as \`3, 7: ...\` or \`(3, 7) = ...\` (homological degree, then quantum degree)`, {
+      start: 0,
+      end: text.length,
+    });
+  }
+  const num = (x: string): number => Number(x.replace('−', '-'));
+  return { i: num(m[1]!), j: num(m[2]!), rest: text.slice(m[0].length), restStart: m[0].length };
+}
+
+/** A finite abelian torsion group: 0, or ℤ/n summands joined by ⊕ (ℤ/n, Z/n, \mathbb{Z}/n, \mathbb{Z}_n, (ℤ/2)^2). */
+export function readTorsionGroup(text: string, offset = 0): number[] {
+  const bare = text.replace(/\$/g, ' ').trim().replace(/[.;]$/, '');
+  if (/^0$|^\\?\{?0\}?$|^\\mathbf\{0\}$/.test(bare)) return [];
+  const orders: number[] = [];
+  const parts = bare.split(/\\oplus|⊕|\+/);
+  for (const part of parts) {
+    const m = /^\s*\(?\s*(?:\\mathbb\{Z\}|\\mathbf\{Z\}|ℤ|Z)\s*(?:\/\s*\{?\s*(\d+)\s*\}?|_\s*\{?\s*(\d+)\s*\}?)\s*\)?\s*(?:\^\s*\{?\s*(\d+)\s*\}?)?\s*$/.exec(part);
+    if (!m) {
+      throw new InputError(UNREADABLE, `\`${part.trim()}\` is not a cyclic group: write the torsion as 0 or as summands like \\mathbb{Z}/2 \\oplus \\mathbb{Z}/4`, {
+        start: offset,
+        end: offset + text.length,
+      });
+    }
+    const order = Number(m[1] ?? m[2]);
+    const times = m[3] === undefined ? 1 : Number(m[3]);
+    if (order < 2) continue;
+    for (let c = 0; c < times; c++) for (const q of primaryParts(BigInt(order))) orders.push(Number(q));
+  }
+  return orders.sort((a, b) => a - b);
+}
+
+// ---------------------------------------------------------------- typesetting
+
+function monomial(i: number, j: number): string {
+  const power = (x: string, e: number): string => (e === 0 ? '' : e === 1 ? x : `${x}^{${e}}`);
+  return power('t', i) + power('q', j);
+}
+
+/** Σ rank·t^i q^j in the given order (by i, then j). */
+export function poincareLatex(ranks: Map<string, number>, convention: Convention): string {
+  const entries = [...ranks].map(([k, r]) => [...(k.split(',').map(Number) as [number, number]), r] as const);
+  entries.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  if (convention.termOrder === 'descending') entries.reverse();
+  if (entries.length === 0) return '0';
+  return entries.map(([i, j, r]) => (r === 1 ? monomial(i, j) || '1' : `${r}${monomial(i, j)}`)).join(' + ');
+}
+
+const groupLatex = (orders: readonly number[]): string => (orders.length === 0 ? '0' : orders.map((o) => `\\mathbb{Z}/${o}`).join(' \\oplus '));
+
+export function khovanovFill(key: 'khovanov' | 'khovanov-reduced' | 'khovanov-width' | 'rasmussen', report: DiagramReport, convention: Convention): Typeset {
+  const kh = khovanovOf(report);
+  switch (key) {
+    case 'khovanov':
+      return { kind: 'math', latex: poincareLatex(inGrading(kh.homology, convention.khovanovGrading).ranks, convention) };
+    case 'khovanov-reduced':
+      if (!kh.reduced) return KNOTS_ONLY;
+      return { kind: 'math', latex: poincareLatex(inGrading(kh.reduced, convention.khovanovGrading).ranks, convention) };
+    case 'khovanov-width':
+      return { kind: 'math', latex: String(kh.width) };
+    case 'rasmussen':
+      if (kh.rasmussen === null) return KNOTS_ONLY;
+      return { kind: 'math', latex: String(kh.rasmussen) };
+  }
+}
+
+/** A knot-only value asked of a link. */
+const KNOTS_ONLY: Typeset = { kind: 'text', text: '(defined for knots only)' };
+
+function inapplicable(what: string, report: DiagramReport): InputError {
+  return new InputError('claim-inapplicable', `${what} is defined here for knots, but this diagram has ${report.components} components; remove the claim or attach it to a knot`);
+}
+
+// ---------------------------------------------------------------- judging
+
+const sameMap = <V>(a: Map<string, V>, b: Map<string, V>): boolean =>
+  a.size === b.size && [...a].every(([k, v]) => JSON.stringify(b.get(k)) === JSON.stringify(v));
+
+/** The claim as computed times t^a q^b, if it is one. */
+function shiftOf(claim: Map<string, number>, computed: Map<string, number>): [number, number] | undefined {
+  if (claim.size !== computed.size || claim.size === 0) return undefined;
+  const key = (m: Map<string, number>): [number, number][] =>
+    [...m.keys()].map((k) => k.split(',').map(Number) as [number, number]).sort((x, y) => x[0] - y[0] || x[1] - y[1]);
+  const [c0] = key(claim);
+  const [k0] = key(computed);
+  const [a, b] = [c0![0] - k0![0], c0![1] - k0![1]];
+  if (a === 0 && b === 0) return undefined;
+  for (const [k, r] of computed) {
+    const [i, j] = k.split(',').map(Number) as [number, number];
+    if (claim.get(at(i + a, j + b)) !== r) return undefined;
+  }
+  return [a, b];
+}
+
+/** The mirror image's homology (computed once per diagram). */
+const mirrorValue = quantity<KhovanovReport | undefined>('khovanov-mirror', (report) => {
+  try {
+    return khovanovReport(mirrorDiagram(report.diagram));
+  } catch (e) {
+    if (isOverBudget(e)) return undefined;
+    throw e;
+  }
+});
+
+function mirrorAgreement(noun: string, computedText: string, claimedText: string, key: string, diagnosis: Diagnosis): Judgement {
+  return {
+    key,
+    claimed: claimedText,
+    computed: computedText,
+    verdict: 'agrees',
+    diagnosis,
+    reason: `the claim is the ${noun} of the mirror image, which a DT code cannot tell apart from the diagram itself`,
+    warning: `a DT code fixes the knot only up to mirror image; the claim matches the mirror, the code's own ${noun} is ${computedText}`,
+  };
+}
+
+export function judgePoincareClaim(key: 'khovanov' | 'khovanov-reduced', text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  const claim = readPoincarePolynomial(text);
+  const kh = khovanovOf(report);
+  const reduced = key === 'khovanov-reduced';
+  const noun = reduced ? 'reduced Khovanov Poincaré polynomial' : 'Khovanov Poincaré polynomial';
+  const own = reduced ? kh.reduced : kh.homology;
+  if (!own) throw inapplicable('reduced Khovanov homology', report);
+  const grading = ctx.convention.khovanovGrading;
+  const computed = inGrading(own, grading).ranks;
+  const computedText = poincareLatex(computed, ctx.convention);
+  const base = { key, claimed: text, computed: computedText };
+  if (sameMap(claim, computed)) return { ...base, verdict: 'agrees', reason: `the ${noun} is ${computedText}` };
+  const diagnosis = poincareSlip(claim, own, grading, reduced, kh, report);
+  if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) return mirrorAgreement(noun, computedText, text, key, diagnosis);
+  return {
+    ...base,
+    verdict: 'contradicts',
+    ...(diagnosis ? { diagnosis } : {}),
+    reason: `the ${noun} is ${computedText}, not ${poincareLatex(claim, ctx.convention)}${diagnosis ? `: ${diagnosis.detail}` : ''}`,
+  };
+}
+
+function poincareSlip(
+  claim: Map<string, number>,
+  own: KhovanovHomology,
+  grading: KhovanovGrading,
+  reduced: boolean,
+  kh: KhovanovReport,
+  report: DiagramReport,
+): Diagnosis | undefined {
+  const mirror = valueOf(report, mirrorValue);
+  const mirrorOwn = mirror ? (reduced ? mirror.reduced : mirror.homology) : undefined;
+  if (mirrorOwn && sameMap(claim, inGrading(mirrorOwn, grading).ranks)) {
+    return { kind: 'mirror', detail: 'the claim is the Poincaré polynomial of the mirror image (t ↦ t⁻¹, q ↦ q⁻¹)' };
+  }
+  for (const other of ['standard', 'q-inverse', 'homological'] as const) {
+    if (other !== grading && sameMap(claim, inGrading(own, other).ranks)) {
+      return { kind: 'normalization', detail: `the claim is written in ${GRADING_SLIPS[other]}, but this document declares ${GRADING_SLIPS[grading]}` };
+    }
+  }
+  const counterpart = reduced ? kh.homology : kh.reduced;
+  if (counterpart && sameMap(claim, inGrading(counterpart, grading).ranks)) {
+    return {
+      kind: 'normalization',
+      detail: reduced ? 'the claim is the unreduced Poincaré polynomial, but the key asks for the reduced one' : 'the claim is the reduced Poincaré polynomial, but the key asks for the unreduced one',
+    };
+  }
+  const shift = shiftOf(claim, inGrading(own, grading).ranks);
+  if (shift) {
+    return { kind: 'shifted', detail: `the claim is the right polynomial times ${monomial(shift[0], shift[1])}: a grading shift (check the normalisation [−n₋]{n₊ − 2n₋})` };
+  }
+  return undefined;
+}
+
+/** The rank or the torsion at one bidegree. */
+export function judgeBidegreeClaim(key: 'khovanov-rank' | 'khovanov-torsion', text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  const torsionClaim = key === 'khovanov-torsion';
+  const { i, j, rest, restStart } = readBidegree(text, torsionClaim ? 'Khovanov torsion' : 'Khovanov rank');
+  const kh = khovanovOf(report);
+  const grading = ctx.convention.khovanovGrading;
+  const graded = inGrading(kh.homology, grading);
+  const place = `(${i}, ${j})`;
+  const valueAt = (g: Graded, a: number, b: number): string =>
+    torsionClaim ? groupLatex(g.torsion.get(at(a, b)) ?? []) : String(g.ranks.get(at(a, b)) ?? 0);
+  const claimed = torsionClaim ? groupLatex(readTorsionGroup(rest, restStart)) : String(readInteger(rest, 'a rank'));
+  const computed = valueAt(graded, i, j);
+  const noun = torsionClaim ? `torsion of Khovanov homology at ${place}` : `rank of Khovanov homology at ${place}`;
+  const base = { key, claimed: text, computed };
+  if (claimed === computed) return { ...base, verdict: 'agrees', reason: `the ${noun} is ${computed}` };
+  let diagnosis: Diagnosis | undefined;
+  const mirror = valueOf(report, mirrorValue);
+  if (mirror && valueAt(inGrading(mirror.homology, grading), i, j) === claimed) {
+    diagnosis = { kind: 'mirror', detail: 'the claim is the value of the mirror image at this bidegree' };
+  } else {
+    for (const other of ['standard', 'q-inverse', 'homological'] as const) {
+      if (other !== grading && valueAt(inGrading(kh.homology, other), i, j) === claimed) {
+        diagnosis = { kind: 'normalization', detail: `the claim is the value at this bidegree in ${GRADING_SLIPS[other]}, but this document declares ${GRADING_SLIPS[grading]}` };
+        break;
+      }
+    }
+  }
+  if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) return mirrorAgreement(noun, computed, text, key, diagnosis);
+  return { ...base, verdict: 'contradicts', ...(diagnosis ? { diagnosis } : {}), reason: `the ${noun} is ${computed}, not ${claimed}${diagnosis ? `: ${diagnosis.detail}` : ''}` };
+}
+
+export function judgeWidthClaim(text: string, report: DiagramReport): Judgement {
+  const claimed = readInteger(text, 'a homological width');
+  const kh = khovanovOf(report);
+  const computed = String(kh.width);
+  const verdict = claimed === BigInt(kh.width) ? 'agrees' : 'contradicts';
+  const reason = `rational Khovanov homology spans ${kh.width} diagonal${kh.width === 1 ? '' : 's'} j − 2i`;
+  return { key: 'khovanov-width', claimed: text, computed, verdict, reason: verdict === 'agrees' ? reason : `${reason}, not ${claimed}` };
+}
+
+export function judgeThinClaim(text: string, report: DiagramReport): Judgement {
+  const claimed = readYesNo(text, 'Khovanov-thin');
+  const kh = khovanovOf(report);
+  const reason = `rational Khovanov homology spans ${kh.width} diagonal${kh.width === 1 ? '' : 's'} j − 2i, so the link is ${kh.thin ? '' : 'not '}thin`;
+  return { key: 'thin', claimed: text, computed: kh.thin ? 'yes' : 'no', verdict: claimed === kh.thin ? 'agrees' : 'contradicts', reason };
+}
+
+export function judgeRasmussenClaim(text: string, report: DiagramReport): Judgement {
+  const claimed = readInteger(text, "Rasmussen's s");
+  const kh = khovanovOf(report);
+  if (kh.rasmussen === null) throw inapplicable("Rasmussen's s", report);
+  const s = kh.rasmussen;
+  const computed = String(s);
+  const base = { key: 'rasmussen', claimed: text, computed };
+  const bound = `so the slice genus is at least ${Math.abs(s) / 2}`;
+  if (claimed === BigInt(s)) return { ...base, verdict: 'agrees', reason: `s = ${s} (Rasmussen, Invent. Math. 182 (2010)), ${bound}` };
+  const diagnosis: Diagnosis | undefined =
+    s !== 0 && claimed === BigInt(-s) ? { kind: 'mirror', detail: 'the claim is −s: the value of the mirror image (s(right-handed trefoil) = 2 here)' } : undefined;
+  if (diagnosis && !report.chiralityFixed) return mirrorAgreement("Rasmussen invariant", computed, text, 'rasmussen', diagnosis);
+  return { ...base, verdict: 'contradicts', ...(diagnosis ? { diagnosis } : {}), reason: `s = ${s}, not ${claimed}${diagnosis ? `: ${diagnosis.detail}` : ''}` };
+}
