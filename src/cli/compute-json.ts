@@ -11,6 +11,17 @@ import type { InputError } from '../core/errors.ts';
 import { isLimitError } from '../core/limits.ts';
 import type { TextSpan } from '../core/diagnostics/diagnostic.ts';
 import { INVARIANTS } from '../core/invariants/registry/index.ts';
+import { printDtCode, printGaussCode, printPdCode } from '../core/notation/print.ts';
+import type { LinkDiagram } from '../core/diagram/model.ts';
+
+/** A diagram in each notation that can write it: PD (no free loops), Gauss (always), DT (knots). */
+export function simplifiedCodes(d: LinkDiagram): Record<string, string> {
+  const codes: Record<string, string> = {};
+  if (d.freeLoops === 0 && d.crossings.length > 0) codes.pd = printPdCode(d);
+  codes.gauss = printGaussCode(d);
+  if (d.components.length === 1 && d.freeLoops === 0) codes.dt = printDtCode(d);
+  return codes;
+}
 
 /**
  * The code, its notation, whether the notation fixes chirality, and one field per JSON field of each
@@ -53,6 +64,12 @@ export function computeJson(code: string, r: DiagramReport, convention: Conventi
         notComputed[field.field] = errorJson(error);
       }
     }
+  }
+  try {
+    json.simplified = r.simplified ? { crossings: r.simplified.diagram.crossings.length, moves: { ...r.simplified.moves }, codes: simplifiedCodes(r.simplified.diagram) } : null;
+  } catch (error) {
+    if (!isLimitError(error)) throw error;
+    notComputed.simplified = errorJson(error);
   }
   if (Object.keys(notComputed).length > 0) json['notComputed'] = notComputed;
   return json as ComputeJson;

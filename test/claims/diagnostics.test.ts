@@ -42,7 +42,7 @@ describe('judgementToDiagnostics', () => {
     expect(ds[0]!.hints).toEqual(['No common slip explains the difference: recheck the whole value rather than one term or sign.']);
   });
   it('warns on an undecided crossing number and names the theorem in the data', () => {
-    const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));
+    const report = analyzeDiagram(closeBraid([1, 1, 1, -2, -1, -1, -1, -2], 3));
     const [d] = diagnose('crossing-number', `${report.crossingNumber.lower + 1}`, report);
     expect(d).toMatchObject({ severity: 'warning', ruleId: 'claim-undecided', data: { verdict: 'undecided', theorem: 'kauffman-murasugi-thistlethwaite' } });
   });

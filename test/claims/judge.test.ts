@@ -300,7 +300,7 @@ describe('crossing-number claims against proven bounds', () => {
     expect(judge('crossing-number', '7', report).verdict).toBe('contradicts');
   });
   it('undecided when the bounds do not meet, giving both bounds and why', () => {
-    const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));
+    const report = analyzeDiagram(closeBraid([1, 1, 1, -2, -1, -1, -1, -2], 3));
     const { lower, upper } = report.crossingNumber;
     expect(lower).toBeLessThan(upper);
     const j = judge('crossing-number', `${lower + 1}`, report);
@@ -322,7 +322,7 @@ describe('crossing-number claims against proven bounds', () => {
     expect(judge('crossing-number', 'c(K) > 3').reason).toContain('not more than 3');
   });
   it('judges a two-sided range: agrees only when both bounds confirm it, naming both theorems', () => {
-    const report = analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3));
+    const report = analyzeDiagram(closeBraid([1, 1, 1, -2, -1, -1, -1, -2], 3));
     const { lower, upper } = report.crossingNumber;
     for (const claim of [`${lower} \\le c(K) \\le ${upper}`, `${lower - 1} < c < ${upper + 1}`, `${upper} \\ge c(K) \\ge ${lower}`, `between ${lower} and ${upper}`]) {
       const j = judge('crossing-number', claim, report);

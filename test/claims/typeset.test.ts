@@ -35,7 +35,7 @@ const named: [string, DiagramReport][] = [
   ['figure-eight', analyzeDiagram(closeBraid([1, -2, 1, -2], 3))],
   ['a 3-component link', analyzeDiagram(closeBraid([1, 1, 2, 2], 3))],
   ['a non-reduced trefoil', analyzeDiagram(closeBraid([1, 1, 1, 2], 3))],
-  ['an undecided diagram', analyzeDiagram(closeBraid([1, -2, 2, 1, -2, 1], 3))],
+  ['an undecided diagram', analyzeDiagram(closeBraid([1, 1, 1, -2, -1, -1, -1, -2], 3))],
   ['a split diagram', analyzeDiagram(closeBraid([1, 1, 1], 3))],
 ];
 const random = rng(20261201);
@@ -104,7 +104,7 @@ describe('statements and every fill key', () => {
     expect(s.text).toContain('crossing number is $3$');
   });
   it('states the split-link span bound as span V − (μ − 1), not as span V (the bound for possibly split links, from memory)', () => {
-    const report = analyzeDiagram(closeBraid([1, -2, 1, -2, 1, -2, 2, 2], 3));
+    const report = analyzeDiagram(closeBraid([-2, -1, 2, -1, 2, -1, -2, -2], 3));
     expect(report.crossingNumber.reasons.find((r) => r.bound === 'lower')?.theorem).toBe('split-span-bound');
     const s = typesetValue('statement', report, DEFAULT_CONVENTION);
     expect(s.kind === 'text' && s.text).toContain(

@@ -10,12 +10,12 @@
 import type { Argv } from 'yargs';
 import { analyzeDiagram } from '../../core/analyze/analyze.ts';
 import type { DiagramReport, LinkingNumber } from '../../core/analyze/report.ts';
-import type { Notation } from '../../core/diagram/model.ts';
+import type { LinkDiagram, Notation } from '../../core/diagram/model.ts';
 import { isInputError, type InputError } from '../../core/errors.ts';
 import { isLimitError, type ComputeLimits, type LimitError } from '../../core/limits.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notation/index.ts';
-import { computeJson, invalidCodeJson, notComputedErrors } from '../compute-json.ts';
+import { computeJson, invalidCodeJson, notComputedErrors, simplifiedCodes } from '../compute-json.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../../core/convention/convert.ts';
@@ -88,6 +88,12 @@ export function classicalLimit(r: DiagramReport): LimitError | undefined {
   }
 }
 
+/** The smaller diagram the moves reached, in every notation that can write it, so the author can use it instead. */
+function simplifiedLines(d: LinkDiagram): string[] {
+  const codes = simplifiedCodes(d);
+  return [`  simplified to ${count(d.crossings.length, 'crossing')}:`, ...Object.entries(codes).map(([notation, code]) => `    ${notation.padEnd(6)} ${code}`)];
+}
+
 /** Δ, ∇, det and σ (in the declared sign, which the line names), and the genus bounds. */
 function classicalLines(r: DiagramReport, convention: Convention): string[] {
   // Δ costs about n³ (seconds at 300 crossings, half a minute at 1000) while the bracket of a thin
@@ -146,6 +152,7 @@ export function plainSummary(position: number, code: string, r: DiagramReport, c
   // Once a theorem fixes the value, the separate bounds add nothing for a reader; JSON keeps them all.
   const shown = c.exact !== null ? c.reasons.filter((x) => x.bound === 'exact') : c.reasons;
   for (const reason of shown) lines.push(`    ${reason.bound} ${reason.value} [${reason.theorem}]: ${reason.text}`);
+  if (r.simplified) lines.push(...simplifiedLines(r.simplified.diagram));
   if (!r.chiralityFixed) lines.push('  note: this notation fixes the link only up to mirror image');
   return lines.join('\n');
 }

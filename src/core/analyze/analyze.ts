@@ -15,9 +15,10 @@ import { kauffmanBracket } from '../invariants/bracket.ts';
 import { jonesFromBracket } from '../invariants/jones.ts';
 import { classicalInvariants } from '../invariants/classical/index.ts';
 import { defineLazy } from '../invariants/registry/lazy.ts';
-import type { DiagramReport } from './report.ts';
+import type { CrossingNumberBounds, DiagramReport } from './report.ts';
 import { describeFamily, familyOf } from '../families/identity.ts';
 import { withTimeBudget, type ComputeLimits } from '../limits.ts';
+import { describeMoves, simplifyDiagram } from '../simplify/simplify.ts';
 
 const reports = new WeakMap<LinkDiagram, DiagramReport>();
 
@@ -57,6 +58,16 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits): DiagramReport {
     withTimeBudget(limits.timeBudgetMs, 'its classical invariants (Alexander and Conway polynomials, determinant, signature)', () => classicalInvariants(d)),
   );
   const family = familyOf(d);
+  const boundInput = () => ({
+    properties: props(),
+    jonesSpan: r.jones.span,
+    // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
+    pieces: props().connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece, limits).crossingNumber),
+    ...(family ? { family } : {}),
+  });
+  let plain: CrossingNumberBounds | undefined;
+  /** The bounds without simplification: the theorems about this diagram as drawn. */
+  const plainBounds = () => (plain ??= crossingNumberBounds(boundInput()));
   const report = { diagram: d, notation: d.notation, chiralityFixed: d.chiralityFixed } as Record<string, unknown>;
   const r = report as unknown as DiagramReport;
   const fields: Record<string, () => unknown> = {
@@ -83,14 +94,19 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits): DiagramReport {
     bAdequate: () => props().bAdequate,
     adequate: () => props().adequate,
     stateCircles: () => props().stateCircles,
-    crossingNumber: () =>
-      crossingNumberBounds({
-        properties: props(),
-        jonesSpan: r.jones.span,
-        // Pieces of a disconnected diagram are connected, so this recursion is one level deep.
-        pieces: props().connected ? undefined : splitPieces(d).map((piece) => analyzeDiagram(piece, limits).crossingNumber),
-        ...(family ? { family } : {}),
-      }),
+    crossingNumber: () => {
+      const smaller = plainBounds().exact === null ? r.simplified : undefined;
+      if (!smaller) return plainBounds();
+      const simplified = { crossings: smaller.diagram.crossings.length, moves: smaller.description, bounds: analyzeDiagram(smaller.diagram, limits).crossingNumber };
+      return crossingNumberBounds({ ...boundInput(), simplified });
+    },
+    simplified: () => {
+      // Only worth a search when no theorem has decided the number without it.
+      if (plainBounds().exact !== null) return undefined;
+      const { diagram, moves } = simplifyDiagram(d);
+      if (diagram.crossings.length >= plainBounds().upper) return undefined;
+      return { diagram, moves, description: describeMoves(moves) };
+    },
     family: () => (family ? { identity: family, description: describeFamily(family, componentCount(d)) } : undefined),
     boundaryWidth: () => bracketResult().boundaryWidth,
     classical,

@@ -6,6 +6,7 @@ import type { Laurent } from '../poly/laurent.ts';
 import type { LinkDiagram, Notation } from '../diagram/model.ts';
 import type { ClassicalInvariants } from '../invariants/classical/index.ts';
 import type { FamilyIdentity } from '../families/identity.ts';
+import type { MoveCounts } from '../simplify/simplify.ts';
 
 /** Theorems a bound can rest on; the claims layer names them in its verdicts. */
 export type TheoremId =
@@ -19,6 +20,7 @@ export type TheoremId =
   | 'trivial' // no crossings / unknot facts
   | 'murasugi-torus' // c(T(p, q)) = min(|p|(|q|−1), |q|(|p|−1)) for torus knots (Murasugi 1991)
   | 'lickorish-thistlethwaite' // reduced Montesinos diagrams with ≥ 3 tangles are minimal (1988)
+  | 'reidemeister-moves' // moves that keep the link reduced the diagram: an upper bound
   | 'two-bridge-alternating'; // the continued fraction of one sign draws a reduced alternating diagram (KMT)
 
 export interface BoundReason {
@@ -27,6 +29,8 @@ export interface BoundReason {
   readonly theorem: TheoremId;
   /** One sentence, in our own words, saying why the bound holds for this diagram. */
   readonly text: string;
+  /** Set when the theorem was applied to a smaller diagram that Reidemeister moves reached: how ("3 moves (…)"). */
+  readonly afterMoves?: string;
 }
 
 export interface CrossingNumberBounds {
@@ -80,4 +84,9 @@ export interface DiagramReport {
   readonly classical: ClassicalInvariants;
   /** What the diagram is, when it was built from a family or is a literal torus braid, and how reports name it. */
   readonly family?: { readonly identity: FamilyIdentity; readonly description: string };
+  /**
+   * A diagram of the same link with fewer crossings than the upper bound from nugatory crossings, found by
+   * Reidemeister moves; only sought when the crossing number is not already exact.
+   */
+  readonly simplified?: { readonly diagram: LinkDiagram; readonly moves: MoveCounts; readonly description: string };
 }

@@ -20,9 +20,18 @@ export interface CrossingBoundInput {
   readonly pieces?: readonly CrossingNumberBounds[];
   /** What the diagram is, when it was built from a family (or is a literal torus braid). */
   readonly family?: FamilyIdentity;
+  /** A smaller diagram of the same link that Reidemeister moves reached, with the bounds of its own analysis. */
+  readonly simplified?: SimplifiedBounds;
 }
 
-export function crossingNumberBounds({ properties: p, jonesSpan, pieces, family }: CrossingBoundInput): CrossingNumberBounds {
+export interface SimplifiedBounds {
+  readonly crossings: number;
+  /** How it was reached, e.g. "3 moves (2 Reidemeister II, 1 Reidemeister III)". */
+  readonly moves: string;
+  readonly bounds: CrossingNumberBounds;
+}
+
+export function crossingNumberBounds({ properties: p, jonesSpan, pieces, family, simplified }: CrossingBoundInput): CrossingNumberBounds {
   const n = p.crossings;
   if (n === 0) {
     const text = 'The diagram has no crossings, so it shows an unlink of circles, whose crossing number is 0.';
@@ -30,9 +39,21 @@ export function crossingNumberBounds({ properties: p, jonesSpan, pieces, family 
   }
 
   let lower = spanLowerBound(p, jonesSpan);
-  const upper = nugatoryUpperBound(p);
+  let upper = nugatoryUpperBound(p);
   const exactReasons = theoremsFixingTheCrossingNumber(p);
   if (family) exactReasons.push(...familyTheorems(p, family));
+  if (simplified && simplified.crossings < upper.value) {
+    upper = reason('upper', simplified.crossings, 'reidemeister-moves', `Reidemeister moves reduce the diagram to ${simplified.crossings} crossing${simplified.crossings === 1 ? '' : 's'}, by ${simplified.moves}; the moves keep the link, so c ≤ ${simplified.crossings}.`);
+    // What decides the smaller diagram decides the link; bounds that merely meet are found again below.
+    const smaller = simplified.bounds;
+    const smallerLower = smaller.reasons.find((r) => r.bound === 'lower');
+    if (smallerLower && smallerLower.value > lower.value) lower = { ...smallerLower, text: `After ${simplified.moves}: ${smallerLower.text}`, afterMoves: simplified.moves };
+    for (const r of smaller.reasons) {
+      if (r.bound === 'exact' && r.theorem !== 'trivial' && r.theorem !== 'nugatory-removal') {
+        exactReasons.push({ ...r, afterMoves: simplified.moves, text: `After ${simplified.moves} the diagram has ${simplified.crossings} crossing${simplified.crossings === 1 ? '' : 's'}. ${r.text}` });
+      }
+    }
+  }
   if (pieces && !p.connected) {
     const split = splitUnionBounds(pieces, p.pieces);
     if (split.lower.value > lower.value) lower = split.lower;
@@ -72,6 +93,7 @@ const THEOREM_TITLES: Readonly<Record<BoundReason['theorem'], string>> = {
   'murasugi-torus': 'Murasugi, torus knots',
   'lickorish-thistlethwaite': 'Lickorish–Thistlethwaite, reduced Montesinos diagrams',
   'two-bridge-alternating': 'Kauffman–Murasugi–Thistlethwaite, two-bridge links',
+  'reidemeister-moves': 'Reidemeister moves',
 };
 
 function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
