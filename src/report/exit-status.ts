@@ -32,9 +32,11 @@ export interface DiagnosticCounts {
   readonly errors: number;
   readonly warnings: number;
   readonly notes: number;
+  /** Crossing-number claims that rest on a source the author cites (notes of rule claim-cited). */
+  readonly cited: number;
 }
 
 export function countDiagnostics(diagnostics: readonly Diagnostic[]): DiagnosticCounts {
   const count = (s: Diagnostic['severity']) => diagnostics.filter((d) => d.severity === s).length;
-  return { errors: count('error'), warnings: count('warning'), notes: count('note') };
+  return { errors: count('error'), warnings: count('warning'), notes: count('note'), cited: diagnostics.filter((d) => d.ruleId === 'claim-cited').length };
 }

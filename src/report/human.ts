@@ -68,10 +68,11 @@ export function formatDiagnostic(d: Diagnostic, options: HumanReportOptions = {}
 }
 
 export function summaryLine(diagnostics: readonly Diagnostic[]): string {
-  const { errors, warnings, notes } = countDiagnostics(diagnostics);
+  const { errors, warnings, notes, cited } = countDiagnostics(diagnostics);
   if (errors + warnings + notes === 0) return 'no problems found';
   const part = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
-  return [part(errors, 'error'), part(warnings, 'warning'), ...(notes > 0 ? [part(notes, 'note')] : [])].join(', ');
+  const restOnSources = cited === 0 ? '' : cited === 1 ? '; 1 claim rests on a cited source' : `; ${cited} claims rest on cited sources`;
+  return [part(errors, 'error'), part(warnings, 'warning'), ...(notes > 0 ? [part(notes, 'note')] : [])].join(', ') + restOnSources;
 }
 
 /** All diagnostics, each followed by a blank line, then the summary line. */

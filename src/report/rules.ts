@@ -11,6 +11,7 @@ export interface RuleDescription {
 export const RULES: readonly RuleDescription[] = [
   { id: 'claim-contradicted', description: 'A value stated in the manuscript contradicts the value computed from its diagram code.' },
   { id: 'claim-undecided', description: 'The proven bounds do not settle a stated crossing number.' },
+  { id: 'claim-cited', description: 'No theorem used here settles a stated crossing number, and the claim rests on the source the author cites.' },
   { id: 'claim-mirror-only', description: 'A stated value matches only the mirror image, which a DT code cannot tell apart.' },
   { id: 'claim-unreadable', description: 'A stated value cannot be read as a polynomial, number or yes/no answer.' },
   { id: 'claim-malformed', description: 'A command-line claim is not of the form KEY=VALUE with a known key.' },

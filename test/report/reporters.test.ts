@@ -79,7 +79,7 @@ describe('human reporter', () => {
 describe('JSON reporter', () => {
   it('carries the diagnostics with verdict data, counts and the exit status', () => {
     const parsed = JSON.parse(formatJsonReport(contradicted));
-    expect(parsed.counts).toEqual({ errors: 1, warnings: 0, notes: 0 });
+    expect(parsed.counts).toEqual({ errors: 1, warnings: 0, notes: 0, cited: 0 });
     expect(parsed.exitStatus).toBe(1);
     expect(parsed.diagnostics[0].data).toMatchObject({ key: 'jones', verdict: 'contradicts', diagnosis: { kind: 'one-coefficient' } });
   });

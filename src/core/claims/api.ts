@@ -12,7 +12,8 @@ import type { Convention } from '../convention/convention.ts';
  */
 export type ClaimKey = string;
 
-export type Verdict = 'agrees' | 'contradicts' | 'undecided';
+/** `cited`: no theorem here decides the claim, and the author names a source for it (crossing numbers). */
+export type Verdict = 'agrees' | 'contradicts' | 'undecided' | 'cited';
 
 export type DiagnosisKind = 'mirror' | 'negated' | 'shifted' | 'normalization' | 'one-coefficient' | 'one-exponent' | 'swapped' | 'none';
 
@@ -43,6 +44,8 @@ export interface Judgement {
   readonly computed: string;
   /** Set when the verdict is `agrees` only up to mirror image (DT codes) or otherwise needs a warning. */
   readonly warning?: string;
+  /** The source the author cites for the claim, as written (`\cite{key}` or `(source: …)`). */
+  readonly source?: string;
 }
 
 export interface JudgeContext {

@@ -210,13 +210,40 @@ function boundsText(report: DiagramReport): string {
   return exact !== null ? `${exact}` : `between ${lower} and ${upper}`;
 }
 
+/**
+ * The author's source at the end of a crossing-number claim: `\cite{key}`
+ * (with an optional `[note]`, also `\citep`/`\citet`) or `(source: text)`.
+ * Returns the claim without it, and the source as written.
+ */
+export function splitCitedSource(text: string): { value: string; source?: string } {
+  const cite = /\\cite[pt]?\s*(?:\[[^\]]*\]\s*)?\{([^{}]*)\}\s*$/.exec(text);
+  const plain = /\(\s*source\s*:([^()]*)\)\s*$/i.exec(text);
+  const found = cite ?? plain;
+  if (!found) return { value: text };
+  if (found[1]!.trim() === '') refuse('the source is empty: name it, as in (source: Rolfsen 1976) or \\cite{rolfsen}', found.index, text.length);
+  return { value: text.slice(0, found.index).trimEnd(), source: found[0].trim() };
+}
+
 export function judgeCrossingNumberClaim(text: string, report: DiagramReport): Judgement {
+  const { value, source } = splitCitedSource(text);
+  if (source === undefined) return judgeAgainstBounds(text, text, report);
+  if (value.trim() === '') refuse('the claim has a source but no value: write the crossing number before it', 0, text.length);
+  const judgement = judgeAgainstBounds(value, text, report);
+  // A source settles only what no theorem here decides; a contradiction stands whatever is cited.
+  if (judgement.verdict === 'undecided') {
+    return { ...judgement, verdict: 'cited', source, reason: `no theorem used here decides it, so the claim rests on the cited source ${source}: ${judgement.reason.replace(/^the crossing number is only known/, 'the crossing number is known here only')}` };
+  }
+  if (judgement.verdict === 'contradicts') return { ...judgement, source, reason: `${judgement.reason} The cited source ${source} does not change a proven bound.` };
+  return { ...judgement, source };
+}
+
+function judgeAgainstBounds(text: string, written: string, report: DiagramReport): Judgement {
   const claim = readCrossingNumberClaim(text);
   const { lower, upper, exact } = report.crossingNumber;
   const lowerReason = reasonFor(report, 'lower');
   const upperReason = reasonFor(report, 'upper');
   const exactReason = reasonFor(report, 'exact');
-  const base = { key: 'crossing-number' as const, claimed: text, computed: boundsText(report) };
+  const base = { key: 'crossing-number' as const, claimed: written, computed: boundsText(report) };
   const said = claim.words;
   const because = (r: BoundReason | undefined): string => (r ? `, by ${THEOREM_NAMES[r.theorem]}. ${r.text}` : '');
   const withTheorem = (r: BoundReason | undefined) => (r ? { theorem: r.theorem } : {});

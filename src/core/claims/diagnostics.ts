@@ -4,6 +4,7 @@
  * Rule ids (our own):
  *   claim-contradicted  error    the stated value is refuted by the computation
  *   claim-undecided     warning  the proven bounds do not settle a crossing-number claim
+ *   claim-cited         note     no theorem settles it, and the claim rests on the source the author cites
  *   claim-mirror-only   warning  the claim holds for the mirror image only, and the code (DT) cannot tell them apart
  *   claim-unreadable    error    the claimed value cannot be read
  *   claim-inapplicable  error    the claim makes no sense for this diagram (a linking number of a knot)
@@ -18,6 +19,7 @@ import { CLAIM_KEYS, claimSpec } from '../invariants/registry/index.ts';
 export const CLAIM_RULES = {
   contradicted: 'claim-contradicted',
   undecided: 'claim-undecided',
+  cited: 'claim-cited',
   mirrorOnly: 'claim-mirror-only',
   unreadable: 'claim-unreadable',
   inapplicable: 'claim-inapplicable',
@@ -48,6 +50,7 @@ function claimData(j: Judgement): Record<string, unknown> {
     verdict: j.verdict,
     ...(j.diagnosis ? { diagnosis: { ...j.diagnosis } } : {}),
     ...(j.theorem ? { theorem: j.theorem } : {}),
+    ...(j.source !== undefined ? { source: j.source } : {}),
   };
 }
 
@@ -68,6 +71,9 @@ export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, 
   if (j.verdict === 'agrees') {
     if (!j.warning) return [];
     return [{ severity: 'warning', ruleId: CLAIM_RULES.mirrorOnly, message: `${prefix}${noun} holds only up to mirror image: ${j.warning}`, ...shared }];
+  }
+  if (j.verdict === 'cited') {
+    return [{ severity: 'note', ruleId: CLAIM_RULES.cited, message: `${prefix}${noun} claim rests on a cited source: ${j.reason}`, ...shared }];
   }
   if (j.verdict === 'undecided') {
     return [{ severity: 'warning', ruleId: CLAIM_RULES.undecided, message: `${prefix}${noun} claim undecided: ${j.reason}`, ...shared }];
