@@ -9,6 +9,8 @@
 import yargs from 'yargs';
 import type { Argv } from 'yargs';
 import { commands } from './commands/index.ts';
+import { STANDARD_INPUT_ARGUMENT } from './commands/check.ts';
+import { SKEINPROOF_VERSION } from './version.ts';
 
 export const EXIT_OK = 0;
 export const EXIT_CONTRADICTED = 1;
@@ -28,14 +30,22 @@ function internalErrorMessage(error: unknown): string {
 export async function main(argv: readonly string[]): Promise<number> {
   let status = EXIT_OK;
   let usageError: string | undefined;
-  let parser: Argv = yargs([...argv])
+  const named = argv[0];
+  const names = commands.map((c) => c.command.split(' ')[0]!);
+  if (named !== undefined && !named.startsWith('-') && !names.includes(named)) {
+    process.stderr.write(`skeinproof: unknown command \`${named}\`; the commands are ${names.join(', ')}\nRun 'skeinproof --help' for the commands and options.\n`);
+    return EXIT_USAGE;
+  }
+  const args = markStandardInput(argv);
+  let parser: Argv = yargs(args)
     .scriptName('skeinproof')
     .usage('$0 <command> [options]')
     .strict()
     .demandCommand(1, 'Name a command: compute, check, build or watch.')
     .help()
     .alias('h', 'help')
-    .version(false)
+    .version(SKEINPROOF_VERSION)
+    .alias('V', 'version')
     .wrap(Math.min(100, process.stdout.columns || 100))
     .fail((message, error) => {
       if (error && !(error as { isUsage?: boolean }).isUsage) throw error;
@@ -49,7 +59,12 @@ export async function main(argv: readonly string[]): Promise<number> {
     });
   }
   try {
-    await parser.parseAsync();
+    // With a callback yargs hands over its help and version text instead of printing it (and does not exit), so it can be tidied.
+    let shown = '';
+    await parser.parseAsync(args, {}, (_error, _argv, output) => {
+      shown = output;
+    });
+    if (shown !== '' && usageError === undefined) process.stdout.write(`${tidyHelp(shown)}\n`);
   } catch (error) {
     process.stderr.write(internalErrorMessage(error));
     return EXIT_INTERNAL;
@@ -59,4 +74,20 @@ export async function main(argv: readonly string[]): Promise<number> {
     return EXIT_USAGE;
   }
   return status;
+}
+
+/** yargs drops a bare `-`; a manuscript named `-` (standard input) is kept so the command can answer it. */
+function markStandardInput(argv: readonly string[]): string[] {
+  return argv.map((a, i) => (a === '-' && i > 0 && argv[i - 1] !== '-o' && argv[i - 1] !== '--output' && argv[0] !== 'compute' ? STANDARD_INPUT_ARGUMENT : a));
+}
+
+/**
+ * Two flaws of yargs' help layout: when an option's description exactly fills
+ * its column the type hints are glued to it ("written[choices: …]"), and a
+ * required list of files is also shown with the empty default yargs gives it.
+ */
+export function tidyHelp(text: string): string {
+  return text
+    .replace(/([^\s[])\[(choices|default|boolean|string|number|array|required|count|deprecated)\b/g, '$1 [$2')
+    .replace(/ \[required\] \[default: \[\]\]/g, ' [required]');
 }

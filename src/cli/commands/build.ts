@@ -11,15 +11,27 @@ import type { FormatOptions } from '../formats/types.ts';
 import { EXIT_USAGE, exitStatusFor, formatOf, manuscriptOptions, readManuscriptArgs, reportDiagnostics, resultFailed, usage, type ManuscriptArgs } from './check.ts';
 import type { CliCommand } from './index.ts';
 
+/** `-o -` writes the output to standard output (the report stays on stderr). */
+export const STANDARD_OUTPUT = '-';
+
+async function writeStandardOutput(content: string | Uint8Array): Promise<void> {
+  await new Promise<void>((done, fail) => process.stdout.write(content, (e) => (e ? fail(e) : done())));
+}
+
 export interface BuildArgs extends ManuscriptArgs {
   readonly forceWrite: boolean;
 }
 
 export function buildOptions(y: Argv): Argv {
   return manuscriptOptions(y)
-    .option('output', { alias: 'o', type: 'string', describe: 'Where to write (default: NAME.filled.md, or NAME.html with --html, beside the input)' })
-    .option('html', { type: 'boolean', default: false, describe: 'Write a standalone HTML page (implied by an -o ending in .html)' })
-    .option('allow-html', { type: 'boolean', default: false, describe: 'Pass raw HTML in the manuscript through to the page (otherwise it is shown as text)' })
+    .option('output', {
+      alias: 'o',
+      type: 'string',
+      describe:
+        'Where to write; - is standard output. Markdown: default NAME.filled.md, or NAME.html with --html, beside the input. LaTeX: default the sidecar NAME.skein.tex that \\usepackage{skeinproof} reads; -o FILE.tex writes a flat copy that needs no package',
+    })
+    .option('html', { type: 'boolean', default: false, describe: 'Markdown only: write a standalone HTML page (implied by an -o ending in .html)' })
+    .option('allow-html', { type: 'boolean', default: false, describe: 'Markdown only: keep raw HTML of the manuscript on the page, sanitized (otherwise it is shown as text)' })
     .option('force-write', { type: 'boolean', default: false, describe: 'Write the output even when the check fails' }) as Argv;
 }
 
@@ -59,6 +71,10 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
     return { status, inputs };
   }
   for (const output of result.outputs) {
+    if (output.path === STANDARD_OUTPUT) {
+      await writeStandardOutput(output.content);
+      continue;
+    }
     try {
       await writeFileAtomic(output.path, output.content, { protect: result.inputs });
     } catch (e) {
@@ -72,8 +88,8 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
 
 export const buildCommand: CliCommand = {
   command: 'build <file>',
-  describe: 'Check a manuscript and write it with every fill-in typeset (Markdown, or HTML with --html)',
-  builder: (y: Argv) => buildOptions(y.positional('file', { type: 'string', describe: 'The manuscript' })),
+  describe: 'Check a manuscript and write it with every fill-in typeset: Markdown (or an HTML page with --html), or for LaTeX the sidecar the package reads (or a flat copy with -o)',
+  builder: (y: Argv) => buildOptions(y.positional('file', { type: 'string', describe: 'The manuscript: Markdown (.md, .markdown) or LaTeX (.tex, .ltx)' })),
   run: async (raw) => {
     const args = readBuildArgs(raw);
     if (typeof args === 'string') return usage(args);

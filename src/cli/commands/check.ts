@@ -57,8 +57,14 @@ export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArg
   };
 }
 
-/** The format that reads `path`, or a message saying why no format can (a directory, a missing file, an unknown extension). */
+/** How the command line passes on a manuscript named `-` (yargs itself drops a bare `-`). */
+export const STANDARD_INPUT_ARGUMENT = '<standard input>';
+
+/** The format that reads `path`, or a message saying why no format can (standard input, a directory, a missing file, an unknown extension). */
 export function formatOf(path: string): ManuscriptFormat | string {
+  if (path === STANDARD_INPUT_ARGUMENT) {
+    return 'a manuscript cannot be read from standard input (`-`): its extension says whether it is Markdown or LaTeX, and a LaTeX paper\'s folder holds what it \\inputs; save it to a file (NAME.md or NAME.tex) and name that file';
+  }
   const kind = statSync(path, { throwIfNoEntry: false });
   if (kind?.isDirectory()) return `${path} is a directory, not a manuscript: name the files in it, e.g. ${join(path, '*.md')}`;
   const format = formatFor(path);

@@ -5,6 +5,7 @@
  * flat copy that needs no package.
  */
 import { closeSync, constants, fstatSync, openSync, readFileSync, realpathSync, type Stats } from 'node:fs';
+import { basename, extname } from 'node:path';
 import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import { runSession } from '../../core/manuscript/session.ts';
@@ -121,15 +122,10 @@ export const latexFormat: ManuscriptFormat = {
   },
 
   async build(path, options): Promise<FormatResult> {
+    // Refused before any work: reading and checking a long paper only to refuse its output wastes the author's time.
+    const refusal = outputRefusal(path, options);
+    if (refusal) return { diagnostics: [refusal], outputs: [], inputs: [path], failed: true };
     const { doc, session, diagnostics, failed } = checkManuscript(path, options);
-    if (options.html || /\.html?$/i.test(options.output ?? '')) {
-      const refusal: Diagnostic = {
-        severity: 'error',
-        ruleId: 'output-unsupported',
-        message: `${path} is LaTeX, which has no HTML page: build it without --html (the sidecar, or -o for a flat copy) and run LaTeX`,
-      };
-      return { diagnostics: [refusal, ...diagnostics], outputs: [], inputs: inputsOf(doc), failed: true };
-    }
     const output =
       options.output !== undefined
         ? { path: options.output, content: flatText(doc, session.fills) }
@@ -137,3 +133,15 @@ export const latexFormat: ManuscriptFormat = {
     return { diagnostics, outputs: [output], inputs: inputsOf(doc), failed };
   },
 };
+
+/** An output a LaTeX build cannot write: an HTML page, or a flat copy under a Markdown name. */
+function outputRefusal(path: string, options: FormatOptions): Diagnostic | undefined {
+  const ext = extname(options.output ?? '').toLowerCase();
+  const message =
+    options.html || ext === '.html' || ext === '.htm'
+      ? `${path} is LaTeX, which has no HTML page: build it without --html (the sidecar, or -o for a flat copy) and run LaTeX`
+      : (FORMAT_EXTENSIONS.markdown as readonly string[]).includes(ext)
+        ? `${path} is LaTeX, and -o ${options.output} would put a LaTeX flat copy under a Markdown name: give the output a LaTeX name (e.g. -o ${basename(path, extname(path))}.flat.tex)`
+        : undefined;
+  return message === undefined ? undefined : { severity: 'error', ruleId: 'output-unsupported', message };
+}

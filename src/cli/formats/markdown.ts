@@ -151,6 +151,10 @@ export const markdownFormat: ManuscriptFormat = {
   },
 
   async build(path, options): Promise<FormatResult> {
+    if ((FORMAT_EXTENSIONS.latex as readonly string[]).includes(extname(options.output ?? '').toLowerCase())) {
+      const message = `${path} is Markdown, and -o ${options.output} would put Markdown under a LaTeX name: give the output a Markdown name (.md) or an HTML one (.html)`;
+      return { diagnostics: [{ severity: 'error', ruleId: 'output-unsupported', message }], outputs: [], inputs: [path], failed: true };
+    }
     const checked = await checkManuscript(path, options);
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
     const { data, filled, diagnostics, failed } = checked;
