@@ -271,6 +271,7 @@ class Stage {
   readonly matchings: Uint8Array[] = [];
   private readonly matchingIds = new Map<string, number>();
   private readonly loopCache = new Map<number, PairLoops>();
+  private readonly composeCache = new Map<string, Morph>();
   objects: Obj[] = [];
 
   constructor(
@@ -325,8 +326,24 @@ class Stage {
     }
   }
 
-  /** g ∘ f for f: m_a → m_b and g: m_b → m_c. */
+  /** g ∘ f for f: m_a → m_b and g: m_b → m_c, from the cached compositions of single dotted-disk terms. */
   compose(f: Morph, a: number, b: number, g: Morph, c: number): Morph {
+    const result: Morph = new Map();
+    for (const [maskF, cf] of f) {
+      for (const [maskG, cg] of g) {
+        const key = `${a},${b},${c},${maskF},${maskG}`;
+        let unit = this.composeCache.get(key);
+        if (!unit) this.composeCache.set(key, (unit = this.composeTerms(a, b, c, maskF, maskG)));
+        this.tick(1 + unit.size);
+        const factor = checkedProduct(cf, cg);
+        for (const [mask, v] of unit) addTerm(result, mask, checkedProduct(v, factor));
+      }
+    }
+    return result;
+  }
+
+  /** The composite of the single dotted-disk terms maskF: m_a → m_b and maskG: m_b → m_c. */
+  private composeTerms(a: number, b: number, c: number, maskF: number, maskG: number): Morph {
     const w = this.width;
     const result: Morph = new Map();
     const lf = this.loops(a, b);
@@ -338,15 +355,11 @@ class Stage {
     const boundaryPiece = new Int32Array(lr.count);
     for (let p = 0; p < w; p++) boundaryPiece[lr.loopOf[p]!] = lf.loopOf[p]!;
     const comps = surface.finish(boundaryPiece, lf.count + lg.count);
-    this.tick(WORK_PER_CALL + f.size * g.size * (1 + comps.size));
-    for (const [maskF, cf] of f) {
-      for (const [maskG, cg] of g) {
-        const dots = new Map<number, number>();
-        for (let i = 0; i < lf.count; i++) if ((maskF >> i) & 1) bump(dots, surface.find(i));
-        for (let i = 0; i < lg.count; i++) if ((maskG >> i) & 1) bump(dots, surface.find(lf.count + i));
-        expandSurface(this.theory, comps, dots, checkedProduct(cf, cg), result);
-      }
-    }
+    this.tick(WORK_PER_CALL * (1 + comps.size));
+    const dots = new Map<number, number>();
+    for (let i = 0; i < lf.count; i++) if ((maskF >> i) & 1) bump(dots, surface.find(i));
+    for (let i = 0; i < lg.count; i++) if ((maskG >> i) & 1) bump(dots, surface.find(lf.count + i));
+    expandSurface(this.theory, comps, dots, 1, result);
     return result;
   }
 
@@ -386,7 +399,6 @@ class Stage {
         o.alive = false;
       }
     }
-    this.objects = this.compacted();
   }
 
   private isUnit(from: number, to: number, morph: Morph): boolean {
@@ -397,22 +409,6 @@ class Stage {
     return v === 1 || v === -1;
   }
 
-  /** Renumbers the live objects 0 … N−1. */
-  private compacted(): Obj[] {
-    const newId = new Int32Array(this.objects.length).fill(-1);
-    const live: Obj[] = [];
-    this.objects.forEach((o, id) => {
-      if (o.alive) {
-        newId[id] = live.length;
-        live.push(o);
-      }
-    });
-    for (const o of live) {
-      o.out = new Map([...o.out].map(([t, m]) => [newId[t]!, m]));
-      o.inc = new Set([...o.inc].map((s) => newId[s]!));
-    }
-    return live;
-  }
 }
 
 function bump(map: Map<number, number>, key: number): void {
@@ -443,6 +439,7 @@ function absorb(stage: Stage, plan: StepPlan): Stage {
     return s;
   };
   stage.objects.forEach((o, id) => {
+    if (!o.alive) return;
     for (let smoothing = 0; smoothing < 2; smoothing++) {
       const scratch = scratchOf(stage.matchings[o.m]!, smoothing);
       const circles: number[] = [];
@@ -468,7 +465,7 @@ function absorb(stage: Stage, plan: StepPlan): Stage {
       glued[id]![smoothing] = { matching, circles, objects };
     }
   });
-  stage.tick(2 * WORK_PER_CALL * stage.objects.length);
+  stage.tick(2 * WORK_PER_CALL * glued.length);
 
   // Scratch loops of an old entry m → m′ with the same smoothing on both ends.
   const identityLoops = (loops: PairLoops, smoothing: number): { loopOf: Int32Array; count: number } => {
@@ -479,40 +476,62 @@ function absorb(stage: Stage, plan: StepPlan): Stage {
     return { loopOf, count: loops.count + 2 };
   };
 
+  // Gluing depends only on the matchings, the smoothing and the dot set: each result is computed
+  // once (for coefficient 1) and reused for every pair of objects with the same data.
+  const glueCache = new Map<string, Morph[]>();
+  const add = (
+    kind: number,
+    from: Obj,
+    to: Obj,
+    morph: Morph,
+    sign: number,
+    source: Glued,
+    target: Glued,
+    scratchOf: () => { loopOf: Int32Array; count: number },
+  ): void => {
+    for (const [mask, coefficient] of morph) {
+      const key = `${kind},${from.m},${to.m},${mask}`;
+      let unit = glueCache.get(key);
+      if (!unit) glueCache.set(key, (unit = glueTerm(next, plan, scratchOf(), mask, source, target)));
+      const factor = coefficient * sign;
+      next.tick(unit.length);
+      unit.forEach((entry, k) => {
+        const a = Math.floor(k / target.objects.length);
+        const b = k % target.objects.length;
+        next.addToEntry(source.objects[a]!, target.objects[b]!, entry, factor);
+      });
+    }
+  };
+
+  const saddle: Morph = new Map([[0, 1]]);
   stage.objects.forEach((o, id) => {
+    if (!o.alive) return;
     // The tangle's own differential, beside the identity on the crossing.
     for (const [to, morph] of o.out) {
-      const loops = stage.loops(o.m, stage.objects[to]!.m);
+      const target = stage.objects[to]!;
       for (let smoothing = 0; smoothing < 2; smoothing++) {
-        const scratchLoops = identityLoops(loops, smoothing);
-        glueEntry(next, plan, scratchLoops, morph, glued[id]![smoothing]!, glued[to]![smoothing]!, 1);
+        add(smoothing, o, target, morph, 1, glued[id]![smoothing]!, glued[to]![smoothing]!, () => identityLoops(stage.loops(o.m, target.m), smoothing));
       }
     }
     // The crossing's saddle, beside the identity on the tangle: sign (−1)^h.
-    const self = stage.loops(o.m, o.m);
-    const loopOf = new Int32Array(w + 4);
-    loopOf.set(self.loopOf);
-    for (let q = 0; q < 4; q++) loopOf[w + q] = self.count;
-    const saddle: Morph = new Map([[0, 1]]);
-    glueEntry(next, plan, { loopOf, count: self.count + 1 }, saddle, glued[id]![0]!, glued[id]![1]!, o.h % 2 === 0 ? 1 : -1);
+    add(2, o, o, saddle, o.h % 2 === 0 ? 1 : -1, glued[id]![0]!, glued[id]![1]!, () => {
+      const self = stage.loops(o.m, o.m);
+      const loopOf = new Int32Array(w + 4);
+      loopOf.set(self.loopOf);
+      for (let q = 0; q < 4; q++) loopOf[w + q] = self.count;
+      return { loopOf, count: self.count + 1 };
+    });
   });
   return next;
 }
 
 /**
- * Glues one scratch morphism (dotted disks on the scratch loops `scratch`)
- * along the plan's joins, caps the closed circles of both ends according to
- * their delooping labels, and adds the results between the delooped objects.
+ * Glues one dotted-disk term (dot set `mask` on the scratch loops `scratch`)
+ * along the plan's joins and caps the closed circles of both ends according to
+ * their delooping labels. Returns the morphism between every pair of delooped
+ * objects (source label a, target label b at index a·|target| + b).
  */
-function glueEntry(
-  next: Stage,
-  plan: StepPlan,
-  scratch: { loopOf: Int32Array; count: number },
-  morph: Morph,
-  source: Glued,
-  target: Glued,
-  sign: number,
-): void {
+function glueTerm(next: Stage, plan: StepPlan, scratch: { loopOf: Int32Array; count: number }, mask: number, source: Glued, target: Glued): Morph[] {
   const { joins, layout } = plan;
   const surface = new Surface(scratch.count);
   for (let j = 0; j < joins.length; j += 2) surface.glue(scratch.loopOf[joins[j]!]!, scratch.loopOf[joins[j + 1]!]!);
@@ -525,33 +544,33 @@ function glueEntry(
   const sourceRoots = source.circles.map((x) => surface.find(scratch.loopOf[x]!));
   const targetRoots = target.circles.map((x) => surface.find(scratch.loopOf[x]!));
   const deformed = next.theory === 'deformed';
-  next.tick(WORK_PER_CALL + morph.size * source.objects.length * target.objects.length * (1 + comps.size));
-  for (const [mask, coefficient] of morph) {
-    const baseDots = new Map<number, number>();
-    for (let i = 0; i < scratch.count; i++) if ((mask >> i) & 1) bump(baseDots, surface.find(i));
-    for (let a = 0; a < source.objects.length; a++) {
-      for (let b = 0; b < target.objects.length; b++) {
-        // Source circle labelled X: a dotted cup. Target circle: its 1-coordinate is the dotted cap
-        // (minus h times the plain cap when deformed), its X-coordinate the plain cap.
-        const variants: [Map<number, number>, number][] = [[new Map(baseDots), coefficient * sign]];
-        sourceRoots.forEach((root, i) => {
-          if ((a >> i) & 1) for (const [dots] of variants) bump(dots, root);
-        });
-        targetRoots.forEach((root, i) => {
-          if ((b >> i) & 1) return;
-          const count = variants.length;
-          for (let v = 0; v < count; v++) {
-            const [dots, c] = variants[v]!;
-            if (deformed) variants.push([new Map(dots), -c]);
-            bump(dots, root);
-          }
-        });
-        const entry: Morph = new Map();
-        for (const [dots, c] of variants) expandSurface(next.theory, comps, dots, c, entry);
-        next.addToEntry(source.objects[a]!, target.objects[b]!, entry, 1);
-      }
+  next.tick(WORK_PER_CALL * source.objects.length * target.objects.length * (1 + comps.size));
+  const baseDots = new Map<number, number>();
+  for (let i = 0; i < scratch.count; i++) if ((mask >> i) & 1) bump(baseDots, surface.find(i));
+  const entries: Morph[] = [];
+  for (let a = 0; a < source.objects.length; a++) {
+    for (let b = 0; b < target.objects.length; b++) {
+      // Source circle labelled X: a dotted cup. Target circle: its 1-coordinate is the dotted cap
+      // (minus h times the plain cap when deformed), its X-coordinate the plain cap.
+      const variants: [Map<number, number>, number][] = [[new Map(baseDots), 1]];
+      sourceRoots.forEach((root, i) => {
+        if ((a >> i) & 1) for (const [dots] of variants) bump(dots, root);
+      });
+      targetRoots.forEach((root, i) => {
+        if ((b >> i) & 1) return;
+        const count = variants.length;
+        for (let v = 0; v < count; v++) {
+          const [dots, c] = variants[v]!;
+          if (deformed) variants.push([new Map(dots), -c]);
+          bump(dots, root);
+        }
+      });
+      const entry: Morph = new Map();
+      for (const [dots, c] of variants) expandSurface(next.theory, comps, dots, c, entry);
+      entries.push(entry);
     }
   }
+  return entries;
 }
 
 /** The reduced complex of the diagram cut open at one edge. Exported for the engines in index.ts. */
@@ -574,12 +593,14 @@ export function arcComplex(d: LinkDiagram, theory: Theory, options: LocalOptions
     stage.reduce();
   });
   if (stage.width !== 2) throw new Error('internal: the cut diagram did not end with two open ends');
+  const live = stage.objects.filter((o) => o.alive);
+  const index = new Map(live.map((o, k) => [o, k]));
   const entries: [number, number, number, number][] = [];
-  stage.objects.forEach((o, id) => {
-    for (const [to, morph] of o.out) entries.push([id, to, morph.get(0) ?? 0, morph.get(1) ?? 0]);
+  live.forEach((o, k) => {
+    for (const [to, morph] of o.out) entries.push([k, index.get(stage.objects[to]!)!, morph.get(0) ?? 0, morph.get(1) ?? 0]);
   });
   const nMinus = d.crossings.filter((c) => c.sign === -1).length;
-  return { theory, objects: stage.objects.map((o) => ({ h: o.h, s: o.s })), entries, nPlus: n - nMinus, nMinus, work: meter.work };
+  return { theory, objects: live.map((o) => ({ h: o.h, s: o.s })), entries, nPlus: n - nMinus, nMinus, work: meter.work };
 }
 
 /** Closes the arc: each object becomes a circle, labelled 1 (q + 1) or X (q − 1). */
