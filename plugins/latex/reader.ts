@@ -84,7 +84,7 @@ export interface LatexDocument {
 }
 
 /** Keys of \begin{skeincode}{…} besides the claim keys. */
-const CODE_KEYS = ['id', 'notation', 'strands'] as const;
+const CODE_KEYS = ['id', 'notation', 'strands', 'part-signs'] as const;
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
 /**
  * What the package provides, in plain LaTeX for the flat copy: the array
@@ -238,11 +238,13 @@ class ManuscriptReader {
     }
     const code = trim(item.body);
     const idValue = options.get('id')!;
+    const partSigns = options.get('part-signs');
     this.diagrams.push({
       id,
       notation,
       code: code.text,
       ...(strands !== undefined ? { strands } : {}),
+      ...(partSigns !== undefined ? { partSigns: { text: partSigns.text, locate: locatorFor(file, partSigns) } } : {}),
       locateCode: locatorFor(file, code),
       locateHeader: locatorFor(file, idValue),
     });

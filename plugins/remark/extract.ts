@@ -145,7 +145,7 @@ class Extractor {
       span ? this.source.location(start + span.start, start + Math.max(span.end, span.start)) : this.source.location(start, end);
   }
 
-  // ```skein id=… notation=… strands=… crossing-number=…
+  // ```skein id=… notation=… strands=… part-signs=… crossing-number=…
   private diagramBlock(node: Code): void {
     const [start, end] = offsets(node);
     const firstLineEnd = lineEnd(this.text, start);
@@ -158,6 +158,7 @@ class Extractor {
     let idAt = start;
     let notation: Notation | undefined = this.settings.notation;
     let strands: number | undefined;
+    let partSigns: { text: string; start: number; end: number } | undefined;
     const seen = new Set<string>();
     let refusedAt: number | undefined;
     const headerClaims: { key: ClaimKey; value: string; at: number; end: number }[] = [];
@@ -187,12 +188,14 @@ class Extractor {
         if (!Number.isInteger(n) || n < 1) {
           this.error('markup-invalid', `diagram block: strands=${s.value} is not a positive whole number of strands`, metaStart + s.valueStart, metaStart + s.valueEnd);
         } else strands = n;
+      } else if (s.key === 'part-signs') {
+        partSigns = { text: s.value, start: metaStart + s.valueStart, end: metaStart + s.valueEnd };
       } else if (isClaimKey(s.key)) {
         headerClaims.push({ key: s.key, value: s.value, at: metaStart + s.valueStart, end: metaStart + s.valueEnd });
       } else {
         this.error(
           'markup-invalid',
-          `diagram block: unknown setting \`${s.key}\`: the settings are id, notation, strands and the claims ${CLAIM_KEYS.join(', ')}`,
+          `diagram block: unknown setting \`${s.key}\`: the settings are id, notation, strands, part-signs and the claims ${CLAIM_KEYS.join(', ')}`,
           at,
           at + s.key.length,
         );
@@ -240,6 +243,7 @@ class Extractor {
       notation,
       code: node.value,
       ...(strands !== undefined ? { strands } : {}),
+      ...(partSigns !== undefined ? { partSigns: { text: partSigns.text, locate: this.fixedLocator(partSigns.start, partSigns.end) } } : {}),
       locateCode: this.locator(map, codeStart, codeEnd),
       locateHeader: () => this.source.location(headerAt, headerAt + id!.length),
     });

@@ -10,7 +10,7 @@ import type { Notation } from '../core/diagram/model.ts';
 import type { InputError } from '../core/errors.ts';
 import { isLimitError } from '../core/limits.ts';
 import type { TextSpan } from '../core/diagnostics/diagnostic.ts';
-import { INVARIANTS } from '../core/invariants/registry/index.ts';
+import { INVARIANTS, type OpenChoice } from '../core/invariants/registry/index.ts';
 import { printDtCode, printGaussCode, printPdCode } from '../core/notation/print.ts';
 import type { LinkDiagram } from '../core/diagram/model.ts';
 
@@ -71,6 +71,7 @@ export function computeJson(code: string, r: DiagramReport, convention: Conventi
     if (!isLimitError(error)) throw error;
     notComputed.simplified = errorJson(error);
   }
+  json['openChoices'] = openChoicesJson(r);
   if (Object.keys(notComputed).length > 0) json['notComputed'] = notComputed;
   return json as ComputeJson;
 }
@@ -78,6 +79,30 @@ export function computeJson(code: string, r: DiagramReport, convention: Conventi
 /** The limit errors of the fields `computeJson` left out. */
 export function notComputedErrors(json: ComputeJson): InvalidCodeJson['error'][] {
   return Object.values((json['notComputed'] ?? {}) as Record<string, InvalidCodeJson['error']>);
+}
+
+/**
+ * What the code leaves open (DT codes; null otherwise): its independent parts by entry (counted from 1),
+ * which are kinks, and the JSON fields whose value can change with those choices. The fields are given for
+ * the code's own drawing.
+ */
+export function openChoicesJson(r: DiagramReport): OpenChoicesJson | null {
+  const open = r.diagram.openChoices;
+  if (!open) return null;
+  const present = new Set<OpenChoice>(['chirality']);
+  if (open.parts.some((p) => p.kink)) present.add('kink-sign');
+  if (open.parts.filter((p) => !p.kink).length > 1) present.add('summand-chirality');
+  const dependentFields = INVARIANTS.filter((inv) => inv.claims.some((c) => c.changedBy.some((choice) => present.has(choice)))).flatMap((inv) => inv.json.map((f) => f.field));
+  return {
+    parts: open.parts.map((p) => ({ entries: p.crossings.map((c) => c + 1), kink: p.kink, sign: r.diagram.crossings[p.crossings[0]!]!.sign })),
+    dependentFields,
+  };
+}
+
+export interface OpenChoicesJson {
+  /** `sign`: the sign of the part's first crossing in the code's own drawing (what `part-signs` states). */
+  readonly parts: readonly { readonly entries: readonly number[]; readonly kink: boolean; readonly sign: number }[];
+  readonly dependentFields: readonly string[];
 }
 
 export function invalidCodeJson(code: string, notation: Notation, error: InputError): InvalidCodeJson {

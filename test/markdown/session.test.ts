@@ -98,4 +98,28 @@ describe('runSession', () => {
     expect(coincidence.diagnostics[0]!.message).toBe('wrong determinant: the determinant is 3, not 5');
     expect(coincidence.diagnostics[0]!.hints).toEqual([]);
   });
+
+  it('reads each DT diagram one way per document: fill-ins follow the claims\' realisation, said once; incompatible claims are an error naming both places (V(left trefoil) = t⁻¹ + t⁻³ − t⁻⁴, σ = +2 for it: from memory)', () => {
+    const dt = (id: string, code: string, line: number): DiagramEntry => ({ ...diagram(id, code, line), notation: 'dt' });
+    const mirrored = runSession({
+      diagrams: [dt('k', '4 6 2', 1)],
+      claims: [claim('k', 'jones', 't^{-1} + t^{-3} - t^{-4}', 2), claim('k', 'signature', '2', 3), claim('k', 'writhe', '-3', 4)],
+      fills: [fill('k', 'jones', 5), fill('k', 'signature', 6)],
+      convention: DEFAULT_CONVENTION,
+    });
+    expect(mirrored.diagnostics.map((d) => `${d.severity} ${d.ruleId} ${d.location?.start.line}`)).toEqual(['warning claim-mirror-only 2']);
+    expect(mirrored.diagnostics[0]!.message).toContain('every value of this diagram in the document is judged and filled in for that realisation');
+    expect(mirrored.fills).toEqual([
+      { kind: 'math', latex: '-t^{-4} + t^{-3} + t^{-1}' },
+      { kind: 'math', latex: '2' },
+    ]);
+    const conflicting = runSession({
+      diagrams: [dt('k', '4 6 2', 1)],
+      claims: [claim('k', 'jones', 't^{-1} + t^{-3} - t^{-4}', 2), claim('k', 'writhe', '3', 3)],
+      fills: [],
+      convention: DEFAULT_CONVENTION,
+    });
+    expect(conflicting.diagnostics.map((d) => `${d.severity} ${d.ruleId} ${d.location?.start.line}`)).toEqual(['warning claim-mirror-only 2', 'error claim-choice-conflict 3']);
+    expect(conflicting.diagnostics[1]!.message).toContain('the Jones polynomial claimed at f.txt:2:10');
+  });
 });

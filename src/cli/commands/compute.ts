@@ -21,7 +21,15 @@ import { parseConventionText } from '../../core/convention/settings.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../../core/convention/convert.ts';
 import { signatureInConvention } from '../../core/invariants/classical/signature.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../core/diagnostics/diagnostic.ts';
-import { judgeClaim, judgementToDiagnostics, parseClaimAssignment, unreadableClaimDiagnostic, type ClaimAssignment } from '../../core/claims/index.ts';
+import {
+  CLAIM_NOUNS,
+  choiceConflictDiagnostic,
+  judgeDiagramClaims,
+  judgementToDiagnostics,
+  parseClaimAssignment,
+  unreadableClaimDiagnostic,
+  type ClaimAssignment,
+} from '../../core/claims/index.ts';
 import { exitStatus, formatDiagnostic, judgementJson, unreadableClaimJson, type JudgementJson, type UnreadableClaimJson } from '../../report/index.ts';
 import { toFraction } from '../../core/poly/laurent.ts';
 import type { CliCommand } from './index.ts';
@@ -202,25 +210,35 @@ function judgeCodeClaims(position: number, report: DiagramReport, others: Readon
   const diagnostics: Diagnostic[] = [];
   const lines = ['  claims'];
   const blocks: string[] = [];
+  const verdicts = judgeDiagramClaims(
+    report,
+    args.claims.map((c) => ({ key: c.key, text: c.value })),
+    { convention: args.convention, others, selfId: `<code ${position}>` },
+  );
+  const fileOf = (k: number): string => `<code ${position} claim ${k + 1}>`;
   args.claims.forEach((claim, k) => {
-    const file = `<code ${position} claim ${k + 1}>`;
+    const file = fileOf(k);
     const locate = (span?: TextSpan): SourceLocation => ({
       file,
       start: { line: 1, column: claim.valueOffset + 1 + (span?.start ?? 0) },
       end: { line: 1, column: claim.valueOffset + 1 + (span?.end ?? claim.value.length) },
     });
     let found: Diagnostic[];
-    try {
-      const judgement = judgeClaim(claim.key, claim.value, report, { convention: args.convention, others, selfId: `<code ${position}>` });
-      json.push(judgementJson(judgement));
-      lines.push(`    ${claim.key} = ${claim.value.trim()}: ${judgement.verdict}${judgement.diagnosis ? ` (${judgement.diagnosis.kind})` : ''}`);
-      found = judgementToDiagnostics(judgement, locate());
-    } catch (error) {
-      if (!isInputError(error)) throw error;
+    const outcome = verdicts.outcomes[k]!;
+    if (outcome.kind === 'unreadable') {
+      const error = outcome.error;
       json.push(unreadableClaimJson(claim.key, claim.value, error));
       const status = error.ruleId === 'claim-inapplicable' ? 'not applicable' : error.ruleId === 'limit-exceeded' ? 'not computed (over a limit)' : 'unreadable';
       lines.push(`    ${claim.key} = ${claim.value.trim()}: ${status}`);
       found = [unreadableClaimDiagnostic(error, locate)];
+    } else {
+      const judgement = outcome.kind === 'conflict' ? { ...outcome.judgement, verdict: 'contradicts' as const } : outcome.judgement;
+      json.push(judgementJson(judgement));
+      lines.push(`    ${claim.key} = ${claim.value.trim()}: ${judgement.verdict}${judgement.diagnosis ? ` (${judgement.diagnosis.kind})` : ''}`);
+      found =
+        outcome.kind === 'conflict'
+          ? [choiceConflictDiagnostic(outcome, `the ${CLAIM_NOUNS[claim.key]} claimed`, { key: args.claims[outcome.other]!.key, place: fileOf(outcome.other) }, `code ${position}`, locate())]
+          : judgementToDiagnostics(judgement, locate());
     }
     diagnostics.push(...found);
     const sources = new Map([[file, claim.text]]);

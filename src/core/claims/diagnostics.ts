@@ -6,6 +6,8 @@
  *   claim-undecided     warning  the proven bounds do not settle a crossing-number claim
  *   claim-cited         note     no theorem settles it, and the claim rests on the source the author cites
  *   claim-mirror-only   warning  the claim holds for the mirror image only, and the code (DT) cannot tell them apart
+ *   claim-choice-open   warning  the claim holds only for a realisation of a DT code with another kink sign or part chirality
+ *   claim-choice-conflict error  two claims about one DT diagram need different realisations (see ./open-choices.ts)
  *   claim-unreadable    error    the claimed value cannot be read
  *   claim-inapplicable  error    the claim makes no sense for this diagram (a linking number of a knot)
  *   claim-malformed     error    a command-line claim is not KEY=VALUE with a known key (see ./assignment.ts)
@@ -21,6 +23,8 @@ export const CLAIM_RULES = {
   undecided: 'claim-undecided',
   cited: 'claim-cited',
   mirrorOnly: 'claim-mirror-only',
+  choiceOpen: 'claim-choice-open',
+  choiceConflict: 'claim-choice-conflict',
   unreadable: 'claim-unreadable',
   inapplicable: 'claim-inapplicable',
   codeInvalid: 'code-invalid',
@@ -70,7 +74,10 @@ export function judgementToDiagnostics(j: Judgement, location?: SourceLocation, 
   const shared = { ...where(location), claimed: j.claimed, computed: j.computed, data: claimData(j) };
   if (j.verdict === 'agrees') {
     if (!j.warning) return [];
-    return [{ severity: 'warning', ruleId: CLAIM_RULES.mirrorOnly, message: `${prefix}${noun} holds only up to mirror image: ${j.warning}`, ...shared }];
+    if (j.diagnosis?.kind === 'mirror') {
+      return [{ severity: 'warning', ruleId: CLAIM_RULES.mirrorOnly, message: `${prefix}${noun} holds only up to mirror image: ${j.warning}`, ...shared }];
+    }
+    return [{ severity: 'warning', ruleId: CLAIM_RULES.choiceOpen, message: `${prefix}${noun} holds only for one realisation of the DT code: ${j.warning}`, ...shared }];
   }
   if (j.verdict === 'cited') {
     return [{ severity: 'note', ruleId: CLAIM_RULES.cited, message: `${prefix}${noun} claim rests on a cited source: ${j.reason}`, ...shared }];
@@ -110,4 +117,27 @@ export function invalidCodeDiagnostic(err: InputError, locateCode?: (span?: Text
 /** An unreadable claim; `context` (e.g. "row 3, column V") prefixes the message. */
 export function unreadableClaimDiagnostic(err: InputError, locate?: (span?: TextSpan) => SourceLocation, context?: string): Diagnostic {
   return inputErrorDiagnostic(err, locate, context);
+}
+
+/**
+ * A claim about a DT diagram that holds only in another realisation of its code than one the document's
+ * other claims need. `subject` names the claim, `otherPlace` where the other claim is.
+ */
+export function choiceConflictDiagnostic(
+  conflict: { readonly judgement: Judgement; readonly detail: string },
+  subject: string,
+  other: { readonly key: ClaimKey; readonly place: string },
+  diagramName: string,
+  location?: SourceLocation,
+): Diagnostic {
+  return {
+    severity: 'error',
+    ruleId: CLAIM_RULES.choiceConflict,
+    message: `${subject}: this value and the ${CLAIM_NOUNS[other.key]} claimed at ${other.place} need different realisations of the DT code of ${diagramName}: ${conflict.detail}, where the other claim fails. A DT code leaves each part's chirality and each kink's sign open, but one document reads each diagram one way`,
+    ...where(location),
+    claimed: conflict.judgement.claimed,
+    computed: conflict.judgement.computed,
+    hints: ['Check which value belongs to the knot as drawn; to state values of two chiralities, give each its own diagram (with part-signs="…" to fix each).'],
+    data: { key: conflict.judgement.key, verdict: 'contradicts', conflictsWith: other.place },
+  };
 }

@@ -20,7 +20,9 @@ export {
   unreadableClaimDiagnostic,
   CLAIM_RULES,
   CLAIM_NOUNS,
+  choiceConflictDiagnostic,
 } from './diagnostics.ts';
+export { judgeDiagramClaims, type DiagramVerdicts, type ClaimOutcome } from './open-choices.ts';
 export { readPolynomial, readNumber, UNREADABLE } from './latex-poly-parser.ts';
 export { inapplicableBecause, isNotApplicableMark, NOT_APPLICABLE_MARKS } from './applicability.ts';
 export { polynomialLatex, jonesLatex, bracketLatex, numberLatex } from './typeset.ts';

@@ -36,6 +36,29 @@ export interface LinkDiagram {
    * checks may then accept a value of the mirror image, with a warning.
    */
   readonly chiralityFixed: boolean;
+  /**
+   * The choices the code leaves open (DT codes): the code fixes each independent part of the curve only up
+   * to reflection, so each part's chirality is open, and a part of one crossing is a kink whose sign is
+   * open. Absent when the code fixes the diagram.
+   */
+  readonly openChoices?: OpenChoices;
+}
+
+/** An independent part of a code: crossings interlaced with each other but with no crossing of another part. */
+export interface OpenPart {
+  /** 0-based indices of its crossings in the diagram (for DT codes: its entries, counted from 0). */
+  readonly crossings: readonly number[];
+  /** One crossing interlaced with no other: a nugatory crossing, whose sign the code leaves open. */
+  readonly kink: boolean;
+}
+
+export interface OpenChoices {
+  readonly parts: readonly OpenPart[];
+  /**
+   * The diagram with the first crossing of each part given the sign listed (one per part), which fixes
+   * the part's chirality; the result has every choice made (no `openChoices`, `chiralityFixed` true).
+   */
+  readonly realise: (partSigns: readonly Sign[]) => LinkDiagram;
 }
 
 /** A place on the diagram: slot `slot` (0..3) of crossing `crossing`. */

@@ -22,6 +22,8 @@ export interface DiagramEntry {
   /** The code as written. */
   readonly code: string;
   readonly strands?: number;
+  /** The `part-signs` attribute as written (DT codes: fixes every choice the code leaves open), and where it is. */
+  readonly partSigns?: { readonly text: string; readonly locate: Locator };
   /** Locates spans of `code`. */
   readonly locateCode: Locator;
   /** Locates the entry's header (where the id is written), for duplicate-id errors. */

@@ -17,6 +17,7 @@ import { analyzeDiagram } from '../analyze/analyze.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import {
   CLAIM_NOUNS,
+  choiceConflictDiagnostic,
   inapplicableBecause,
   invalidCodeDiagnostic,
   isFillKey,
@@ -26,12 +27,13 @@ import {
   typesetValue,
   unreadableClaimDiagnostic,
 } from '../claims/index.ts';
+import { judgeDiagramClaims, type DiagramVerdicts } from '../claims/open-choices.ts';
 import type { Judgement, Typeset } from '../claims/api.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
 import { isLimitError } from '../limits.ts';
-import { parseDiagramCode } from '../notation/index.ts';
+import { parseDiagramCode, readPartSigns } from '../notation/index.ts';
 import type { ClaimEntry, DiagramEntry, Locator, SessionCounts, SessionInput, SessionResult } from './api.ts';
 
 export function runSession(input: SessionInput): SessionResult {
@@ -60,13 +62,21 @@ export function runSession(input: SessionInput): SessionResult {
       // A family may name diagrams defined before it (mirror, sum, split).
       const named = (id: string) => reports.get(id)?.diagram;
       const limits = input.limits ?? {};
-      const parseOptions = { named, ...(entry.strands !== undefined ? { strands: entry.strands } : {}), ...(limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {}) };
+      const partSigns = entry.partSigns ? readPartSigns(entry.partSigns.text) : undefined;
+      const parseOptions = {
+        named,
+        ...(entry.strands !== undefined ? { strands: entry.strands } : {}),
+        ...(limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {}),
+        ...(partSigns ? { partSigns } : {}),
+      };
       reports.set(entry.id, analyzeDiagram(parseDiagramCode(entry.code, entry.notation, parseOptions), limits));
     } catch (e) {
       if (!isInputError(e)) throw e;
       invalid.set(entry.id, entry);
       if (isLimitError(e)) overLimit.add(entry.id);
-      diagnostics.push(invalidCodeDiagnostic(e, entry.locateCode, entry.id));
+      // A part-signs problem is located in the attribute, anything else in the code.
+      const locate = e.ruleId === 'choice-invalid' && entry.partSigns ? entry.partSigns.locate : entry.locateCode;
+      diagnostics.push(invalidCodeDiagnostic(e, locate, entry.id));
     }
   }
 
@@ -116,35 +126,55 @@ export function runSession(input: SessionInput): SessionResult {
   const isDiagramLevel = (e: InputError): boolean => !e.ruleId.startsWith('claim-');
 
   const counts: { -readonly [K in keyof SessionCounts]: number } = { diagrams: 0, claimsAgree: 0, claimsContradicted: 0, claimsUndecided: 0, valuesFilled: 0, tableCells: 0, notApplicable: 0 };
-  const judged: JudgedClaim[] = [];
+  // Cells that hold no value (a not-applicable mark, or a key that does not apply) are settled first.
+  const settled = new Set<ClaimEntry>();
   for (const claim of input.claims) {
-    const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
     const report = reports.get(claim.target);
-    if (!report) {
+    if (!report || !claim.cell) continue;
+    const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
+    const cellProblem = notApplicableCell(claim, report, subject, input);
+    if (cellProblem === 'not-applicable') counts.notApplicable++;
+    else if (cellProblem) {
+      diagnostics.push(cellProblem);
+      if (cellProblem.ruleId === 'claim-contradicted') counts.claimsContradicted++;
+    }
+    if (cellProblem) settled.add(claim);
+  }
+  const toJudge = input.claims.filter((c) => !settled.has(c));
+  // The claims of each diagram are judged together: a DT code's open choices are made once per document.
+  const verdicts = new Map<string, DiagramVerdicts>();
+  for (const [target, claims] of groupBy(toJudge, (c) => c.target)) {
+    const report = reports.get(target);
+    if (!report) continue;
+    try {
+      const v = judgeDiagramClaims(report, claims, { convention: input.convention, others: reports, selfId: target });
+      const computeError = v.outcomes.find((o) => o.kind === 'unreadable' && isDiagramLevel(o.error));
+      if (computeError?.kind === 'unreadable') throw computeError.error;
+      verdicts.set(target, v);
+      reports.set(target, v.report);
+    } catch (e) {
+      if (!isInputError(e) || !isDiagramLevel(e)) throw e;
+      diagramLevel(e, target);
+    }
+  }
+  const judged: JudgedClaim[] = [];
+  const claimIndex = new Map<string, number>();
+  for (const claim of toJudge) {
+    const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
+    const v = verdicts.get(claim.target);
+    if (!v) {
       diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
       continue;
     }
-    if (claim.cell) {
-      const cellProblem = notApplicableCell(claim, report, subject, input);
-      if (cellProblem === 'not-applicable') {
-        counts.notApplicable++;
-        continue;
-      }
-      if (cellProblem) {
-        diagnostics.push(cellProblem);
-        if (cellProblem.ruleId === 'claim-contradicted') counts.claimsContradicted++;
-        continue;
-      }
-    }
-    try {
-      const judgement = judgeClaim(claim.key, claim.text, report, { convention: input.convention, others: reports, selfId: claim.target });
-      judged.push({ claim, judgement });
-    } catch (e) {
-      if (!isInputError(e)) throw e;
-      if (isDiagramLevel(e)) {
-        diagramLevel(e, claim.target);
-        diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
-      } else diagnostics.push(unreadableClaimDiagnostic(e, claim.locate, subject));
+    const k = claimIndex.get(claim.target) ?? 0;
+    claimIndex.set(claim.target, k + 1);
+    const outcome = v.outcomes[k]!;
+    if (outcome.kind === 'unreadable') diagnostics.push(unreadableClaimDiagnostic(outcome.error, claim.locate, subject));
+    else if (outcome.kind === 'judged') judged.push({ claim, judgement: outcome.judgement });
+    else {
+      const other = toJudge.filter((c) => c.target === claim.target)[outcome.other]!;
+      diagnostics.push(choiceConflictDiagnostic(outcome, subject, { key: other.key, place: place(other.locate()) }, `\`${claim.target}\``, claim.locate()));
+      counts.claimsContradicted++;
     }
   }
 
@@ -279,6 +309,17 @@ function swappedWithCell(j: Judgement, otherDiagram: string): Judgement {
   const unexplained = j.diagnosis?.kind === 'none' ? `; ${j.diagnosis.detail}` : undefined;
   const reason = unexplained && j.reason.endsWith(unexplained) ? `${j.reason.slice(0, -unexplained.length)}; ${detail}` : `${j.reason}: ${detail}`;
   return { ...j, diagnosis: { kind: 'swapped', otherDiagram, detail }, reason };
+}
+
+function groupBy<T>(items: readonly T[], keyOf: (item: T) => string): Map<string, T[]> {
+  const groups = new Map<string, T[]>();
+  for (const item of items) {
+    const key = keyOf(item);
+    const group = groups.get(key);
+    if (group) group.push(item);
+    else groups.set(key, [item]);
+  }
+  return groups;
 }
 
 function place(loc: SourceLocation): string {

@@ -25,6 +25,7 @@
  */
 import { assembleDiagram, type RawCrossing } from '../diagram/assemble.ts';
 import type { LinkDiagram, Sign } from '../diagram/model.ts';
+import { InputError } from '../errors.ts';
 import { codeError, integerValue, isOversizedInteger, listTokens, quote, wholeSpan, type Token } from './common.ts';
 import { firstNonPlanarPiece } from './planarity.ts';
 
@@ -35,7 +36,12 @@ type PassEnd = 'oddIn' | 'oddOut' | 'evenIn' | 'evenOut';
 
 const EXAMPLE = 'e.g. 4 6 2 for a trefoil, 4 6 8 2 for the figure-eight knot';
 
-export function parseDtCode(text: string): LinkDiagram {
+/**
+ * Reads a DT code. Without `partSigns` every choice the code leaves open is made by a rule (the first entry
+ * of each independent part turns +1) and the diagram lists the choices as `openChoices`; with `partSigns`
+ * (one sign per part, for its first crossing) the diagram is that realisation, with every choice fixed.
+ */
+export function parseDtCode(text: string, partSigns?: readonly Sign[]): LinkDiagram {
   const tokens = listTokens(
     text,
     (bracket, offset) =>
@@ -44,7 +50,51 @@ export function parseDtCode(text: string): LinkDiagram {
   if (tokens.length === 0) throw codeError(`The DT code is empty: write the even labels paired with 1, 3, 5, …, ${EXAMPLE}.`, wholeSpan(text));
   if (tokens.length > MAX_DT_ENTRIES) throw codeError(`The DT code has ${tokens.length} entries; at most ${MAX_DT_ENTRIES} are supported.`, wholeSpan(text));
   const entries = readEntries(tokens);
-  const turns = realiseTurns(entries, tokens);
+  const { turns, partOf, roots } = realiseTurns(entries, tokens);
+  const build = (turnOf: readonly Sign[], chiralityFixed: boolean): LinkDiagram => buildDtDiagram(text, entries, turnOf, chiralityFixed);
+  const drawn = build(turns, false);
+  const drawnSigns = roots.map((root) => drawn.crossings[root]!.sign);
+  // Reflecting a part flips the turn of each of its crossings, and with it the sign of each.
+  const realise = (signs: readonly Sign[]): LinkDiagram =>
+    build(
+      turns.map((turn, k) => (signs[partOf[k]!] === drawnSigns[partOf[k]!] ? turn : (-turn as Sign))),
+      true,
+    );
+  if (partSigns !== undefined) {
+    if (partSigns.length !== roots.length) {
+      throw new InputError(
+        'choice-invalid',
+        `part-signs lists ${partSigns.length} sign${partSigns.length === 1 ? '' : 's'}, but this DT code has ${roots.length} independent part${roots.length === 1 ? '' : 's'} (${describeParts(roots, partOf)}): give one sign, + or -, per part, the sign of its first crossing`,
+      );
+    }
+    return realise(partSigns);
+  }
+  const parts = roots.map((_, p) => {
+    const crossings = entries.map((_, k) => k).filter((k) => partOf[k] === p);
+    return { crossings, kink: crossings.length === 1 };
+  });
+  return { ...drawn, openChoices: { parts, realise } };
+}
+
+/** "entries 1–3; entry 4 (a kink)": the parts of a code by their entries, counted from 1. */
+export function describeParts(roots: readonly number[], partOf: ArrayLike<number>): string {
+  return roots
+    .map((_, p) => {
+      const members: number[] = [];
+      for (let k = 0; k < partOf.length; k++) if (partOf[k] === p) members.push(k + 1);
+      return describeEntries(members);
+    })
+    .join('; ');
+}
+
+/** "entry 4 (a kink)", "entries 1–3", "entries 1, 2, 5". */
+export function describeEntries(entries: readonly number[]): string {
+  if (entries.length === 1) return `entry ${entries[0]} (a kink)`;
+  const consecutive = entries.every((e, i) => i === 0 || e === entries[i - 1]! + 1);
+  return consecutive ? `entries ${entries[0]}–${entries[entries.length - 1]}` : `entries ${entries.join(', ')}`;
+}
+
+function buildDtDiagram(text: string, entries: readonly number[], turns: readonly Sign[], chiralityFixed: boolean): LinkDiagram {
   const n = entries.length;
   // Edge p runs into visit p (edge 1 from visit 2n), so the assembled knot starts on the edge entering visit 1.
   const enter = (visit: number): number => visit;
@@ -62,7 +112,7 @@ export function parseDtCode(text: string): LinkDiagram {
     const sign: Sign = slots[3] === (evenUnder ? 'oddIn' : 'evenIn') ? 1 : -1;
     return { edges: slots.map((role) => edgeOf[role]) as unknown as RawCrossing['edges'], sign };
   });
-  const diagram = assembleDiagram(raw, { notation: 'dt', chiralityFixed: false });
+  const diagram = assembleDiagram(raw, { notation: 'dt', chiralityFixed });
   if (firstNonPlanarPiece(diagram)) {
     throw codeError('No planar knot diagram has this DT code (the curve it describes cannot be drawn in the plane without extra crossings). Check the entries for a misprint.', wholeSpan(text));
   }
@@ -103,7 +153,7 @@ function readEntries(tokens: readonly Token[]): number[] {
 }
 
 /** The turn ε of every crossing (indexed like the entries), or an error naming the entries that cannot be drawn. */
-function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sign[] {
+function realiseTurns(entries: readonly number[], tokens: readonly Token[]): { turns: Sign[]; partOf: Int32Array; roots: number[] } {
   const n = entries.length;
   const words = (n + 31) >>> 5;
   const first = entries.map((e, k) => Math.min(2 * k + 1, Math.abs(e)));
@@ -146,10 +196,14 @@ function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sig
     }
   }
   const turn = new Array<Sign | 0>(n).fill(0);
+  const partOf = new Int32Array(n);
+  const roots: number[] = [];
   for (let root = 0; root < n; root++) {
     if (turn[root] !== 0) continue;
     // The free choice of each independent part: its first entry turns +1.
     turn[root] = 1;
+    partOf[root] = roots.length;
+    roots.push(root);
     const queue = [root];
     for (let head = 0; head < queue.length; head++) {
       const a = queue[head]!;
@@ -157,6 +211,7 @@ function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sig
         const wanted = (commonIsOdd(a, b) ? turn[a] : -turn[a]!) as Sign;
         if (turn[b] === 0) {
           turn[b] = wanted;
+          partOf[b] = partOf[a]!;
           queue.push(b);
         } else if (turn[b] !== wanted) {
           const [x, y] = a < b ? [a, b] : [b, a];
@@ -168,7 +223,7 @@ function realiseTurns(entries: readonly number[], tokens: readonly Token[]): Sig
       }
     }
   }
-  return turn as Sign[];
+  return { turns: turn as Sign[], partOf, roots };
 }
 
 function popcount(x: number): number {

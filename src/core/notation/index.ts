@@ -3,7 +3,8 @@
  * notation has its own module; all report bad input as an InputError that
  * names the token or tuple at fault.
  */
-import { componentCount, type LinkDiagram, type Notation } from '../diagram/model.ts';
+import { componentCount, type LinkDiagram, type Notation, type Sign } from '../diagram/model.ts';
+import { InputError } from '../errors.ts';
 import { codeError, wholeSpan } from './common.ts';
 import { parseBraidWord } from './braid.ts';
 import { parseDtCode } from './dt.ts';
@@ -21,6 +22,31 @@ export interface ParseOptions {
   readonly named?: (id: string) => LinkDiagram | undefined;
   /** Codes with more crossings are refused (a `limit-exceeded` error) before they are parsed. */
   readonly maxCrossings?: number;
+  /** DT codes: the sign of the first crossing of each independent part, fixing every choice the code leaves open. */
+  readonly partSigns?: readonly Sign[];
+}
+
+/**
+ * Reads the value of a diagram's `part-signs` attribute: one `+` or `-` per independent part of a DT code,
+ * separated by spaces or commas. Errors are `choice-invalid` with a span into the text.
+ */
+export function readPartSigns(text: string): Sign[] {
+  const signs: Sign[] = [];
+  for (const m of text.matchAll(/[^\s,]+/g)) {
+    const token = m[0];
+    if (token === '+') signs.push(1);
+    else if (token === '-' || token === '\u2212') signs.push(-1);
+    else {
+      throw new InputError('choice-invalid', `part-signs: \`${token}\` is not a sign: write one + or - per independent part of the DT code, separated by spaces (e.g. part-signs="+ -")`, {
+        start: m.index,
+        end: m.index + token.length,
+      });
+    }
+  }
+  if (signs.length === 0) {
+    throw new InputError('choice-invalid', 'part-signs is empty: write one + or - per independent part of the DT code, separated by spaces (e.g. part-signs="+ -")', { start: 0, end: text.length });
+  }
+  return signs;
 }
 
 export const NOTATIONS: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt', 'family'];
@@ -69,6 +95,9 @@ function crossingsWritten(text: string, notation: Exclude<Notation, 'family'>): 
 }
 
 function parseInNotation(text: string, notation: Notation, options?: ParseOptions): LinkDiagram {
+  if (options?.partSigns !== undefined && notation !== 'dt') {
+    throw new InputError('choice-invalid', `part-signs applies to DT codes only: ${notation === 'braid' ? 'a braid word' : notation === 'family' ? 'a family' : `a ${notation.toUpperCase()} code`} fixes every crossing's sign already; remove the attribute`);
+  }
   switch (notation) {
     case 'pd':
       return parsePdCode(text);
@@ -77,7 +106,7 @@ function parseInNotation(text: string, notation: Notation, options?: ParseOption
     case 'gauss':
       return parseGaussCode(text);
     case 'dt':
-      return parseDtCode(text);
+      return parseDtCode(text, options?.partSigns);
     case 'family':
       return parseFamily(text, options?.named ? { named: options.named } : {});
   }
