@@ -115,10 +115,10 @@ describe('bracket normalisations round-trip hand-worked values', () => {
 
 describe('convention settings from key/value strings', () => {
   it('reads every key, case-insensitively, onto the default', () => {
-    const r = parseConventionSettings({ jones: 'q', Bracket: 'LOOP', order: 'descending', 'half-powers': 'root', signature: 'positive', Khovanov: 'Q-Inverse' });
+    const r = parseConventionSettings({ jones: 'q', Bracket: 'LOOP', order: 'descending', 'half-powers': 'root', signature: 'positive', Khovanov: 'Q-Inverse', HOMFLY: 'AZ', kauffman: 'dubrovnik' });
     expect(r).toEqual({
       ok: true,
-      convention: { jonesVariable: 'q', bracketNormalization: 'loop', termOrder: 'descending', halfPowers: 'root', signatureSign: 'positive', khovanovGrading: 'q-inverse' },
+      convention: { jonesVariable: 'q', bracketNormalization: 'loop', termOrder: 'descending', halfPowers: 'root', signatureSign: 'positive', khovanovGrading: 'q-inverse', homflyVariables: 'az', kauffmanVariant: 'dubrovnik' },
     });
   });
   it('accepts the field names as keys', () => {

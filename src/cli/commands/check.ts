@@ -36,7 +36,7 @@ export function manuscriptOptions(y: Argv): Argv {
     .option('strict', { type: 'boolean', default: false, describe: 'Warnings (undecided or mirror-only claims) fail too' })
     .option('convention', {
       type: 'string',
-      describe: 'Override the document\'s convention, e.g. "jones=q,order=descending" (keys: jones, bracket, order, half-powers, signature)',
+      describe: 'Override the document\'s convention, e.g. "jones=q,order=descending" (keys: jones, bracket, order, half-powers, signature, homfly, kauffman)',
     }) as Argv;
 }
 

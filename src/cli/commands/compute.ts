@@ -317,7 +317,7 @@ export const computeCommand: CliCommand = {
       .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' })
       // Not `array: true`, which would swallow the codes that follow; repeating the flag collects the claims.
       .option('claim', { type: 'string', describe: 'Check a stated value, KEY=VALUE (repeatable), e.g. jones=t+t^3-t^4 or crossing-number=<=7' })
-      .option('convention', { type: 'string', describe: 'How claims are read and values written, e.g. "jones=q,bracket=loop" (keys: jones, bracket, order, half-powers, signature)' })
+      .option('convention', { type: 'string', describe: 'How claims are read and values written, e.g. "jones=q,bracket=loop" (keys: jones, bracket, order, half-powers, signature, homfly, kauffman)' })
       .option('strict', { type: 'boolean', default: false, describe: 'With --claim: warnings (undecided or mirror-only claims) fail too' }) as Argv,
   run: async (raw) => {
     const args = readArgs(raw);

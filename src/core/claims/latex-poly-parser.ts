@@ -19,6 +19,20 @@ export interface PolynomialReadOptions {
   readonly what?: string;
   /** A number claim that must be whole (a writhe, not a span): its messages suggest no fraction. */
   readonly whole?: boolean;
+  /**
+   * A second letter that may appear beside the first (`variables[0]`), for two-variable polynomials
+   * such as P(v, z): it is read as the first letter to the power PAIRED_WEIGHT (see `splitPaired`).
+   */
+  readonly paired?: string;
+}
+
+/** The weight of the second letter of a two-variable reading: x^i y^j is read as x^(i + PAIRED_WEIGHT·j). */
+export const PAIRED_WEIGHT = 1000;
+
+/** Splits a value read with `paired` into its (first-letter, second-letter) exponents. */
+export function splitPaired(exponent: number): [number, number] {
+  const j = Math.round(exponent / PAIRED_WEIGHT);
+  return [exponent - j * PAIRED_WEIGHT, j];
 }
 
 export interface ReadPolynomial {
@@ -427,7 +441,7 @@ class PolynomialParser {
     if (t.kind === 'letter') {
       this.next();
       this.useVariable(t);
-      return { value: Laurent.monomial(1), start: t.start, end: t.end };
+      return { value: Laurent.monomial(t.text === this.options.paired ? PAIRED_WEIGHT : 1), start: t.start, end: t.end };
     }
     if (this.isOp(t, '(') || this.isOp(t, '[') || this.isOp(t, '{')) {
       this.next();
@@ -455,7 +469,8 @@ class PolynomialParser {
   }
 
   private useVariable(t: Token): void {
-    const allowed = this.options.variables;
+    const allowed = this.options.paired ? [...this.options.variables, this.options.paired] : this.options.variables;
+    if (t.text === this.options.paired) return;
     if (allowed.length === 0) fail(`unexpected \`${t.text}\`: ${this.what()} is a number`, t);
     if (!allowed.includes(t.text)) {
       const expected = allowed[0] ?? 't';
@@ -653,7 +668,7 @@ class PolynomialParser {
     const coefficient = r.q === 1 && c === -1n && r.p % 2 !== 0 ? -1n : 1n;
     if (e === 0) return Laurent.constant(coefficient);
     // e·r exactly, on the lattice of the variable's exponents.
-    const variable = this.variable!.text;
+    const variable = this.variable?.text ?? this.options.variables[0] ?? 't';
     const den = exponentDenominator(variable);
     const scaled = e * den; // an integer: e is on the lattice
     if ((scaled * r.p) % r.q !== 0) {

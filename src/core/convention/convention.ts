@@ -37,6 +37,16 @@ export type SignatureSign = 'negative' | 'positive';
  */
 export type KhovanovGrading = 'standard' | 'q-inverse' | 'homological' | 'mirror';
 
+/**
+ * How the HOMFLY-PT polynomial is written (P(unknot) = 1 in both):
+ * - `vz`: v⁻¹P(L₊) − vP(L₋) = zP(L₀);
+ * - `az`: aP(L₊) − a⁻¹P(L₋) = zP(L₀), that is a = v⁻¹.
+ */
+export type HomflyVariables = 'vz' | 'az';
+
+/** Kauffman's F(a, z) (`kauffman`) or its Dubrovnik variant (`dubrovnik`). */
+export type KauffmanVariant = 'kauffman' | 'dubrovnik';
+
 export interface Convention {
   readonly jonesVariable: JonesVariable;
   readonly bracketNormalization: BracketNormalization;
@@ -44,6 +54,8 @@ export interface Convention {
   readonly halfPowers: HalfPowerStyle;
   readonly signatureSign: SignatureSign;
   readonly khovanovGrading: KhovanovGrading;
+  readonly homflyVariables: HomflyVariables;
+  readonly kauffmanVariant: KauffmanVariant;
 }
 
 export const DEFAULT_CONVENTION: Convention = {
@@ -53,4 +65,6 @@ export const DEFAULT_CONVENTION: Convention = {
   halfPowers: 'power',
   signatureSign: 'negative',
   khovanovGrading: 'standard',
+  homflyVariables: 'vz',
+  kauffmanVariant: 'kauffman',
 };

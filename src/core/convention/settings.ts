@@ -8,6 +8,8 @@
  *   order       ascending | descending
  *   half-powers power | root
  *   signature   negative | positive
+ *   homfly      vz | az
+ *   kauffman    kauffman | dubrovnik
  */
 import { InputError } from '../errors.ts';
 import type { TextSpan } from '../diagnostics/diagnostic.ts';
@@ -27,6 +29,8 @@ export const CONVENTION_SETTINGS: readonly SettingSpec[] = [
   { key: 'half-powers', field: 'halfPowers', values: ['power', 'root'], meaning: 'how t^{1/2} is typeset' },
   { key: 'signature', field: 'signatureSign', values: ['negative', 'positive'], meaning: 'the sign of the signature of the positive trefoil' },
   { key: 'khovanov', field: 'khovanovGrading', values: ['standard', 'q-inverse', 'homological', 'mirror'], meaning: 'the grading of Khovanov homology' },
+  { key: 'homfly', field: 'homflyVariables', values: ['vz', 'az'], meaning: 'the variables and skein relation of the HOMFLY-PT polynomial' },
+  { key: 'kauffman', field: 'kauffmanVariant', values: ['kauffman', 'dubrovnik'], meaning: 'Kauffman\'s F or its Dubrovnik variant' },
 ];
 
 /** Where each key and value was written, for settings read from one string (the CLI flag). */

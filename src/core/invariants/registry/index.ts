@@ -25,6 +25,10 @@ import { determinantInvariant } from '../registered/determinant.ts';
 import { signatureInvariant } from '../registered/signature.ts';
 import { genusInvariant } from '../registered/genus.ts';
 import { khovanovInvariant } from '../registered/khovanov.ts';
+import { homflyInvariant } from '../registered/homfly.ts';
+import { kauffmanInvariant } from '../registered/kauffman.ts';
+import { braidIndexInvariant } from '../registered/braid-index.ts';
+import { arfInvariant } from '../registered/arf.ts';
 
 export type * from './types.ts';
 
@@ -49,6 +53,10 @@ export const INVARIANTS: readonly Invariant[] = [
   signatureInvariant,
   genusInvariant,
   khovanovInvariant,
+  homflyInvariant,
+  kauffmanInvariant,
+  braidIndexInvariant,
+  arfInvariant,
 ];
 
 const claimSpecs = new Map<string, ClaimSpec>();

@@ -1,0 +1,35 @@
+/** The braid index, as proven bounds with the theorem behind each. */
+import type { Invariant } from '../registry/types.ts';
+import { braidIndexLatex, judgeBraidIndexClaim } from '../../claims/skein-polynomial-claims.ts';
+import { valueOf } from '../registry/lazy.ts';
+import { braidIndexValue } from './skein-values.ts';
+
+export const braidIndexInvariant: Invariant = {
+  id: 'braid-index',
+  doc: 'The braid index of the link: at least span_v P / 2 + 1 (Morton–Franks–Williams), at most the Seifert circles of the diagram (Yamada 1987), exact when they meet.',
+  cost: 'contraction',
+  conventions: [],
+  claims: [
+    {
+      key: 'braid-index',
+      noun: 'braid index',
+      aliases: ['braid index', 'b(K)', 'b(L)'],
+      valueDoc: 'a natural number; judged agrees, contradicts, or undecided when the proven bounds leave it open',
+      example: '2',
+      changedBy: [],
+      judge: (text, report) => judgeBraidIndexClaim(text, valueOf(report, braidIndexValue)),
+    },
+  ],
+  fills: [{ key: 'braid-index', valueDoc: 'the braid index when the bounds meet, else the bounds', typeset: (report) => ({ kind: 'math', latex: braidIndexLatex(valueOf(report, braidIndexValue)) }) }],
+  json: [
+    {
+      field: 'braidIndex',
+      example: { lower: 2, upper: 2, exact: 2 },
+      value: (r) => {
+        const b = valueOf(r, braidIndexValue);
+        return { lower: b.lower, upper: b.upper, exact: b.exact, reasons: b.reasons.map((x) => ({ bound: x.bound, value: x.value, theorem: x.theorem, text: x.text })) };
+      },
+    },
+  ],
+  tests: ['test/invariants/braid-index-arf.test.ts'],
+};
