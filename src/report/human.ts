@@ -5,12 +5,15 @@
  * e.g. because stdout is a terminal.
  */
 import type { Diagnostic, Severity, SourceLocation } from '../core/diagnostics/diagnostic.ts';
+import type { SessionCounts } from '../core/manuscript/api.ts';
 import { countDiagnostics } from './exit-status.ts';
 
 export interface HumanReportOptions {
   readonly color?: boolean;
   /** The text of each file, for the source excerpt; files absent here get no excerpt. */
   readonly sources?: ReadonlyMap<string, string>;
+  /** What was checked, printed before the summary so that a pass says what it passed. */
+  readonly checked?: SessionCounts;
 }
 
 const SEVERITY_COLOR: Readonly<Record<Severity, string>> = { error: '31', warning: '33', note: '36' };
@@ -75,8 +78,20 @@ export function summaryLine(diagnostics: readonly Diagnostic[]): string {
   return [part(errors, 'error'), part(warnings, 'warning'), ...(notes > 0 ? [part(notes, 'note')] : [])].join(', ') + restOnSources;
 }
 
-/** All diagnostics, each followed by a blank line, then the summary line. */
+const counted = (n: number, word: string, plural = `${word}s`) => `${n} ${n === 1 ? word : plural}`;
+
+/** "checked 12 diagrams: 31 claims agree, 14 values filled; table cells: 20 checked or filled, 2 not applicable". */
+export function checkedLine(c: SessionCounts): string {
+  const parts = [`${counted(c.claimsAgree, 'claim')} ${c.claimsAgree === 1 ? 'agrees' : 'agree'}`];
+  if (c.claimsContradicted > 0) parts.push(`${c.claimsContradicted} contradicted`);
+  if (c.claimsUndecided > 0) parts.push(`${c.claimsUndecided} undecided`);
+  parts.push(`${counted(c.valuesFilled, 'value')} filled`);
+  const cells = [...(c.tableCells > 0 ? [`${c.tableCells} checked or filled`] : []), ...(c.notApplicable > 0 ? [`${c.notApplicable} not applicable`] : [])];
+  return `checked ${counted(c.diagrams, 'diagram')}: ${parts.join(', ')}${cells.length > 0 ? `; table cells: ${cells.join(', ')}` : ''}`;
+}
+
+/** All diagnostics, each followed by a blank line, then what was checked (when given) and the summary line. */
 export function formatHumanReport(diagnostics: readonly Diagnostic[], options: HumanReportOptions = {}): string {
   const blocks = diagnostics.map((d) => formatDiagnostic(d, options));
-  return [...blocks.map((b) => `${b}\n`), summaryLine(diagnostics)].join('\n') + '\n';
+  return [...blocks.map((b) => `${b}\n`), ...(options.checked ? [checkedLine(options.checked)] : []), summaryLine(diagnostics)].join('\n') + '\n';
 }

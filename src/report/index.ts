@@ -1,5 +1,5 @@
 /** Reporters: pure string builders over diagnostics. */
-export { formatDiagnostic, formatHumanReport, summaryLine, excerpt, type HumanReportOptions } from './human.ts';
+export { formatDiagnostic, formatHumanReport, summaryLine, checkedLine, excerpt, type HumanReportOptions } from './human.ts';
 export { formatJsonReport, jsonReport, type JsonReport } from './json.ts';
 export { formatSarif, sarifLog, pathToUri, SARIF_SCHEMA, type SarifOptions } from './sarif.ts';
 export { exitStatus, countDiagnostics, EXIT_OK, EXIT_FAILED_CHECK, EXIT_BAD_INPUT, type ExitStatus, type DiagnosticCounts } from './exit-status.ts';

@@ -12,6 +12,7 @@ import type { Argv } from 'yargs';
 import type { Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
+import type { SessionCounts } from '../../core/manuscript/api.ts';
 import { EXIT_BAD_INPUT, EXIT_FAILED_CHECK, countDiagnostics, exitStatus, formatHumanReport, formatJsonReport, formatSarif } from '../../report/index.ts';
 import { formatFor, knownExtensions } from '../formats/registry.ts';
 import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/types.ts';
@@ -95,8 +96,15 @@ export function exitStatusFor(diagnostics: readonly Diagnostic[], failed: boolea
  * check failed (a document's own `strict` may fail it on warnings), so the JSON report's
  * exit status is the one the process ends with.
  */
-export function reportDiagnostics(diagnostics: readonly Diagnostic[], format: ReportFormat, files: readonly string[], strict: boolean, color: boolean): string {
-  if (format === 'json') return formatJsonReport(diagnostics, { strict });
+export function reportDiagnostics(
+  diagnostics: readonly Diagnostic[],
+  format: ReportFormat,
+  files: readonly string[],
+  strict: boolean,
+  color: boolean,
+  checked?: SessionCounts,
+): string {
+  if (format === 'json') return formatJsonReport(diagnostics, { strict, ...(checked ? { checked } : {}) });
   if (format === 'sarif') return formatSarif(diagnostics);
   const sources = new Map<string, string>();
   for (const f of files) {
@@ -107,11 +115,19 @@ export function reportDiagnostics(diagnostics: readonly Diagnostic[], format: Re
       // An unreadable file is already a diagnostic of its own.
     }
   }
-  const report = formatHumanReport(diagnostics, { sources, color });
+  const report = formatHumanReport(diagnostics, { sources, color, ...(checked ? { checked } : {}) });
   const { errors, warnings } = countDiagnostics(diagnostics);
   // "0 errors" and a failing status would puzzle a reader who did not ask for --strict (the front matter did).
   const why = strict && errors === 0 && warnings > 0 ? 'the check fails on these warnings: strictness is on (--strict, or `strict: true` in the front matter)\n' : '';
   return report + why;
+}
+
+/** The counts of several manuscripts, summed. */
+function addCounts(total: SessionCounts | undefined, more: SessionCounts): SessionCounts {
+  if (!total) return more;
+  const sum = { ...total };
+  for (const key of Object.keys(sum) as (keyof SessionCounts)[]) sum[key] += more[key];
+  return sum;
 }
 
 export function usage(message: string): number {
@@ -131,6 +147,7 @@ export const checkCommand: CliCommand = {
     const diagnostics: Diagnostic[] = [];
     const read = new Set(files);
     let failed = false;
+    let checked: SessionCounts | undefined;
     for (const path of files) {
       const format = formatOf(path);
       if (typeof format === 'string') {
@@ -142,9 +159,10 @@ export const checkCommand: CliCommand = {
       diagnostics.push(...result.diagnostics);
       for (const input of result.inputs) read.add(input); // included files, so their lines can be quoted
       failed ||= resultFailed(result, args.options.strict === true);
+      if (result.counts) checked = addCounts(checked, result.counts);
     }
     const strict = args.options.strict === true;
-    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, wantsColor(process.stdout)));
+    process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, wantsColor(process.stdout), checked));
     return exitStatusFor(diagnostics, failed, strict);
   },
 };

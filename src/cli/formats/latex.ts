@@ -117,8 +117,8 @@ export const latexFormat: ManuscriptFormat = {
   extensions: FORMAT_EXTENSIONS.latex,
 
   async check(path, options): Promise<FormatResult> {
-    const { doc, diagnostics, failed } = checkManuscript(path, options);
-    return { diagnostics, outputs: [], inputs: inputsOf(doc), failed };
+    const { doc, session, diagnostics, failed } = checkManuscript(path, options);
+    return { diagnostics, outputs: [], inputs: inputsOf(doc), failed, counts: session.counts };
   },
 
   async build(path, options): Promise<FormatResult> {

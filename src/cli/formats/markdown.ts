@@ -147,7 +147,7 @@ export const markdownFormat: ManuscriptFormat = {
   async check(path, options): Promise<FormatResult> {
     const checked = await checkManuscript(path, options);
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
-    return { diagnostics: checked.diagnostics, outputs: [], inputs: [path], failed: checked.failed };
+    return { diagnostics: checked.diagnostics, outputs: [], inputs: [path], failed: checked.failed, counts: checked.data.session.counts };
   },
 
   async build(path, options): Promise<FormatResult> {

@@ -5,6 +5,7 @@
  */
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import type { Convention } from '../../core/convention/convention.ts';
+import type { SessionCounts } from '../../core/manuscript/api.ts';
 import type { ComputeLimits } from '../../core/limits.ts';
 
 export interface FormatOptions {
@@ -36,6 +37,8 @@ export interface FormatResult {
    * it from the diagnostics and the command-line --strict.
    */
   readonly failed?: boolean;
+  /** What the manuscript pass checked (absent when the file could not be read at all). */
+  readonly counts?: SessionCounts;
 }
 
 export interface ManuscriptFormat {
