@@ -10,7 +10,8 @@
 import { basename, dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import type { Notation } from '../../src/core/diagram/model.ts';
 import type { Convention } from '../../src/core/convention/convention.ts';
-import { readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
+import { CONVENTION_SETTINGS, readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
 import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
 import { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
@@ -81,6 +82,8 @@ export interface LatexDocument {
   /** Ids of skeincode environments refused (never closed, or bad notation or strands), with the place of the environment. */
   readonly refusedIds: ReadonlyMap<string, SourceLocation>;
   readonly splices: ReadonlyMap<SourceFile, readonly Splice[]>;
+  /** A package or class file of the author's that loads skeinproof (the flat copy still loads it), with the place of the load. */
+  readonly packageLoadedBy: SourceLocation | undefined;
 }
 
 /** Keys of \begin{skeincode}{…} besides the claim keys. */
@@ -128,6 +131,9 @@ class ManuscriptReader {
   /** The definitions recorded in `macros`: the markup in their bodies is read at the uses, not where it is written. */
   private readonly recorded = new WeakSet<DefinitionItem>();
   private expandedCharacters = 0;
+  /** Where \documentclass is, in the manuscript itself: a whole document, not a fragment. */
+  private documentClass: Span | undefined;
+  private packageLoadedBy: SourceLocation | undefined;
   private convention: Partial<Convention> = {};
   /** Where the convention was declared: the file and the command (\skeinconvention or the package options). */
   private conventionAt: { readonly file: SourceFile; readonly command: string } | undefined;
@@ -156,6 +162,7 @@ class ManuscriptReader {
       this.error(main, { start: 0, end: 0 }, 'file-unreadable', `cannot read ${this.mainPath}: it is ${text.notRegular}, not a regular file; skeinproof reads manuscripts from regular files only`);
     } else {
       this.visit(main, [absolute]);
+      this.warnIfPackageUnseen(main);
     }
     const fileRank = new Map(this.files.map((f, i) => [f.displayPath, i]));
     const rank = (d: Diagnostic): number => fileRank.get(d.location!.file) ?? 0;
@@ -169,6 +176,7 @@ class ManuscriptReader {
       diagnostics: [...this.diagnostics].sort((a, b) => rank(a) - rank(b) || a.location!.start.offset! - b.location!.start.offset!),
       refusedIds: this.refusedIds,
       splices: this.splices,
+      packageLoadedBy: this.packageLoadedBy,
     };
   }
 
@@ -181,16 +189,49 @@ class ManuscriptReader {
     const splices: Splice[] = [];
     this.splices.set(file, splices);
     const masked = maskLatex(file.text);
-    const atLetter = /\.(sty|cls)$/i.test(file.absolutePath);
-    const scan = scanLatexItems(masked, { macros: this.macros, atLetter });
+    const packageFile = isPackageFile(file);
+    const scan = scanLatexItems(masked, { macros: this.macros, atLetter: packageFile });
     for (const item of scan.items) this.item(file, masked, item, splices, open, 0);
-    for (const p of scan.problems) this.error(file, p.span, p.ruleId, p.message);
+    // A package or class file is read for the convention and the macros it defines; its TeX is the package's own
+    // business (catcode tricks the scanner does not follow), so only the markup found in it is judged.
+    if (!packageFile) for (const p of scan.problems) this.error(file, p.span, p.ruleId, p.message);
+  }
+
+  /**
+   * A package or class of the author's, in the paper's folder (`\usepackage{mymacros}` and mymacros.sty beside
+   * the paper), is read like an included file: it may load skeinproof with the convention as options, or define
+   * macros that hold markup. Packages from TeX's own tree are not looked for; LaTeX loads a package once.
+   */
+  private localPackage(name: Arg, extension: '.sty' | '.cls', open: readonly string[]): void {
+    if (name.text === 'skeinproof' || !/^[A-Za-z0-9_.-]+$/.test(name.text)) return;
+    const absolute = resolve(dirname(resolve(this.mainPath)), `${name.text}${extension}`);
+    if (open.includes(absolute) || this.files.some((f) => f.absolutePath === absolute)) return;
+    const text = this.fs.read(absolute);
+    if (typeof text !== 'string' || isOutside(this.root, this.real(absolute))) return;
+    this.visit(new SourceFile(join(dirname(this.mainPath), `${name.text}${extension}`), absolute, text), [...open, absolute]);
+  }
+
+  /**
+   * A whole document (with \documentclass) that holds markup but loads skeinproof nowhere the reader looked (the
+   * package may come from a package of the author's outside the paper's folder): its convention was not read, so
+   * say which one was assumed.
+   */
+  private warnIfPackageUnseen(main: SourceFile): void {
+    if (this.packageLoaded || this.conventionAt || !this.documentClass) return;
+    if (this.diagrams.length + this.claims.length + this.fills.length === 0) return;
+    const assumed = CONVENTION_SETTINGS.map((c) => `${c.key}=${DEFAULT_CONVENTION[c.field]}`).join(', ');
+    this.diagnostics.push({
+      severity: 'warning',
+      ruleId: 'latex-package-unseen',
+      message: `no \\usepackage{skeinproof} or \\RequirePackage{skeinproof} was found in ${main.displayPath}, the files it \\input s, or the package and class files in its folder, so its convention could not be read and the default one was assumed (${assumed}): if the package is loaded with options elsewhere, declare the convention in the document with \\skeinconvention{…} after it, or give --convention`,
+      location: main.location(this.documentClass.start, this.documentClass.end),
+    });
   }
 
   private item(file: SourceFile, masked: string, item: ScanItem, splices: Splice[], open: readonly string[], depth: number): void {
     switch (item.kind) {
       case 'definition':
-        return this.definition(file, masked, item, /\.(sty|cls)$/i.test(file.absolutePath));
+        return this.definition(file, masked, item, isPackageFile(file));
       case 'use':
         return this.use(file, masked, item, splices, open, depth);
       case 'code':
@@ -205,7 +246,12 @@ class ManuscriptReader {
       case 'input':
         return this.input(file, item, splices, open);
       case 'package':
-        return this.usePackage(file, item, splices);
+        if (item.names.some((n) => n.text === 'skeinproof')) this.usePackage(file, item, splices);
+        for (const name of item.names) this.localPackage(name, '.sty', open);
+        return;
+      case 'class':
+        if (file === this.files[0]) this.documentClass ??= item.span;
+        return this.localPackage(item.name, '.cls', open);
       case 'table':
         return this.table(file, item, splices);
       case 'document':
@@ -404,6 +450,7 @@ class ManuscriptReader {
   }
 
   private usePackage(file: SourceFile, item: Extract<ScanItem, { kind: 'package' }>, splices: Splice[]): void {
+    if (isPackageFile(file)) this.packageLoadedBy ??= file.location(item.span.start, item.span.end);
     const others = item.list.text
       .split(',')
       .map((p) => p.trim())
@@ -679,6 +726,10 @@ class ManuscriptReader {
   private error(file: TextOrigin, span: Span, ruleId: string, message: string): void {
     this.diagnostics.push({ severity: 'error', ruleId, message, location: file.location(span.start, span.end) });
   }
+}
+
+function isPackageFile(file: SourceFile): boolean {
+  return /\.(sty|cls)$/i.test(file.absolutePath);
 }
 
 function isOutside(root: string, path: string): boolean {

@@ -8,6 +8,7 @@
  * `\[…\]`, the display environments, \ensuremath, and text inside math
  * through \text, \mbox and their relatives.
  */
+import { splitTopLevel, trim } from './key-values.ts';
 import { controlWord } from './mask.ts';
 
 /** A braced or bracketed argument: `text` is its inside (masked), `start`/`end` the inside's offsets. */
@@ -84,7 +85,10 @@ export type ScanItem =
   | DefinitionItem
   /** A use of one of the macros in ScanOptions.macros, with its arguments (an optional one not given is undefined). */
   | { readonly kind: 'use'; readonly span: Span; readonly name: string; readonly args: readonly (Arg | undefined)[]; readonly definition: DefinitionItem | undefined }
-  | { readonly kind: 'package'; readonly span: Span; readonly options: Arg | undefined; readonly list: Arg }
+  /** `\usepackage[options]{list}` or `\RequirePackage`: `names` are the packages of the list. */
+  | { readonly kind: 'package'; readonly span: Span; readonly options: Arg | undefined; readonly list: Arg; readonly names: readonly Arg[] }
+  /** `\documentclass[options]{name}`. */
+  | { readonly kind: 'class'; readonly span: Span; readonly name: Arg }
   /** `\begin{document}`: the preamble ends here. */
   | { readonly kind: 'document'; readonly span: Span }
   | {
@@ -256,6 +260,8 @@ class Scanner {
       case 'usepackage':
       case 'RequirePackage':
         return this.usePackage(start);
+      case 'documentclass':
+        return this.documentClass(start);
       case 'skeinconvention':
         return this.convention(start);
       case 'skeinvalue':
@@ -536,9 +542,18 @@ class Scanner {
     const list = this.group(options ? options.next : this.pos);
     if (!list) return;
     this.pos = list.next;
-    if (list.arg.text.split(',').some((p) => p.trim() === 'skeinproof')) {
-      this.items.push({ kind: 'package', span: { start, end: list.next }, options: options?.arg, list: list.arg });
-    }
+    const names = splitTopLevel(list.arg, ',')
+      .map(trim)
+      .filter((n) => n.text !== '');
+    this.items.push({ kind: 'package', span: { start, end: list.next }, options: options?.arg, list: list.arg, names });
+  }
+
+  private documentClass(start: number): void {
+    const options = this.bracket(this.pos);
+    const name = this.group(options ? options.next : this.pos);
+    if (!name) return;
+    this.pos = name.next;
+    this.items.push({ kind: 'class', span: { start, end: name.next }, name: trim(name.arg) });
   }
 
   private convention(start: number): void {

@@ -489,3 +489,45 @@ describe("the author's macros with parameters", () => {
   });
 });
 
+// LaTeX finds a package or class first in the directory it runs in, the paper's (kpathsea searches `.` first:
+// common practice), so an author's mymacros.sty beside the paper is what \usepackage{mymacros} loads.
+describe("the author's own package and class files", () => {
+  it('a convention given where an own package loads skeinproof is read, and its macros are expanded (@ is a letter there)', () => {
+    const doc = read({
+      'paper.tex': '\\documentclass{article}\n\\usepackage{amsmath,mymacros}\n\\begin{document}\n\\jonesof{k}{q^2}\n\\end{document}\n',
+      'mymacros.sty':
+        '\\ProvidesPackage{mymacros}\n\\RequirePackage[jones=q, order=descending]{skeinproof}\n' +
+        '\\newcommand\\my@claim[3]{\\skeinclaim{#1}{#2}{#3}}\n\\newcommand\\jonesof[2]{\\my@claim{#1}{jones}{#2}}\n\\def\\x{\\iffalse{\\fi}\n',
+      'skeinproof.sty': '\\skeinconvention{jones=t}\n', // the package itself, copied beside the paper, is not read
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.convention).toEqual({ jonesVariable: 'q', termOrder: 'descending' });
+    expect(doc.files.map((f) => f.displayPath)).toEqual(['/paper/paper.tex', '/paper/mymacros.sty']);
+    expect(doc.claims.map((c) => `${c.target} ${c.text} ${c.locate().start.line}:${c.locate().start.column}`)).toEqual(['k q^2 4:13']);
+    expect(doc.packageLoadedBy).toMatchObject({ file: '/paper/mymacros.sty', start: { line: 2 } });
+  });
+
+  it('a class file beside the paper is read too; each package once', () => {
+    const doc = read({
+      'paper.tex': '\\documentclass{knotpaper}\n\\usepackage{extra}\n\\usepackage{extra}\n\\begin{document}\n\\end{document}\n',
+      'knotpaper.cls': '\\LoadClass{article}\n\\RequirePackage[signature=positive]{skeinproof}\n',
+      'extra.sty': '\\newcommand\\E[1]{\\skeinjones{#1}}\n',
+    });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.convention).toEqual({ signatureSign: 'positive' });
+    expect(doc.files.map((f) => f.displayPath)).toEqual(['/paper/paper.tex', '/paper/knotpaper.cls', '/paper/extra.sty']);
+  });
+
+  it('a document whose package load is nowhere to be read is warned about, naming the convention assumed', () => {
+    const doc = read({
+      'paper.tex':
+        '\\documentclass{article}\n\\usepackage{elsewhere}\n\\begin{document}\n\\begin{skeincode}{id=k, notation=braid}\n1 1 1\n\\end{skeincode}\n\\end{document}\n',
+    });
+    expect(places(doc)).toEqual(['latex-package-unseen@paper.tex:1:1']);
+    expect(doc.diagnostics[0]!.severity).toBe('warning');
+    expect(doc.diagnostics[0]!.message).toContain('the default one was assumed (jones=t, bracket=unit, order=ascending, half-powers=power, signature=negative)');
+    // A fragment (no \documentclass), or a document that declares its convention itself, is not warned about.
+    expect(read({ 'paper.tex': '\\begin{skeincode}{id=k, notation=braid}\n1 1 1\n\\end{skeincode}\n' }).diagnostics).toEqual([]);
+  });
+});
+

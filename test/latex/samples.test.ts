@@ -6,7 +6,7 @@
  * ones for these knots.
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { latexFormat } from '../../src/cli/formats/latex.ts';
@@ -14,7 +14,7 @@ import { readLatexManuscript } from '../../plugins/latex/reader.ts';
 import { runSession } from '../../src/core/manuscript/session.ts';
 import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
-import { REPO, SAMPLES, copyInto, removeDir, tempDir } from './support.ts';
+import { REPO, SAMPLES, copyInto, diskFiles, removeDir, tempDir } from './support.ts';
 
 const CLEAN = join(SAMPLES, 'rope-atlas.tex');
 const SLIPS = join(SAMPLES, 'slips/rope-atlas.tex');
@@ -50,8 +50,7 @@ describe('the clean sample', () => {
   });
 
   it('uses the values published for these knots', () => {
-    const files = { read: (p: string) => readFileSync(p, 'utf8'), realpath: (p: string) => realpathSync(p) };
-    const doc = readLatexManuscript(CLEAN, files);
+    const doc = readLatexManuscript(CLEAN, diskFiles);
     const { reports } = runSession({ diagrams: doc.diagrams, claims: [], fills: [], convention: DEFAULT_CONVENTION });
     const poly = (terms: [number, number][]) => Laurent.fromTerms(terms);
     // Jones polynomials from memory (standard knot tables; the table's chirality may be the mirror, t ↔ 1/t).

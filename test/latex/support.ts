@@ -3,7 +3,7 @@
  * real pdflatex / pdftotext runs in temporary directories.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { cpSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readFileSync, realpathSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { LatexFileSystem } from '../../plugins/latex/reader.ts';
@@ -17,6 +17,12 @@ export function memoryFiles(files: Record<string, string>): LatexFileSystem {
   const byPath = new Map(Object.entries(files).map(([name, text]) => [resolve('/paper', name), text]));
   return { read: (path) => byPath.get(path) };
 }
+
+/** Files on disk, read as the reader's contract asks: undefined for a file that does not exist. */
+export const diskFiles: LatexFileSystem = {
+  read: (path) => (existsSync(path) ? readFileSync(path, 'utf8') : undefined),
+  realpath: (path) => realpathSync(path),
+};
 
 function available(command: string): boolean {
   return spawnSync(command, ['-v'], { stdio: 'ignore' }).error === undefined;

@@ -5,7 +5,7 @@
  * Every run happens in a temporary copy.
  */
 import { execFileSync } from 'node:child_process';
-import { copyFileSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import { copyFileSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -19,6 +19,7 @@ import {
   SAMPLES,
   asPdfText,
   copyInto,
+  diskFiles,
   hasPdflatex,
   packageWarnings,
   pdflatex,
@@ -42,8 +43,7 @@ afterAll(() => dirs.forEach(removeDir));
 
 /** The values a build fills in, as computed by the pipeline, for looking them up in the PDF. */
 function computedValues(path: string) {
-  const files = { read: (p: string) => readFileSync(p, 'utf8'), realpath: (p: string) => realpathSync(p) };
-  const doc = readLatexManuscript(path, files);
+  const doc = readLatexManuscript(path, diskFiles);
   const session = runSession({
     diagrams: doc.diagrams,
     claims: doc.claims,
@@ -198,7 +198,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     ].join('\n');
     const dir = workDir('hidden', true);
     writeFileSync(join(dir, 'hidden.tex'), paper);
-    const doc = readLatexManuscript(join(dir, 'hidden.tex'), { read: (p) => readFileSync(p, 'utf8') });
+    const doc = readLatexManuscript(join(dir, 'hidden.tex'), diskFiles);
     const read = doc.fills.map((f) => (f.target.kind === 'macro' ? `${f.target.key} of \`${f.target.id}'` : ''));
     expect(read).toEqual(['jones of `k1\'', 'jones of `k2\'', 'span of `k3\'', 'writhe of `k4\'', 'statement of `k5\'', 'jones of `k6\'']);
     const run = pdflatex(dir, 'hidden.tex');
@@ -289,7 +289,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     ].join('\n');
     const dir = workDir('twice', true);
     writeFileSync(join(dir, 'twice.tex'), paper);
-    const doc = readLatexManuscript(join(dir, 'twice.tex'), { read: (p) => readFileSync(p, 'utf8') });
+    const doc = readLatexManuscript(join(dir, 'twice.tex'), diskFiles);
     const run = pdflatex(dir, 'twice.tex');
     expect(run.ok).toBe(true);
     const warned = packageWarnings(run.log, 'skeinproof').filter((w) => w.startsWith('Value'));
@@ -428,7 +428,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     ].join('\n');
     const dir = workDir('multicolumn-head', true);
     writeFileSync(join(dir, 'head.tex'), paper);
-    const doc = readLatexManuscript(join(dir, 'head.tex'), { read: (p) => readFileSync(p, 'utf8') });
+    const doc = readLatexManuscript(join(dir, 'head.tex'), diskFiles);
     const places = doc.fills.map((f) => (f.target.kind === 'cell' ? `${f.entry.target} ${f.target.table} ${f.target.row} ${f.target.column}` : ''));
     expect(doc.diagnostics).toEqual([]);
     expect(places).toEqual(['tref 1 3 3', 'eight 1 5 3']);
@@ -586,7 +586,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       const paper = `\\documentclass{article}\n\\usepackage[table]{xcolor}\n\\usepackage{skeinproof}\n\\begin{document}\n${body.join('')}\\end{document}\n`;
       const dir = workDir(`random-tables-${seed}`, true);
       writeFileSync(join(dir, 'tables.tex'), paper);
-      const doc = readLatexManuscript(join(dir, 'tables.tex'), { read: (p) => readFileSync(p, 'utf8') });
+      const doc = readLatexManuscript(join(dir, 'tables.tex'), diskFiles);
       const places = doc.fills.flatMap((f) => (f.target.kind === 'cell' ? [`${f.target.table} ${f.target.row} ${f.target.column}`] : []));
       expect(places.length).toBeGreaterThan(5);
       const sidecar = places.map((p) => {
@@ -707,6 +707,35 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     const contradiction = failed.diagnostics.find((d) => d.ruleId === 'claim-contradicted')!;
     // Line 10, at the value written in the use: `A: $V = \jonesof{tref}{` is 23 characters.
     expect(`${contradiction.location!.start.line}:${contradiction.location!.start.column}`).toBe('10:24');
+  });
+
+  it("a convention given where the author's own package loads skeinproof is read: values typeset in it; the flat copy says it still needs the package", async () => {
+    // LaTeX finds mymacros.sty in the directory it runs in (kpathsea searches `.` first: common practice).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{mymacros}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      'V is \\skeinjones{tref}; claimed $\\jonesof{tref}{q^2 + q^6 - q^8}$.',
+      '\\end{document}',
+    ].join('\n');
+    const sty = '\\ProvidesPackage{mymacros}\n\\RequirePackage[jones=q, order=descending]{skeinproof}\n\\newcommand\\jonesof[2]{\\skeinclaim{#1}{jones}{#2}}\n';
+    const dir = workDir('own-package', true);
+    writeFileSync(join(dir, 'own.tex'), paper);
+    writeFileSync(join(dir, 'mymacros.sty'), sty);
+    const result = await latexFormat.build(join(dir, 'own.tex'), {});
+    expect(result.diagnostics).toEqual([]);
+    for (const o of result.outputs) writeFileSync(o.path, o.content);
+    const run = pdflatex(dir, 'own.tex');
+    expect(run.ok, texErrors(run)).toBe(true);
+    expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+    // The positive trefoil with t = q^2 (README's convention table): q^2 + q^6 - q^8, here in descending order.
+    expect(squeeze(run.text)).toContain(asPdfText('V is -q^8 + q^6 + q^2; claimed q^2 + q^6 - q^8.'));
+    const flat = await latexFormat.build(join(dir, 'own.tex'), { output: join(dir, 'own-flat.tex') });
+    expect(flat.failed).toBe(false);
+    expect(flat.diagnostics.map((d) => `${d.ruleId} ${d.location?.file}:${d.location?.start.line}`)).toEqual([
+      `latex-flat-needs-package ${join(dir, 'mymacros.sty')}:2`,
+    ]);
   });
 });
 

@@ -130,7 +130,16 @@ export const latexFormat: ManuscriptFormat = {
       options.output !== undefined
         ? { path: options.output, content: flatText(doc, session.fills) }
         : { path: sidecarPath(path), content: sidecarText(doc, session.fills) };
-    return { diagnostics, outputs: [output], inputs: inputsOf(doc), failed };
+    const notes: Diagnostic[] = [];
+    if (options.output !== undefined && doc.packageLoadedBy) {
+      notes.push({
+        severity: 'warning',
+        ruleId: 'latex-flat-needs-package',
+        message: `the flat copy still loads ${doc.packageLoadedBy.file}, which loads skeinproof, so it compiles only where skeinproof.sty is found: copy the package beside it, or load skeinproof from the manuscript itself`,
+        location: doc.packageLoadedBy,
+      });
+    }
+    return { diagnostics: [...diagnostics, ...notes], outputs: [output], inputs: inputsOf(doc), failed };
   },
 };
 
