@@ -525,7 +525,7 @@ describe("the author's own package and class files", () => {
     });
     expect(places(doc)).toEqual(['latex-package-unseen@paper.tex:1:1']);
     expect(doc.diagnostics[0]!.severity).toBe('warning');
-    expect(doc.diagnostics[0]!.message).toContain('the default one was assumed (jones=t, bracket=unit, order=ascending, half-powers=power, signature=negative)');
+    expect(doc.diagnostics[0]!.message).toContain('the default one was assumed (jones=t, bracket=unit, order=ascending, half-powers=power, signature=negative');
     // A fragment (no \documentclass), or a document that declares its convention itself, is not warned about.
     expect(read({ 'paper.tex': '\\begin{skeincode}{id=k, notation=braid}\n1 1 1\n\\end{skeincode}\n' }).diagnostics).toEqual([]);
   });
