@@ -22,7 +22,7 @@ import { maskLatex } from './mask.ts';
 import { FILL_SHORTCUTS, scanLatexItems, type Arg, type DefinitionItem, type ScanItem, type Span } from './scanner.ts';
 import { SourceFile, type TextOrigin } from './source-file.ts';
 import { expandUse, type Expansion, type MacroDefinition } from './expansion.ts';
-import { splitTabular } from './tabular.ts';
+import { killAt, splitTabular } from './tabular.ts';
 
 export interface LatexFileSystem {
   /**
@@ -504,12 +504,23 @@ class ManuscriptReader {
     });
     if (!valid) return;
     const idColumn = idColumns[0]!;
+    const kill = killAt(item.body);
+    if (kill) {
+      this.error(
+        file,
+        kill,
+        'latex-table-malformed',
+        `skein table ${table}: longtable measures a row that ends with \\kill and throws it away, so skeinproof can neither fill nor check it: set the column widths with p{…} columns instead`,
+      );
+      return;
+    }
     for (const row of splitTabular(item.body)) {
-      if (row.number <= head) continue;
+      if (row.number <= head || row.headOrFoot) continue;
       if (row.cells.every((c) => c.content.text === '')) continue;
       const place = `skein table ${table}, row ${row.number}`;
-      // A row that is one \multicolumn is a label inside the table (`\multicolumn{3}{l}{Torus knots}`), like a spacer.
-      if (row.cells.length === 1 && /^\\multicolumn(?![A-Za-z])/.test(row.cells[0]!.content.text)) continue;
+      // A row that is one \multicolumn is a label inside the table (`\multicolumn{3}{l}{Torus knots}`), like a spacer;
+      // so is a longtable's \caption row.
+      if (row.cells.length === 1 && /^\\(multicolumn|caption)(?![A-Za-z])/.test(row.cells[0]!.content.text)) continue;
       const input = row.cells.find((c) => /\\(input|include)(?![A-Za-z])/.test(c.content.text));
       if (input) {
         this.error(

@@ -458,9 +458,17 @@ class Scanner {
     }
     const beginSpan = { start, end: columns.next };
     this.pos = columns.next;
-    const tabular = /^\s*\\begin\s*\{(tabular\*?)\}/.exec(this.text.slice(columns.next, columns.next + 400));
+    const inner = /^\s*\\begin\s*\{\s*([^{}]*?)\s*\}/.exec(this.text.slice(columns.next, columns.next + 400));
+    const tabular = inner && /^(tabular\*?|longtable)$/.test(inner[1]!) ? inner : null;
     if (!tabular) {
-      this.problem('latex-table-malformed', 'a skein table must hold a tabular: put \\begin{tabular}{…} right after \\begin{skeintable}{…}', beginSpan);
+      this.problem(
+        'latex-table-malformed',
+        inner
+          ? `a skein table holds a tabular, tabular* or longtable, and skeinproof does not read the rows of \`${inner[1]}\`: use one of those (a longtable for a table that runs over pages; p{…} columns for set widths)`
+          : 'a skein table must hold a tabular: put \\begin{tabular}{…} (or tabular*, longtable) right after \\begin{skeintable}{…}',
+        beginSpan,
+      );
+      this.ownEnd(columns.next); // one message: the table's own \end{skeintable} is no stray one
       return;
     }
     let at = columns.next + tabular[0].length;
@@ -469,6 +477,7 @@ class Scanner {
     const spec = this.group(at);
     if (!spec) {
       this.problem('latex-table-malformed', `\\begin{${tabular[1]}} needs its column specification in braces`, { start: columns.next, end: at });
+      this.ownEnd(columns.next);
       return;
     }
     const bodyEnd = this.matchingEnd(spec.next, tabular[1]!);
@@ -478,9 +487,10 @@ class Scanner {
         'latex-environment-unclosed',
         bodyEnd === undefined
           ? `the tabular of this skein table is never closed: add \\end{${tabular[1]}} and then \\end{skeintable}`
-          : 'this skein table is never closed: put \\end{skeintable} right after \\end{tabular}',
+          : `this skein table is never closed: put \\end{skeintable} right after \\end{${tabular[1]}}`,
         beginSpan,
       );
+      this.ownEnd(columns.next);
       return;
     }
     const endStart = bodyEnd.end + closing[0].indexOf('\\');
@@ -495,6 +505,12 @@ class Scanner {
     });
     // The cells are scanned as ordinary text too, so fill-ins in free columns are found.
     this.pos = spec.next;
+  }
+
+  /** Marks the \end{skeintable} that closes a table refused at its start, so that reaching it is not called stray. */
+  private ownEnd(from: number): void {
+    const end = this.matchingEnd(from, 'skeintable');
+    if (end) this.tableEnds.add(end.start);
   }
 
   /** The first `\end{skeincode}` from `from` on (LaTeX allows spaces before the brace, as in `\end {skeincode}`). */

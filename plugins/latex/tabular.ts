@@ -23,7 +23,12 @@ export interface TableRow {
   /** 1-based, counting every row TeX typesets (header rows included). */
   readonly number: number;
   readonly cells: readonly TableCell[];
+  /** A longtable's head or foot: a row before its last \endfirsthead, \endhead, \endfoot or \endlastfoot. */
+  readonly headOrFoot: boolean;
 }
+
+/** longtable's markers that end the rows of its heads and feet; they stand after a row's `\\`, like a rule. */
+const HEAD_FOOT_ENDS = ['endfirsthead', 'endhead', 'endfoot', 'endlastfoot'];
 
 /** Commands that act between rows (TeX reads them as \noalign) and take these arguments: `[` optional, `(` trim, `{` required. */
 const RULES: Readonly<Record<string, string>> = {
@@ -37,19 +42,39 @@ const RULES: Readonly<Record<string, string>> = {
   addlinespace: '[',
   noalign: '{',
   rowcolor: '[{', // colortbl: a \noalign before the row
+  ...Object.fromEntries(HEAD_FOOT_ENDS.map((name) => [name, ''])),
 };
 
 export function splitTabular(body: Arg): TableRow[] {
   const segments = splitRows(body);
+  const marker = new RegExp(`\\\\(${HEAD_FOOT_ENDS.join('|')})(?![A-Za-z])`, 'g');
+  const lastMarker = Math.max(-1, ...[...body.text.matchAll(marker)].map((m) => body.start + m.index));
   const rows: TableRow[] = [];
   segments.forEach((segment, k) => {
     const content = skipRules(segment.arg);
     const isLast = k === segments.length - 1;
     if (isLast && !segment.terminated && content.text.trim() === '') return;
     const cells = splitCells(content).map((raw, i) => ({ column: i + 1, raw, content: withoutDecorations(trim(raw)) }));
-    rows.push({ number: rows.length + 1, cells });
+    rows.push({ number: rows.length + 1, cells, headOrFoot: content.start < lastMarker });
   });
   return rows;
+}
+
+/** Where a longtable's \kill stands (a row measured and thrown away), if anywhere outside braces. */
+export function killAt(body: Arg): Arg | undefined {
+  let depth = 0;
+  const t = body.text;
+  for (let i = 0; i < t.length; i++) {
+    const c = t[i]!;
+    if (c === '{') depth++;
+    else if (c === '}') depth--;
+    else if (c === '\\') {
+      const name = controlWord(t, i + 1);
+      if (name === 'kill' && depth === 0) return slice(body, i, i + 5);
+      i += name ? name.length : 1;
+    }
+  }
+  return undefined;
 }
 
 interface Segment {

@@ -173,6 +173,29 @@ describe('located errors in the markup', () => {
     ]);
   });
 
+  it('a skein table around an environment it does not read (tabularx) is one error, its own \\end{skeintable} no second one', () => {
+    const doc = read({
+      'paper.tex':
+        PREAMBLE +
+        '\\begin{skeintable}{id, writhe}\n\\begin{tabularx}{\\linewidth}{lX}\nId & w \\\\\nk & \\\\\n\\end{tabularx}\n\\end{skeintable}\n' + // lines 4-9
+        '\\begin{skeintable}{id, writhe}\n\\begin{tabular}{ll}\nk & \\\\\n\\end{tabular} text\n\\end{skeintable}\n', // lines 10-14: \end{skeintable} not right after
+    });
+    expect(places(doc)).toEqual(['latex-table-malformed@paper.tex:4:1', 'latex-environment-unclosed@paper.tex:10:1']);
+    expect(doc.diagnostics[0]!.message).toContain('does not read the rows of `tabularx`');
+    expect(doc.diagnostics[1]!.message).toContain('right after \\end{tabular}');
+  });
+
+  it('a longtable in a skein table: heads, feet and the caption are no data rows; a \\kill row is refused', () => {
+    const body = '\\caption{Knots}\\\\\nId & $V$ \\\\\n\\endfirsthead\nId & $V$ \\\\\n\\endhead\nk & \\\\\n\\caption{not a row of data}\\\\\n';
+    const doc = read({ 'paper.tex': PREAMBLE + `\\begin{skeintable}{id, jones}\n\\begin{longtable}[l]{ll}\n${body}\\end{longtable}\n\\end{skeintable}\n` });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.fills.map((f) => (f.target.kind === 'cell' ? `${f.entry.target} row ${f.target.row}` : ''))).toEqual(['k row 4']);
+    const killed = read({
+      'paper.tex': PREAMBLE + '\\begin{skeintable}[head=0]{id, jones}\n\\begin{longtable}{ll}\nwidest & \\kill\nk & \\\\\n\\end{longtable}\n\\end{skeintable}\n',
+    });
+    expect(places(killed)).toEqual(['latex-table-malformed@paper.tex:6:10']);
+  });
+
   it('\\skeinconvention after \\begin{document} is refused (LaTeX allows it only in the preamble)', () => {
     const doc = read({ 'paper.tex': '\\input{pre}\n\\begin{document}\n\\skeinconvention{order=ascending}\n', 'pre.tex': '\\skeinconvention{jones=q}\n' });
     expect(places(doc)).toEqual(['latex-convention-misplaced@paper.tex:3:1']);

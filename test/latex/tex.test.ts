@@ -85,6 +85,18 @@ async function build(dir: string, output?: string): Promise<void> {
   for (const o of result.outputs) writeFileSync(o.path, o.content);
 }
 
+/**
+ * A sidecar that fills each cell at `places` ("table row column", the last three words of each place) with a
+ * \typeout of the place, so the log shows which cells TeX filled, in its order.
+ */
+function loggingSidecar(places: readonly string[]): string {
+  const cells = places.map((p) => {
+    const [t, r, c] = p.split(' ').slice(-3);
+    return `\\skein@cell{${t}}{${r}}{${c}}{t}{\\typeout{FILLED ${p}}}`;
+  });
+  return `${cells.join('\n')}\n`;
+}
+
 /** TeX's error lines of a run, for the assertion message. */
 function texErrors(run: TexRun): string {
   return run.log
@@ -95,14 +107,15 @@ function texErrors(run: TexRun): string {
 
 /**
  * Builds `paper` (as `stem.tex`) the one way or the other (the sidecar with the package, or the flat copy
- * without it), expecting no diagnostics, and compiles the result: it must compile without warnings.
+ * without it), expecting no diagnostics, and compiles the result (`passes` times): the last pass must compile without warnings.
  */
-async function buildAndCompile(paper: string, stem: string, flat: boolean): Promise<TexRun> {
+async function buildAndCompile(paper: string, stem: string, flat: boolean, passes = 1): Promise<TexRun> {
   const dir = workDir(stem, !flat);
   writeFileSync(join(dir, `${stem}.tex`), paper);
   const result = await latexFormat.build(join(dir, `${stem}.tex`), flat ? { output: join(dir, `${stem}-flat.tex`) } : {});
   expect(result.diagnostics).toEqual([]);
   for (const o of result.outputs) writeFileSync(o.path, o.content);
+  for (let pass = 1; pass < passes; pass++) pdflatex(dir, flat ? `${stem}-flat.tex` : `${stem}.tex`);
   const run = pdflatex(dir, flat ? `${stem}-flat.tex` : `${stem}.tex`);
   expect(run.ok, texErrors(run)).toBe(true);
   expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
@@ -433,11 +446,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(doc.diagnostics).toEqual([]);
     expect(places).toEqual(['tref 1 3 3', 'eight 1 5 3']);
     // TeX fills exactly the cells the reader found, row for row.
-    const logged = places.map((p) => {
-      const [, t, r, c] = p.split(' ');
-      return `\\skein@cell{${t}}{${r}}{${c}}{t}{\\typeout{FILLED ${p}}}`;
-    });
-    writeFileSync(join(dir, 'head.skein.tex'), `${logged.join('\n')}\n`);
+    writeFileSync(join(dir, 'head.skein.tex'), loggingSidecar(places));
     const run = pdflatex(dir, 'head.tex');
     expect(run.ok).toBe(true);
     expect([...run.log.matchAll(/^FILLED (.*)$/gm)].map((m) => m[1])).toEqual(places);
@@ -589,11 +598,7 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       const doc = readLatexManuscript(join(dir, 'tables.tex'), diskFiles);
       const places = doc.fills.flatMap((f) => (f.target.kind === 'cell' ? [`${f.target.table} ${f.target.row} ${f.target.column}`] : []));
       expect(places.length).toBeGreaterThan(5);
-      const sidecar = places.map((p) => {
-        const [t, r, c] = p.split(' ');
-        return `\\skein@cell{${t}}{${r}}{${c}}{t}{\\typeout{FILLED ${p}}}`;
-      });
-      writeFileSync(join(dir, 'tables.skein.tex'), `${sidecar.join('\n')}\n`);
+      writeFileSync(join(dir, 'tables.skein.tex'), loggingSidecar(places));
       const run = pdflatex(dir, 'tables.tex');
       expect(run.ok).toBe(true);
       const filled = [...run.log.matchAll(/^FILLED (\d+ \d+ \d+)$/gm)].map((m) => m[1]);
@@ -736,6 +741,54 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(flat.diagnostics.map((d) => `${d.ruleId} ${d.location?.file}:${d.location?.start.line}`)).toEqual([
       `latex-flat-needs-package ${join(dir, 'mymacros.sty')}:2`,
     ]);
+  });
+
+  it('a skein table in a longtable (caption, heads, feet, more rows than one chunk): TeX and the reader count rows alike, and both builds fill it', async () => {
+    // longtable sets its rows in chunks of \LTchunksize (20) rows, and the rows before \endfirsthead, \endhead,
+    // \endfoot and \endlastfoot are its heads and feet (longtable manual).
+    const rows = Array.from({ length: 25 }, (_, k) => (k % 2 === 0 ? 'a & & 3 \\\\' : 'b & & \\\\'));
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{longtable,booktabs}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=a, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeincode}{id=b, notation=braid}\n1 -2 1 -2\n\\end{skeincode}',
+      '\\begin{skeintable}[head=2]{id, jones, crossings}',
+      '\\begin{longtable}{lll}',
+      '\\caption{Knots}\\\\',
+      'Id & $V$ & $n$ \\\\ \\midrule',
+      '\\endfirsthead',
+      'Id (continued) & $V$ & $n$ \\\\ \\midrule',
+      '\\endhead',
+      '\\multicolumn{3}{r}{continued overleaf} \\\\',
+      '\\endfoot',
+      '\\bottomrule',
+      '\\endlastfoot',
+      ...rows,
+      '\\end{longtable}',
+      '\\end{skeintable}',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('longtable-rows', true);
+    writeFileSync(join(dir, 'long.tex'), paper);
+    const doc = readLatexManuscript(join(dir, 'long.tex'), diskFiles);
+    expect(doc.diagnostics).toEqual([]);
+    const places = doc.fills.map((f) => (f.target.kind === 'cell' ? `${f.target.table} ${f.target.row} ${f.target.column}` : ''));
+    // Rows 1-4 are the caption, the two heads and the foot; the 25 data rows follow, b's crossings empty too.
+    expect(places).toHaveLength(25 + 12);
+    expect(places[0]).toBe('1 5 2');
+    writeFileSync(join(dir, 'long.skein.tex'), loggingSidecar(places));
+    const run = pdflatex(dir, 'long.tex');
+    expect(run.ok, texErrors(run)).toBe(true);
+    expect([...run.log.matchAll(/^FILLED (.*)$/gm)].map((m) => m[1])).toEqual(places);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    for (const flat of [false, true]) {
+      const built = await buildAndCompile(paper, 'long', flat, 2); // longtable settles its column widths on a second pass
+      // Trefoil and figure-eight knot (from memory), and the figure-eight's 4 crossings.
+      for (const v of ['t + t^3 - t^4', 't^{-2} - t^{-1} + 1 - t + t^2']) expect(squeeze(built.text)).toContain(asPdfText(v));
+      expect(built.text).not.toContain('??');
+    }
   });
 });
 
