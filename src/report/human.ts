@@ -26,9 +26,26 @@ function place(location: SourceLocation): string {
   return `${location.file}:${location.start.line}:${location.start.column}`;
 }
 
-function sourceLine(text: string, line: number): string | undefined {
-  const lines = text.split(/\r\n|\n|\r/);
-  return lines[line - 1];
+/**
+ * Each source split into lines once per sources map, not once per message: a
+ * report of many messages on one file stays linear in the file's size.
+ */
+const splitSources = new WeakMap<ReadonlyMap<string, string>, Map<string, readonly string[]>>();
+
+function linesOf(sources: ReadonlyMap<string, string>, file: string): readonly string[] | undefined {
+  let split = splitSources.get(sources);
+  if (!split) splitSources.set(sources, (split = new Map()));
+  let lines = split.get(file);
+  if (lines === undefined) {
+    const text = sources.get(file);
+    if (text === undefined) return undefined;
+    split.set(file, (lines = splitLines(text)));
+  }
+  return lines;
+}
+
+function splitLines(text: string): readonly string[] {
+  return text.split(/\r\n|\n|\r/);
 }
 
 /**
@@ -37,15 +54,17 @@ function sourceLine(text: string, line: number): string | undefined {
  * units; the end point lies just after the span. A span running past its
  * first line is underlined to the end of that line; a bare point gets one caret.
  */
-export function excerpt(location: SourceLocation, text: string, caretColor?: string): string[] {
-  const line = sourceLine(text, location.start.line);
-  if (line === undefined) return [];
-  const start = Math.min(Math.max(location.start.column, 1), line.length + 1);
-  const end = !location.end
-    ? start + 1
+export function excerpt(location: SourceLocation, text: string | readonly string[], caretColor?: string): string[] {
+  const whole = (typeof text === 'string' ? splitLines(text) : text)[location.start.line - 1];
+  if (whole === undefined) return [];
+  const wholeStart = Math.min(Math.max(location.start.column, 1), whole.length + 1);
+  const wholeEnd = !location.end
+    ? wholeStart + 1
     : location.end.line === location.start.line
-      ? Math.min(location.end.column, line.length + 1)
-      : line.length + 1;
+      ? Math.min(location.end.column, whole.length + 1)
+      : whole.length + 1;
+  // A very long line is shown as a window around the span, so each excerpt costs the same however long the line.
+  const { line, start, end } = excerptWindow(whole, wholeStart, wholeEnd);
   // A character outside the BMP is two UTF-16 units but one place on screen: pad and underline by code points.
   const width = Math.max(1, Array.from(line.slice(start - 1, end - 1)).length);
   const padding = Array.from(line.slice(0, start - 1), (ch) => (ch === '\t' ? '\t' : ' ')).join('');
@@ -55,12 +74,26 @@ export function excerpt(location: SourceLocation, text: string, caretColor?: str
   return [` ${gutter} | ${line}`, ` ${blank} | ${padding}${caretColor ? paint(marker, caretColor, true) : marker}`];
 }
 
+/** Lines longer than this are shown as a window of this many characters around the span, with … at the cut ends. */
+export const EXCERPT_WIDTH = 200;
+const CONTEXT_BEFORE = 60;
+
+function excerptWindow(line: string, start: number, end: number): { line: string; start: number; end: number } {
+  if (line.length <= EXCERPT_WIDTH) return { line, start, end };
+  const from = Math.max(0, Math.min(start - 1 - CONTEXT_BEFORE, line.length - EXCERPT_WIDTH));
+  const to = Math.min(line.length, from + EXCERPT_WIDTH);
+  const lead = from > 0 ? '…' : '';
+  const shown = `${lead}${line.slice(from, to)}${to < line.length ? '…' : ''}`;
+  const shift = lead.length - from;
+  return { line: shown, start: start + shift, end: Math.min(end, to + 1) + shift };
+}
+
 export function formatDiagnostic(d: Diagnostic, options: HumanReportOptions = {}): string {
   const color = options.color === true;
   const severityText = paint(d.severity, `1;${SEVERITY_COLOR[d.severity]}`, color);
   const head = d.location ? `${paint(place(d.location), '1', color)}: ` : 'skeinproof: ';
   const lines = [`${head}${severityText}: ${d.message} ${paint(`[${d.ruleId}]`, '2', color)}`];
-  const source = d.location ? options.sources?.get(d.location.file) : undefined;
+  const source = d.location && options.sources ? linesOf(options.sources, d.location.file) : undefined;
   const gutterWidth = d.location ? String(d.location.start.line).length : 0;
   if (d.location && source !== undefined) lines.push(...excerpt(d.location, source, color ? `1;${SEVERITY_COLOR[d.severity]}` : undefined));
   const note = (label: string, value: string) => lines.push(` ${' '.repeat(gutterWidth)} = ${label}: ${value}`);

@@ -26,6 +26,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'id-duplicate', description: 'Two diagrams of the manuscript share one id.' },
   { id: 'file-unreadable', description: 'An input file cannot be read.' },
   { id: 'encoding-invalid', description: 'An input file is not valid UTF-8; the first bad byte is named.' },
+  { id: 'line-too-long', description: 'A Markdown manuscript has a line longer than 100,000 characters, which is not read.' },
   { id: 'front-matter-invalid', description: 'The manuscript front matter cannot be read.' },
   { id: 'markup-invalid', description: 'The markup around a diagram, claim or fill-in is malformed.' },
   { id: 'manuscript-unmarked', description: 'A manuscript has no skeinproof markup at all, so nothing in it was checked.' },

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { latexFormat } from '../../src/cli/formats/latex.ts';
-import { markdownFormat } from '../../src/cli/formats/markdown.ts';
+import { MAX_MARKDOWN_LINE, markdownFormat } from '../../src/cli/formats/markdown.ts';
 import { firstInvalidUtf8Byte } from '../../src/cli/utf8.ts';
 import { skeinproof } from '../markdown/cli.ts';
 
@@ -82,5 +82,19 @@ describe('check and build agree on the page’s math', () => {
     expect(r.status).toBe(1);
     expect(r.stderr).toContain('nothing written because the check failed');
     expect(existsSync(out)).toBe(false);
+  });
+});
+
+describe('hostile inputs stay cheap', () => {
+  it('refuses a Markdown line over the documented length at the column where it goes over, before parsing', async () => {
+    const path = join(work, 'long-line.md');
+    // One line of backslashes: the Markdown parser's slowest input per character (3 MB took 50 s and 3.3 GB).
+    writeFileSync(path, `${TREFOIL}\nShort line.\n${'\\'.repeat(MAX_MARKDOWN_LINE + 1)}\n`);
+    const checked = await markdownFormat.check(path, {});
+    expect(checked.failed).toBe(true);
+    expect(checked.diagnostics.map((d) => `${d.ruleId} ${d.location?.start.line}:${d.location?.start.column}`)).toEqual([`line-too-long 6:${MAX_MARKDOWN_LINE + 1}`]);
+    const limit = join(work, 'limit-line.md');
+    writeFileSync(limit, `${TREFOIL}\r\n${'x'.repeat(MAX_MARKDOWN_LINE)}\r\n`);
+    expect((await markdownFormat.check(limit, {})).diagnostics.filter((d) => d.ruleId === 'line-too-long')).toEqual([]);
   });
 });

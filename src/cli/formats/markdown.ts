@@ -43,6 +43,8 @@ async function checkManuscript(path: string, options: FormatOptions): Promise<Ch
   const decoded = decodeManuscript(bytes, path);
   if (!decoded.ok) return { ok: false, unreadable: decoded.problem };
   const text = decoded.text;
+  const overlong = overlongLine(text, path);
+  if (overlong) return { ok: false, unreadable: overlong };
   const file = new VFile({ value: text, path });
   const processor = unified()
     .use(remarkParse)
@@ -121,6 +123,39 @@ function contradictedSpans(checked: CheckedText): ContradictedSpan[] {
     const note = d.computed ? `contradicted: computed ${d.computed}` : 'contradicted by the computation';
     return [{ start: range.start - bom, end: range.end - bom, note }];
   });
+}
+
+/**
+ * The longest line a Markdown manuscript may have. The Markdown parser
+ * (micromark) is linear but slow and memory-hungry on some long lines: one
+ * line of 3 million backslashes took 50 s and 3.3 GB to read. No manuscript
+ * needs such lines (a 2,000-crossing PD code on one line is about 40,000 characters).
+ */
+export const MAX_MARKDOWN_LINE = 100_000;
+
+/** The first line longer than the limit, as an error at the column where it goes over; found in one pass. */
+function overlongLine(text: string, path: string): Diagnostic | undefined {
+  let line = 1;
+  let start = 0;
+  for (let at = 0; at <= text.length; at++) {
+    const c = text.charCodeAt(at);
+    const end = at === text.length || c === 10 || c === 13;
+    if (!end) continue;
+    if (at - start > MAX_MARKDOWN_LINE) {
+      const bom = line === 1 && text.startsWith('\uFEFF') ? 1 : 0;
+      return {
+        severity: 'error',
+        ruleId: 'line-too-long',
+        message: `line ${line} is ${(at - start - bom).toLocaleString('en')} characters long, and skeinproof reads Markdown lines of at most ${MAX_MARKDOWN_LINE.toLocaleString('en')} characters, so nothing in ${path} was checked`,
+        location: { file: path, start: { line, column: MAX_MARKDOWN_LINE + 1, offset: start + MAX_MARKDOWN_LINE } },
+        hints: ['Break the line: Markdown joins the lines of a paragraph, and a diagram code may span lines.'],
+      };
+    }
+    if (c === 13 && text.charCodeAt(at + 1) === 10) at++;
+    line++;
+    start = at + 1;
+  }
+  return undefined;
 }
 
 function unreadable(path: string, e: unknown): Diagnostic {

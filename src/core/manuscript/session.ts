@@ -345,14 +345,29 @@ function hintsForUnknown(target: string, known: readonly string[]): string[] {
   return hints;
 }
 
+/**
+ * The edit distance of a and b when it is at most 2, else 3: only near ids are
+ * suggested, so a band of width 2 around the diagonal suffices and the cost
+ * stays linear in the length (an unknown id may be a whole pasted paragraph).
+ */
 function editDistance(a: string, b: string): number {
-  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  const LIMIT = 3;
+  if (Math.abs(a.length - b.length) >= LIMIT) return LIMIT;
+  let prev = new Map<number, number>();
+  for (let j = 0; j < LIMIT && j <= b.length; j++) prev.set(j, j);
   for (let i = 1; i <= a.length; i++) {
-    const cur = [i];
-    for (let j = 1; j <= b.length; j++) {
-      cur.push(Math.min(prev[j]! + 1, cur[j - 1]! + 1, prev[j - 1]! + (a[i - 1] === b[j - 1] ? 0 : 1)));
+    const cur = new Map<number, number>();
+    let best = LIMIT;
+    for (let j = Math.max(0, i - LIMIT + 1); j <= Math.min(b.length, i + LIMIT - 1); j++) {
+      const value =
+        j === 0
+          ? i
+          : Math.min((prev.get(j) ?? LIMIT) + 1, (cur.get(j - 1) ?? LIMIT) + 1, (prev.get(j - 1) ?? LIMIT) + (a[i - 1] === b[j - 1] ? 0 : 1));
+      cur.set(j, Math.min(value, LIMIT));
+      best = Math.min(best, value);
     }
+    if (best >= LIMIT) return LIMIT;
     prev = cur;
   }
-  return prev[b.length]!;
+  return Math.min(prev.get(b.length) ?? LIMIT, LIMIT);
 }
