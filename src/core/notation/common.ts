@@ -67,11 +67,40 @@ export function listTokens(text: string, strayBracket: (bracket: string, offset:
   return splitTokens(body);
 }
 
-/** A token as quoted in a message; long tokens are shortened. */
+/** A token as quoted in a message; long tokens are shortened, and an invisible character in it is named. */
 export function quote(text: string): string {
   const shown = text.length > 24 ? `${text.slice(0, 20)}…` : text;
-  return `"${shown}"`;
+  const invisible = [...new Set(Array.from(text).filter((ch) => INVISIBLE_NAMES[ch] !== undefined))];
+  if (invisible.length === 0) return `"${shown}"`;
+  const named = invisible.map((ch) => `U+${ch.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')} ${INVISIBLE_NAMES[ch]}`);
+  return `"${shown}" (it holds the invisible character${named.length > 1 ? 's' : ''} ${named.join(', ')}: delete ${named.length > 1 ? 'them' : 'it'})`;
 }
+
+/** Characters that print as nothing, which copied text brings along; their Unicode names (Unicode Character Database). */
+const INVISIBLE_NAMES: Readonly<Record<string, string>> = {
+  '\u00AD': 'SOFT HYPHEN',
+  '\u180E': 'MONGOLIAN VOWEL SEPARATOR',
+  '\u200B': 'ZERO WIDTH SPACE',
+  '\u200C': 'ZERO WIDTH NON-JOINER',
+  '\u200D': 'ZERO WIDTH JOINER',
+  '\u200E': 'LEFT-TO-RIGHT MARK',
+  '\u200F': 'RIGHT-TO-LEFT MARK',
+  '\u202A': 'LEFT-TO-RIGHT EMBEDDING',
+  '\u202B': 'RIGHT-TO-LEFT EMBEDDING',
+  '\u202C': 'POP DIRECTIONAL FORMATTING',
+  '\u202D': 'LEFT-TO-RIGHT OVERRIDE',
+  '\u202E': 'RIGHT-TO-LEFT OVERRIDE',
+  '\u2060': 'WORD JOINER',
+  '\u2061': 'FUNCTION APPLICATION',
+  '\u2062': 'INVISIBLE TIMES',
+  '\u2063': 'INVISIBLE SEPARATOR',
+  '\u2064': 'INVISIBLE PLUS',
+  '\u2066': 'LEFT-TO-RIGHT ISOLATE',
+  '\u2067': 'RIGHT-TO-LEFT ISOLATE',
+  '\u2068': 'FIRST STRONG ISOLATE',
+  '\u2069': 'POP DIRECTIONAL ISOLATE',
+  '\uFEFF': 'ZERO WIDTH NO-BREAK SPACE',
+};
 
 /**
  * A signed whole number. The minus sign U+2212 counts as "-": typeset text,
