@@ -63,9 +63,9 @@ function fillText(fill: LatexFill, value: Typeset, written: string): string {
   const t = fill.target;
   if (t.kind === 'macro') {
     // hyperref makes a PDF bookmark of a section title, where math is not allowed: it shows the value as typed.
-    if (value.kind === 'math' && t.inTitle && !t.math) {
+    if (value.kind === 'math' && t.inTitle && (!t.math || t.anyMode)) {
       const typed = /[\\^_{}]/.test(value.latex) ? `\\detokenize{${value.latex}}` : value.latex;
-      return `\\texorpdfstring{$${value.latex}$}{${typed}}`;
+      return `\\texorpdfstring{${t.anyMode ? `\\ensuremath{${value.latex}}` : `$${value.latex}$`}}{${typed}}`;
     }
     // In a macro's definition or use the mode is TeX's to know when it expands the macro: a form for both, as the package's.
     if (t.anyMode) return value.kind === 'math' ? `\\ensuremath{${value.latex}}` : `\\ifmmode\\mbox{${value.text}}\\else ${value.text}\\fi`;

@@ -233,12 +233,12 @@ class ManuscriptReader {
       case 'definition':
         return this.definition(file, masked, item, isPackageFile(file));
       case 'use':
-        return this.use(file, masked, item, splices, open, depth);
+        return this.use(file, masked, item, splices, open, depth, false);
       case 'code':
       case 'unclosed-code':
         return this.code(file, item, splices);
       case 'fill':
-        return this.fill(file, item, splices, false);
+        return this.fill(file, item, splices);
       case 'claim':
         return this.claim(file, item, splices);
       case 'convention':
@@ -302,7 +302,9 @@ class ManuscriptReader {
     if (!this.refusedIds.has(id)) this.refusedIds.set(id, file.location(at.start, at.end));
   }
 
-  private fill(file: TextOrigin, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[], expanded: boolean): void {
+  /** `expandedInTitle`: undefined where the fill-in is written; in an expansion, whether the use is in a section title. */
+  private fill(file: TextOrigin, item: Extract<ScanItem, { kind: 'fill' }>, splices: Splice[], expandedInTitle?: boolean): void {
+    const expanded = expandedInTitle !== undefined;
     if (this.readAtUses(file, item.definition, item.span, `\\${item.macro}`, [item.id, item.key], ' (the flat copy keeps it as written, so it needs the package)')) return;
     const id = this.validId(file, trim(item.id), item.span, `\\${item.macro}`, `\\${item.macro}{trefoil}`);
     let key: FillKey | undefined;
@@ -324,7 +326,7 @@ class ManuscriptReader {
     const anyMode = expanded || item.definition !== undefined ? { anyMode: true as const } : {};
     this.fills.push({
       entry: { target: id, key, locate: locatorFor(file, item.span) },
-      target: { kind: 'macro', id, key, math: item.math, inTitle: item.inTitle && !expanded, ...anyMode },
+      target: { kind: 'macro', id, key, math: item.math, inTitle: expanded ? expandedInTitle : item.inTitle, ...anyMode },
     });
   }
 
@@ -702,7 +704,8 @@ class ManuscriptReader {
   }
 
   /** A use of a recorded macro: its expansion is read like the text around it (fill-ins, claims, \input, nested uses). */
-  private use(file: TextOrigin, masked: string, item: Extract<ScanItem, { kind: 'use' }>, splices: Splice[], open: readonly string[], depth: number): void {
+  private use(file: TextOrigin, masked: string, item: Extract<ScanItem, { kind: 'use' }>, splices: Splice[], open: readonly string[], depth: number, inTitle: boolean): void {
+    const title = inTitle || item.inTitle;
     const macro = this.macros.get(item.name)!;
     const args = item.args.filter((a) => a !== undefined);
     if (this.readAtUses(file, item.definition, item.span, `\\${item.name}`, args, '')) return;
@@ -715,22 +718,22 @@ class ManuscriptReader {
     this.expandedCharacters += expansion.text.length;
     const inner: Splice[] = [];
     const scan = scanLatexItems(expansion.masked, { macros: this.macros, atLetter: macro.atLetter });
-    for (const found of scan.items) this.expandedItem(expansion, found, inner, open, depth + 1);
+    for (const found of scan.items) this.expandedItem(expansion, found, inner, open, depth + 1, title);
     for (const p of scan.problems) this.error(expansion, p.span, p.ruleId, p.message);
     splices.push({ kind: 'expansion', span: item.span, text: expansion.text, splices: inner });
   }
 
   /** What an expansion may hold: fill-ins, claims, inputs and further uses (diagrams, tables and conventions belong in the document). */
-  private expandedItem(expansion: Expansion, item: ScanItem, splices: Splice[], open: readonly string[], depth: number): void {
+  private expandedItem(expansion: Expansion, item: ScanItem, splices: Splice[], open: readonly string[], depth: number, inTitle: boolean): void {
     switch (item.kind) {
       case 'fill':
-        return this.fill(expansion, item, splices, true);
+        return this.fill(expansion, item, splices, inTitle || item.inTitle);
       case 'claim':
         return this.claim(expansion, item, splices);
       case 'input':
         return this.input(expansion, item, splices, open);
       case 'use':
-        return this.use(expansion, expansion.masked, item, splices, open, depth);
+        return this.use(expansion, expansion.masked, item, splices, open, depth, inTitle);
     }
   }
 

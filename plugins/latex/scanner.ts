@@ -84,7 +84,15 @@ export type ScanItem =
   | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg; readonly definition: DefinitionItem | undefined }
   | DefinitionItem
   /** A use of one of the macros in ScanOptions.macros, with its arguments (an optional one not given is undefined). */
-  | { readonly kind: 'use'; readonly span: Span; readonly name: string; readonly args: readonly (Arg | undefined)[]; readonly definition: DefinitionItem | undefined }
+  | {
+      readonly kind: 'use';
+      readonly span: Span;
+      readonly name: string;
+      readonly args: readonly (Arg | undefined)[];
+      /** In the title of a sectioning command (a PDF bookmark under hyperref). */
+      readonly inTitle: boolean;
+      readonly definition: DefinitionItem | undefined;
+    }
   /** `\usepackage[options]{list}` or `\RequirePackage`: `names` are the packages of the list. */
   | { readonly kind: 'package'; readonly span: Span; readonly options: Arg | undefined; readonly list: Arg; readonly names: readonly Arg[] }
   /** `\documentclass[options]{name}`. */
@@ -370,7 +378,8 @@ class Scanner {
       args.push(arg.arg);
       at = arg.next;
     }
-    this.items.push({ kind: 'use', span: { start, end: at }, name, args, definition: this.definitionAt(start) });
+    const inTitle = this.titles.some((t) => t.start <= start && start < t.end);
+    this.items.push({ kind: 'use', span: { start, end: at }, name, args, inTitle, definition: this.definitionAt(start) });
     this.pos = at; // the arguments are read with the expansion, not here
   }
 

@@ -790,5 +790,31 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       expect(built.text).not.toContain('??');
     }
   });
+
+  it("a fill-in through the author's macro in a section title under hyperref: the flat copy gives the bookmark the value as typed", async () => {
+    // hyperref removes tokens such as \ensuremath from a PDF string with a warning; \texorpdfstring gives it text (hyperref manual).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{skeinproof}',
+      '\\usepackage{hyperref}',
+      '\\newcommand\\J[1]{\\skeinjones{#1}}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\section{Value \\J{tref}}',
+      'Text.',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('macro-title', false);
+    writeFileSync(join(dir, 'title.tex'), paper);
+    const flat = await latexFormat.build(join(dir, 'title.tex'), { output: join(dir, 'flat.tex') });
+    expect(flat.diagnostics).toEqual([]);
+    for (const o of flat.outputs) writeFileSync(o.path, o.content);
+    pdflatex(dir, 'flat.tex');
+    const run = pdflatex(dir, 'flat.tex');
+    expect(run.ok, texErrors(run)).toBe(true);
+    expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
+    // The positive trefoil (from memory): V = t + t^3 - t^4.
+    expect(bookmarks(join(dir, 'flat.out'))).toEqual(['Value t + t^3 - t^4']);
+  });
 });
 
