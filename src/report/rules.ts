@@ -32,7 +32,6 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'manuscript-unmarked', description: 'A manuscript has no skeinproof markup at all, so nothing in it was checked.' },
   { id: 'math-untypeset', description: 'A formula cannot be typeset.' },
   { id: 'khovanov-over-limit', description: 'Khovanov homology of a diagram is beyond the work budget of the computation; it is reported instead of run.' },
-  { id: 'invariant-over-limit', description: 'An invariant (HOMFLY-PT or Kauffman polynomial) of a diagram is over the work limit skeinproof sets for it, so it is not computed.' },
   { id: 'diagram-too-wide', description: 'A diagram is too wide for the bracket engine: every crossing order leaves too many open edge ends.' },
   { id: 'limit-exceeded', description: 'A diagram is over a limit on its crossings, its bracket\'s memory or its time budget, so it (or one of its invariants) is not computed.' },
   { id: 'output-unsupported', description: 'The requested output is not available for this manuscript format.' },

@@ -217,37 +217,37 @@ export function addProductInto(target: Map<number, bigint>, source: Laurent2, fa
 /**
  * Exact division: the Q with Q·divisor = dividend. Long division by leading
  * terms in the lexicographic order (x exponent, then y), a total order that
- * multiplication respects, so each step removes the leading term of Q and the
- * loop ends after |Q| steps. Throws when the division leaves a remainder.
+ * multiplication respects: the dividend is laid out densely and scanned once
+ * from its highest term down, each nonzero term fixing one term of Q. Throws
+ * when the division leaves a remainder.
  */
 export function divideExactly(dividend: Laurent2, divisor: Laurent2): Laurent2 {
   if (divisor.isZero) throw new RangeError('division by the zero polynomial');
-  const leading = (p: Map<number, bigint>): number => {
-    let best = -Infinity;
-    for (const k of p.keys()) if (k > best) best = k;
-    return best;
-  };
-  const divisorMap = new Map(divisor.entries());
-  const lead = leading(divisorMap);
-  const leadCoefficient = divisorMap.get(lead)!;
-  const rest = new Map(dividend.entries());
-  const quotient = new Map<number, bigint>();
-  // The packed key orders terms exactly as (x, y) lexicographically.
-  // The lowest term of Q is the lowest of the dividend over the lowest of the divisor.
-  const lowest = rest.size === 0 ? 0 : Math.min(...rest.keys()) - Math.min(...divisorMap.keys()) + PACKED_ONE;
-  while (rest.size > 0) {
-    const top = leading(rest);
-    const c = rest.get(top)!;
-    const q = top - lead + PACKED_ONE;
-    if (c % leadCoefficient !== 0n || q < lowest) throw new RangeError('division is not exact');
-    const factor = c / leadCoefficient;
-    quotient.set(q, factor);
-    for (const [k, d] of divisorMap) {
-      const key = k + q - PACKED_ONE;
-      const sum = (rest.get(key) ?? 0n) - d * factor;
-      if (sum === 0n) rest.delete(key);
-      else rest.set(key, sum);
+  if (dividend.isZero) return Laurent2.zero;
+  const [xLo, xHi] = dividend.xRange()!;
+  const [yLo, yHi] = dividend.yRange()!;
+  const divisorTerms = divisor.terms();
+  const [leadX, leadY, leadCoefficient] = divisorTerms[divisorTerms.length - 1]!;
+  const width = yHi - yLo + 1;
+  const rest: bigint[] = new Array((xHi - xLo + 1) * width).fill(0n);
+  for (const [x, y, c] of dividend.terms()) rest[(x - xLo) * width + (y - yLo)] = c;
+  const quotient: [number, number, bigint][] = [];
+  for (let x = xHi; x >= xLo; x--) {
+    for (let y = yHi; y >= yLo; y--) {
+      const c = rest[(x - xLo) * width + (y - yLo)]!;
+      if (c === 0n) continue;
+      if (c % leadCoefficient !== 0n) throw new RangeError('division is not exact');
+      const factor = c / leadCoefficient;
+      const qx = x - leadX;
+      const qy = y - leadY;
+      quotient.push([qx, qy, factor]);
+      for (const [dx, dy, d] of divisorTerms) {
+        const tx = qx + dx;
+        const ty = qy + dy;
+        if (tx < xLo || tx > xHi || ty < yLo || ty > yHi) throw new RangeError('division is not exact');
+        rest[(tx - xLo) * width + (ty - yLo)]! -= factor * d;
+      }
     }
   }
-  return Laurent2.fromPackedMap(quotient);
+  return Laurent2.fromTerms(quotient);
 }

@@ -32,11 +32,12 @@ export const HOMFLY_RULES: SkeinRules = {
 };
 
 /**
- * Work budget: a 16-crossing knot needs at most a few hundred thousand units,
- * a 30-crossing alternating knot a few million; beyond these the answer is
+ * Work budget, in the engine's units (about 10⁵ a second on the development
+ * machine): a 16-crossing knot needs a few thousand, a 30-crossing alternating
+ * knot a few ten thousand; beyond the budget (about ten seconds) the answer is
  * refused as over the limit rather than left running.
  */
-export const HOMFLY_LIMITS: ContractionLimits = { maxWidth: 22, maxWork: 4e8 };
+export const HOMFLY_LIMITS: ContractionLimits = { maxWidth: 22, maxWork: 1e6 };
 
 export interface HomflyResult {
   /** P(v, z): x is v, y is z. */

@@ -42,8 +42,11 @@ export const DUBROVNIK_RULES: SkeinRules = {
   crossing: () => ({ switched: Laurent2.one, smoothA: Z, smoothB: Z.neg() }),
 };
 
-/** Unoriented arcs make (2m − 1)!! states on 2m ends: a tighter width than HOMFLY-PT's m!. */
-export const KAUFFMAN_LIMITS: ContractionLimits = { maxWidth: 18, maxWork: 4e8 };
+/**
+ * Unoriented arcs make (2m − 1)!! states on 2m ends, a tighter width than HOMFLY-PT's m!.
+ * Work budget about ten seconds (F has many more terms than P, so its units are cheaper).
+ */
+export const KAUFFMAN_LIMITS: ContractionLimits = { maxWidth: 18, maxWork: 4e6 };
 
 export type KauffmanVariant = 'kauffman' | 'dubrovnik';
 

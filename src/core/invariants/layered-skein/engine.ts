@@ -62,6 +62,8 @@ export interface ContractionResult {
   readonly width: number;
   /** Largest number of states held at once. */
   readonly states: number;
+  /** Work units spent (term products and skein moves), the quantity the budget limits. */
+  readonly work: number;
 }
 
 /** A linear combination of canonical layered tangles, keyed by their pairing. */
@@ -146,7 +148,7 @@ class Contraction {
     }
     if (this.boundary.length !== 0) throw new Error('internal: skein contraction ended with open ends');
     const value = this.states.get('');
-    return { value: value ? Laurent2.fromPackedMap(value) : Laurent2.zero, width: this.widest, states: this.mostStates };
+    return { value: value ? Laurent2.fromPackedMap(value) : Laurent2.zero, width: this.widest, states: this.mostStates, work: this.work };
   }
 
   private positionOfSlot(): Map<number, number> {
@@ -537,8 +539,8 @@ type Move = RotateMove | { readonly kind: 'cup'; readonly at: number; readonly i
 
 export function overLimitError(invariant: string, crossings: number, reason: string): InputError {
   return new InputError(
-    'invariant-over-limit',
-    `the ${invariant} of this ${crossings}-crossing diagram is over the limit of what skeinproof computes (${reason}); ` +
+    'limit-exceeded',
+    `the ${invariant} of this ${crossings}-crossing diagram is over the work limit skeinproof sets for it (${reason}), so it is not computed; ` +
       'give a diagram of the same link with fewer crossings, or one drawn as a braid closure on fewer strands.',
   );
 }

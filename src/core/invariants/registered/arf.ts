@@ -1,8 +1,7 @@
 /** The Arf invariant of a knot (null for links). */
 import type { Invariant } from '../registry/types.ts';
 import { judgeArfClaim } from '../../claims/skein-polynomial-claims.ts';
-import { valueOf } from '../registry/lazy.ts';
-import { arfValue } from './skein-values.ts';
+import { arfOf } from './skein-values.ts';
 
 export const arfInvariant: Invariant = {
   id: 'arf',
@@ -17,7 +16,7 @@ export const arfInvariant: Invariant = {
       valueDoc: '0 or 1 (knots only)',
       example: '1',
       changedBy: [],
-      judge: (text, report) => judgeArfClaim(text, valueOf(report, arfValue), report.components),
+      judge: (text, report) => judgeArfClaim(text, arfOf(report), report.components),
     },
   ],
   fills: [
@@ -25,11 +24,11 @@ export const arfInvariant: Invariant = {
       key: 'arf',
       valueDoc: 'the Arf invariant of a knot, or a note that it is not computed for links',
       typeset: (report) => {
-        const arf = valueOf(report, arfValue);
+        const arf = arfOf(report);
         return arf === null ? { kind: 'text', text: 'not defined here (skeinproof computes the Arf invariant of knots only)' } : { kind: 'math', latex: `${arf}` };
       },
     },
   ],
-  json: [{ field: 'arf', example: 1, value: (r) => valueOf(r, arfValue) }],
+  json: [{ field: 'arf', example: 1, value: (r) => arfOf(r) }],
   tests: ['test/invariants/braid-index-arf.test.ts'],
 };

@@ -1,8 +1,7 @@
 /** The braid index, as proven bounds with the theorem behind each. */
 import type { Invariant } from '../registry/types.ts';
 import { braidIndexLatex, judgeBraidIndexClaim } from '../../claims/skein-polynomial-claims.ts';
-import { valueOf } from '../registry/lazy.ts';
-import { braidIndexValue } from './skein-values.ts';
+import { braidIndexOf } from './skein-values.ts';
 
 export const braidIndexInvariant: Invariant = {
   id: 'braid-index',
@@ -17,16 +16,16 @@ export const braidIndexInvariant: Invariant = {
       valueDoc: 'a natural number; judged agrees, contradicts, or undecided when the proven bounds leave it open',
       example: '2',
       changedBy: [],
-      judge: (text, report) => judgeBraidIndexClaim(text, valueOf(report, braidIndexValue)),
+      judge: (text, report) => judgeBraidIndexClaim(text, braidIndexOf(report)),
     },
   ],
-  fills: [{ key: 'braid-index', valueDoc: 'the braid index when the bounds meet, else the bounds', typeset: (report) => ({ kind: 'math', latex: braidIndexLatex(valueOf(report, braidIndexValue)) }) }],
+  fills: [{ key: 'braid-index', valueDoc: 'the braid index when the bounds meet, else the bounds', typeset: (report) => ({ kind: 'math', latex: braidIndexLatex(braidIndexOf(report)) }) }],
   json: [
     {
       field: 'braidIndex',
       example: { lower: 2, upper: 2, exact: 2 },
       value: (r) => {
-        const b = valueOf(r, braidIndexValue);
+        const b = braidIndexOf(r);
         return { lower: b.lower, upper: b.upper, exact: b.exact, reasons: b.reasons.map((x) => ({ bound: x.bound, value: x.value, theorem: x.theorem, text: x.text })) };
       },
     },

@@ -1,9 +1,8 @@
 /** Kauffman's two-variable polynomial F(a, z), or its Dubrovnik variant under `kauffman=dubrovnik`. */
 import type { Invariant } from '../registry/types.ts';
 import { judgeSkeinClaim, kauffmanValues, twoVariableLatex } from '../../claims/skein-polynomial-claims.ts';
-import { valueOf } from '../registry/lazy.ts';
 import { twoVariableJson } from '../registry/json.ts';
-import { dubrovnikValue, kauffmanValue } from './skein-values.ts';
+import { dubrovnikOf, kauffmanOf } from './skein-values.ts';
 
 export const kauffmanInvariant: Invariant = {
   id: 'kauffman',
@@ -19,7 +18,7 @@ export const kauffmanInvariant: Invariant = {
       example: '-a^{-4} - 2a^{-2} + a^{-5}z + a^{-3}z + a^{-4}z^2 + a^{-2}z^2',
       changedBy: ['chirality', 'summand-chirality'],
       judge: (text, report, ctx) =>
-        judgeSkeinClaim('kauffman', 'Kauffman polynomial', text, kauffmanValues(valueOf(report, kauffmanValue), valueOf(report, dubrovnikValue), ctx.convention), report, ctx.convention),
+        judgeSkeinClaim('kauffman', 'Kauffman polynomial', text, kauffmanValues(kauffmanOf(report), dubrovnikOf(report), ctx.convention), report, ctx.convention),
     },
   ],
   fills: [
@@ -27,8 +26,8 @@ export const kauffmanInvariant: Invariant = {
       key: 'kauffman',
       valueDoc: 'F (or the Dubrovnik polynomial) in a and z, grouped by powers of z',
       typeset: (report, convention) => {
-        const f = valueOf(report, kauffmanValue);
-        const values = kauffmanValues(f, convention.kauffmanVariant === 'kauffman' ? f : valueOf(report, dubrovnikValue), convention);
+        const f = kauffmanOf(report);
+        const values = kauffmanValues(f, convention.kauffmanVariant === 'kauffman' ? f : dubrovnikOf(report), convention);
         return { kind: 'math', latex: twoVariableLatex(values.declared, values.letters, convention) };
       },
     },
@@ -37,7 +36,7 @@ export const kauffmanInvariant: Invariant = {
     {
       field: 'kauffman',
       example: { variables: ['a', 'z'], terms: [[-5, 1, '1'], [-4, 0, '-1'], [-4, 2, '1'], [-3, 1, '1'], [-2, 0, '-2'], [-2, 2, '1']] },
-      value: (r) => twoVariableJson(valueOf(r, kauffmanValue), ['a', 'z']),
+      value: (r) => twoVariableJson(kauffmanOf(r), ['a', 'z']),
     },
   ],
   tests: ['test/invariants/kauffman-polynomial.test.ts'],

@@ -1,15 +1,39 @@
-/** The lazily computed values behind the HOMFLY-PT, Kauffman, braid-index and Arf modules. */
+/**
+ * The lazily computed values behind the HOMFLY-PT, Kauffman, braid-index and
+ * Arf modules. A refusal (over the work limit) is remembered like a value, so
+ * a second reader does not spend the budget again.
+ */
+import type { DiagramReport } from '../../analyze/report.ts';
+import { InputError } from '../../errors.ts';
+import type { Laurent2 } from '../../poly/laurent2.ts';
 import { arfInvariant } from '../arf.ts';
-import { braidIndexBounds } from '../braid-index.ts';
+import { braidIndexBounds, type BraidIndexBounds } from '../braid-index.ts';
 import { homflyPolynomial } from '../homfly/homfly.ts';
 import { kauffmanPolynomial } from '../kauffman-polynomial/kauffman.ts';
-import { quantity } from '../registry/lazy.ts';
-import { valueOf } from '../registry/lazy.ts';
+import { quantity, valueOf } from '../registry/lazy.ts';
 
-export const homflyValue = quantity('homfly', (report) => homflyPolynomial(report.diagram).polynomial);
-export const kauffmanValue = quantity('kauffman', (report) => kauffmanPolynomial(report.diagram, 'kauffman').polynomial);
-export const dubrovnikValue = quantity('dubrovnik', (report) => kauffmanPolynomial(report.diagram, 'dubrovnik').polynomial);
-export const braidIndexValue = quantity('braid-index', (report) =>
-  braidIndexBounds(valueOf(report, homflyValue), report.classical.seifertCircles, report.diagram.notation),
+type Outcome<T> = { readonly value: T } | { readonly refused: InputError };
+
+function remembered<T>(name: string, compute: (report: DiagramReport) => T): (report: DiagramReport) => T {
+  const q = quantity<Outcome<T>>(name, (report) => {
+    try {
+      return { value: compute(report) };
+    } catch (error) {
+      if (error instanceof InputError) return { refused: error };
+      throw error;
+    }
+  });
+  return (report) => {
+    const outcome = valueOf(report, q);
+    if ('refused' in outcome) throw outcome.refused;
+    return outcome.value;
+  };
+}
+
+export const homflyOf: (report: DiagramReport) => Laurent2 = remembered('homfly', (report) => homflyPolynomial(report.diagram).polynomial);
+export const kauffmanOf: (report: DiagramReport) => Laurent2 = remembered('kauffman', (report) => kauffmanPolynomial(report.diagram, 'kauffman').polynomial);
+export const dubrovnikOf: (report: DiagramReport) => Laurent2 = remembered('dubrovnik', (report) => kauffmanPolynomial(report.diagram, 'dubrovnik').polynomial);
+export const braidIndexOf: (report: DiagramReport) => BraidIndexBounds = remembered('braid-index', (report) =>
+  braidIndexBounds(homflyOf(report), report.classical.seifertCircles, report.diagram.notation),
 );
-export const arfValue = quantity('arf', (report) => arfInvariant(report.classical.conway, report.classical.alexander, report.components));
+export const arfOf: (report: DiagramReport) => 0 | 1 | null = remembered('arf', (report) => arfInvariant(report.classical.conway, report.classical.alexander, report.components));
