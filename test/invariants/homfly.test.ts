@@ -165,7 +165,7 @@ describe("Jones' torus-knot formula (Jones 1987, Annals of Mathematics 126; sum 
 describe('limits', () => {
   it('a diagram over the work budget is refused as over the limit, not left running', () => {
     const d = closeBraid(torusBraid(5, 6), 5);
-    expect(() => homflyPolynomial(d, { maxWidth: 22, maxWork: 1000 })).toThrow(/over the limit/);
+    expect(() => homflyPolynomial(d, { maxWidth: 22, maxWork: 1000 })).toThrow(/over the work limit/);
   });
   it('coefficients beyond 2^53 stay exact: the sum of 30 figure-eight knots has P(4₁)^30', () => {
     const figureEight = closeBraid([1, -2, 1, -2], 3);
