@@ -13,7 +13,7 @@ export const EXIT_BAD_INPUT = 2;
 export type ExitStatus = typeof EXIT_OK | typeof EXIT_FAILED_CHECK | typeof EXIT_BAD_INPUT;
 
 /** Errors that are verdicts on the mathematics rather than on the input. */
-const VERDICT_ERRORS: ReadonlySet<string> = new Set(['claim-contradicted']);
+const VERDICT_ERRORS: ReadonlySet<string> = new Set(['claim-contradicted', 'claim-choice-conflict']);
 
 export function exitStatus(diagnostics: readonly Diagnostic[], options: { readonly strict?: boolean } = {}): ExitStatus {
   let status: ExitStatus = EXIT_OK;

@@ -82,6 +82,25 @@ describe('skeinproof compute --claim', () => {
     expect(claimsOf(json.stdout)[0]![0]).toMatchObject({ verdict: 'agrees', diagnosis: { kind: 'mirror' }, computed: '-t^{-4} + t^{-3} + t^{-1}' });
     expect(plain.stdout).toContain('part-signs="-"');
   });
+  it('judges a DT code against every realisation it allows: the trefoil with a positive kink, 6 8 -4 2, has writhe 4 (the closure of σ₁³σ₂, common practice: a DT code does not say to which side a kink loops)', () => {
+    const run = skeinproof('compute', '--json', '-n', 'dt', '--claim', 'writhe=4', '--', '6 8 -4 2');
+    expect(run.status).toBe(0);
+    const [object] = run.stdout.trim().split('\n').map((line) => JSON.parse(line) as Record<string, unknown>);
+    expect((object!['claims'] as Record<string, unknown>[])[0]).toMatchObject({ verdict: 'agrees', computed: '4' });
+    expect(String((object!['claims'] as Record<string, unknown>[])[0]!['warning'])).toContain('the kink at entry 3 positive');
+    const open = object!['openChoices'] as { parts: unknown[]; dependentFields: string[] };
+    expect(open.parts).toEqual([
+      { entries: [1, 2, 4], kink: false, sign: 1 },
+      { entries: [3], kink: true, sign: -1 },
+    ]);
+    expect(open.dependentFields).toEqual(expect.arrayContaining(['writhe', 'bracket', 'jones', 'signature']));
+    expect(open.dependentFields).not.toContain('determinant');
+    expect(open.dependentFields).not.toContain('crossingNumber');
+    // Two values that need different kink signs cannot both hold for one code.
+    const both = skeinproof('compute', '-n', 'dt', '--claim', 'writhe=4', '--claim', 'writhe=2', '--', '6 8 -4 2');
+    expect(both.status).toBe(1);
+    expect(both.stdout).toContain('[claim-choice-conflict]');
+  });
   it('exits 2 for an unreadable claim and points at the bad character', () => {
     const run = skeinproof('compute', '-n', 'braid', '1 1 1', '--claim', 'jones=t + x');
     expect(run.status).toBe(2);

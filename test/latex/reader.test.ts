@@ -554,3 +554,21 @@ describe("the author's own package and class files", () => {
   });
 });
 
+
+describe('part-signs on a DT skeincode (6 8 -4 2: the trefoil with a kink, the closure of σ₁³σ₂ with writhe +4; common practice)', () => {
+  const paper = (signs: string) =>
+    `${PREAMBLE}\\begin{skeincode}{id=kinked, notation=dt, part-signs={${signs}}, writhe=4}\n6 8 -4 2\n\\end{skeincode}\n\\end{document}\n`;
+  const session = (doc: LatexDocument) => runSession({ diagrams: doc.diagrams, claims: doc.claims, fills: doc.fills.map((f) => f.entry), convention: DEFAULT_CONVENTION });
+  it('fixes the kink as the author says, so the claim agrees without a warning', () => {
+    const doc = read({ 'paper.tex': paper('+ +') });
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.diagrams[0]!.partSigns?.text).toBe('+ +');
+    expect(session(doc).diagnostics).toEqual([]);
+  });
+  it('contradicts the claim when the author fixes the other kink sign, and points into the attribute when it is malformed', () => {
+    expect(session(read({ 'paper.tex': paper('+ -') })).diagnostics.map((d) => d.ruleId)).toEqual(['claim-contradicted']);
+    const bad = session(read({ 'paper.tex': paper('+') }));
+    expect(bad.diagnostics.map((d) => `${d.ruleId}@${d.location!.start.line}`)).toEqual(['choice-invalid@4', 'target-invalid@4']);
+    expect(bad.diagnostics[0]!.message).toContain('2 independent parts');
+  });
+});

@@ -34,6 +34,19 @@ describe('diagram blocks', () => {
     ]);
   });
 
+  it('reads part-signs on a DT diagram: the square knot 10 12 8 4 6 2 with part-signs="+ -" has signature 0 and fills it (square knot 3₁ # 3₁*: σ additive, from memory)', async () => {
+    const text = '```skein id=sq notation=dt part-signs="+ -"\n10 12 8 4 6 2\n```\n\n:signature{of=sq} and :writhe[$0$]{of=sq}\n';
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built.endsWith('$0$ and $0$\n')).toBe(true);
+    const other = 'The writhe :writhe[$6$]{of=sq}.\n';
+    const refused = await processMarkdown(`${text}${other}`);
+    expect(placed(refused.diagnostics)).toEqual([`error claim-contradicted ${positionOf(`${text}${other}`, '$6$]')}`]);
+    const bad = '```skein id=k notation=braid part-signs="+"\n1 1 1\n```\n';
+    const badRun = await processMarkdown(bad);
+    expect(placed(badRun.diagnostics)).toEqual([`error choice-invalid ${positionOf(bad, '+"')}`]);
+  });
+
   it('refuses strands on a code that is not a braid word, at the setting', async () => {
     const text = '```skein id=k notation=pd strands=3\n(4,2,5,1) (2,6,3,5) (6,4,1,3)\n```\n\n:writhe{of=k}\n';
     const r = await processMarkdown(text);

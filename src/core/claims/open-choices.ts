@@ -107,7 +107,8 @@ function describeChoice(diagram: LinkDiagram, c: Candidate): string {
       return p.kink ? `the kink at ${entriesOf(p)} ${c.signs[i] === 1 ? 'positive' : 'negative'}` : `the part at ${entriesOf(p)} reflected (its chirality reversed)`;
     })
     .filter((x): x is string => x !== undefined);
-  const list = changes.length <= 1 ? changes.join('') : `${changes.slice(0, -1).join(', ')} and ${changes[changes.length - 1]}`;
+  if (changes.length === 0) return "the code's own drawing";
+  const list = changes.length === 1 ? changes[0]! : `${changes.slice(0, -1).join(', ')} and ${changes[changes.length - 1]}`;
   return `the code's drawing with ${list}`;
 }
 
@@ -137,7 +138,8 @@ export function judgeDiagramClaims(report: DiagramReport, claims: readonly Diagr
   const open = report.diagram.openChoices;
   if (!open) return { report, outcomes: claims.map((c) => judgeOne(c, report, ctx)) };
   const { list, total } = candidates(report.diagram);
-  const realised = new Map<Candidate, DiagramReport>();
+  // The code's own drawing is the report itself, read with its chirality fixed (no second analysis).
+  const realised = new Map<Candidate, DiagramReport>([[list[0]!, Object.create(report, { chiralityFixed: { value: true } }) as DiagramReport]]);
   const reportOf = (c: Candidate): DiagramReport => {
     let r = realised.get(c);
     if (!r) realised.set(c, (r = analyzeDiagram(open.realise(c.signs))));
