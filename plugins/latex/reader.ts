@@ -87,7 +87,7 @@ export interface LatexDocument {
 }
 
 /** Keys of \begin{skeincode}{…} besides the claim keys. */
-const CODE_KEYS = ['id', 'notation', 'strands', 'part-signs'] as const;
+const CODE_KEYS = ['id', 'notation', 'strands', 'part-signs', 'for'] as const;
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
 /**
  * What the package provides, in plain LaTeX for the flat copy: the array
@@ -291,6 +291,7 @@ class ManuscriptReader {
       code: code.text,
       ...(strands !== undefined ? { strands } : {}),
       ...(partSigns !== undefined ? { partSigns: { text: partSigns.text, locate: locatorFor(file, partSigns) } } : {}),
+      ...(options.has('for') ? { parameter: { text: options.get('for')!.text, locate: locatorFor(file, options.get('for')!) } } : {}),
       locateCode: locatorFor(file, code),
       locateHeader: locatorFor(file, idValue),
     });

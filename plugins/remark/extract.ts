@@ -159,6 +159,7 @@ class Extractor {
     let notation: Notation | undefined = this.settings.notation;
     let strands: number | undefined;
     let partSigns: { text: string; start: number; end: number } | undefined;
+    let parameter: { text: string; at: number; end: number } | undefined;
     const seen = new Set<string>();
     let refusedAt: number | undefined;
     const headerClaims: { key: ClaimKey; value: string; at: number; end: number }[] = [];
@@ -190,12 +191,14 @@ class Extractor {
         } else strands = n;
       } else if (s.key === 'part-signs') {
         partSigns = { text: s.value, start: metaStart + s.valueStart, end: metaStart + s.valueEnd };
+      } else if (s.key === 'for') {
+        parameter = { text: s.value, at: metaStart + s.valueStart, end: metaStart + s.valueEnd };
       } else if (isClaimKey(s.key)) {
         headerClaims.push({ key: s.key, value: s.value, at: metaStart + s.valueStart, end: metaStart + s.valueEnd });
       } else {
         this.error(
           'markup-invalid',
-          `diagram block: unknown setting \`${s.key}\`: the settings are id, notation, strands, part-signs and the claims ${CLAIM_KEYS.join(', ')}`,
+          `diagram block: unknown setting \`${s.key}\`: the settings are id, notation, strands, part-signs, for and the claims ${CLAIM_KEYS.join(', ')}`,
           at,
           at + s.key.length,
         );
@@ -244,6 +247,7 @@ class Extractor {
       code: node.value,
       ...(strands !== undefined ? { strands } : {}),
       ...(partSigns !== undefined ? { partSigns: { text: partSigns.text, locate: this.fixedLocator(partSigns.start, partSigns.end) } } : {}),
+      ...(parameter ? { parameter: { text: parameter.text, locate: this.fixedLocator(parameter.at, parameter.end) } } : {}),
       locateCode: this.locator(map, codeStart, codeEnd),
       locateHeader: () => this.source.location(headerAt, headerAt + id!.length),
     });

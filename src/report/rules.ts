@@ -11,6 +11,8 @@ export interface RuleDescription {
 export const RULES: readonly RuleDescription[] = [
   { id: 'claim-contradicted', description: 'A value stated in the manuscript contradicts the value computed from its diagram code.' },
   { id: 'claim-undecided', description: 'The proven bounds do not settle a stated crossing number.' },
+  { id: 'claim-instances', description: 'A formula in a free parameter agrees at every value checked; only those instances are checked, not the formula for every value.' },
+  { id: 'parameter-invalid', description: 'A free parameter of a family code is unusable, or a fill-in asks for one value of a family with a free parameter.' },
   { id: 'claim-cited', description: 'No theorem used here settles a stated crossing number, and the claim rests on the source the author cites.' },
   { id: 'claim-mirror-only', description: 'A stated value matches only the mirror image, which a DT code cannot tell apart.' },
   { id: 'claim-choice-open', description: 'A stated value holds only for a realisation of a DT code with another kink sign or part chirality than the drawing; the document is read in that realisation.' },

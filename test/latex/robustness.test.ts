@@ -44,7 +44,7 @@ describe('the package file and the reader', () => {
 
   it('accept the same keys in \\begin{skeincode}{…}', () => {
     const list = /\\def\\skein@claimkeys\{([^}]*)\}/.exec(sty.replace(/%\n\s*/g, ''))![1]!.split(',');
-    expect(list).toEqual(['id', 'notation', 'strands', 'part-signs', ...CLAIM_KEYS]);
+    expect(list).toEqual(['id', 'notation', 'strands', 'part-signs', 'for', ...CLAIM_KEYS]);
   });
 
   it('define the same fill-in shortcuts', () => {

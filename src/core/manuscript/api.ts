@@ -24,6 +24,11 @@ export interface DiagramEntry {
   readonly strands?: number;
   /** The `part-signs` attribute as written (DT codes: fixes every choice the code leaves open), and where it is. */
   readonly partSigns?: { readonly text: string; readonly locate: Locator };
+  /**
+   * A free parameter of a family code (`for="n=3..25 step 2"`), as written, with its place: the diagram
+   * is built at each value, and claims about it are formulas in the parameter, checked at each value.
+   */
+  readonly parameter?: { readonly text: string; readonly locate: Locator };
   /** Locates spans of `code`. */
   readonly locateCode: Locator;
   /** Locates the entry's header (where the id is written), for duplicate-id errors. */

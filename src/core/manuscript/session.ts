@@ -34,6 +34,8 @@ import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
 import { isLimitError } from '../limits.ts';
 import { parseDiagramCode, readPartSigns } from '../notation/index.ts';
+import { buildParametric, judgeParametricClaim, parametricFill } from './parametric-entries.ts';
+import type { ParametricDiagram } from '../parametric/parametric.ts';
 import type { ClaimEntry, DiagramEntry, Locator, SessionCounts, SessionInput, SessionResult } from './api.ts';
 
 export function runSession(input: SessionInput): SessionResult {
@@ -44,6 +46,8 @@ export function runSession(input: SessionInput): SessionResult {
   const firstHeader = new Map<string, SourceLocation>();
   /** Ids of valid codes that were not computed because they are over a limit. */
   const overLimit = new Set<string>();
+  /** Family codes with a free parameter, built at each of its values. */
+  const parametric = new Map<string, ParametricDiagram>();
 
   for (const entry of input.diagrams) {
     const header = entry.locateHeader();
@@ -58,6 +62,14 @@ export function runSession(input: SessionInput): SessionResult {
       continue;
     }
     firstHeader.set(entry.id, header);
+    if (entry.parameter) {
+      const refusal = buildParametric(entry, reports, input.limits ?? {}, parametric);
+      if (refusal) {
+        invalid.set(entry.id, entry);
+        diagnostics.push(refusal);
+      }
+      continue;
+    }
     try {
       // A family may name diagrams defined before it (mirror, sum, split).
       const named = (id: string) => reports.get(id)?.diagram;
@@ -161,6 +173,15 @@ export function runSession(input: SessionInput): SessionResult {
   const claimIndex = new Map<string, number>();
   for (const claim of toJudge) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
+    const family = parametric.get(claim.target);
+    if (family) {
+      const { diagnostics: found, verdict } = judgeParametricClaim(claim, family, subject, input.convention);
+      diagnostics.push(...found);
+      if (verdict === 'agrees') counts.claimsAgree++;
+      else if (verdict === 'contradicts') counts.claimsContradicted++;
+      else if (verdict !== undefined) counts.claimsUndecided++;
+      continue;
+    }
     const v = verdicts.get(claim.target);
     if (!v) {
       diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
@@ -188,6 +209,11 @@ export function runSession(input: SessionInput): SessionResult {
 
   const fills: (Typeset | undefined)[] = input.fills.map((fill) => {
     const subject = fill.context ?? `the ${fill.key} fill-in for \`${fill.target}\``;
+    const family = parametric.get(fill.target);
+    if (family) {
+      diagnostics.push(parametricFill(fill.target, family, subject, fill.locate));
+      return undefined;
+    }
     const report = reports.get(fill.target);
     if (!report) {
       diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
