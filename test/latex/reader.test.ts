@@ -137,7 +137,7 @@ describe('located errors in the markup', () => {
       'latex-environment-unclosed@paper.tex:21:1',
     ]);
     for (const d of doc.diagnostics) expect(d.severity).toBe('error');
-    expect(doc.diagnostics[2]!.message).toContain('the keys are id, notation, strands, part-signs, jones');
+    expect(doc.diagnostics[2]!.message).toContain('the keys are id, notation, strands, part-signs, for, jones');
     expect(doc.diagrams.map((d) => d.id)).toEqual(['b']);
   });
 
