@@ -65,3 +65,11 @@ describe('Khovanov homology: worked values', () => {
     expect(homologicalWidth([])).toBe(0);
   });
 });
+
+describe('the work budget', () => {
+  it('stops a computation past its budget with a KhovanovBudgetError instead of running on (common practice)', async () => {
+    const { KhovanovBudgetError } = await import('../../../src/core/invariants/khovanov/local.ts');
+    expect(() => khovanovAndReduced(torusLink(3, 5), { workBudget: 200 })).toThrow(KhovanovBudgetError);
+    expect(khovanovAndReduced(torusLink(3, 5), { workBudget: 1e7 }).unreduced.ranks.length).toBeGreaterThan(0);
+  });
+});
