@@ -191,14 +191,20 @@ export function planSteps(d: LinkDiagram, order: readonly number[], cut = -1): S
 }
 
 /**
- * One matching's polynomial: coefficient index i holds the exponent lo + i·step,
- * its value is Σ_j limbs[j][i] · 2^(32j).
+ * The states of one step, in flat typed arrays: state s's polynomial has `len[s]`
+ * coefficients, coefficient i holding the exponent lo[s] + i·step, stored as
+ * `limbs[s]` base-2^32 digits: digit j of coefficient i is slab[offset[s] + j·len[s] + i].
+ * `bound[s]` bounds |digit| over all its digits. No object per state, so the
+ * garbage collector has nothing to trace.
  */
-interface StatePoly {
-  lo: number;
-  limbs: Float64Array[];
-  /** An upper bound on |limbs[j][i]| over all j, i. */
-  bound: number;
+interface States {
+  count: number;
+  lo: Int32Array;
+  len: Int32Array;
+  limbs: Int32Array;
+  offset: Int32Array;
+  bound: Float64Array;
+  slab: Float64Array;
 }
 
 const LIMB_BASE = 2 ** 32;
@@ -221,8 +227,7 @@ function binomialRow(l: number): number[] {
  * matchings (the only kind a disk-shaped region produces) are fixed by which
  * ends open an arc, so their key is that bit pattern as a number: cheap to
  * build and to hash. Crossing matchings (a region with holes, or a non-planar
- * code) fall back to a string of the partner positions; numbers and strings
- * never collide as Map keys.
+ * code) fall back to a string of the partner positions, kept apart from the numbers.
  */
 type MatchingKey = number | string;
 
@@ -249,18 +254,78 @@ function matchingKey(partner: Uint16Array, width: number, stack: Int32Array): Ma
   return String.fromCharCode.apply(null, partner as unknown as number[]);
 }
 
+/**
+ * Matching key → target index for one step: open addressing over doubles for the
+ * numeric keys (all ≥ 1, so 0 marks an empty slot), a Map for the rare string keys.
+ */
+class TargetTable {
+  private keys = new Float64Array(0);
+  private values = new Int32Array(0);
+  private mask = 0;
+  private readonly strings = new Map<string, number>();
+
+  /** Empties the table, sized for up to `expected` keys at load ≤ 1/2. */
+  reset(expected: number): void {
+    let capacity = 16;
+    while (capacity < 2 * expected) capacity *= 2;
+    if (capacity > this.keys.length) {
+      this.keys = new Float64Array(capacity);
+      this.values = new Int32Array(capacity);
+    } else this.keys.fill(0, 0, capacity);
+    this.mask = capacity - 1;
+    this.strings.clear();
+  }
+
+  /** The index stored for `key`, or −1. */
+  get(key: MatchingKey): number {
+    if (typeof key === 'string') return this.strings.get(key) ?? -1;
+    const keys = this.keys;
+    for (let i = slotOf(key) & this.mask; ; i = (i + 1) & this.mask) {
+      const k = keys[i]!;
+      if (k === key) return this.values[i]!;
+      if (k === 0) return -1;
+    }
+  }
+
+  set(key: MatchingKey, value: number): void {
+    if (typeof key === 'string') {
+      this.strings.set(key, value);
+      return;
+    }
+    const keys = this.keys;
+    let i = slotOf(key) & this.mask;
+    while (keys[i] !== 0) i = (i + 1) & this.mask;
+    keys[i] = key;
+    this.values[i] = value;
+  }
+}
+
+/** Mixes both 32-bit halves of a key below 2^53. */
+function slotOf(key: number): number {
+  const high = Math.floor(key / LIMB_BASE) | 0;
+  return (Math.imul(key | 0, 0x9e3779b1) ^ Math.imul(high ^ (high >>> 15), 0x85ebca77)) >>> 7;
+}
+
 const A_SLOT_PARTNER = [1, 0, 3, 2];
 const B_SLOT_PARTNER = [3, 2, 1, 0];
 
 /** Runs the contraction with exponents stored at the given step; undefined if a state mixes classes mod `step`. */
 function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined {
   // The empty tangle: one (empty) matching with value 1.
-  let keys: MatchingKey[] = [EMPTY_MATCHING];
+  let states: States = {
+    count: 1,
+    lo: Int32Array.of(0),
+    len: Int32Array.of(1),
+    limbs: Int32Array.of(1),
+    offset: Int32Array.of(0),
+    bound: Float64Array.of(1),
+    slab: Float64Array.of(1),
+  };
   let partners = new Uint16Array(0);
-  let polys: StatePoly[] = [{ lo: 0, limbs: [Float64Array.of(1)], bound: 1 }];
+  let lastKey: MatchingKey = EMPTY_MATCHING;
   // Two slabs take turns: the sources of one step live in one, its targets in the other.
-  let sourceSlab = new Float64Array(0);
-  let spareSlab = new Float64Array(0);
+  let spareSlab: Float64Array = new Float64Array(0);
+  const table = new TargetTable();
   const dStride = 4 / step; // index distance between the terms A^(2l−4j) of d^l
 
   for (let k = 0; k < steps.length; k++) {
@@ -273,21 +338,21 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     const scratch = new Int32Array(w + 4);
     const codes = new Uint16Array(w2);
     const stack = new Int32Array(w2);
-    const stateCount = keys.length;
+    const { count, lo, len, limbs, bound } = states;
 
     // Phase 1: the target matching and loop count of every (state, smoothing).
-    const targetIndex = new Map<MatchingKey, number>();
-    const nextKeys: MatchingKey[] = [];
+    table.reset(2 * count);
+    let targets = 0;
     let nextPartners = new Uint16Array(Math.max(16, 4 * w2));
-    const contributionTarget = new Int32Array(2 * stateCount);
-    const contributionLoops = new Int32Array(2 * stateCount);
-    const tLo: number[] = [];
-    const tHi: number[] = [];
-    const tBound: number[] = [];
-    const tLimbs: number[] = [];
-    for (let s = 0; s < stateCount; s++) {
-      const source = polys[s]!;
-      const sourceHi = source.lo + step * (source.limbs[0]!.length - 1);
+    const contributionTarget = new Int32Array(2 * count);
+    const contributionLoops = new Int32Array(2 * count);
+    const tLo = new Int32Array(2 * count);
+    const tHi = new Int32Array(2 * count);
+    const tBound = new Float64Array(2 * count);
+    const tLimbs = new Int32Array(2 * count);
+    for (let s = 0; s < count; s++) {
+      const sourceLo = lo[s]!;
+      const sourceHi = sourceLo + step * (len[s]! - 1);
       for (let smoothing = 0; smoothing < 2; smoothing++) {
         for (let p = 0; p < w; p++) scratch[p] = partners[s * w + p]!;
         const slotPartner = smoothing === 0 ? A_SLOT_PARTNER : B_SLOT_PARTNER;
@@ -307,199 +372,217 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
         for (let i = 0; i < w2; i++) codes[i] = compact[scratch[layout[i]!]!]!;
         const key = matchingKey(codes, w2, stack);
         if (isLast) loops--; // ⟨O⟩ = 1: the final picture's first circle is free
-        let t = targetIndex.get(key);
-        const base = source.lo + (smoothing === 0 ? 1 : -1) - 2 * loops;
+        let t = table.get(key);
+        const base = sourceLo + (smoothing === 0 ? 1 : -1) - 2 * loops;
         const top = sourceHi + (smoothing === 0 ? 1 : -1) + 2 * loops;
-        if (t === undefined) {
-          t = nextKeys.length;
-          targetIndex.set(key, t);
-          nextKeys.push(key);
+        if (t < 0) {
+          t = targets++;
+          table.set(key, t);
+          lastKey = key;
           if (nextPartners.length < (t + 1) * w2) {
             const grown = new Uint16Array(2 * nextPartners.length + w2);
             grown.set(nextPartners);
             nextPartners = grown;
           }
           nextPartners.set(codes, t * w2);
-          tLo.push(base);
-          tHi.push(top);
-          tBound.push(0);
-          tLimbs.push(0);
+          tLo[t] = base;
+          tHi[t] = top;
         } else {
           if ((base - tLo[t]!) % step !== 0) return undefined;
           if (base < tLo[t]!) tLo[t] = base;
           if (top > tHi[t]!) tHi[t] = top;
         }
-        tBound[t]! += source.bound * centralBinomial(loops);
-        if (source.limbs.length > tLimbs[t]!) tLimbs[t] = source.limbs.length;
+        tBound[t]! += bound[s]! * centralBinomial(loops);
+        if (limbs[s]! > tLimbs[t]!) tLimbs[t] = limbs[s]!;
         contributionTarget[2 * s + smoothing] = t;
         contributionLoops[2 * s + smoothing] = loops;
       }
     }
 
     // Carry every source if some target limb could pass the ceiling.
-    if (tBound.some((b) => b >= LIMB_CEILING)) {
-      for (const poly of polys) carryLimbs(poly);
+    if (tBound.subarray(0, targets).some((b) => b >= LIMB_CEILING)) {
+      states = carried(states);
       tBound.fill(0);
       tLimbs.fill(0);
-      for (let s = 0; s < stateCount; s++) {
+      for (let s = 0; s < count; s++) {
         for (let smoothing = 0; smoothing < 2; smoothing++) {
           const t = contributionTarget[2 * s + smoothing]!;
-          tBound[t]! += polys[s]!.bound * centralBinomial(contributionLoops[2 * s + smoothing]!);
-          if (polys[s]!.limbs.length > tLimbs[t]!) tLimbs[t] = polys[s]!.limbs.length;
+          tBound[t]! += states.bound[s]! * centralBinomial(contributionLoops[2 * s + smoothing]!);
+          if (states.limbs[s]! > tLimbs[t]!) tLimbs[t] = states.limbs[s]!;
         }
       }
-      if (tBound.some((b) => b >= LIMB_CEILING)) {
+      if (tBound.subarray(0, targets).some((b) => b >= LIMB_CEILING)) {
         throw new RangeError('diagram too wide for exact contraction: more than 2^20 matchings merge into one');
       }
     }
 
-    // Phase 2: accumulate every contribution into its target.
-    // One zeroed slab for all targets, reused across steps: far cheaper than fresh arrays.
+    // Phase 2: accumulate every contribution into its target, in one zeroed slab reused across steps.
+    const next: States = {
+      count: targets,
+      lo: tLo.slice(0, targets),
+      len: new Int32Array(targets),
+      limbs: tLimbs.slice(0, targets),
+      offset: new Int32Array(targets),
+      bound: tBound.slice(0, targets),
+      slab: spareSlab,
+    };
     let slabSize = 0;
-    for (let t = 0; t < nextKeys.length; t++) slabSize += ((tHi[t]! - tLo[t]!) / step + 1) * tLimbs[t]!;
-    if (spareSlab.length < slabSize) spareSlab = new Float64Array(Math.ceil(slabSize * 1.25));
-    else spareSlab.fill(0, 0, slabSize);
-    const slab = spareSlab;
-    const nextPolys: StatePoly[] = new Array(nextKeys.length);
-    for (let t = 0, at = 0; t < nextKeys.length; t++) {
+    for (let t = 0; t < targets; t++) {
       const length = (tHi[t]! - tLo[t]!) / step + 1;
-      const limbs: Float64Array[] = new Array(tLimbs[t]!);
-      for (let j = 0; j < limbs.length; j++, at += length) limbs[j] = slab.subarray(at, at + length);
-      nextPolys[t] = { lo: tLo[t]!, limbs, bound: tBound[t]! };
+      next.len[t] = length;
+      next.offset[t] = slabSize;
+      slabSize += length * next.limbs[t]!;
     }
-    for (let s = 0; s < stateCount; s++) {
-      const source = polys[s]!;
-      const targetA = nextPolys[contributionTarget[2 * s]!]!;
-      const targetB = nextPolys[contributionTarget[2 * s + 1]!]!;
+    if (spareSlab.length < slabSize) next.slab = new Float64Array(Math.ceil(slabSize * 1.25));
+    else spareSlab.fill(0, 0, slabSize);
+    const source = states.slab;
+    const target = next.slab;
+    for (let s = 0; s < count; s++) {
+      const tA = contributionTarget[2 * s]!;
+      const tB = contributionTarget[2 * s + 1]!;
       const loopsA = contributionLoops[2 * s]!;
       const loopsB = contributionLoops[2 * s + 1]!;
-      const offsetA = (source.lo + 1 - 2 * loopsA - targetA.lo) / step;
-      const offsetB = (source.lo - 1 - 2 * loopsB - targetB.lo) / step;
-      for (let j = 0; j < source.limbs.length; j++) {
+      const n = states.len[s]!;
+      const startA = next.offset[tA]! + (states.lo[s]! + 1 - 2 * loopsA - next.lo[tA]!) / step;
+      const startB = next.offset[tB]! + (states.lo[s]! - 1 - 2 * loopsB - next.lo[tB]!) / step;
+      const strideA = next.len[tA]!;
+      const strideB = next.len[tB]!;
+      for (let j = 0, from = states.offset[s]!; j < states.limbs[s]!; j++, from += n) {
         if (loopsA <= 1 && loopsB <= 1) {
-          addBothSmoothings(source.limbs[j]!, targetA.limbs[j]!, offsetA, loopsA, targetB.limbs[j]!, offsetB, loopsB, dStride);
+          addBothSmoothings(source, from, n, target, startA + j * strideA, loopsA, startB + j * strideB, loopsB, dStride);
         } else {
-          addTimesLoopPower(targetA.limbs[j]!, source.limbs[j]!, offsetA, loopsA, dStride);
-          addTimesLoopPower(targetB.limbs[j]!, source.limbs[j]!, offsetB, loopsB, dStride);
+          addTimesLoopPower(target, startA + j * strideA, source, from, n, loopsA, dStride);
+          addTimesLoopPower(target, startB + j * strideB, source, from, n, loopsB, dStride);
         }
       }
     }
-    keys = nextKeys;
     partners = nextPartners;
-    polys = nextPolys;
-    spareSlab = sourceSlab;
-    sourceSlab = slab;
+    spareSlab = states.slab;
+    states = next;
   }
 
-  if (keys.length !== 1 || keys[0] !== EMPTY_MATCHING) throw new Error('internal: contraction ended with an open boundary');
-  const final = polys[0]!;
-  const length = final.limbs[0]!.length;
+  if (states.count !== 1 || lastKey !== EMPTY_MATCHING) throw new Error('internal: contraction ended with an open boundary');
+  const length = states.len[0]!;
   const dense: bigint[] = new Array(length);
   for (let i = 0; i < length; i++) {
     let value = 0n;
-    for (let j = final.limbs.length - 1; j >= 0; j--) value = (value << 32n) + BigInt(final.limbs[j]![i]!);
+    for (let j = states.limbs[0]! - 1; j >= 0; j--) value = (value << 32n) + BigInt(states.slab[states.offset[0]! + j * length + i]!);
     dense[i] = value;
   }
-  return Laurent.fromDense(dense, final.lo, step);
+  return Laurent.fromDense(dense, states.lo[0]!, step);
 }
 
-/** target[offset + i + m·stride] += (−1)^l C(l, m) · source[i] for m = 0 … l: multiplication by d^l. */
-function addTimesLoopPower(target: Float64Array, source: Float64Array, offset: number, loops: number, stride: number): void {
-  const n = source.length;
+/** target[at + i + m·stride] += (−1)^l C(l, m) · source[from + i] for i < n, m = 0 … l: multiplication by d^l. */
+function addTimesLoopPower(target: Float64Array, at: number, source: Float64Array, from: number, n: number, loops: number, stride: number): void {
   if (loops === 0) {
-    for (let i = 0; i < n; i++) target[offset + i]! += source[i]!;
+    for (let i = 0; i < n; i++) target[at + i]! += source[from + i]!;
   } else if (loops === 1) {
-    const o2 = offset + stride;
+    const at2 = at + stride;
     for (let i = 0; i < n; i++) {
-      const v = source[i]!;
-      target[offset + i]! -= v;
-      target[o2 + i]! -= v;
+      const v = source[from + i]!;
+      target[at + i]! -= v;
+      target[at2 + i]! -= v;
     }
   } else {
     const row = binomialRow(loops);
     const sign = loops % 2 === 0 ? 1 : -1;
     for (let m = 0; m <= loops; m++) {
       const factor = sign * row[m]!;
-      const o = offset + m * stride;
-      for (let i = 0; i < n; i++) target[o + i]! += factor * source[i]!;
+      const o = at + m * stride;
+      for (let i = 0; i < n; i++) target[o + i]! += factor * source[from + i]!;
     }
   }
 }
 
 /**
- * Both smoothings of one source in a single pass (the common case: at most one
- * loop closes on each side), reading the source once instead of twice.
- * `targetA` and `targetB` may be the same array.
+ * Both smoothings of one source digit row in a single pass (the common case: at
+ * most one loop closes on each side), reading the source once instead of twice.
+ * The two target rows may be the same.
  */
 function addBothSmoothings(
   source: Float64Array,
-  targetA: Float64Array,
-  offsetA: number,
+  from: number,
+  n: number,
+  target: Float64Array,
+  atA: number,
   loopsA: number,
-  targetB: Float64Array,
-  offsetB: number,
+  atB: number,
   loopsB: number,
   stride: number,
 ): void {
-  const n = source.length;
-  const a2 = offsetA + stride;
-  const b2 = offsetB + stride;
+  const a2 = atA + stride;
+  const b2 = atB + stride;
   if (loopsA === 0 && loopsB === 0) {
     for (let i = 0; i < n; i++) {
-      const v = source[i]!;
-      targetA[offsetA + i]! += v;
-      targetB[offsetB + i]! += v;
+      const v = source[from + i]!;
+      target[atA + i]! += v;
+      target[atB + i]! += v;
     }
   } else if (loopsA === 1 && loopsB === 0) {
     for (let i = 0; i < n; i++) {
-      const v = source[i]!;
-      targetA[offsetA + i]! -= v;
-      targetA[a2 + i]! -= v;
-      targetB[offsetB + i]! += v;
+      const v = source[from + i]!;
+      target[atA + i]! -= v;
+      target[a2 + i]! -= v;
+      target[atB + i]! += v;
     }
   } else if (loopsA === 0) {
     for (let i = 0; i < n; i++) {
-      const v = source[i]!;
-      targetA[offsetA + i]! += v;
-      targetB[offsetB + i]! -= v;
-      targetB[b2 + i]! -= v;
+      const v = source[from + i]!;
+      target[atA + i]! += v;
+      target[atB + i]! -= v;
+      target[b2 + i]! -= v;
     }
   } else {
     for (let i = 0; i < n; i++) {
-      const v = source[i]!;
-      targetA[offsetA + i]! -= v;
-      targetA[a2 + i]! -= v;
-      targetB[offsetB + i]! -= v;
-      targetB[b2 + i]! -= v;
+      const v = source[from + i]!;
+      target[atA + i]! -= v;
+      target[a2 + i]! -= v;
+      target[atB + i]! -= v;
+      target[b2 + i]! -= v;
     }
   }
 }
 
-/** Carries base-2^32 digits upward, adding limbs while the top one overflows; afterwards every |limb| < 2^32. */
-function carryLimbs(poly: StatePoly): void {
-  const limbs = poly.limbs;
-  const length = limbs[0]!.length;
-  for (let i = 0; i < length; i++) {
-    let carry = 0;
-    for (let j = 0; j < limbs.length - 1; j++) {
-      const x = limbs[j]![i]! + carry;
-      carry = Math.floor(x / LIMB_BASE);
-      limbs[j]![i] = x - carry * LIMB_BASE;
+/**
+ * The same states with base-2^32 digits carried upward, digits added where a top
+ * one overflows; afterwards every |digit| < 2^32 (the bounds say so).
+ */
+function carried(states: States): States {
+  const { count, len, offset, slab } = states;
+  const digits: Float64Array[][] = [];
+  const limbs = new Int32Array(count);
+  const newOffset = new Int32Array(count);
+  let size = 0;
+  for (let s = 0; s < count; s++) {
+    const n = len[s]!;
+    const rows: Float64Array[] = [];
+    for (let j = 0; j < states.limbs[s]!; j++) rows.push(slab.slice(offset[s]! + j * n, offset[s]! + (j + 1) * n));
+    for (let i = 0; i < n; i++) {
+      let carry = 0;
+      for (let j = 0; j < rows.length - 1; j++) {
+        const x = rows[j]![i]! + carry;
+        carry = Math.floor(x / LIMB_BASE);
+        rows[j]![i] = x - carry * LIMB_BASE;
+      }
+      rows[rows.length - 1]![i]! += carry;
     }
-    limbs[limbs.length - 1]![i]! += carry;
-  }
-  for (;;) {
-    const top = limbs[limbs.length - 1]!;
-    let overflow = false;
-    for (let i = 0; i < length; i++) if (Math.abs(top[i]!) >= LIMB_BASE) overflow = true;
-    if (!overflow) break;
-    const above = new Float64Array(length);
-    for (let i = 0; i < length; i++) {
-      const q = Math.floor(top[i]! / LIMB_BASE);
-      top[i] = top[i]! - q * LIMB_BASE;
-      above[i] = q;
+    for (;;) {
+      const top = rows[rows.length - 1]!;
+      if (!top.some((x) => Math.abs(x) >= LIMB_BASE)) break;
+      const above = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        const q = Math.floor(top[i]! / LIMB_BASE);
+        top[i] = top[i]! - q * LIMB_BASE;
+        above[i] = q;
+      }
+      rows.push(above);
     }
-    limbs.push(above);
+    digits.push(rows);
+    limbs[s] = rows.length;
+    newOffset[s] = size;
+    size += rows.length * n;
   }
-  poly.bound = LIMB_BASE;
+  const newSlab = new Float64Array(size);
+  for (let s = 0; s < count; s++) digits[s]!.forEach((row, j) => newSlab.set(row, newOffset[s]! + j * len[s]!));
+  return { count, lo: states.lo, len, limbs, offset: newOffset, bound: new Float64Array(count).fill(LIMB_BASE), slab: newSlab };
 }

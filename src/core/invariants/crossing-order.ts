@@ -27,6 +27,9 @@ export interface ContractionPlan {
 const RUN_COST_PER_CROSSING = 64;
 /** Starts tried on every diagram (fewer when a huge n would make planning itself slow). */
 const MIN_STARTS = 24;
+/** Up to this many crossings, planning stops after MIN_STARTS_SMALL starts once it costs more than SEARCH_FRACTION of the contraction. */
+const SMALL_DIAGRAM = 60;
+const MIN_STARTS_SMALL = 2;
 const BASE_BUDGET = 3e7;
 /**
  * Further starts are tried while planning has cost (in scan steps) less than
@@ -60,7 +63,9 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
     }
     spent += runCost;
     const tried = spent / runCost;
-    if (tried >= minimumStarts && spent + runCost > Math.min(MAX_BUDGET, SEARCH_FRACTION * bestCost)) break;
+    const overBudget = spent + runCost > Math.min(MAX_BUDGET, SEARCH_FRACTION * bestCost);
+    // A small diagram contracts in microseconds: two starts suffice, where more would cost more than the contraction.
+    if (overBudget && (tried >= minimumStarts || (tried >= MIN_STARTS_SMALL && n <= SMALL_DIAGRAM))) break;
   }
   return best!;
 }
