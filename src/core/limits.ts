@@ -86,6 +86,22 @@ export function stateMemoryError(crossings: number, width: number, bytes: number
   );
 }
 
+/** `compute` run once; a failure (a limit hit) is remembered and thrown again, so a spent budget is not spent twice. */
+export function once<T>(compute: () => T): () => T {
+  let outcome: { ok: true; value: T } | { ok: false; error: unknown } | undefined;
+  return () => {
+    if (!outcome) {
+      try {
+        outcome = { ok: true, value: compute() };
+      } catch (error) {
+        outcome = { ok: false, error };
+      }
+    }
+    if (!outcome.ok) throw outcome.error;
+    return outcome.value;
+  };
+}
+
 // The time budget: one deadline at a time (JavaScript runs one computation at a time per thread),
 // checked by the long loops of the engines between steps.
 let deadline = Infinity;

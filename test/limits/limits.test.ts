@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { kauffmanBracket } from '../../src/core/invariants/bracket.ts';
-import { classicalInvariants } from '../../src/core/invariants/classical/index.ts';
+import { classicalInvariantsWithin } from '../../src/core/invariants/classical/index.ts';
 import { isLimitError, withTimeBudget } from '../../src/core/limits.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import { printGaussCode, printPdCode } from '../../src/core/notation/print.ts';
@@ -72,10 +72,13 @@ describe('the time budget', () => {
     expect(thrown(() => report.jones)).toBe(error);
   });
 
-  it('stops the classical invariants', () => {
-    const error = thrown(() => withTimeBudget(0, 'its classical invariants', () => classicalInvariants(d)));
+  it('stops each classical invariant on its own, and a second read gives the same error at once', () => {
+    const classical = classicalInvariantsWithin(d, 0);
+    const error = thrown(() => classical.alexander);
     expect(isLimitError(error)).toBe(true);
-    expect(error.message).toContain('its classical invariants');
+    expect(error.message).toContain('its Alexander polynomial');
+    expect(thrown(() => classical.alexander)).toBe(error);
+    expect(thrown(() => classical.determinant).message).toContain('its determinant');
   });
 
   it('does not touch a computation that finishes in time', () => {

@@ -13,11 +13,11 @@ import { crossingNumberBounds } from '../diagram/crossing-bounds.ts';
 import { splitPieces } from '../diagram/operations.ts';
 import { kauffmanBracket } from '../invariants/bracket.ts';
 import { jonesFromBracket } from '../invariants/jones.ts';
-import { classicalInvariants } from '../invariants/classical/index.ts';
+import { classicalInvariantsWithin } from '../invariants/classical/index.ts';
 import { defineLazy } from '../invariants/registry/lazy.ts';
 import type { CrossingNumberBounds, DiagramReport } from './report.ts';
 import { describeFamily, familyOf } from '../families/identity.ts';
-import { withTimeBudget, type ComputeLimits } from '../limits.ts';
+import { once, withTimeBudget, type ComputeLimits } from '../limits.ts';
 import { describeMoves, simplifyDiagram } from '../simplify/simplify.ts';
 
 const reports = new WeakMap<LinkDiagram, DiagramReport>();
@@ -33,30 +33,13 @@ export function analyzeDiagram(d: LinkDiagram, limits: ComputeLimits = {}): Diag
   return report;
 }
 
-/** `compute` once; a failure is remembered and thrown again, so a spent time budget is not spent twice. */
-function once<T>(compute: () => T): () => T {
-  let outcome: { ok: true; value: T } | { ok: false; error: unknown } | undefined;
-  return () => {
-    if (!outcome) {
-      try {
-        outcome = { ok: true, value: compute() };
-      } catch (error) {
-        outcome = { ok: false, error };
-      }
-    }
-    if (!outcome.ok) throw outcome.error;
-    return outcome.value;
-  };
-}
-
 function lazyReport(d: LinkDiagram, limits: ComputeLimits): DiagramReport {
   let properties: DiagramProperties | undefined;
   const props = (): DiagramProperties => (properties ??= diagramProperties(d));
   const bracketLimits = limits.maxStateBytes !== undefined ? { maxStateBytes: limits.maxStateBytes } : {};
   const bracketResult = once(() => withTimeBudget(limits.timeBudgetMs, 'its Kauffman bracket', () => kauffmanBracket(d, undefined, bracketLimits)));
-  const classical = once(() =>
-    withTimeBudget(limits.timeBudgetMs, 'its classical invariants (Alexander and Conway polynomials, determinant, signature)', () => classicalInvariants(d)),
-  );
+  // Each classical invariant is computed on its own, on first read, with its own time budget.
+  const classical = once(() => classicalInvariantsWithin(d, limits.timeBudgetMs));
   const family = familyOf(d);
   const boundInput = () => ({
     properties: props(),

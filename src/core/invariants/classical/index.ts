@@ -15,6 +15,7 @@ import { diagramPieces } from './pieces.ts';
 import { seifertSurface } from './seifert.ts';
 import { signatureFromSeifertMatrix } from './signature.ts';
 import { traczykSignature } from './traczyk.ts';
+import { once, withTimeBudget } from '../../limits.ts';
 
 export type GenusBoundReason = 'alexander-span' | 'signature' | 'seifert-algorithm';
 
@@ -55,36 +56,82 @@ export interface ClassicalInvariants {
   readonly genusBounds: readonly GenusBound[];
 }
 
-interface PieceInvariants {
-  readonly alexander: Laurent;
-  readonly conway: Laurent;
-  readonly signature: number;
-  readonly determinant: bigint;
-  readonly circles: number;
-  readonly goeritzUncorrected: readonly number[];
-}
+/**
+ * One connected piece (or free loop), each invariant computed on first use: det and σ from the two
+ * Goeritz matrices and V + Vᵀ cost a few eliminations, Δ a polynomial determinant 100–700 times dearer,
+ * so a determinant or signature claim never pays for Δ. Every cross-check runs once both of its sides
+ * are computed.
+ */
+class Piece {
+  private surfaceValue: ReturnType<typeof seifertSurface> | undefined;
+  private goeritzValue: ReturnType<typeof goeritzInvariants>[] | undefined;
+  private alexanderValue: { readonly alexander: Laurent; readonly conway: Laurent } | undefined;
+  private signatureValue: number | undefined;
 
-function pieceInvariants(piece: LinkDiagram): PieceInvariants {
-  if (piece.crossings.length === 0) return { alexander: Laurent.one, conway: Laurent.one, signature: 0, determinant: 1n, circles: piece.freeLoops, goeritzUncorrected: [] };
-  const surface = seifertSurface(piece);
-  const { alexander, conway } = alexanderFromSeifertMatrix(surface.matrix);
-  const signature = signatureFromSeifertMatrix(surface.matrix);
-  const surfaces = [goeritzInvariants(piece, 0), goeritzInvariants(piece, 1)];
-  for (const g of surfaces) {
-    if (g.signature !== signature) throw new Error(`internal: signature ${signature} from V + Vᵀ but ${g.signature} from a Goeritz matrix`);
+  constructor(private readonly piece: LinkDiagram) {}
+
+  private get crossingless(): boolean {
+    return this.piece.crossings.length === 0;
   }
-  const goeritz = surfaces[0]!;
-  // Δ(t⁻¹) = (−1)^(μ−1)·Δ(t), and Δ(1) = 1 for a knot, 0 for a link.
-  const mu = componentCount(piece);
-  const mirrored = alexander.substitutePower(-1);
-  if (!(mu % 2 === 1 ? mirrored : mirrored.neg()).equals(alexander) || alexander.valueAtOne() !== (mu === 1 ? 1n : 0n)) {
-    throw new Error(`internal: Δ = ${alexander.toPlainString('t')} is not a Conway-normalised Alexander polynomial of a ${mu}-component link`);
+
+  private get surface(): ReturnType<typeof seifertSurface> {
+    return (this.surfaceValue ??= seifertSurface(this.piece));
   }
-  const atMinusOne = absoluteValueAtMinusOne(alexander);
-  if (atMinusOne !== goeritz.determinant) {
-    throw new Error(`internal: |Δ(−1)| = ${atMinusOne} but |det G| = ${goeritz.determinant}`);
+
+  /** Both checkerboard surfaces; their |det G| must agree (each is det L). */
+  private get goeritz(): ReturnType<typeof goeritzInvariants>[] {
+    if (this.goeritzValue) return this.goeritzValue;
+    const surfaces = [goeritzInvariants(this.piece, 0), goeritzInvariants(this.piece, 1)];
+    if (surfaces[0]!.determinant !== surfaces[1]!.determinant) {
+      throw new Error(`internal: |det G| = ${surfaces[0]!.determinant} and ${surfaces[1]!.determinant} for the two checkerboard surfaces`);
+    }
+    return (this.goeritzValue = surfaces);
   }
-  return { alexander, conway, signature, determinant: goeritz.determinant, circles: surface.circles.length, goeritzUncorrected: surfaces.map((g) => g.uncorrected) };
+
+  get circles(): number {
+    return this.crossingless ? this.piece.freeLoops : this.surface.circles.length;
+  }
+
+  get determinant(): bigint {
+    return this.crossingless ? 1n : this.goeritz[0]!.determinant;
+  }
+
+  get goeritzUncorrected(): readonly number[] {
+    return this.crossingless ? [] : this.goeritz.map((g) => g.uncorrected);
+  }
+
+  get signature(): number {
+    if (this.crossingless) return 0;
+    if (this.signatureValue !== undefined) return this.signatureValue;
+    const signature = signatureFromSeifertMatrix(this.surface.matrix);
+    for (const g of this.goeritz) {
+      if (g.signature !== signature) throw new Error(`internal: signature ${signature} from V + Vᵀ but ${g.signature} from a Goeritz matrix`);
+    }
+    return (this.signatureValue = signature);
+  }
+
+  get alexander(): Laurent {
+    return this.alexanderAndConway.alexander;
+  }
+
+  get conway(): Laurent {
+    return this.alexanderAndConway.conway;
+  }
+
+  private get alexanderAndConway(): { readonly alexander: Laurent; readonly conway: Laurent } {
+    if (this.crossingless) return { alexander: Laurent.one, conway: Laurent.one };
+    if (this.alexanderValue) return this.alexanderValue;
+    const { alexander, conway } = alexanderFromSeifertMatrix(this.surface.matrix);
+    // Δ(t⁻¹) = (−1)^(μ−1)·Δ(t), and Δ(1) = 1 for a knot, 0 for a link.
+    const mu = componentCount(this.piece);
+    const mirrored = alexander.substitutePower(-1);
+    if (!(mu % 2 === 1 ? mirrored : mirrored.neg()).equals(alexander) || alexander.valueAtOne() !== (mu === 1 ? 1n : 0n)) {
+      throw new Error(`internal: Δ = ${alexander.toPlainString('t')} is not a Conway-normalised Alexander polynomial of a ${mu}-component link`);
+    }
+    const atMinusOne = absoluteValueAtMinusOne(alexander);
+    if (atMinusOne !== this.determinant) throw new Error(`internal: |Δ(−1)| = ${atMinusOne} but |det G| = ${this.determinant}`);
+    return (this.alexanderValue = { alexander, conway });
+  }
 }
 
 /** |Δ(−1)| with t^(1/2) = i: all exponents 2e share a parity, so the value is real or purely imaginary. */
@@ -97,29 +144,42 @@ export function absoluteValueAtMinusOne(alexander: Laurent): bigint {
   return value < 0n ? -value : value;
 }
 
+/**
+ * The classical invariants of `d`, each field computed on first read (see Piece). With a time budget,
+ * each field's computation gets its own (src/core/limits.ts), and a field over it throws the same
+ * limit error on every read.
+ */
 export function classicalInvariants(d: LinkDiagram): ClassicalInvariants {
-  const pieces = diagramPieces(d).map(pieceInvariants);
+  return classicalInvariantsWithin(d, undefined);
+}
+
+export function classicalInvariantsWithin(d: LinkDiagram, timeBudgetMs: number | undefined): ClassicalInvariants {
+  const pieces = diagramPieces(d).map((piece) => new Piece(piece));
   const split = pieces.length > 1;
-  const alexander = split ? Laurent.zero : pieces[0]!.alexander;
-  const signature = pieces.reduce((s, p) => s + p.signature, 0);
+  const first = pieces[0]!;
   const mu = componentCount(d);
-  const circles = pieces.reduce((s, p) => s + p.circles, 0);
-  const traczyk = traczykSignature(d);
-  if (traczyk !== null && traczyk !== signature) {
-    throw new Error(`internal: signature ${signature} from V + Vᵀ but ${traczyk} by Traczyk's formula`);
-  }
-  return {
-    alexander,
-    conway: split ? Laurent.zero : pieces[0]!.conway,
-    determinant: split ? 0n : pieces[0]!.determinant,
-    signature,
-    traczykSignature: traczyk,
-    goeritzUncorrected: split ? [] : pieces[0]!.goeritzUncorrected,
-    split,
-    pieces: pieces.map((p) => ({ alexander: p.alexander, conway: p.conway, determinant: p.determinant })),
-    seifertCircles: circles,
-    genusBounds: split ? [] : genusBounds(alexander, signature, mu, d.crossings.length, circles),
+  const result = { split } as Record<string, unknown>;
+  const lazy = (name: keyof ClassicalInvariants, task: string, compute: () => unknown): void => {
+    const value = once(() => withTimeBudget(timeBudgetMs, task, compute));
+    Object.defineProperty(result, name, { enumerable: true, get: value });
   };
+  lazy('alexander', 'its Alexander polynomial', () => (split ? Laurent.zero : first.alexander));
+  lazy('conway', 'its Conway polynomial', () => (split ? Laurent.zero : first.conway));
+  lazy('determinant', 'its determinant', () => (split ? 0n : first.determinant));
+  lazy('signature', 'its signature', () => {
+    const signature = pieces.reduce((s, p) => s + p.signature, 0);
+    const traczyk = traczykSignature(d);
+    if (traczyk !== null && traczyk !== signature) throw new Error(`internal: signature ${signature} from V + Vᵀ but ${traczyk} by Traczyk's formula`);
+    return signature;
+  });
+  lazy('traczykSignature', 'its signature by Traczyk\'s formula', () => traczykSignature(d));
+  lazy('goeritzUncorrected', 'its Goeritz matrices', () => (split ? [] : first.goeritzUncorrected));
+  lazy('pieces', 'the Alexander polynomials of its pieces', () => pieces.map((p) => ({ alexander: p.alexander, conway: p.conway, determinant: p.determinant })));
+  lazy('seifertCircles', 'its Seifert circles', () => pieces.reduce((s, p) => s + p.circles, 0));
+  lazy('genusBounds', 'its genus bounds (Alexander polynomial and signature)', () =>
+    split ? [] : genusBounds(result['alexander'] as Laurent, result['signature'] as number, mu, d.crossings.length, result['seifertCircles'] as number),
+  );
+  return result as unknown as ClassicalInvariants;
 }
 
 function genusBounds(alexander: Laurent, signature: number, mu: number, crossings: number, circles: number): GenusBound[] {
