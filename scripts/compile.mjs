@@ -17,7 +17,7 @@ const outdir = join(root, `dist.building-${process.pid}`);
 rmSync(outdir, { recursive: true, force: true });
 const result = await build({
   absWorkingDir: root,
-  entryPoints: { main: 'src/cli/main.ts' },
+  entryPoints: { main: 'src/cli/main.ts', 'batch-worker': 'src/cli/batch-worker.ts' },
   outdir,
   bundle: true,
   splitting: true,

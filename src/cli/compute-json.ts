@@ -7,8 +7,7 @@
 import type { DiagramReport } from '../core/analyze/report.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../core/convention/convention.ts';
 import type { Notation } from '../core/diagram/model.ts';
-import type { InputError } from '../core/errors.ts';
-import { isLimitError } from '../core/limits.ts';
+import { isInputError, type InputError } from '../core/errors.ts';
 import type { TextSpan } from '../core/diagnostics/diagnostic.ts';
 import { INVARIANTS, type OpenChoice } from '../core/invariants/registry/index.ts';
 import { printDtCode, printGaussCode, printPdCode } from '../core/notation/print.ts';
@@ -49,27 +48,34 @@ export interface InvalidCodeJson {
 }
 
 /**
- * A field whose computation ran into a limit (src/core/limits.ts) is left out and listed under
+ * A field whose computation ran into a limit (src/core/limits.ts) or was refused (a diagram too wide) is left out and listed under
  * `notComputed` (field → error), so the fields that were computed still reach the reader.
  */
-export function computeJson(code: string, r: DiagramReport, convention: Convention = DEFAULT_CONVENTION): ComputeJson {
+/** Every field a registered invariant adds to the JSON object, in registry order: what `--keys` may name. */
+export const JSON_FIELDS: readonly string[] = [...INVARIANTS.flatMap((invariant) => invariant.json.map((field) => field.field)), 'simplified'];
+
+/** `keys`: only these fields are computed and written (the code, notation, chirality and family always are). */
+export function computeJson(code: string, r: DiagramReport, convention: Convention = DEFAULT_CONVENTION, keys?: ReadonlySet<string>): ComputeJson {
   const json: Record<string, unknown> = { code, notation: r.notation, chiralityFixed: r.chiralityFixed, family: r.family?.description ?? null };
   const notComputed: Record<string, InvalidCodeJson['error']> = {};
   for (const invariant of INVARIANTS) {
     for (const field of invariant.json) {
+      if (keys && !keys.has(field.field)) continue;
       try {
         json[field.field] = field.value(r, convention);
       } catch (error) {
-        if (!isLimitError(error)) throw error;
+        if (!isInputError(error)) throw error;
         notComputed[field.field] = errorJson(error);
       }
     }
   }
-  try {
-    json.simplified = r.simplified ? { crossings: r.simplified.diagram.crossings.length, moves: { ...r.simplified.moves }, codes: simplifiedCodes(r.simplified.diagram) } : null;
-  } catch (error) {
-    if (!isLimitError(error)) throw error;
-    notComputed.simplified = errorJson(error);
+  if (!keys || keys.has('simplified')) {
+    try {
+      json.simplified = r.simplified ? { crossings: r.simplified.diagram.crossings.length, moves: { ...r.simplified.moves }, codes: simplifiedCodes(r.simplified.diagram) } : null;
+    } catch (error) {
+      if (!isInputError(error)) throw error;
+      notComputed.simplified = errorJson(error);
+    }
   }
   json['openChoices'] = openChoicesJson(r);
   if (Object.keys(notComputed).length > 0) json['notComputed'] = notComputed;

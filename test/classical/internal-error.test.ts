@@ -14,6 +14,10 @@ vi.mock('../../src/core/invariants/classical/index.ts', async (importOriginal) =
     classicalInvariants: () => {
       throw new Error('internal: signature -2 from V + Vᵀ but 0 from a Goeritz matrix');
     },
+    // The report's route (with the time budget).
+    classicalInvariantsWithin: () => {
+      throw new Error('internal: signature -2 from V + Vᵀ but 0 from a Goeritz matrix');
+    },
   };
 });
 

@@ -15,7 +15,7 @@ import { isInputError, type InputError } from '../../core/errors.ts';
 import { isLimitError, type ComputeLimits, type LimitError } from '../../core/limits.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notation/index.ts';
-import { computeJson, invalidCodeJson, notComputedErrors, simplifiedCodes } from '../compute-json.ts';
+import { computeJson, invalidCodeJson, JSON_FIELDS, notComputedErrors, simplifiedCodes } from '../compute-json.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../../core/convention/convert.ts';
@@ -47,13 +47,14 @@ export type CodeOutcome =
   | { readonly ok: false; readonly code: string; readonly notation: Notation; readonly error: InputError };
 
 /** Parses and analyses one code; bad input comes back as an outcome, anything else thrown is a bug. */
-export function computeCode(code: string, notation: Notation, options: ParseOptions = {}, limits: ComputeLimits = {}): CodeOutcome {
+export function computeCode(code: string, notation: Notation, options: ParseOptions = {}, limits: ComputeLimits = {}, bracketFirst = true): CodeOutcome {
   try {
     const maxCrossings = limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {};
     const diagram = parseDiagramCode(code, notation, { ...options, ...maxCrossings });
     const report = analyzeDiagram(diagram, limits);
-    // Every summary shows the bracket, and a diagram too wide or too large for it is an input error of the code.
-    void report.bracket;
+    // Every summary shows the bracket, and a diagram too wide or too large for it is an input error of the code
+    // (JSON computes only its fields, and reports a field it could not compute in `notComputed`).
+    if (bracketFirst) void report.bracket;
     return { ok: true, code, notation, report };
   } catch (error) {
     if (isInputError(error)) return { ok: false, code, notation, error };
@@ -191,6 +192,8 @@ interface ComputeArgs {
   readonly convention: Convention;
   readonly strict: boolean;
   readonly limits: ComputeLimits;
+  /** `--keys`: the JSON fields to compute and print (all when absent). */
+  readonly keys?: ReadonlySet<string>;
 }
 
 interface ClaimsOutcome {
@@ -283,6 +286,8 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   }
   const limits = readLimits(args);
   if (typeof limits === 'string') return limits;
+  const keys = readKeys(args);
+  if (typeof keys === 'string') return keys;
   let convention = DEFAULT_CONVENTION;
   const conventionText = conventionOptionText(args['convention']);
   if (conventionText !== undefined) {
@@ -299,7 +304,18 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
     convention,
     strict: args['strict'] === true,
     limits,
+    ...(keys ? { keys } : {}),
   };
+}
+
+/** `--keys jones,span`: a set of JSON fields, or a usage message. */
+function readKeys(args: Record<string, unknown>): ReadonlySet<string> | undefined | string {
+  if (args['keys'] === undefined) return undefined;
+  if (args['json'] !== true) return '--keys selects fields of the JSON object: add --json.';
+  const keys = ([] as unknown[]).concat(args['keys']).flatMap((value) => String(value).split(/[\s,]+/)).filter(Boolean);
+  const unknown = keys.filter((key) => !JSON_FIELDS.includes(key));
+  if (unknown.length > 0) return `--keys: unknown field${unknown.length === 1 ? '' : 's'} ${unknown.join(', ')}; the fields are ${JSON_FIELDS.join(', ')}.`;
+  return new Set(keys);
 }
 
 export const computeCommand: CliCommand = {
@@ -315,6 +331,7 @@ export const computeCommand: CliCommand = {
       .option('notation', { alias: 'n', choices: NOTATIONS, default: DEFAULT_NOTATION, coerce: (value: unknown) => (Array.isArray(value) ? value.map((v) => String(v).toLowerCase()) : String(value).toLowerCase()), describe: 'How the codes are written' })
       .option('strands', { type: 'number', describe: 'Braid words: the number of strands, when more than the largest generator + 1' })
       .option('json', { type: 'boolean', default: false, describe: 'One JSON object per code per line (JSON Lines)' })
+      .option('keys', { type: 'string', describe: 'With --json: compute and print only these fields, e.g. jones,span (repeatable)' })
       // Not `array: true`, which would swallow the codes that follow; repeating the flag collects the claims.
       .option('claim', { type: 'string', describe: 'Check a stated value, KEY=VALUE (repeatable), e.g. jones=t+t^3-t^4 or crossing-number=<=7' })
       .option('convention', { type: 'string', describe: 'How claims are read and values written, e.g. "jones=q,bracket=loop" (keys: jones, bracket, order, half-powers, signature, homfly, kauffman)' })
@@ -327,7 +344,7 @@ export const computeCommand: CliCommand = {
     }
     const parseOptions: ParseOptions = args.strands === undefined ? {} : { strands: args.strands };
     let anyInvalid = false;
-    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions, args.limits));
+    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions, args.limits, !args.json));
     // Every analysed code, so a claim equal to another code's value is diagnosed as swapped.
     const reports = new Map(outcomes.flatMap((o, i) => (o.ok ? [[`<code ${i + 1}>`, o.report] as const] : [])));
     const claimDiagnostics: Diagnostic[] = [];
@@ -340,7 +357,7 @@ export const computeCommand: CliCommand = {
         claimDiagnostics.push(...(claims?.diagnostics ?? []));
         // Only the output asked for is built: the JSON object reads Δ even where the summary leaves it out.
         if (args.json) {
-          const json = computeJson(code, outcome.report, args.convention);
+          const json = computeJson(code, outcome.report, args.convention, args.keys);
           for (const message of new Set(notComputedErrors(json).map((e) => e.message))) {
             anyInvalid = true;
             process.stderr.write(`skeinproof: error[limit-exceeded] in code #${position} (${outcome.notation}): ${message}\n`);

@@ -4,6 +4,7 @@ import { computeCommand } from './compute.ts';
 import { checkCommand } from './check.ts';
 import { buildCommand } from './build.ts';
 import { watchCommand } from './watch.ts';
+import { batchCommand } from './batch.ts';
 
 export interface CliCommand {
   readonly command: string;
@@ -13,4 +14,4 @@ export interface CliCommand {
   readonly run: (args: Record<string, unknown>) => Promise<number>;
 }
 
-export const commands: readonly CliCommand[] = [computeCommand, checkCommand, buildCommand, watchCommand];
+export const commands: readonly CliCommand[] = [computeCommand, checkCommand, buildCommand, watchCommand, batchCommand];
