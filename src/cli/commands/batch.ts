@@ -16,6 +16,7 @@ import { limitOptions, readLimits } from '../limit-options.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 import { availableParallelism } from 'node:os';
 import type { CliCommand } from './index.ts';
+import { STANDARD_INPUT_ARGUMENT } from './check.ts';
 
 const EXIT_OK = 0;
 const EXIT_BAD_INPUT = 2;
@@ -101,7 +102,9 @@ export const batchCommand: CliCommand = {
       .option('jobs', { type: 'number', describe: 'Worker threads (default: the machine\'s cores)' })
       .option('convention', { type: 'string', describe: 'How values are written, e.g. "signature=positive"' }) as Argv,
   run: async (args) => {
-    const input = String(args['input'] ?? '-');
+    // main.ts passes a bare `-` on as STANDARD_INPUT_ARGUMENT.
+    const given = String(args['input'] ?? '-');
+    const input = given === STANDARD_INPUT_ARGUMENT ? '-' : given;
     const limits = readLimits(args);
     if (typeof limits === 'string') return usage(limits);
     const repeated = repeatedOptionMessage('jobs', args['jobs']) ?? repeatedOptionMessage('resume', args['resume']);
