@@ -180,3 +180,4 @@ async function main(): Promise<void> {
 await main();
 await import('./classical.ts').then((classical) => classical.runClassicalBench());
 await import('./khovanov.ts').then((khovanov) => khovanov.runKhovanovBench());
+await import('./speed.ts').then((speed) => speed.runSpeedBench());
