@@ -14,7 +14,12 @@ import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/cor
 import { alignValue, mapSpan, SourceText, type OffsetMap } from './source-text.ts';
 import {
   CLAIM_KEYS,
+  COLUMNS_ATTRIBUTE,
   DIAGRAM_FENCE_LANGUAGE,
+  DIAGRAM_HEADERS,
+  FREE_TEXT_COLUMN,
+  FREE_TEXT_HEADERS,
+  columnMeaning,
   FILL_KEYS,
   ID_RULE,
   NOTATION_NAMES,
@@ -432,13 +437,13 @@ class Extractor {
       return;
     }
     let notation = this.settings.notation;
-    const extra = Object.keys(node.attributes ?? {}).filter((k) => k !== 'notation');
+    const extra = Object.keys(node.attributes ?? {}).filter((k) => k !== 'notation' && k !== COLUMNS_ATTRIBUTE);
     if (extra.length > 0) {
       const fenceEnd = lineEnd(this.text, start);
       const braces = this.text.indexOf('{', start);
       this.error(
         'markup-invalid',
-        `\`:::${TABLE_DIRECTIVE}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a table takes only notation=pd|braid|gauss|dt; remove the rest`,
+        `\`:::${TABLE_DIRECTIVE}\`: unknown attribute${extra.length > 1 ? 's' : ''} ${extra.map((k) => `\`${k}\``).join(', ')}: a table takes only notation=pd|braid|gauss|dt and ${COLUMNS_ATTRIBUTE}="…"; remove the rest`,
         ...(braces >= 0 && braces < fenceEnd ? this.attributeAt(extra[0]!, braces, fenceEnd) : ([start, fenceEnd] as const)),
       );
     }
@@ -447,7 +452,13 @@ class Extractor {
       if (isNotation(declared)) notation = declared;
       else this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\`: unknown notation \`${declared}\`: write one of ${NOTATION_NAMES.join(', ')}`, start, lineEnd(this.text, start));
     }
-    for (const table of tables) this.table(table, notation);
+    const mapping = node.attributes?.[COLUMNS_ATTRIBUTE];
+    const mappingAt = (): readonly [number, number] => {
+      const fenceEnd = lineEnd(this.text, start);
+      const braces = this.text.indexOf('{', start);
+      return braces >= 0 && braces < fenceEnd ? this.attributeAt(COLUMNS_ATTRIBUTE, braces, fenceEnd) : [start, fenceEnd];
+    };
+    for (const table of tables) this.table(table, notation, mapping ?? undefined, mappingAt);
     // Each fence line is emptied, not deleted: the blank line keeps the table apart from
     // the text around it (a line right after it would otherwise become a table row), and
     // the built file keeps the manuscript's line numbers.
@@ -457,25 +468,50 @@ class Extractor {
     this.actions.set(node, { kind: 'unwrap' });
   }
 
-  private table(table: Table, notation: Notation | undefined): void {
-    const [header, ...rows] = table.children;
-    if (!header) return;
-    const columns = header.children.map((cell) => {
+  /**
+   * The meaning of each column: from `columns="…"` on the fence when given (one entry per column, in order),
+   * else from the header. Unknown headers and entries are errors; their columns are left alone. Undefined when
+   * `columns` has the wrong number of entries.
+   */
+  private columnMeanings(header: Table['children'][number], mapping: string | undefined, mappingAt: () => readonly [number, number]) {
+    const headers = header.children.map((cell) => {
       const [s, e] = offsets(cell);
       const content = cellContent(this.text, s, e);
-      return { name: columnName(this.text.slice(content.start, content.end)), start: content.start, end: content.end };
+      return { written: this.text.slice(content.start, content.end), start: content.start, end: content.end };
     });
-    const diagramColumn = columns.findIndex((c) => c.name === ROW_DIAGRAM_COLUMN);
-    const notationColumn = columns.findIndex((c) => c.name === ROW_NOTATION_COLUMN);
-    const [tableStart] = offsets(table);
-    const known = [ROW_DIAGRAM_COLUMN, ROW_NOTATION_COLUMN, REMARKS_COLUMN, ...CLAIM_KEYS];
-    columns.forEach((c) => {
-      if (!known.includes(c.name)) {
-        this.error('markup-invalid', `unknown table column \`${c.name}\`: the columns are ${known.join(', ')}`, c.start, c.end, [
-          `Rename the header, or call it \`${REMARKS_COLUMN}\` to keep free text there.`,
-        ]);
+    const known = `${DIAGRAM_HEADERS.join(', ')} (the row's diagram), ${ROW_NOTATION_COLUMN}, ${FREE_TEXT_HEADERS.join(', ')} (free text), or a claim key or one of its aliases (the README lists them)`;
+    const entries = mapping?.split(',').map((x) => x.trim());
+    if (entries && entries.length !== headers.length) {
+      this.error(
+        'markup-invalid',
+        `\`:::${TABLE_DIRECTIVE}\`: ${COLUMNS_ATTRIBUTE}="${mapping}" names ${entries.length} column${entries.length === 1 ? '' : 's'}, but the table has ${headers.length}: give one entry per column, in order (\`${FREE_TEXT_COLUMN}\` for free text)`,
+        ...mappingAt(),
+      );
+      return undefined; // which column is which is unclear, so the table is not read
+    }
+    return headers.map((h, k) => {
+      const entry = entries?.[k];
+      const meaning = columnMeaning(entry ?? h.written);
+      if (!meaning) {
+        if (entry !== undefined) this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\`: column ${k + 1} of ${COLUMNS_ATTRIBUTE}="…" is \`${entry}\`, which means nothing here: write ${known}`, ...mappingAt());
+        else {
+          this.error('markup-invalid', `unknown table column \`${h.written}\`: a header is ${known}`, h.start, h.end, [
+            `Rename the header, call it \`${REMARKS_COLUMN}\` to keep free text there, or say what every column holds with {${COLUMNS_ATTRIBUTE}="${ROW_DIAGRAM_COLUMN}, ${FREE_TEXT_COLUMN}, jones, …"} on \`:::${TABLE_DIRECTIVE}\`.`,
+          ]);
+        }
       }
+      return { meaning: meaning ?? ({ kind: 'free' } as const), name: meaning?.kind === 'key' ? meaning.key : columnName(h.written), start: h.start, end: h.end };
     });
+  }
+
+  private table(table: Table, notation: Notation | undefined, mapping: string | undefined, mappingAt: () => readonly [number, number]): void {
+    const [header, ...rows] = table.children;
+    if (!header) return;
+    const columns = this.columnMeanings(header, mapping, mappingAt);
+    if (!columns) return;
+    const diagramColumn = columns.findIndex((c) => c.meaning.kind === 'diagram');
+    const notationColumn = columns.findIndex((c) => c.meaning.kind === 'notation');
+    const [tableStart] = offsets(table);
     if (diagramColumn < 0) {
       this.error('markup-invalid', `this table has no \`${ROW_DIAGRAM_COLUMN}\` column: add one naming each row's diagram (an id, or a code in backticks)`, tableStart, lineEnd(this.text, tableStart));
       return;
@@ -508,7 +544,7 @@ class Extractor {
       if (rowDiagram === undefined) return;
       const { target, named } = rowDiagram;
       columns.forEach((column, k) => {
-        if (k === diagramColumn || k === notationColumn || column.name === REMARKS_COLUMN || !isClaimKey(column.name)) return;
+        if (column.meaning.kind !== 'key') return;
         const context = named ? `table row ${rowNumber} (${target}), column ${column.name}` : `table row ${rowNumber}, column ${column.name}`;
         const cell = cells[k];
         if (!cell) {

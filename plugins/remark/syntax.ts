@@ -25,12 +25,42 @@ export const TARGET_ATTRIBUTE = 'of';
 export { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
 
 export { NOTATIONS as NOTATION_NAMES } from '../../src/core/notation/index.ts';
+import { claimKeyForHeader, headerForm } from '../../src/core/invariants/registry/index.ts';
+import { isClaimKey } from '../../src/core/claims/index.ts';
 import { NOTATIONS } from '../../src/core/notation/index.ts';
 
 /** Table columns that are not invariants: the row's diagram, its notation, and free remarks. */
 export const ROW_DIAGRAM_COLUMN = 'diagram';
 export const ROW_NOTATION_COLUMN = 'notation';
 export const REMARKS_COLUMN = 'remarks';
+/** `:::invariants{columns="diagram, -, jones"}`: what each column means, in order, whatever its header says. */
+export const COLUMNS_ATTRIBUTE = 'columns';
+/** The entry of `columns` (and a header) that marks a free-text column. */
+export const FREE_TEXT_COLUMN = '-';
+
+/** Headers of the column naming each row's diagram (documented in the README section `markdown`, tables). */
+export const DIAGRAM_HEADERS: readonly string[] = [ROW_DIAGRAM_COLUMN, 'knot', 'link'];
+/** Headers of free-text columns: any number of them, left alone (README section `markdown`, tables). */
+export const FREE_TEXT_HEADERS: readonly string[] = [
+  REMARKS_COLUMN, 'remark', 'notes', 'note', 'name', 'names', 'comment', 'comments', 'reference', 'references', 'source', 'description', FREE_TEXT_COLUMN,
+];
+
+/** What a table column holds, from its header or its entry in `columns`. */
+export type ColumnMeaning = { readonly kind: 'diagram' | 'notation' | 'free' } | { readonly kind: 'key'; readonly key: string };
+
+/**
+ * The meaning of a header as written: the diagram column, the notation column, a free-text column, or a
+ * claim key (the key itself, or an alias the invariant registers, such as `det`, `σ`, `c(K)`, `Jones polynomial`).
+ * Compared without case, outer spaces and `$…$`; undefined when the header means nothing known.
+ */
+export function columnMeaning(header: string): ColumnMeaning | undefined {
+  const form = headerForm(header);
+  if (DIAGRAM_HEADERS.includes(form)) return { kind: 'diagram' };
+  if (form === ROW_NOTATION_COLUMN) return { kind: 'notation' };
+  if (FREE_TEXT_HEADERS.includes(form)) return { kind: 'free' };
+  const key = claimKeyForHeader(header) ?? columnName(header);
+  return isClaimKey(key) ? { kind: 'key', key } : undefined;
+}
 
 /** What a diagram id may look like: it must survive `{of=…}` and table cells unquoted. */
 export function isUsableId(id: string): boolean {

@@ -118,3 +118,45 @@ describe('LaTeX: the same, through the shared session', () => {
     expect(flat).toContain(`\\ensuremath{${RANGE}} \\\\`);
   });
 });
+
+describe('Markdown: survey-table headers as papers print them', () => {
+  // Determinants 3 (trefoil) and 2 (Hopf link), σ(right trefoil) = −2 in the default sign: from memory.
+  const survey = [
+    ':::invariants',
+    '| Knot | Name | det | $\\sigma(K)$ | c(K) | Jones polynomial | lk | Notes | Source |',
+    '|---|---|---|---|---|---|---|---|---|',
+    '| t3 | trefoil | 3 | $-2$ | | | — | right-handed | from memory |',
+    '| hopf | Hopf link | 2 | | | | | | |',
+    ':::',
+    '',
+  ].join('\n');
+
+  it('reads aliases of keys, of the diagram column and of free-text columns, any number of them', async () => {
+    const r = await processMarkdown(`${DIAGRAMS}${survey}`);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.file.data.skeinproof!.session.counts).toMatchObject({ claimsAgree: 3, valuesFilled: 6, notApplicable: 1 });
+    expect(r.built).toContain('| t3 | trefoil | 3 | $-2$ | $3$ | $t + t^3 - t^4$ | — | right-handed | from memory |');
+  });
+
+  it('a wrong value under an alias is judged under its key', async () => {
+    const r = await processMarkdown(`${DIAGRAMS}${survey.replace('| t3 | trefoil | 3 |', '| t3 | trefoil | 5 |')}`);
+    expect(placed(r.diagnostics)).toEqual(['error claim-contradicted 15:18']);
+    expect(r.diagnostics[0]!.message).toMatch(/^table row 1 \(t3\), column determinant: /);
+  });
+
+  it('columns="…" on the fence says what each column holds, whatever its header', async () => {
+    const table = ':::invariants{columns="diagram, -, writhe, -"}\n| Diagramm | Nom | $w(D)$ signé | Bemerkung |\n|---|---|---|---|\n| t3 | trèfle | $3$ | x |\n| hopf | | | |\n:::\n';
+    const r = await processMarkdown(`${DIAGRAMS}${table}`);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toContain('| hopf | | $2$ | |');
+  });
+
+  it('a columns list of the wrong length, an unknown entry and an unknown header are errors', async () => {
+    const text = `${DIAGRAMS}:::invariants{columns="diagram, writhe"}\n| a | b | c |\n|---|---|---|\n| t3 | x | 3 |\n:::\n\n:::invariants{columns="diagram, wrythe"}\n| a | b |\n|---|---|\n| t3 | 3 |\n:::\n\n:::invariants\n| diagram | Mystery |\n|---|---|\n| t3 | 3 |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(placed(r.diagnostics)).toEqual(['error markup-invalid 12:15', 'error markup-invalid 18:15', 'error markup-invalid 25:13']);
+    expect(r.diagnostics[0]!.message).toMatch(/names 2 columns, but the table has 3/);
+    expect(r.diagnostics[1]!.message).toMatch(/column 2 of columns="…" is `wrythe`, which means nothing here/);
+    expect(r.diagnostics[2]!.hints![0]).toMatch(/\{columns="diagram, -, jones, …"\}/);
+  });
+});

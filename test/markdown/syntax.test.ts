@@ -313,7 +313,7 @@ describe('tables', () => {
   });
 
   it('needs a diagram column', async () => {
-    const text = `:::invariants\n| knot | jones |\n|---|---|\n| a | |\n:::\n`;
+    const text = `:::invariants\n| label | jones |\n|---|---|\n| a | |\n:::\n`;
     const r = await processMarkdown(text);
     expect(placed(r.diagnostics)).toEqual(['error markup-invalid 2:1', 'error markup-invalid 2:3']);
   });
