@@ -14,7 +14,9 @@ import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import { runSession } from '../../src/core/manuscript/session.ts';
-import { memoryFiles } from '../latex/support.ts';
+import { copyFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { NO_TEX_REASON, PACKAGE_FILE, hasPdflatex, memoryFiles, pdflatex, removeDir, tempDir } from '../latex/support.ts';
 import { placed, processMarkdown } from './helpers.ts';
 
 const DIAGRAMS = [
@@ -116,6 +118,25 @@ describe('LaTeX: the same, through the shared session', () => {
     expect(flat).toContain('Linking number $1$.');
     expect(flat).toMatch(/\nwide & \\ensuremath\{-?\d+\} & \\ensuremath\{(.*)\} \\\\\n/);
     expect(flat).toContain(`\\ensuremath{${RANGE}} \\\\`);
+  });
+
+  it.skipIf(!hasPdflatex)(`pdflatex typesets the knot's cell empty (no ?? placeholder), the link's lk and the range with an en dash${hasPdflatex ? '' : ` (skipped: ${NO_TEX_REASON})`}`, () => {
+    const dir = tempDir('mixed-table');
+    try {
+      copyFileSync(PACKAGE_FILE, join(dir, 'skeinproof.sty'));
+      writeFileSync(join(dir, 'paper.tex'), paper);
+      const doc = readLatexManuscript(join(dir, 'paper.tex'), { read: (path) => (path === join(dir, 'paper.tex') ? paper : undefined) });
+      const session = runSession({ diagrams: doc.diagrams, claims: doc.claims, fills: doc.fills.map((f) => f.entry), convention: DEFAULT_CONVENTION });
+      writeFileSync(join(dir, 'paper.skein.tex'), sidecarText(doc, session.fills));
+      const run = pdflatex(dir, 'paper.tex');
+      expect(run.ok).toBe(true);
+      expect(run.text).not.toContain('??');
+      expect(run.text).toContain('Linking number 1.');
+      expect(run.text).toContain(`${WIDE.lower}\u2013${WIDE.upper}`); // \textrm{--} is an en dash in the PDF
+      expect(run.log).not.toMatch(/Package skeinproof Warning/);
+    } finally {
+      removeDir(dir);
+    }
   });
 });
 
