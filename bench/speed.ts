@@ -47,7 +47,7 @@ export function runSpeedBench(): void {
   console.log(`\n${lines.join('\n')}`);
 
   // Batch throughput: random braid closures of 10–16 crossings on up to 4 strands.
-  const count = Number(process.env['SKEINPROOF_BENCH_BATCH'] ?? 10_000);
+  const count = Number(process.env['SKEINPROOF_BENCH_BATCH'] ?? 1000);
   const random = rng(10_000);
   const work = mkdtempSync(join(tmpdir(), 'skeinproof-bench-'));
   try {
