@@ -74,7 +74,7 @@ export function runSkeinPolynomialBench(): void {
     let totalP = 0;
     let widest = 0;
     let ok = true;
-    while (count < 300) {
+    while (count < 60) {
       const strands = randomInt(random, 3, 9);
       const length = randomInt(random, 8, 16);
       const d = shuffleDiagram(closeBraid(randomBraidWord(random, strands, length), strands), random);
