@@ -7,6 +7,7 @@
 import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 import { InputError } from '../errors.ts';
+import type { Arf, ArfResult } from '../invariants/arf.ts';
 import type { BraidIndexBounds } from '../invariants/braid-index.ts';
 import { Laurent2 } from '../poly/laurent2.ts';
 import type { Judgement } from './api.ts';
@@ -152,16 +153,21 @@ export function braidIndexLatex(bounds: BraidIndexBounds): string {
   return bounds.exact !== null ? `${bounds.exact}` : `${bounds.lower} \\le b \\le ${bounds.upper}`;
 }
 
-export function judgeArfClaim(text: string, arf: 0 | 1 | null, components: number): Judgement {
-  if (arf === null) {
-    throw new InputError(
-      'claim-inapplicable',
-      `an Arf invariant claim needs a knot, but this diagram has ${components} components; skeinproof computes the Arf invariant of knots only (that of a proper link is not implemented), so remove the claim or attach it to a knot`,
-    );
-  }
+/** The Arf invariant, or `claim-inapplicable` with the reason when the link is not proper. */
+export function definedArf(result: ArfResult): Arf {
+  if (result.value === null) throw new InputError('claim-inapplicable', `${result.notDefined}; remove the claim or attach it to a knot or a proper link`);
+  return result.value;
+}
+
+export function judgeArfClaim(text: string, result: ArfResult, components: number): Judgement {
+  const arf = definedArf(result);
   const claimed = readInteger(text, 'an Arf invariant');
   if (claimed !== 0n && claimed !== 1n) throw new InputError(UNREADABLE, `the Arf invariant is 0 or 1, not ${claimed}: write 0 or 1`, { start: 0, end: text.length });
+  const routes =
+    components === 1
+      ? "the z² coefficient of ∇ mod 2 and Levine's Δ(−1) mod 8"
+      : "Murakami's V(i) = (−√2)^(μ−1)(−1)^Arf and the knot that fusing the components by band sums gives (Robertello)";
   return Number(claimed) === arf
-    ? { key: 'arf', claimed: text, verdict: 'agrees', computed: `${arf}`, reason: `the Arf invariant is ${arf}, from the z² coefficient of ∇ and from Δ(−1) mod 8 (Levine), which agree` }
-    : { key: 'arf', claimed: text, verdict: 'contradicts', computed: `${arf}`, reason: `the Arf invariant is ${arf}: the z² coefficient of ∇ mod 2 and Levine's Δ(−1) mod 8 both give it` };
+    ? { key: 'arf', claimed: text, verdict: 'agrees', computed: `${arf}`, reason: `the Arf invariant is ${arf}: ${routes} both give it` }
+    : { key: 'arf', claimed: text, verdict: 'contradicts', computed: `${arf}`, reason: `the Arf invariant is ${arf}, not ${claimed}: ${routes} both give ${arf}` };
 }

@@ -6,7 +6,7 @@
 import type { DiagramReport } from '../../analyze/report.ts';
 import { InputError } from '../../errors.ts';
 import type { Laurent2 } from '../../poly/laurent2.ts';
-import { arfInvariant } from '../arf.ts';
+import { arfOfKnot, arfOfLink, type ArfResult } from '../arf.ts';
 import { braidIndexBounds, type BraidIndexBounds } from '../braid-index.ts';
 import { homflyPolynomial } from '../homfly/homfly.ts';
 import { kauffmanPolynomial } from '../kauffman-polynomial/kauffman.ts';
@@ -36,4 +36,9 @@ export const dubrovnikOf: (report: DiagramReport) => Laurent2 = remembered('dubr
 export const braidIndexOf: (report: DiagramReport) => BraidIndexBounds = remembered('braid-index', (report) =>
   braidIndexBounds(homflyOf(report), report.classical.seifertCircles, report.diagram.notation),
 );
-export const arfOf: (report: DiagramReport) => 0 | 1 | null = remembered('arf', (report) => arfInvariant(report.classical.conway, report.classical.alexander, report.components));
+/** Knots read only the classical invariants; links also the Jones polynomial (Murakami's V(i)). */
+export const arfOf: (report: DiagramReport) => ArfResult = remembered('arf', (report) =>
+  report.components === 1
+    ? { value: arfOfKnot(report.classical.conway, report.classical.alexander) }
+    : arfOfLink({ diagram: report.diagram, linking: report.linking, jones: () => report.jones }),
+);
