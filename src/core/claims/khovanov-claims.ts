@@ -144,6 +144,7 @@ export function readPoincarePolynomial(text: string): Map<string, number> {
       factors++;
     }
     if (factors === 0) {
+      if (p >= s.length) fail('the claim ends after `+`: a term is missing (write it, or delete the `+`)', s.lastIndexOf('+'), s.lastIndexOf('+') + 1);
       const bad = s[p] ?? '';
       if (bad === '-' || bad === '−') fail('a Poincaré polynomial has no negative coefficients (ranks are counted, not signed); the graded Euler characteristic is claimed as the Jones polynomial instead', p, p + 1);
       fail(`unexpected \`${bad}\`: a Poincaré polynomial is a sum of terms like 2t^{3}q^{-7} in t and q`, p, p + 1);

@@ -79,6 +79,16 @@ describe('reading Khovanov claims', () => {
     }
     expect((error as { span?: unknown } | undefined)?.span).toEqual({ start: 4, end: 5 });
   });
+  it('refuses a trailing + at the +, inside the text (a fuzz case once pointed past its end)', () => {
+    let error: unknown;
+    try {
+      readPoincarePolynomial('t + ');
+    } catch (e) {
+      error = e;
+    }
+    expect((error as Error).message).toMatch(/ends after `\+`/);
+    expect((error as { span?: unknown }).span).toEqual({ start: 2, end: 3 });
+  });
   it('reads torsion groups: 0, ℤ/n sums, powers, subscripts; ℤ/6 as ℤ/2 ⊕ ℤ/3', () => {
     expect(readTorsionGroup('0')).toEqual([]);
     expect(readTorsionGroup('\\mathbb{Z}/2 \\oplus \\mathbb{Z}_{4}')).toEqual([2, 4]);
