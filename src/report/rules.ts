@@ -36,6 +36,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'khovanov-over-limit', description: 'Khovanov homology of a diagram is beyond the work budget of the computation; it is reported instead of run.' },
   { id: 'diagram-too-wide', description: 'A diagram is too wide for the bracket engine: every crossing order leaves too many open edge ends.' },
   { id: 'limit-exceeded', description: 'A diagram is over a limit on its crossings, its bracket\'s memory or its time budget, so it (or one of its invariants) is not computed.' },
+  { id: 'figure-option-invalid', description: 'A figure option (size, line width, gap, arrows, colours, labels, outer face) has a value it does not take.' },
   { id: 'batch-line-invalid', description: 'A line of a batch input is not a JSON object with an id, a known notation and a code.' },
   { id: 'batch-worker-failed', description: 'The worker thread computing a batch line stopped (out of memory, a crash); the line is not computed.' },
   { id: 'output-unsupported', description: 'The requested output is not available for this manuscript format.' },
