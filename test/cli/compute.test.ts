@@ -214,3 +214,30 @@ describe('skeinproof compute: options given more than once', () => {
     expect(strands.stderr).toContain('--strands is given 2 times (3, 4)');
   });
 });
+
+describe('skeinproof compute: the two-variable polynomials, braid index and Arf invariant in the plain summary', () => {
+  it('shows them for the positive trefoil (from memory: P = 2v² − v⁴ + v²z², F = −2a⁻² − a⁻⁴ + (a⁻³ + a⁻⁵)z + (a⁻² + a⁻⁴)z², braid index 2, Arf 1)', () => {
+    const { status, stdout } = skeinproof('compute', '-n', 'braid', '1 1 1');
+    expect(status).toBe(0);
+    expect(stdout).toContain('HOMFLY-PT P(v,z) = 2v^2 - v^4 + v^2z^2');
+    expect(stdout).toContain('Kauffman F(a,z) = -a^(-4) - 2a^(-2) + a^(-5)z + a^(-3)z + a^(-4)z^2 + a^(-2)z^2');
+    expect(stdout).toContain('braid index exactly 2');
+    expect(stdout).toMatch(/\n {2}Arf {6}1\n/);
+  });
+  it('writes P in the declared variables: a = v⁻¹ under homfly=az (P = 2a⁻² − a⁻⁴ + a⁻²z², the same trefoil)', () => {
+    const { stdout } = skeinproof('compute', '-n', 'braid', '--convention', 'homfly=az', '1 1 1');
+    expect(stdout).toContain('HOMFLY-PT P(a,z) = -a^(-4) + 2a^(-2) + a^(-2)z^2');
+  });
+  it('says why the Arf invariant of the Hopf link is not defined (lk = ±1, from memory), numbering components from 0 like the rest of the summary', () => {
+    const { status, stdout } = skeinproof('compute', '-n', 'braid', '1 1');
+    expect(status).toBe(0);
+    expect(stdout).toContain('Arf      not defined, the link is not proper: component 0 (counted from 0 in the code\'s order) has total linking number 1');
+  });
+  it('leaves P, F and the braid index out above 40 crossings but still gives Arf (T(2,41): a₂ = 20·21/2 = 210 from memory, so Arf 0)', () => {
+    const { status, stdout } = skeinproof('compute', '-n', 'braid', Array.from({ length: 41 }, () => '1').join(' '));
+    expect(status).toBe(0);
+    expect(stdout).toContain('not shown above 40 crossings');
+    expect(stdout).not.toContain('HOMFLY-PT P(');
+    expect(stdout).toMatch(/\n {2}Arf {6}0\n/);
+  });
+});

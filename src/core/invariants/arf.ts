@@ -64,13 +64,21 @@ export function oddLinkingComponents(linking: readonly LinkingNumber[], componen
   return totals.flatMap((total, component) => (Math.abs(total) % 2 === 1 ? [{ component, total }] : []));
 }
 
-/** Why the Arf invariant of a link with these odd components is not defined, in words (components counted from 1). */
-export function notProperReason(odd: readonly OddComponent[]): string {
+/**
+ * Which components make a link not proper, in words, numbering components from `firstNumber` (manuscripts
+ * count from 1, the `compute` summary from 0).
+ */
+export function oddComponentsText(odd: readonly OddComponent[], firstNumber: 0 | 1): string {
   const [first] = odd;
-  if (!first) throw new Error('internal: a proper link has no reason to be not proper');
-  const rest = odd.slice(1).map((o) => o.component + 1);
+  if (!first) throw new Error('internal: a proper link has no component with odd total linking number');
+  const rest = odd.slice(1).map((o) => o.component + firstNumber);
   const others = rest.length === 0 ? '' : rest.length === 1 ? ` (so does component ${rest[0]})` : ` (so do components ${rest.join(', ')})`;
-  return `the Arf invariant is not defined for this link: it is not proper, since component ${first.component + 1} (counted from 1 in the code's order) has total linking number ${first.total} with the other components, an odd number${others}`;
+  return `component ${first.component + firstNumber} (counted from ${firstNumber} in the code's order) has total linking number ${first.total} with the other components, an odd number${others}`;
+}
+
+/** Why the Arf invariant of a link with these odd components is not defined (components counted from 1). */
+export function notProperReason(odd: readonly OddComponent[]): string {
+  return `the Arf invariant is not defined for this link: it is not proper, since ${oddComponentsText(odd, 1)}`;
 }
 
 /**
