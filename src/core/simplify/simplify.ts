@@ -1,14 +1,17 @@
 /**
- * A budgeted search for Reidemeister moves that lower the crossing count.
- * Every step is a move that keeps the link, so the smallest diagram found is a
- * proof that the crossing number is at most its count. Moves I and II (and the
- * removal of nugatory crossings) are taken greedily; when none applies, slides
- * across triangles (III) are tried, a few at a time, for one that opens a move
- * I or II. Flypes are not searched.
+ * A budgeted search for Reidemeister moves and flypes that lower the crossing
+ * count. Every step is a move that keeps the link, so the smallest diagram
+ * found is a proof that the crossing number is at most its count. Moves I and
+ * II (and the removal of nugatory crossings) are taken greedily; when none
+ * applies, flypes and slides across triangles (III), which keep the count,
+ * are tried a few in a row for one that opens a move I or II: first flypes
+ * that bring a crossing beside another (the likeliest to make a bigon), then
+ * slides, then the other flypes.
  */
 import { nonPlanarPieces } from '../diagram/faces.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import { nugatoryCrossings } from '../diagram/properties.ts';
+import { flype, flypeSites } from './flype.ts';
 import { deleteCrossings, overBigons, slideTriangle, slidableTriangles } from './moves.ts';
 
 export interface MoveCounts {
@@ -18,6 +21,8 @@ export interface MoveCounts {
   readonly bigons: number;
   /** Triangle slides (Reidemeister III) on the way to the smallest diagram. */
   readonly slides: number;
+  /** Flypes on the way to the smallest diagram. */
+  readonly flypes: number;
 }
 
 export interface Simplification {
@@ -29,15 +34,17 @@ export interface Simplification {
 export interface SimplifyBudget {
   readonly maxCrossings: number;
   /**
-   * Work allowed for triangle slides over the whole search, counted as the sum of the crossing counts
-   * of the diagrams slid (each slide costs time linear in the crossings).
+   * Work allowed for slides and flypes over the whole search, counted as the sum of the crossing counts
+   * of the diagrams they are tried on (each one costs time linear in the crossings).
    */
   readonly work: number;
-  /** Slides chained before giving up on a branch. */
+  /** Slides and flypes chained before giving up on a branch. */
   readonly depth: number;
+  /** Whether flypes are tried (benchmarks and tests compare the search without them). */
+  readonly flypes: boolean;
 }
 
-export const DEFAULT_BUDGET: SimplifyBudget = { maxCrossings: 200, work: 2500, depth: 2 };
+export const DEFAULT_BUDGET: SimplifyBudget = { maxCrossings: 200, work: 2500, depth: 2, flypes: true };
 
 interface State {
   readonly diagram: LinkDiagram;
@@ -78,20 +85,42 @@ function checked(result: LinkDiagram, from: LinkDiagram): LinkDiagram {
   return result;
 }
 
+/**
+ * The diagrams one slide or flype away, in the order they are tried. Each is made only when asked
+ * for, so a search that runs out of budget pays for none beyond it; a flype site that bounds no
+ * tangle yields nothing.
+ */
+function* sideSteps(state: State, withFlypes: boolean): Generator<State | undefined> {
+  const { diagram, moves } = state;
+  const sites = withFlypes ? flypeSites(diagram) : [];
+  const flyped = function* (meeting: boolean) {
+    for (const site of sites) {
+      if (site.farEdgesMeet !== meeting) continue;
+      const result = flype(diagram, site);
+      yield result && { diagram: checked(result, diagram), moves: { ...moves, flypes: moves.flypes + 1 } };
+    }
+  };
+  yield* flyped(true);
+  for (const triangle of slidableTriangles(diagram)) {
+    yield { diagram: checked(slideTriangle(diagram, triangle), diagram), moves: { ...moves, slides: moves.slides + 1 } };
+  }
+  yield* flyped(false);
+}
+
 export function simplifyDiagram(d: LinkDiagram, budget: SimplifyBudget = DEFAULT_BUDGET): Simplification {
-  let best = reduceGreedily({ diagram: d, moves: { nugatory: 0, bigons: 0, slides: 0 } });
+  let best = reduceGreedily({ diagram: d, moves: { nugatory: 0, bigons: 0, slides: 0, flypes: 0 } });
   if (best.diagram.crossings.length > budget.maxCrossings) return best;
   let workLeft = budget.work;
-  // Depth-first over slides from the best diagram so far; restart from each improvement.
+  // Depth-first over slides and flypes from the best diagram so far; restart from each improvement.
   const improve = (state: State, depth: number): State | undefined => {
     if (depth === 0) return undefined;
-    for (const triangle of slidableTriangles(state.diagram)) {
+    for (const step of sideSteps(state, budget.flypes)) {
       workLeft -= state.diagram.crossings.length;
       if (workLeft < 0) return undefined;
-      const slid = { diagram: checked(slideTriangle(state.diagram, triangle), state.diagram), moves: { ...state.moves, slides: state.moves.slides + 1 } };
-      const reduced = reduceGreedily(slid);
+      if (!step) continue;
+      const reduced = reduceGreedily(step);
       if (reduced.diagram.crossings.length < state.diagram.crossings.length) return reduced;
-      const deeper = improve(slid, depth - 1);
+      const deeper = improve(step, depth - 1);
       if (deeper) return deeper;
     }
     return undefined;
@@ -103,12 +132,13 @@ export function simplifyDiagram(d: LinkDiagram, budget: SimplifyBudget = DEFAULT
   }
 }
 
-/** "3 moves (1 nugatory crossing removed, 1 Reidemeister II, 1 Reidemeister III)". */
+/** "3 moves (1 nugatory crossing removed, 1 Reidemeister II, 1 flype)". */
 export function describeMoves(moves: MoveCounts): string {
-  const total = moves.nugatory + moves.bigons + moves.slides;
+  const total = moves.nugatory + moves.bigons + moves.slides + moves.flypes;
   const parts: string[] = [];
   if (moves.nugatory > 0) parts.push(`${moves.nugatory} nugatory crossing${moves.nugatory === 1 ? '' : 's'} removed (Reidemeister I for a kink)`);
   if (moves.bigons > 0) parts.push(`${moves.bigons} Reidemeister II`);
   if (moves.slides > 0) parts.push(`${moves.slides} Reidemeister III`);
+  if (moves.flypes > 0) parts.push(`${moves.flypes} flype${moves.flypes === 1 ? '' : 's'}`);
   return `${total} move${total === 1 ? '' : 's'} (${parts.join(', ')})`;
 }
