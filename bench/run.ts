@@ -182,3 +182,4 @@ await import('./classical.ts').then((classical) => classical.runClassicalBench()
 await import('./khovanov.ts').then((khovanov) => khovanov.runKhovanovBench());
 await import('./speed.ts').then((speed) => speed.runSpeedBench());
 await import('./skein-polynomials.ts').then((skein) => skein.runSkeinPolynomialBench());
+await import('./arf.ts').then((arf) => arf.runArfBench());
