@@ -5,7 +5,8 @@
 // the installed tool needs no runtime packages). Dynamic imports become chunks of their own, so a
 // command loads only the stacks it uses.
 import { build } from 'esbuild';
-import { cpSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { cpSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -29,6 +30,8 @@ const result = await build({
   banner: { js: "import { createRequire as skeinCreateRequire } from 'node:module'; const require = skeinCreateRequire(import.meta.url);" },
   logLevel: 'warning',
   metafile: true,
+  // The disk cache keys values by the engine's version (src/cli/engine-version.ts): a digest of the core's sources.
+  define: { SKEINPROOF_ENGINE_DIGEST: JSON.stringify(digestOfSources(join(root, 'src', 'core'))) },
 });
 writeFileSync(join(outdir, 'build-graph.json'), `${JSON.stringify(buildGraph(result.metafile), null, 1)}\n`);
 
@@ -69,4 +72,15 @@ function buildGraph(metafile) {
     };
   }
   return graph;
+}
+
+/** SHA-256 over the relative path and text of every file under `dir`, in sorted order (as src/cli/engine-version.ts computes it). */
+function digestOfSources(dir) {
+  const hash = createHash('sha256');
+  const paths = readdirSync(dir, { recursive: true, withFileTypes: true })
+    .filter((entry) => entry.isFile())
+    .map((entry) => join(entry.parentPath, entry.name))
+    .sort();
+  for (const path of paths) hash.update(`${path.slice(dir.length)}\u0000`).update(readFileSync(path)).update('\u0000');
+  return hash.digest('hex').slice(0, 16);
 }

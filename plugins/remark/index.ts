@@ -26,6 +26,7 @@ import { SourceText } from './source-text.ts';
 import { keepMathApart, type Splice } from './splice.ts';
 import { typesetMarkdown } from './typeset-markdown.ts';
 import type { ComputeLimits } from '../../src/core/limits.ts';
+import type { ResultStore } from '../../src/core/cache/store.ts';
 
 export interface SkeinproofOptions {
   /** Overrides the convention the front matter declares, setting by setting. */
@@ -38,6 +39,8 @@ export interface SkeinproofOptions {
   readonly fill?: boolean;
   /** Limits on each diagram's work (none by default): a diagram over one is reported, the rest still checked. */
   readonly limits?: ComputeLimits;
+  /** Where computed values are kept between runs (none by default). */
+  readonly resultStore?: ResultStore;
 }
 
 export interface SkeinproofData {
@@ -78,6 +81,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       documentStart: source.location(0),
       markupFound: manuscript.problems.length > 0,
       ...(options.limits ? { limits: options.limits } : {}),
+      ...(options.resultStore ? { resultStore: options.resultStore } : {}),
     });
     const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
     const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));

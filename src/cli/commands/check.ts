@@ -19,6 +19,7 @@ import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/t
 import type { CliCommand } from './index.ts';
 import { conventionOptionText } from '../repeated-option.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
+import { cacheOptions, openCache } from '../cache-options.ts';
 
 export const EXIT_USAGE = EXIT_BAD_INPUT;
 
@@ -32,7 +33,7 @@ export interface ManuscriptArgs {
 
 /** The options every manuscript command takes. */
 export function manuscriptOptions(y: Argv): Argv {
-  return limitOptions(y)
+  return cacheOptions(limitOptions(y))
     .option('format', { choices: REPORT_FORMATS, default: 'text', describe: 'How problems are reported: text for people, json or sarif for tools' })
     .option('strict', { type: 'boolean', default: false, describe: 'Warnings (undecided or mirror-only claims) fail too' })
     .option('convention', {
@@ -52,9 +53,11 @@ export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArg
   }
   const limits = readLimits(args);
   if (typeof limits === 'string') return limits;
+  const resultStore = openCache(args);
+  if (typeof resultStore === 'string') return resultStore;
   return {
     report: args['format'] as ReportFormat,
-    options: { ...(convention ? { convention } : {}), strict: args['strict'] === true, limits },
+    options: { ...(convention ? { convention } : {}), strict: args['strict'] === true, limits, ...(resultStore ? { resultStore } : {}) },
   };
 }
 
@@ -161,6 +164,7 @@ export const checkCommand: CliCommand = {
       failed ||= resultFailed(result, args.options.strict === true);
       if (result.counts) checked = addCounts(checked, result.counts);
     }
+    args.options.resultStore?.evict();
     const strict = args.options.strict === true;
     process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, wantsColor(process.stdout), checked));
     return exitStatusFor(diagnostics, failed, strict);

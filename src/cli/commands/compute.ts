@@ -13,6 +13,9 @@ import type { DiagramReport, LinkingNumber } from '../../core/analyze/report.ts'
 import type { LinkDiagram, Notation } from '../../core/diagram/model.ts';
 import { isInputError, type InputError } from '../../core/errors.ts';
 import { isLimitError, type ComputeLimits, type LimitError } from '../../core/limits.ts';
+import type { ResultStore } from '../../core/cache/store.ts';
+import type { FileResultStore } from '../result-store.ts';
+import { cacheOptions, openCache } from '../cache-options.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { NOTATIONS, parseDiagramCode, type ParseOptions } from '../../core/notation/index.ts';
 import { computeJson, invalidCodeJson, JSON_FIELDS, notComputedErrors, simplifiedCodes } from '../compute-json.ts';
@@ -50,11 +53,11 @@ export type CodeOutcome =
   | { readonly ok: false; readonly code: string; readonly notation: Notation; readonly error: InputError };
 
 /** Parses and analyses one code; bad input comes back as an outcome, anything else thrown is a bug. */
-export function computeCode(code: string, notation: Notation, options: ParseOptions = {}, limits: ComputeLimits = {}, bracketFirst = true): CodeOutcome {
+export function computeCode(code: string, notation: Notation, options: ParseOptions = {}, limits: ComputeLimits = {}, bracketFirst = true, store?: ResultStore): CodeOutcome {
   try {
     const maxCrossings = limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {};
     const diagram = parseDiagramCode(code, notation, { ...options, ...maxCrossings });
-    const report = analyzeDiagram(diagram, limits);
+    const report = analyzeDiagram(diagram, limits, store);
     // Every summary shows the bracket, and a diagram too wide or too large for it is an input error of the code
     // (JSON computes only its fields, and reports a field it could not compute in `notComputed`).
     if (bracketFirst) void report.bracket;
@@ -254,6 +257,8 @@ interface ComputeArgs {
   readonly convention: Convention;
   readonly strict: boolean;
   readonly limits: ComputeLimits;
+  /** The disk cache (absent with --no-cache). */
+  readonly resultStore?: FileResultStore;
   /** `--keys`: the JSON fields to compute and print (all when absent). */
   readonly keys?: ReadonlySet<string>;
 }
@@ -350,6 +355,8 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   if (typeof limits === 'string') return limits;
   const keys = readKeys(args);
   if (typeof keys === 'string') return keys;
+  const resultStore = openCache(args);
+  if (typeof resultStore === 'string') return resultStore;
   let convention = DEFAULT_CONVENTION;
   const conventionText = conventionOptionText(args['convention']);
   if (conventionText !== undefined) {
@@ -366,6 +373,7 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
     convention,
     strict: args['strict'] === true,
     limits,
+    ...(resultStore ? { resultStore } : {}),
     ...(keys ? { keys } : {}),
   };
 }
@@ -385,7 +393,7 @@ export const computeCommand: CliCommand = {
   command: 'compute [codes..]',
   describe: 'Compute the invariants and diagram properties of each diagram code given',
   builder: (y: Argv) =>
-    limitOptions(y)
+    cacheOptions(limitOptions(y))
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
       .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true, 'parse-numbers': false, 'parse-positional-numbers': false })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
@@ -406,7 +414,7 @@ export const computeCommand: CliCommand = {
     }
     const parseOptions: ParseOptions = args.strands === undefined ? {} : { strands: args.strands };
     let anyInvalid = false;
-    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions, args.limits, !args.json));
+    const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions, args.limits, !args.json, args.resultStore));
     // Every analysed code, so a claim equal to another code's value is diagnosed as swapped.
     const reports = new Map(outcomes.flatMap((o, i) => (o.ok ? [[`<code ${i + 1}>`, o.report] as const] : [])));
     const claimDiagnostics: Diagnostic[] = [];
@@ -441,6 +449,7 @@ export const computeCommand: CliCommand = {
       process.stderr.write(`${invalidCodeMessage(position, code, outcome.notation, outcome.error)}\n`);
       if (args.json) process.stdout.write(`${JSON.stringify(invalidCodeJson(code, outcome.notation, outcome.error))}\n`);
     });
+    args.resultStore?.evict();
     return anyInvalid ? EXIT_INVALID_INPUT : Math.max(EXIT_ALL_VALID, exitStatus(claimDiagnostics, { strict: args.strict }));
   },
 };

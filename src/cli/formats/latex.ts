@@ -88,6 +88,7 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     ...(options.strict ? { strict: true } : {}),
     refused: doc.refusedIds,
     ...(options.limits ? { limits: options.limits } : {}),
+    ...(options.resultStore ? { resultStore: options.resultStore } : {}),
     documentStart: { file: doc.main.displayPath, start: { line: 1, column: 1 } },
     markupFound: doc.diagnostics.length > 0,
   });

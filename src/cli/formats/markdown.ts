@@ -57,6 +57,7 @@ async function checkManuscript(path: string, options: FormatOptions): Promise<Ch
       ...(options.convention ? { convention: options.convention } : {}),
       ...(options.strict ? { strict: true } : {}),
       ...(options.limits ? { limits: options.limits } : {}),
+      ...(options.resultStore ? { resultStore: options.resultStore } : {}),
     });
   await processor.run(processor.parse(file), file);
   const data = file.data.skeinproof!;

@@ -7,6 +7,7 @@ import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import type { Convention } from '../../core/convention/convention.ts';
 import type { SessionCounts } from '../../core/manuscript/api.ts';
 import type { ComputeLimits } from '../../core/limits.ts';
+import type { FileResultStore } from '../result-store.ts';
 
 export interface FormatOptions {
   /** Convention given on the command line; overrides what the document declares. */
@@ -18,6 +19,8 @@ export interface FormatOptions {
   readonly allowHtml?: boolean;
   /** Limits on each diagram's work (none when absent). */
   readonly limits?: ComputeLimits;
+  /** Where computed values are kept between runs (none when absent: --no-cache). */
+  readonly resultStore?: FileResultStore;
 }
 
 export interface OutputFile {

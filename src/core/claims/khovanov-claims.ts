@@ -15,6 +15,8 @@ import { khovanovReport, isOverBudget, type KhovanovHomology, type KhovanovRepor
 import { primaryParts } from '../invariants/khovanov/homology.ts';
 import { mirrorDiagram } from '../diagram/model.ts';
 import { quantity, valueOf } from '../invariants/registry/lazy.ts';
+import { storeOf, throughStore } from '../cache/store.ts';
+import { STORED } from '../cache/stored.ts';
 import type { Diagnosis, JudgeContext, Judgement, Typeset } from './api.ts';
 import { UNREADABLE, readInteger } from './latex-poly-parser.ts';
 import { readYesNo } from './scalar-claims.ts';
@@ -25,7 +27,7 @@ type Outcome = { readonly ok: true; readonly value: KhovanovReport } | { readonl
 
 const khovanovValue = quantity<Outcome>('khovanov', (report) => {
   try {
-    return { ok: true, value: khovanovReport(report.diagram) };
+    return { ok: true, value: throughStore(storeOf(report), STORED.khovanov, report.diagram, () => khovanovReport(report.diagram)) };
   } catch (e) {
     if (!isOverBudget(e)) throw e;
     const n = report.diagram.crossings.length;
@@ -264,7 +266,9 @@ function shiftOf(claim: Map<string, number>, computed: Map<string, number>): [nu
 /** The mirror image's homology (computed once per diagram). */
 const mirrorValue = quantity<KhovanovReport | undefined>('khovanov-mirror', (report) => {
   try {
-    return khovanovReport(mirrorDiagram(report.diagram));
+    // Stored as the Khovanov homology of the mirror diagram, which is what it is.
+    const mirror = mirrorDiagram(report.diagram);
+    return throughStore(storeOf(report), STORED.khovanov, mirror, () => khovanovReport(mirror));
   } catch (e) {
     if (isOverBudget(e)) return undefined;
     throw e;

@@ -11,6 +11,7 @@ import type { Diagnostic, SourceLocation, TextSpan } from '../diagnostics/diagno
 import type { ClaimKey, FillKey, Typeset } from '../claims/api.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import type { ComputeLimits } from '../limits.ts';
+import type { ResultStore } from '../cache/store.ts';
 
 /** Maps a span inside an entry's text (or the whole entry, when absent) to the file. */
 export type Locator = (span?: TextSpan) => SourceLocation;
@@ -80,6 +81,8 @@ export interface SessionInput {
   readonly refused?: ReadonlyMap<string, SourceLocation>;
   /** Limits on each diagram's size, memory and time (none when absent); a diagram over one is reported and skipped. */
   readonly limits?: ComputeLimits;
+  /** Where computed values are kept between runs (none when absent): see src/core/cache/store.ts. */
+  readonly resultStore?: ResultStore;
   /**
    * Where the manuscript starts: a manuscript with no diagram, claim or fill-in gets a `manuscript-unmarked`
    * warning there, unless `markupFound` says the front end met skeinproof markup it refused.

@@ -11,12 +11,19 @@ import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic } from '../diagnostics/diagnostic.ts';
 import { isInputError } from '../errors.ts';
 import type { ComputeLimits } from '../limits.ts';
+import type { ResultStore } from '../cache/store.ts';
 import { parseDiagramCode } from '../notation/index.ts';
 import { buildInstances, judgeInstances, listValues, PARAMETER_INVALID, readParameter, type ParametricDiagram } from '../parametric/parametric.ts';
 import type { ClaimEntry, DiagramEntry, Locator } from './api.ts';
 
 /** Builds the family at each value into `into`; returns the refusal when the setting or a value's code is refused. */
-export function buildParametric(entry: DiagramEntry, reports: ReadonlyMap<string, DiagramReport>, limits: ComputeLimits, into: Map<string, ParametricDiagram>): Diagnostic | undefined {
+export function buildParametric(
+  entry: DiagramEntry,
+  reports: ReadonlyMap<string, DiagramReport>,
+  limits: ComputeLimits,
+  into: Map<string, ParametricDiagram>,
+  store?: ResultStore,
+): Diagnostic | undefined {
   const setting = entry.parameter!;
   if (entry.notation !== 'family') {
     return { severity: 'error', ruleId: PARAMETER_INVALID, message: `diagram \`${entry.id}\`: a free parameter needs a family code (notation=family), and this is a ${entry.notation} code`, location: setting.locate() };
@@ -34,7 +41,7 @@ export function buildParametric(entry: DiagramEntry, reports: ReadonlyMap<string
   const named = (id: string) => reports.get(id)?.diagram;
   const options = { named, ...(limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {}) };
   try {
-    into.set(entry.id, buildInstances(entry.code, parameter, (code) => analyzeDiagram(parseDiagramCode(code, 'family', options), limits)));
+    into.set(entry.id, buildInstances(entry.code, parameter, (code) => analyzeDiagram(parseDiagramCode(code, 'family', options), limits, store)));
     return undefined;
   } catch (e) {
     if (!isInputError(e)) throw e;

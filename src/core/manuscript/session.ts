@@ -63,7 +63,7 @@ export function runSession(input: SessionInput): SessionResult {
     }
     firstHeader.set(entry.id, header);
     if (entry.parameter) {
-      const refusal = buildParametric(entry, reports, input.limits ?? {}, parametric);
+      const refusal = buildParametric(entry, reports, input.limits ?? {}, parametric, input.resultStore);
       if (refusal) {
         invalid.set(entry.id, entry);
         diagnostics.push(refusal);
@@ -81,7 +81,7 @@ export function runSession(input: SessionInput): SessionResult {
         ...(limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {}),
         ...(partSigns ? { partSigns } : {}),
       };
-      reports.set(entry.id, analyzeDiagram(parseDiagramCode(entry.code, entry.notation, parseOptions), limits));
+      reports.set(entry.id, analyzeDiagram(parseDiagramCode(entry.code, entry.notation, parseOptions), limits, input.resultStore));
     } catch (e) {
       if (!isInputError(e)) throw e;
       invalid.set(entry.id, entry);

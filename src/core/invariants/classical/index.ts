@@ -182,7 +182,8 @@ export function classicalInvariantsWithin(d: LinkDiagram, timeBudgetMs: number |
   return result as unknown as ClassicalInvariants;
 }
 
-function genusBounds(alexander: Laurent, signature: number, mu: number, crossings: number, circles: number): GenusBound[] {
+/** The genus bounds from Δ, σ and Seifert's algorithm on this diagram (for a connected diagram). */
+export function genusBounds(alexander: Laurent, signature: number, mu: number, crossings: number, circles: number): GenusBound[] {
   const bounds: GenusBound[] = [];
   const extra = mu - 1;
   const spanBound = Math.max(0, Math.ceil((alexander.span - extra) / 2));

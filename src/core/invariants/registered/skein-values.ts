@@ -11,6 +11,8 @@ import { braidIndexBounds, type BraidIndexBounds } from '../braid-index.ts';
 import { homflyPolynomial } from '../homfly/homfly.ts';
 import { kauffmanPolynomial } from '../kauffman-polynomial/kauffman.ts';
 import { quantity, valueOf } from '../registry/lazy.ts';
+import { storeOf, throughStore } from '../../cache/store.ts';
+import { STORED } from '../../cache/stored.ts';
 
 type Outcome<T> = { readonly value: T } | { readonly refused: InputError };
 
@@ -30,9 +32,15 @@ function remembered<T>(name: string, compute: (report: DiagramReport) => T): (re
   };
 }
 
-export const homflyOf: (report: DiagramReport) => Laurent2 = remembered('homfly', (report) => homflyPolynomial(report.diagram).polynomial);
-export const kauffmanOf: (report: DiagramReport) => Laurent2 = remembered('kauffman', (report) => kauffmanPolynomial(report.diagram, 'kauffman').polynomial);
-export const dubrovnikOf: (report: DiagramReport) => Laurent2 = remembered('dubrovnik', (report) => kauffmanPolynomial(report.diagram, 'dubrovnik').polynomial);
+export const homflyOf: (report: DiagramReport) => Laurent2 = remembered('homfly', (report) =>
+  throughStore(storeOf(report), STORED.homfly, report.diagram, () => homflyPolynomial(report.diagram).polynomial),
+);
+export const kauffmanOf: (report: DiagramReport) => Laurent2 = remembered('kauffman', (report) =>
+  throughStore(storeOf(report), STORED.kauffman, report.diagram, () => kauffmanPolynomial(report.diagram, 'kauffman').polynomial),
+);
+export const dubrovnikOf: (report: DiagramReport) => Laurent2 = remembered('dubrovnik', (report) =>
+  throughStore(storeOf(report), STORED.dubrovnik, report.diagram, () => kauffmanPolynomial(report.diagram, 'dubrovnik').polynomial),
+);
 export const braidIndexOf: (report: DiagramReport) => BraidIndexBounds = remembered('braid-index', (report) =>
   braidIndexBounds(homflyOf(report), report.classical.seifertCircles, report.diagram.notation),
 );
