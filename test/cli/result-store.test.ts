@@ -1,0 +1,142 @@
+/**
+ * The disk cache's file store: entries are checked before they are trusted
+ * (a truncated, corrupted or foreign file is a miss and is rewritten), several
+ * processes writing one entry at once leave a whole entry (temporary file and
+ * rename: the POSIX rename replaces the target in one step, common practice),
+ * and the least recently used entries go first when the cache is over its cap.
+ */
+import { spawn } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterEach, describe, expect, it } from 'vitest';
+import { cacheDirectory, FileResultStore } from '../../src/cli/result-store.ts';
+
+const dirs: string[] = [];
+const freshDir = (): string => {
+  const dir = mkdtempSync(join(tmpdir(), 'skein-store-'));
+  dirs.push(dir);
+  return dir;
+};
+afterEach(() => {
+  for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
+});
+
+const open = (dir: string, engine = 'engine-a', maxBytes = 1 << 30, warn?: (m: string) => void) => new FileResultStore({ dir, engine, maxBytes, ...(warn ? { warn } : {}) });
+
+/** Every entry file under the store (temporary files included). */
+function entryFiles(dir: string): string[] {
+  const root = join(dir, 'entries');
+  return readdirSync(root).flatMap((shard) => readdirSync(join(root, shard)).map((name) => join(root, shard, name)));
+}
+
+describe('file result store', () => {
+  it('gives back what was stored, and nothing for another key or another engine version', () => {
+    const dir = freshDir();
+    const store = open(dir);
+    store.put('bracket/1\nkey one', '[[1,"2"]]');
+    expect(store.get('bracket/1\nkey one')).toBe('[[1,"2"]]');
+    expect(store.get('bracket/1\nkey two')).toBeUndefined();
+    expect(open(dir, 'engine-b').get('bracket/1\nkey one')).toBeUndefined();
+    expect(store.counts).toMatchObject({ hits: 1, misses: 1, writes: 1 });
+  });
+
+  it('ignores a truncated, corrupted or emptied entry and takes the rewritten one', () => {
+    const dir = freshDir();
+    const store = open(dir);
+    const value = JSON.stringify(Array.from({ length: 50 }, (_, i) => [i, String(i * 7919)]));
+    store.put('k', value);
+    const [file] = entryFiles(dir);
+    const whole = readFileSync(file!, 'utf8');
+    const damaged = [
+      whole.slice(0, whole.length - 5), // truncated value
+      whole.slice(0, 30), // truncated header
+      whole.replace('7919', '7918'), // one digit changed
+      '',
+      'not an entry at all\n[]',
+    ];
+    for (const text of damaged) {
+      writeFileSync(file!, text);
+      expect(store.get('k')).toBeUndefined();
+    }
+    expect(store.counts.rejected).toBe(damaged.length);
+    store.put('k', value);
+    expect(store.get('k')).toBe(value);
+  });
+
+  it('does not trust an entry that belongs to another key (a file copied or renamed into place)', () => {
+    const dir = freshDir();
+    const store = open(dir);
+    store.put('first', '"1"');
+    store.put('second', '"2"');
+    const files = entryFiles(dir);
+    const first = files.find((f) => readFileSync(f, 'utf8').endsWith('"1"'))!;
+    const second = files.find((f) => f !== first)!;
+    writeFileSync(second, readFileSync(first));
+    expect(store.get('second')).toBeUndefined();
+    expect(store.get('first')).toBe('"1"');
+  });
+
+  it('leaves one whole entry when several processes write the same entry at once', async () => {
+    const dir = freshDir();
+    const module = new URL('../../src/cli/result-store.ts', import.meta.url).href;
+    // Each writer stores its own large value under one key, over and over.
+    const writer = (id: number) =>
+      new Promise<number>((done, fail) => {
+        const script = `import { FileResultStore } from ${JSON.stringify(module)};
+          const store = new FileResultStore({ dir: ${JSON.stringify(dir)}, engine: 'e', maxBytes: 1 << 30 });
+          const value = JSON.stringify('${id}'.repeat(200000));
+          for (let i = 0; i < 40; i++) store.put('shared', value);`;
+        const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { stdio: 'inherit' });
+        child.on('error', fail);
+        child.on('exit', (code) => done(code ?? -1));
+      });
+    expect(await Promise.all([1, 2, 3, 4].map(writer))).toEqual([0, 0, 0, 0]);
+    const value = open(dir, 'e').get('shared');
+    expect(value).toBeDefined();
+    expect(['1', '2', '3', '4'].map((id) => JSON.stringify(id.repeat(200000)))).toContain(value);
+    expect(entryFiles(dir).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+    expect(entryFiles(dir)).toHaveLength(1);
+  });
+
+  it('evicts the least recently used entries once the cache is over its cap, keeping one read recently', () => {
+    const dir = freshDir();
+    const valueOf = (k: string) => `${k}:${'x'.repeat(1000)}`;
+    const writer = open(dir);
+    for (let i = 0; i < 10; i++) writer.put(`k${i}`, valueOf(`k${i}`));
+    // Last used: k0 longest ago … k9 most recently.
+    const now = Date.now() / 1000;
+    for (const file of entryFiles(dir)) {
+      const i = Number(/\nk(\d+):/.exec(readFileSync(file, 'utf8'))![1]);
+      utimesSync(file, now - 1000 + i, now - 1000 + i);
+    }
+    const store = open(dir, 'engine-a', 6 * 1100);
+    expect(store.get('k0')).toBe(valueOf('k0')); // now the most recently used
+    store.put('new', valueOf('new'));
+    store.evict();
+    const left = ['k0', 'k1', 'k2', 'k3', 'k4', 'k5', 'k6', 'k7', 'k8', 'k9', 'new'].filter((k) => open(dir).get(k) !== undefined);
+    // Cap 6600 bytes, evicted down to 90 % of it: five entries of about 1.1 kB stay, the most recently used ones.
+    expect(left).toEqual(['k0', 'k7', 'k8', 'k9', 'new']);
+  });
+
+  it('goes on without storing, with one warning, when the cache cannot be written', () => {
+    const dir = freshDir();
+    const blocked = join(dir, 'a-file');
+    writeFileSync(blocked, '');
+    const warnings: string[] = [];
+    const store = open(blocked, 'e', 1 << 30, (m) => warnings.push(m));
+    store.put('a', '1');
+    store.put('b', '2');
+    expect(store.get('a')).toBeUndefined();
+    expect(warnings).toHaveLength(1);
+    expect(warnings[0]).toContain('cannot write the cache');
+  });
+
+  it('lives under SKEINPROOF_CACHE_DIR, else XDG_CACHE_HOME/skeinproof, else ~/.cache/skeinproof (XDG base directory specification)', () => {
+    expect(cacheDirectory('/flag', { SKEINPROOF_CACHE_DIR: '/env' }, 'linux')).toBe('/flag');
+    expect(cacheDirectory(undefined, { SKEINPROOF_CACHE_DIR: '/env', XDG_CACHE_HOME: '/xdg' }, 'linux')).toBe('/env');
+    expect(cacheDirectory(undefined, { XDG_CACHE_HOME: '/xdg' }, 'linux')).toBe(join('/xdg', 'skeinproof'));
+    // A relative XDG_CACHE_HOME is invalid under the specification and is ignored.
+    expect(cacheDirectory(undefined, { XDG_CACHE_HOME: 'relative' }, 'linux')).toMatch(/\.cache\/skeinproof$/);
+  });
+});
