@@ -240,4 +240,12 @@ describe('skeinproof compute: the two-variable polynomials, braid index and Arf 
     expect(stdout).not.toContain('HOMFLY-PT P(');
     expect(stdout).toMatch(/\n {2}Arf {6}0\n/);
   });
+  it('--json gives arf null with the reason in arfNotDefined for the Hopf link, and a value with arfNotDefined null for the Borromean rings (Arf 1, from V recalled from memory via Murakami’s theorem)', () => {
+    const { status, stdout } = skeinproof('compute', '--json', '--keys', 'arf,arfNotDefined', '-n', 'braid', '1 1', '1 -2 1 -2 1 -2');
+    expect(status).toBe(0);
+    const [hopf, borromean] = jsonLines(stdout);
+    expect(hopf!['arf']).toBe(null);
+    expect(hopf!['arfNotDefined']).toMatch(/not proper, since component 1 .*total linking number 1/);
+    expect(borromean).toMatchObject({ arf: 1, arfNotDefined: null });
+  });
 });

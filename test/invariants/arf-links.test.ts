@@ -3,7 +3,8 @@ import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { componentCount, mirrorDiagram, type LinkDiagram } from '../../src/core/diagram/model.ts';
 import { addCurl, connectedSum, disjointUnion, withFreeLoops } from '../../src/core/diagram/operations.ts';
-import { arfByFusion, arfFromJonesAtI, arfOfKnot, oddLinkingComponents, type ArfResult } from '../../src/core/invariants/arf.ts';
+import { arfByFusion, arfFromJonesAtI, arfOfKnot, arfOfLink, oddLinkingComponents, type ArfResult } from '../../src/core/invariants/arf.ts';
+import { linkingNumbers } from '../../src/core/diagram/properties.ts';
 import { arfOf } from '../../src/core/invariants/registered/skein-values.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import { atImaginaryUnit, equals8, mul8, neg8, pow8, SQRT2, zetaPower } from '../../src/core/poly/cyclotomic8.ts';
@@ -152,6 +153,16 @@ describe('Arf invariant of links: relations that any correct value satisfies', (
       expect(value(addCurl(d, 1, -1, false))).toBe(a);
       expect(value(mirrorDiagram(d))).toBe(a);
     }
+  });
+
+  it('the routes really are compared: a wrong V stops the run with an internal error rather than giving a value', () => {
+    const hopf = closeBraid([1, 1], 2);
+    const unlink = withFreeLoops(closeBraid([], 1), 1);
+    // V of the 2-component unlink handed to the Hopf link: V(i) ≠ 0, yet lk = 1.
+    const unlinkV = Laurent.fromTerms([[0.5, -1n], [-0.5, -1n]]);
+    expect(() => arfOfLink({ diagram: hopf, linking: linkingNumbers(hopf), jones: () => unlinkV })).toThrow(/internal: V\(i\) does not vanish/);
+    // −V of the unlink: V(i) = +√2 says Arf 1, but fusing the unlink gives two unknots, Arf 0.
+    expect(() => arfOfLink({ diagram: unlink, linking: linkingNumbers(unlink), jones: () => unlinkV.neg() })).toThrow(/internal: Arf invariant 1 from V\(i\) but 0 by fusion/);
   });
 
   it('a split union with a link that is not proper is not proper', () => {
