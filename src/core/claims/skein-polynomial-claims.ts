@@ -166,7 +166,7 @@ export function judgeArfClaim(text: string, result: ArfResult, components: numbe
   const routes =
     components === 1
       ? "the z² coefficient of ∇ mod 2 and Levine's Δ(−1) mod 8"
-      : "Murakami's V(i) = (−√2)^(μ−1)(−1)^Arf and the knot that fusing the components by band sums gives (Robertello)";
+      : "Murakami's formula V(i) = (−√2)^(μ−1)(−1)^Arf and Robertello's fusion of the components into a knot by band sums";
   return Number(claimed) === arf
     ? { key: 'arf', claimed: text, verdict: 'agrees', computed: `${arf}`, reason: `the Arf invariant is ${arf}: ${routes} both give it` }
     : { key: 'arf', claimed: text, verdict: 'contradicts', computed: `${arf}`, reason: `the Arf invariant is ${arf}, not ${claimed}: ${routes} both give ${arf}` };
