@@ -13,7 +13,8 @@ import type { Convention } from '../../src/core/convention/convention.ts';
 import { CONVENTION_SETTINGS, readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
 import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
-import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
+import type { ClaimEntry, DiagramEntry, FillEntry, KhovanovGridEntry, Locator } from '../../src/core/manuscript/api.ts';
+import { gridCellClaim, type GridValues } from '../../src/core/claims/khovanov-grid.ts';
 import { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
 import { NOTATIONS } from '../../src/core/notation/index.ts';
@@ -23,6 +24,7 @@ import { FILL_SHORTCUTS, scanLatexItems, type Arg, type DefinitionItem, type Sca
 import { SourceFile, type TextOrigin } from './source-file.ts';
 import { expandUse, type Expansion, type MacroDefinition } from './expansion.ts';
 import { killAt, splitTabular } from './tabular.ts';
+import { gridLayout, type GridRows } from './grid.ts';
 
 export interface LatexFileSystem {
   /**
@@ -75,6 +77,8 @@ export interface LatexDocument {
   readonly diagrams: readonly DiagramEntry[];
   readonly claims: readonly ClaimEntry[];
   readonly fills: readonly LatexFill[];
+  /** The skein grids, whose cells are among the claims and fills: the degrees each prints. */
+  readonly khovanovGrids: readonly KhovanovGridEntry[];
   /** What \skeinconvention declares. */
   readonly convention: Partial<Convention>;
   /** Problems with the markup itself, located in the file where they are. */
@@ -93,11 +97,12 @@ const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
  * What the package provides, in plain LaTeX for the flat copy: the array
  * package it loads (tables keep its look, and column templates such as
  * >{$}c<{$} keep working), \operatorname for statements, which amsmath
- * defines properly when the document loads it, and \texorpdfstring for values
+ * defines properly when the document loads it, \mathbb (bold without amsfonts)
+ * for Khovanov groups, and \texorpdfstring for values
  * in section titles, which hyperref defines when the document loads it.
  */
 const VALUE_SUPPORT =
-  '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}';
+  '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\mathbb[1]{\\mathbf{#1}}\\providecommand\\texorpdfstring[2]{#1}}';
 /** A fill-in macro (\skeinvalue or a shortcut) or \skeinclaim in a text. */
 const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
 /** What a macro's body may hold that makes skeinproof read it at each use: its markup, or an \input of a file named by a parameter. */
@@ -138,6 +143,7 @@ class ManuscriptReader {
   /** Where the convention was declared: the file and the command (\skeinconvention or the package options). */
   private conventionAt: { readonly file: SourceFile; readonly command: string } | undefined;
   private tables = 0;
+  private readonly khovanovGrids: KhovanovGridEntry[] = [];
   /** Set at \begin{document}: the preamble is over. */
   private inBody = false;
   /** Set at \usepackage{skeinproof}. */
@@ -172,6 +178,7 @@ class ManuscriptReader {
       diagrams: this.diagrams,
       claims: this.claims,
       fills: this.fills,
+      khovanovGrids: this.khovanovGrids,
       convention: this.convention,
       diagnostics: [...this.diagnostics].sort((a, b) => rank(a) - rank(b) || a.location!.start.offset! - b.location!.start.offset!),
       refusedIds: this.refusedIds,
@@ -481,6 +488,7 @@ class ManuscriptReader {
     // and a removed wrapper must not leave an empty line, which TeX reads as a paragraph break.
     splices.push({ kind: 'text', span: withSpacesAfter(file.text, item.beginSpan), text: '' });
     splices.push({ kind: 'text', span: withSpacesAfter(file.text, item.endSpan), text: '' });
+    if (item.environment === 'skeingrid') return this.grid(file, item, splices, table);
     const head = this.tableHead(file, item.options);
     const columns = splitTopLevel(item.columns, ',').map(trim);
     const idColumns = columns.flatMap((c, i) => (c.text === 'id' ? [i + 1] : []));
@@ -507,16 +515,7 @@ class ManuscriptReader {
     });
     if (!valid) return;
     const idColumn = idColumns[0]!;
-    const kill = killAt(item.body);
-    if (kill) {
-      this.error(
-        file,
-        kill,
-        'latex-table-malformed',
-        `skein table ${table}: longtable measures a row that ends with \\kill and throws it away, so skeinproof can neither fill nor check it: set the column widths with p{…} columns instead`,
-      );
-      return;
-    }
+    if (this.killed(file, item, table)) return;
     for (const row of splitTabular(item.body)) {
       if (row.number <= head || row.headOrFoot) continue;
       if (row.cells.every((c) => c.content.text === '')) continue;
@@ -582,6 +581,82 @@ class ManuscriptReader {
         this.addClaim(file, id, key, cell.content, context, true);
       });
     }
+  }
+
+  /** A longtable row ending in \kill is measured and thrown away: an error, since its cells could be neither filled nor checked. */
+  private killed(file: SourceFile, item: Extract<ScanItem, { kind: 'table' }>, table: number): boolean {
+    const kill = killAt(item.body);
+    if (!kill) return false;
+    this.error(
+      file,
+      kill,
+      'latex-table-malformed',
+      `skein table ${table}: longtable measures a row that ends with \\kill and throws it away, so skeinproof can neither fill nor check it: set the column widths with p{…} columns instead`,
+    );
+    return true;
+  }
+
+  /**
+   * A skein grid: one diagram's Khovanov homology by bidegree. Each empty cell is filled with the group there, each
+   * written cell is a `khovanov-rank` or `khovanov-group` claim, and the grid as a whole claims that every bidegree
+   * it does not print carries zero homology (checked when its layout is sound).
+   */
+  private grid(file: SourceFile, item: Extract<ScanItem, { kind: 'table' }>, splices: Splice[], table: number): void {
+    const options = this.gridOptions(file, item.options);
+    const idArg = plainId(trim(item.columns));
+    const id = this.validId(file, idArg, item.beginSpan, `skein grid (table ${table})`, '\\begin{skeingrid}{trefoil}');
+    if (id === undefined || options === undefined || this.killed(file, item, table)) return;
+    const place = `skein table ${table} (grid of ${id})`;
+    const layout = gridLayout(splitTabular(item.body), options.head, options.rows, place, item.beginSpan);
+    for (const p of layout.problems) this.error(file, p.span, 'latex-table-malformed', p.message);
+    for (const { i, j, row, cell } of layout.cells) {
+      const context = `${place}, row ${row}, column ${cell.column} (i = ${i}, j = ${j})`;
+      const gridCell = { i, j, values: options.values };
+      if (cell.content.text === '') {
+        this.fills.push({
+          entry: { target: id, key: 'khovanov', locate: locatorFor(file, cell.raw), context, cell: true, khovanovCell: gridCell },
+          target: { kind: 'cell', table, row, column: cell.column, raw: cell.raw, valueAt: cell.content.start },
+        });
+        splices.push({ kind: 'fill', span: cell.raw, fill: this.fills.length - 1 });
+        continue;
+      }
+      if (this.holdsMarkup(cell.content.text)) continue;
+      const claim = gridCellClaim(gridCell, cell.content.text);
+      const at = file.location(cell.content.start, cell.content.end);
+      this.claims.push({ target: id, key: claim.key, text: claim.text, locate: () => at, context, cell: true, inGrid: true });
+    }
+    if (layout.problems.length > 0) return;
+    this.khovanovGrids.push({
+      target: id,
+      range: { homological: layout.homological, quantum: layout.quantum, values: options.values },
+      locate: locatorFor(file, item.beginSpan),
+      context: place,
+    });
+  }
+
+  /** `head=N`, `rows=quantum|homological`, `values=ranks|groups`; undefined after an error. */
+  private gridOptions(file: SourceFile, list: Arg | undefined): { head: number; rows: GridRows; values: GridValues } | undefined {
+    const result = { head: 1, rows: 'quantum' as GridRows, values: 'ranks' as GridValues };
+    let valid = true;
+    const choices: Record<string, readonly string[]> = { rows: ['quantum', 'homological'], values: ['ranks', 'groups'] };
+    for (const kv of list ? readKeyValues(list) : []) {
+      if (kv.key !== 'head' && !Object.hasOwn(choices, kv.key)) {
+        this.error(file, kv.keySpan, 'latex-key-unknown', `\`${kv.key}\` is not an option of skeingrid: the options are head=N, rows=quantum|homological and values=ranks|groups`);
+        valid = false;
+        continue;
+      }
+      const value = kv.value?.text;
+      if (kv.key === 'head' ? value === undefined || !/^[1-9]\d*$/.test(value) : !choices[kv.key]!.includes(value ?? '')) {
+        const allowed = kv.key === 'head' ? 'a whole number of header rows, at least 1 (the last holds the column degrees)' : choices[kv.key]!.join(' or ');
+        this.error(file, kv.value ?? kv.keySpan, 'latex-option-invalid', `${kv.key} must be ${allowed}`);
+        valid = false;
+        continue;
+      }
+      if (kv.key === 'head') result.head = Number(value);
+      else if (kv.key === 'rows') result.rows = value as GridRows;
+      else result.values = value as GridValues;
+    }
+    return valid ? result : undefined;
   }
 
   /** Whether a text holds skeinproof markup, written or through one of the author's recorded macros. */

@@ -101,13 +101,18 @@ export type ScanItem =
   | { readonly kind: 'document'; readonly span: Span }
   | {
       readonly kind: 'table';
+      /** `skeintable` (one diagram per row), or `skeingrid` (one diagram's Khovanov homology by bidegree). */
+      readonly environment: TableEnvironment;
       readonly beginSpan: Span;
       readonly endSpan: Span;
       readonly options: Arg | undefined;
+      /** The mandatory argument: the column keys of a skeintable, the diagram id of a skeingrid. */
       readonly columns: Arg;
       /** Between `\begin{tabular}{…}` and `\end{tabular}`. */
       readonly body: Arg;
     };
+
+export type TableEnvironment = 'skeintable' | 'skeingrid';
 
 export interface ScanProblem {
   readonly ruleId: string;
@@ -404,7 +409,7 @@ class Scanner {
     this.pos = env.next;
     const name = env.arg.text.trim();
     if (name === 'skeincode') return this.codeEnvironment(start);
-    if (name === 'skeintable') return this.tableEnvironment(start);
+    if (name === 'skeintable' || name === 'skeingrid') return this.tableEnvironment(start, name);
     if (name === 'document') this.items.push({ kind: 'document', span: { start, end: env.next } });
     if (MATH_ENVIRONMENTS.has(name)) this.stack.push({ math: true, closer: `env:${name}` });
   }
@@ -415,8 +420,8 @@ class Scanner {
     this.pos = env.next;
     const name = env.arg.text.trim();
     if (this.top()?.closer === `env:${name}`) this.stack.pop();
-    else if (name === 'skeintable' && this.tableEnds.has(start)) return;
-    else if (name === 'skeincode' || name === 'skeintable') {
+    else if ((name === 'skeintable' || name === 'skeingrid') && this.tableEnds.has(start)) return;
+    else if (name === 'skeincode' || name === 'skeintable' || name === 'skeingrid') {
       this.problem('latex-environment-unopened', `\\end{${name}} closes no \\begin{${name}}: remove it, or add the \\begin{${name}}{…} it belongs to`, { start, end: env.next });
     }
   }
@@ -453,13 +458,15 @@ class Scanner {
     this.pos = endSpan.end;
   }
 
-  private tableEnvironment(start: number): void {
+  private tableEnvironment(start: number, environment: TableEnvironment): void {
     const options = this.bracket(this.pos);
     const after = options ? options.next : this.pos;
     const columns = this.group(after);
     if (!columns) {
       this.missing(
-        '\\begin{skeintable} needs its column keys in braces, e.g. \\begin{skeintable}{id, jones, crossing-number}',
+        environment === 'skeintable'
+          ? '\\begin{skeintable} needs its column keys in braces, e.g. \\begin{skeintable}{id, jones, crossing-number}'
+          : '\\begin{skeingrid} needs the id of its diagram in braces, e.g. \\begin{skeingrid}{trefoil}',
         { start, end: after },
       );
       this.pos = after;
@@ -474,10 +481,10 @@ class Scanner {
         'latex-table-malformed',
         inner
           ? `a skein table holds a tabular, tabular* or longtable, and skeinproof does not read the rows of \`${inner[1]}\`: use one of those (a longtable for a table that runs over pages; p{…} columns for set widths)`
-          : 'a skein table must hold a tabular: put \\begin{tabular}{…} (or tabular*, longtable) right after \\begin{skeintable}{…}',
+          : `a skein table must hold a tabular: put \\begin{tabular}{…} (or tabular*, longtable) right after \\begin{${environment}}{…}`,
         beginSpan,
       );
-      this.ownEnd(columns.next); // one message: the table's own \end{skeintable} is no stray one
+      this.ownEnd(columns.next, environment); // one message: the table's own \end{skeintable} is no stray one
       return;
     }
     let at = columns.next + tabular[0].length;
@@ -486,26 +493,27 @@ class Scanner {
     const spec = this.group(at);
     if (!spec) {
       this.problem('latex-table-malformed', `\\begin{${tabular[1]}} needs its column specification in braces`, { start: columns.next, end: at });
-      this.ownEnd(columns.next);
+      this.ownEnd(columns.next, environment);
       return;
     }
     const bodyEnd = this.matchingEnd(spec.next, tabular[1]!);
-    const closing = bodyEnd === undefined ? null : /^\s*\\end\s*\{skeintable\}/.exec(this.text.slice(bodyEnd.end, bodyEnd.end + 400));
+    const closing = bodyEnd === undefined ? null : new RegExp(`^\\s*\\\\end\\s*\\{${environment}\\}`).exec(this.text.slice(bodyEnd.end, bodyEnd.end + 400));
     if (bodyEnd === undefined || !closing) {
       this.problem(
         'latex-environment-unclosed',
         bodyEnd === undefined
-          ? `the tabular of this skein table is never closed: add \\end{${tabular[1]}} and then \\end{skeintable}`
-          : `this skein table is never closed: put \\end{skeintable} right after \\end{${tabular[1]}}`,
+          ? `the tabular of this skein table is never closed: add \\end{${tabular[1]}} and then \\end{${environment}}`
+          : `this skein table is never closed: put \\end{${environment}} right after \\end{${tabular[1]}}`,
         beginSpan,
       );
-      this.ownEnd(columns.next);
+      this.ownEnd(columns.next, environment);
       return;
     }
     const endStart = bodyEnd.end + closing[0].indexOf('\\');
     this.tableEnds.add(endStart);
     this.items.push({
       kind: 'table',
+      environment,
       beginSpan,
       endSpan: { start: endStart, end: bodyEnd.end + closing[0].length },
       options: options?.arg,
@@ -517,8 +525,8 @@ class Scanner {
   }
 
   /** Marks the \end{skeintable} that closes a table refused at its start, so that reaching it is not called stray. */
-  private ownEnd(from: number): void {
-    const end = this.matchingEnd(from, 'skeintable');
+  private ownEnd(from: number, environment: TableEnvironment): void {
+    const end = this.matchingEnd(from, environment);
     if (end) this.tableEnds.add(end.start);
   }
 

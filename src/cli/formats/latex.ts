@@ -84,6 +84,7 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     diagrams: doc.diagrams,
     claims: doc.claims,
     fills: doc.fills.map((f) => f.entry),
+    khovanovGrids: doc.khovanovGrids,
     convention: { ...DEFAULT_CONVENTION, ...doc.convention, ...options.convention },
     ...(options.strict ? { strict: true } : {}),
     refused: doc.refusedIds,

@@ -50,7 +50,7 @@ export function khovanovOf(report: DiagramReport): KhovanovReport {
 }
 
 /** Bigraded groups in a document's grading: ranks and torsion by "i,j". */
-interface Graded {
+export interface Graded {
   readonly ranks: Map<string, number>;
   /** Prime-power orders (sorted) by "i,j". */
   readonly torsion: Map<string, number[]>;
@@ -201,6 +201,35 @@ export function readTorsionGroup(text: string, offset = 0): number[] {
   return orders.sort((a, b) => a - b);
 }
 
+/** A finitely generated abelian group: its free rank and its torsion as prime-power orders, sorted. */
+export interface IntegralGroup {
+  readonly rank: number;
+  readonly torsion: readonly number[];
+}
+
+/**
+ * A finitely generated abelian group as written: 0, or summands joined by ⊕ (or `,`, `+`), each ℤ (`\mathbb{Z}`,
+ * `ℤ`, `Z`, with a power `^2` for several), a cyclic ℤ/n (as `readTorsionGroup` reads it), or a bare count r
+ * for ℤ^r, so a grid's `1, \mathbb{Z}/2` and `\mathbb{Z} \oplus \mathbb{Z}/2` are the same group.
+ */
+export function readIntegralGroup(text: string, offset = 0): IntegralGroup {
+  const bare = text.replace(/\$/g, ' ').trim().replace(/[.;]$/, '');
+  if (/^0$|^\\?\{?0\}?$|^\\mathbf\{0\}$/.test(bare)) return { rank: 0, torsion: [] };
+  let rank = 0;
+  const torsion: number[] = [];
+  for (const part of bare.split(/\\oplus|⊕|\+|,/)) {
+    const count = /^\s*(\d+)\s*$/.exec(part);
+    const free = /^\s*(?:\\mathbb\{Z\}|\\mathbf\{Z\}|ℤ|Z)\s*(?:\^\s*\{?\s*(\d+)\s*\}?)?\s*$/.exec(part);
+    if (count) rank += Number(count[1]);
+    else if (free) rank += free[1] === undefined ? 1 : Number(free[1]);
+    else if (part.trim() === '') {
+      throw new InputError(UNREADABLE, 'an empty summand: write the group as 0 or as summands like \\mathbb{Z} \\oplus \\mathbb{Z}/2', { start: offset, end: offset + text.length });
+    } else torsion.push(...readTorsionGroup(part, offset));
+    if (!Number.isSafeInteger(rank)) throw new InputError(UNREADABLE, 'this rank is too large', { start: offset, end: offset + text.length });
+  }
+  return { rank, torsion: torsion.sort((a, b) => a - b) };
+}
+
 // ---------------------------------------------------------------- typesetting
 
 function monomial(i: number, j: number): string {
@@ -218,6 +247,18 @@ export function poincareLatex(ranks: Map<string, number>, convention: Convention
 }
 
 const groupLatex = (orders: readonly number[]): string => (orders.length === 0 ? '0' : orders.map((o) => `\\mathbb{Z}/${o}`).join(' \\oplus '));
+
+/** ℤ^r ⊕ torsion, e.g. `\mathbb{Z}^{2} \oplus \mathbb{Z}/2`; `0` for the zero group. */
+export function integralGroupLatex(group: IntegralGroup): string {
+  const free = group.rank === 0 ? [] : [group.rank === 1 ? '\\mathbb{Z}' : `\\mathbb{Z}^{${group.rank}}`];
+  const parts = [...free, ...group.torsion.map((o) => `\\mathbb{Z}/${o}`)];
+  return parts.length === 0 ? '0' : parts.join(' \\oplus ');
+}
+
+/** The integral group at (i, j) of homology relabelled into a grading. */
+export function groupAt(g: Graded, i: number, j: number): IntegralGroup {
+  return { rank: g.ranks.get(at(i, j)) ?? 0, torsion: g.torsion.get(at(i, j)) ?? [] };
+}
 
 export function khovanovFill(key: 'khovanov' | 'khovanov-reduced' | 'khovanov-width' | 'rasmussen', report: DiagramReport, convention: Convention): Typeset {
   const kh = khovanovOf(report);
@@ -341,19 +382,36 @@ function poincareSlip(
   return undefined;
 }
 
-/** The rank or the torsion at one bidegree. */
-export function judgeBidegreeClaim(key: 'khovanov-rank' | 'khovanov-torsion', text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
-  const torsionClaim = key === 'khovanov-torsion';
-  const { i, j, rest, restStart } = readBidegree(text, torsionClaim ? 'Khovanov torsion' : 'Khovanov rank');
+export type BidegreeKey = 'khovanov-rank' | 'khovanov-torsion' | 'khovanov-group';
+
+const BIDEGREE_CLAIMS: Record<BidegreeKey, { what: string; noun: string; read: (rest: string, restStart: number) => string; valueAt: (g: Graded, i: number, j: number) => string }> = {
+  'khovanov-rank': { what: 'Khovanov rank', noun: 'rank of Khovanov homology', read: (rest) => String(readInteger(rest, 'a rank')), valueAt: (g, i, j) => String(groupAt(g, i, j).rank) },
+  'khovanov-torsion': {
+    what: 'Khovanov torsion',
+    noun: 'torsion of Khovanov homology',
+    read: (rest, restStart) => groupLatex(readTorsionGroup(rest, restStart)),
+    valueAt: (g, i, j) => groupLatex(groupAt(g, i, j).torsion),
+  },
+  'khovanov-group': {
+    what: 'Khovanov group',
+    noun: 'integral Khovanov homology',
+    read: (rest, restStart) => integralGroupLatex(readIntegralGroup(rest, restStart)),
+    valueAt: (g, i, j) => integralGroupLatex(groupAt(g, i, j)),
+  },
+};
+
+/** The rank, the torsion or the whole integral group at one bidegree. */
+export function judgeBidegreeClaim(key: BidegreeKey, text: string, report: DiagramReport, ctx: JudgeContext): Judgement {
+  const spec = BIDEGREE_CLAIMS[key];
+  const { i, j, rest, restStart } = readBidegree(text, spec.what);
   const kh = khovanovOf(report);
   const grading = ctx.convention.khovanovGrading;
   const graded = inGrading(kh.homology, grading);
   const place = `(${i}, ${j})`;
-  const valueAt = (g: Graded, a: number, b: number): string =>
-    torsionClaim ? groupLatex(g.torsion.get(at(a, b)) ?? []) : String(g.ranks.get(at(a, b)) ?? 0);
-  const claimed = torsionClaim ? groupLatex(readTorsionGroup(rest, restStart)) : String(readInteger(rest, 'a rank'));
+  const valueAt = spec.valueAt;
+  const claimed = spec.read(rest, restStart);
   const computed = valueAt(graded, i, j);
-  const noun = torsionClaim ? `torsion of Khovanov homology at ${place}` : `rank of Khovanov homology at ${place}`;
+  const noun = `${spec.noun} at ${place}`;
   const base = { key, claimed: text, computed };
   if (claimed === computed) return { ...base, verdict: 'agrees', reason: `the ${noun} is ${computed}` };
   let diagnosis: Diagnosis | undefined;

@@ -12,6 +12,7 @@ import type { ClaimKey, FillKey, Typeset } from '../claims/api.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import type { ComputeLimits } from '../limits.ts';
 import type { ResultStore } from '../cache/store.ts';
+import type { GridCell, GridRange } from '../claims/khovanov-grid.ts';
 
 /** Maps a span inside an entry's text (or the whole entry, when absent) to the file. */
 export type Locator = (span?: TextSpan) => SourceLocation;
@@ -53,6 +54,8 @@ export interface ClaimEntry {
    * knot), a not-applicable mark (`—`, `n/a`, …) agrees instead of being an error.
    */
   readonly cell?: boolean;
+  /** A cell of a Khovanov grid: a missing or invalid diagram is reported once at the grid, not at each cell. */
+  readonly inGrid?: boolean;
 }
 
 export interface FillEntry {
@@ -65,12 +68,31 @@ export interface FillEntry {
    * column's key does not apply to the row's diagram it stays empty (an empty text) instead of being an error.
    */
   readonly cell?: boolean;
+  /**
+   * An empty cell of a Khovanov grid (`key` is `khovanov`): filled with the group at this bidegree, and a missing
+   * or invalid diagram is reported once at the grid, not at each cell.
+   */
+  readonly khovanovCell?: GridCell;
+}
+
+/**
+ * A grid of Khovanov homology (its cells are claims and fill-ins of their own): the degrees it prints, so that a
+ * nonzero group it leaves out is reported at the grid.
+ */
+export interface KhovanovGridEntry {
+  readonly target: string;
+  readonly range: GridRange;
+  /** Locates the grid, where an omission or a missing diagram is reported. */
+  readonly locate: Locator;
+  /** Names the grid in messages, e.g. "skein grid 2 (trefoil)". */
+  readonly context: string;
 }
 
 export interface SessionInput {
   readonly diagrams: readonly DiagramEntry[];
   readonly claims: readonly ClaimEntry[];
   readonly fills: readonly FillEntry[];
+  readonly khovanovGrids?: readonly KhovanovGridEntry[];
   readonly convention: Convention;
   /** Warnings count as failures. */
   readonly strict?: boolean;

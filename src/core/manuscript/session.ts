@@ -34,6 +34,7 @@ import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
 import { isLimitError } from '../limits.ts';
 import { parseDiagramCode, readPartSigns } from '../notation/index.ts';
+import { gridCellFill, gridOmissionDiagnostic } from '../claims/khovanov-grid.ts';
 import { buildParametric, judgeParametricClaim, parametricFill } from './parametric-entries.ts';
 import type { ParametricDiagram } from '../parametric/parametric.ts';
 import type { ClaimEntry, DiagramEntry, Locator, SessionCounts, SessionInput, SessionResult } from './api.ts';
@@ -174,6 +175,7 @@ export function runSession(input: SessionInput): SessionResult {
   for (const claim of toJudge) {
     const subject = claim.context ?? `the ${CLAIM_NOUNS[claim.key]} claimed for \`${claim.target}\``;
     const family = parametric.get(claim.target);
+    if (family && claim.inGrid) continue; // the grid says once that it needs a diagram without a parameter
     if (family) {
       const { diagnostics: found, verdict } = judgeParametricClaim(claim, family, subject, input.convention);
       diagnostics.push(...found);
@@ -184,7 +186,7 @@ export function runSession(input: SessionInput): SessionResult {
     }
     const v = verdicts.get(claim.target);
     if (!v) {
-      diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
+      if (!claim.inGrid) diagnostics.push(...missing(claim.target, claim.locate, subject, 'checked', claim.context !== undefined));
       continue;
     }
     const k = claimIndex.get(claim.target) ?? 0;
@@ -207,16 +209,43 @@ export function runSession(input: SessionInput): SessionResult {
     if (claim.cell) counts.tableCells++;
   }
 
+  for (const grid of input.khovanovGrids ?? []) {
+    if (parametric.has(grid.target)) {
+      diagnostics.push({
+        severity: 'error',
+        ruleId: 'claim-unreadable',
+        message: `${grid.context}: \`${grid.target}\` has a free parameter, and a grid shows the homology of one diagram: give the grid a diagram without \`for\``,
+        location: grid.locate(),
+      });
+      continue;
+    }
+    const report = reports.get(grid.target);
+    if (!report) {
+      diagnostics.push(...missing(grid.target, grid.locate, grid.context, 'checked', false));
+      continue;
+    }
+    try {
+      const omission = gridOmissionDiagnostic(report, grid.range, input.convention, grid.context, grid.locate());
+      if (omission) diagnostics.push(omission);
+      if (omission) counts.claimsContradicted++;
+      else counts.claimsAgree++;
+    } catch (e) {
+      if (!isInputError(e) || !isDiagramLevel(e)) throw e;
+      diagramLevel(e, grid.target);
+      diagnostics.push(...missing(grid.target, grid.locate, grid.context, 'checked', false));
+    }
+  }
+
   const fills: (Typeset | undefined)[] = input.fills.map((fill) => {
     const subject = fill.context ?? `the ${fill.key} fill-in for \`${fill.target}\``;
     const family = parametric.get(fill.target);
     if (family) {
-      diagnostics.push(parametricFill(fill.target, family, subject, fill.locate));
+      if (!fill.khovanovCell) diagnostics.push(parametricFill(fill.target, family, subject, fill.locate));
       return undefined;
     }
     const report = reports.get(fill.target);
     if (!report) {
-      diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
+      if (!fill.khovanovCell) diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
       return undefined;
     }
     if (fill.cell && inapplicableBecause(fill.key, report) !== undefined) {
@@ -224,7 +253,9 @@ export function runSession(input: SessionInput): SessionResult {
       return { kind: 'text', text: '' };
     }
     try {
-      const value = typesetValue(fill.key, report, input.convention, { compact: fill.cell === true });
+      const value = fill.khovanovCell
+        ? gridCellFill(report, fill.khovanovCell, input.convention)
+        : typesetValue(fill.key, report, input.convention, { compact: fill.cell === true });
       counts.valuesFilled++;
       if (fill.cell) counts.tableCells++;
       return value;
@@ -232,7 +263,7 @@ export function runSession(input: SessionInput): SessionResult {
       if (!isInputError(e)) throw e;
       if (isDiagramLevel(e)) {
         diagramLevel(e, fill.target);
-        diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
+        if (!fill.khovanovCell) diagnostics.push(...missing(fill.target, fill.locate, subject, 'filled in', fill.context !== undefined));
       } else diagnostics.push(unreadableClaimDiagnostic(e, fill.locate, subject));
       return undefined;
     }

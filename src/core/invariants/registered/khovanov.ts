@@ -89,6 +89,14 @@ export const khovanovInvariant: Invariant = {
       judge: (text, report, ctx) => judgeBidegreeClaim('khovanov-torsion', text, report, ctx),
     },
     {
+      key: 'khovanov-group',
+      noun: 'integral Khovanov homology',
+      valueDoc: 'a bidegree and the whole integral group there, as `3, 7: \\mathbb{Z}/2` or `(2, 5) = \\mathbb{Z} \\oplus \\mathbb{Z}/2` (a bare count r is ℤ^r)',
+      example: '3, 7: \\mathbb{Z}/2',
+      changedBy: ['chirality', 'summand-chirality'],
+      judge: (text, report, ctx) => judgeBidegreeClaim('khovanov-group', text, report, ctx),
+    },
+    {
       key: 'khovanov-width',
       noun: 'homological width',
       aliases: ['width', 'w_{Kh}', 'hw'],
