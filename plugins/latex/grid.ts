@@ -89,7 +89,7 @@ export function gridLayout(rows: readonly TableRow[], head: number, orientation:
       const last = row.cells[row.cells.length - 1]!;
       problems.push({
         span: spanOf(last.raw),
-        message: `${rowPlace} has ${row.cells.length} cells but the header names ${columnDegrees.length} degrees after the corner: give the row one cell per degree (an empty cell is filled in)`,
+        message: `${rowPlace} has ${row.cells.length} cells, but a row holds its degree and one cell for each of the ${columnDegrees.length} column degrees: ${row.cells.length > columnDegrees.length ? 'remove the extra cells, or add their degrees to the header' : 'add the missing `&` separators (an empty cell is filled in)'}`,
       });
       continue;
     }

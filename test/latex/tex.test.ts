@@ -109,7 +109,7 @@ function texErrors(run: TexRun): string {
  * Builds `paper` (as `stem.tex`) the one way or the other (the sidecar with the package, or the flat copy
  * without it), expecting no diagnostics, and compiles the result (`passes` times): the last pass must compile without warnings.
  */
-async function buildAndCompile(paper: string, stem: string, flat: boolean, passes = 1): Promise<TexRun> {
+async function buildAndCompile(paper: string, stem: string, flat: boolean, passes = 1): Promise<TexRun & { readonly pdf: string }> {
   const dir = workDir(stem, !flat);
   writeFileSync(join(dir, `${stem}.tex`), paper);
   const result = await latexFormat.build(join(dir, `${stem}.tex`), flat ? { output: join(dir, `${stem}-flat.tex`) } : {});
@@ -119,7 +119,7 @@ async function buildAndCompile(paper: string, stem: string, flat: boolean, passe
   const run = pdflatex(dir, flat ? `${stem}-flat.tex` : `${stem}.tex`);
   expect(run.ok, texErrors(run)).toBe(true);
   expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
-  return run;
+  return { ...run, pdf: join(dir, flat ? `${stem}-flat.pdf` : `${stem}.pdf`) };
 }
 
 describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
@@ -815,6 +815,66 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     expect(unwrapLog(run.log)).not.toMatch(/Warning|^!/m);
     // The positive trefoil (from memory): V = t + t^3 - t^4.
     expect(bookmarks(join(dir, 'flat.out'))).toEqual(['Value t + t^3 - t^4']);
+  });
+  it('a skein grid of Khovanov homology: placeholders before the build, TeX and the reader count its rows alike after a table, both builds fill it', async () => {
+    // The right-handed trefoil (from memory, Bar-Natan, AGT 2 (2002)): ℚ at (0, 1), (0, 3), (2, 5), (3, 9) and ℤ/2 at (3, 7).
+    const paper = [
+      '\\documentclass{article}',
+      '\\usepackage{amssymb}',
+      '\\usepackage{skeinproof}',
+      '\\begin{document}',
+      '\\begin{skeincode}{id=tref, notation=braid}\n1 1 1\n\\end{skeincode}',
+      '\\begin{skeintable}{id, crossings}',
+      '\\begin{tabular}{ll}',
+      'Id & $n$ \\\\',
+      'tref & \\\\',
+      '\\end{tabular}',
+      '\\end{skeintable}',
+      '\\begin{skeingrid}[head=2, values=groups]{tref}',
+      '\\begin{tabular}{r|cccc}',
+      '\\multicolumn{5}{c}{GRIDTITLE} \\\\',
+      '$j \\backslash i$ & 0 & 1 & 2 & 3 \\\\ \\hline',
+      '9 & & & & $\\mathbb{Z}$ \\\\',
+      '7 & & & & \\\\[2pt]',
+      '\\multicolumn{5}{c}{} \\\\',
+      '5 & & & & \\\\',
+      '3 & & . & & \\\\',
+      '1 & & & & \\tabularnewline',
+      '\\end{tabular}',
+      '\\end{skeingrid}',
+      '\\end{document}',
+    ].join('\n');
+    const dir = workDir('grid', true);
+    writeFileSync(join(dir, 'grid.tex'), paper);
+    const doc = readLatexManuscript(join(dir, 'grid.tex'), diskFiles);
+    expect(doc.diagnostics).toEqual([]);
+    const gridFills = doc.fills.filter((f) => f.entry.khovanovCell);
+    expect(gridFills).toHaveLength(5 * 4 - 2);
+    // Before the build: one placeholder warning per empty grid cell, naming its row, column and grid.
+    const raw = pdflatex(dir, 'grid.tex');
+    expect(raw.ok, texErrors(raw)).toBe(true);
+    expect(squeeze(raw.text)).toContain('??');
+    const expected = gridFills.map((f) =>
+      f.target.kind === 'cell' ? `Value \`khovanov' of row ${f.target.row}, column ${f.target.column} of skein grid ${f.target.table} is not computed yet` : '',
+    );
+    const perValue = packageWarnings(raw.log, 'skeinproof').filter((w) => w.startsWith('Value') && w.includes('grid'));
+    expect(perValue.map((w) => w.replace(/ on input line \d+\.$/, ''))).toEqual(expected);
+    // TeX fills the cells the reader found, in its order.
+    const places = doc.fills.map((f) => (f.target.kind === 'cell' ? `${f.target.table} ${f.target.row} ${f.target.column}` : ''));
+    expect(places.slice(0, 2)).toEqual(['1 2 2', '2 3 2']);
+    writeFileSync(join(dir, 'grid.skein.tex'), loggingSidecar(places));
+    const logged = pdflatex(dir, 'grid.tex');
+    expect(logged.ok, texErrors(logged)).toBe(true);
+    expect([...logged.log.matchAll(/^FILLED (.*)$/gm)].map((m) => m[1])).toEqual(places);
+    for (const flat of [false, true]) {
+      const built = await buildAndCompile(paper, 'grid', flat);
+      expect(built.text).not.toContain('??');
+      // pdftotext -raw reads the rows in order: each its degree, then the groups of its nonzero cells (which column each
+      // cell is in, the logging sidecar above shows): ℤ at (3, 9), ℤ/2 at (3, 7), ℤ at (2, 5), (0, 3), (0, 1), the author's dot.
+      const raw = execFileSync('pdftotext', ['-raw', built.pdf, '-'], { encoding: 'utf8' }).split('\n');
+      const title = raw.indexOf('GRIDTITLE');
+      expect(raw.slice(title + 1, title + 7)).toEqual(['j\\i 0 1 2 3', '9 Z', '7 Z/2', '5 Z', '3 Z .', '1 Z']);
+    }
   });
 });
 

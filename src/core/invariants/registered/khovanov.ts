@@ -146,5 +146,6 @@ export const khovanovInvariant: Invariant = {
     'test/invariants/khovanov/oracle.test.ts',
     'test/invariants/khovanov/theorems.test.ts',
     'test/invariants/khovanov/claims.test.ts',
+    'test/invariants/khovanov/grid.test.ts',
   ],
 };
