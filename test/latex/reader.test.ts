@@ -362,7 +362,7 @@ describe('building', () => {
     const { doc, session } = build();
     // The positive Hopf link (closure of σ₁²): V = −t^{1/2} − t^{5/2} (from memory), span 2, writhe 2.
     expect(flatText(doc, session.fills)).toBe(
-      '\\documentclass{article}\n\\usepackage{amsmath}\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\texorpdfstring[2]{#1}}\n\n\\begin{document}\n' +
+      '\\documentclass{article}\n\\usepackage{amsmath}\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\mathbb[1]{\\mathbf{#1}}\\providecommand\\texorpdfstring[2]{#1}}\n\n\\begin{document}\n' +
         '\\begin{flushleft}\\ttfamily\n1 1% Hopf\n\\end{flushleft}\n' +
         'Values: $-t^{5/2} - t^{1/2}$, $w = 2$, claimed $2$.\n' +
         '\\begin{tabular}{ll}\nId & span\\\\\nh & \\ensuremath{2} \\\\\n\\end{tabular}\n\\end{document}\n',
