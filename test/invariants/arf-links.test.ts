@@ -5,6 +5,7 @@ import { componentCount, mirrorDiagram, type LinkDiagram } from '../../src/core/
 import { addCurl, connectedSum, disjointUnion, withFreeLoops } from '../../src/core/diagram/operations.ts';
 import { arfByFusion, arfFromJonesAtI, arfOfKnot, arfOfLink, oddLinkingComponents, type ArfResult } from '../../src/core/invariants/arf.ts';
 import { linkingNumbers } from '../../src/core/diagram/properties.ts';
+import { simplifyDiagram } from '../../src/core/simplify/simplify.ts';
 import { arfOf } from '../../src/core/invariants/registered/skein-values.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import { atImaginaryUnit, equals8, mul8, neg8, pow8, SQRT2, zetaPower } from '../../src/core/poly/cyclotomic8.ts';
@@ -153,6 +154,17 @@ describe('Arf invariant of links: relations that any correct value satisfies', (
       expect(value(addCurl(d, 1, -1, false))).toBe(a);
       expect(value(mirrorDiagram(d))).toBe(a);
     }
+  });
+
+  it('unchanged by the Reidemeister moves (I, II, III) and flypes the simplifier makes, on random links that it shrinks (an invariant of the oriented link: common practice)', () => {
+    let shrunk = 0;
+    for (const d of randomLinks(5104, 120)) {
+      const { diagram } = simplifyDiagram(d);
+      if (diagram.crossings.length === d.crossings.length) continue;
+      expect(value(diagram)).toBe(value(d));
+      shrunk++;
+    }
+    expect(shrunk).toBeGreaterThan(20);
   });
 
   it('the routes really are compared: a wrong V stops the run with an internal error rather than giving a value', () => {
