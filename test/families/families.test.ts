@@ -12,6 +12,7 @@ import { continuedFraction, gcd } from '../../src/core/families/build.ts';
 import { isInputError } from '../../src/core/errors.ts';
 import { jonesPolynomial } from '../../src/core/invariants/jones.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
+import { printPdCode } from '../../src/core/notation/print.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 
 const family = (code: string, named?: Record<string, string>) =>
@@ -138,6 +139,15 @@ describe('pretzel and Montesinos links', () => {
   });
   it('montesinos 1/a₁ … 1/a_k is the pretzel link (same Jones polynomial)', () => {
     expect(jonesPolynomial(family('montesinos 1/3 -1/2 1/5')).equals(jonesPolynomial(family('pretzel 3 -2 5')))).toBe(true);
+  });
+  it('montesinos 1/a₁ … 1/a_k with every |aᵢ| ≥ 2 is drawn as the pretzel diagram and gets its Lickorish–Thistlethwaite value (P(−2, 3, 5) = T(3, 5) = 10₁₂₄: 10, from memory)', () => {
+    const r = analyzeDiagram(family('montesinos 1/3 -1/2 1/5'));
+    expect(printPdCode(r.diagram)).toBe(printPdCode(family('pretzel 3 -2 5')));
+    expect(r.alternating).toBe(false);
+    expect(r.crossingNumber.exact).toBe(10);
+    expect(r.crossingNumber.reasons.find((x) => x.bound === 'exact')?.theorem).toBe('lickorish-thistlethwaite');
+    // A tangle 1/1 is drawn as one horizontal crossing, not as a pretzel column: no pretzel identity.
+    expect(analyzeDiagram(family('montesinos 1/3 1 1/3')).family?.description).toMatch(/Montesinos/);
   });
   it('a Montesinos knot of two tangles is two-bridge (common practice): det of M(1/3, 2/5) equals that of its fraction sum 11/15, i.e. 11', () => {
     expect(analyzeDiagram(family('montesinos 1/3 2/5')).classical.determinant).toBe(11n);

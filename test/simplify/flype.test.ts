@@ -12,6 +12,8 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { computeJson } from '../../src/cli/compute-json.ts';
+import { crossingNumberStatement } from '../../src/core/claims/crossing-number.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { nonPlanarPieces } from '../../src/core/diagram/faces.ts';
 import { componentCount, structuralProblem, writhe, type LinkDiagram } from '../../src/core/diagram/model.ts';
@@ -99,6 +101,8 @@ describe('flypes in the simplifier', () => {
     expect(r.crossingNumber.exact).toBe(9);
     const exact = r.crossingNumber.reasons.find((x) => x.bound === 'exact' && x.theorem === 'kauffman-murasugi-thistlethwaite')!;
     expect(exact.text).toMatch(/1 flype/);
+    expect(r.crossingNumber.reasons.find((x) => x.bound === 'upper')?.text).toMatch(/^Reidemeister moves and flypes reduce the diagram to 9 crossings/);
+    expect(crossingNumberStatement(r, DEFAULT_CONVENTION)).toMatch(/^Moves that keep the link \(1 Reidemeister II, 1 flype\) reduce the diagram to \$9\$ crossings/);
     const json = computeJson('pretzel 1 3 -1 3 3', r, undefined, new Set(['simplified', 'crossingNumber'])) as Record<string, any>;
     expect(json.simplified.moves).toEqual({ nugatory: 0, bigons: 1, slides: 0, flypes: 1 });
     expect(json.simplified.crossings).toBe(9);

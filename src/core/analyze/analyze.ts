@@ -89,7 +89,7 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits, store: ResultStore | 
     crossingNumber: () => {
       const smaller = plainBounds().exact === null ? r.simplified : undefined;
       if (!smaller) return plainBounds();
-      const simplified = { crossings: smaller.diagram.crossings.length, moves: smaller.description, bounds: analyzeDiagram(smaller.diagram, limits, store).crossingNumber };
+      const simplified = { crossings: smaller.diagram.crossings.length, moves: smaller.description, flyped: smaller.moves.flypes > 0, bounds: analyzeDiagram(smaller.diagram, limits, store).crossingNumber };
       return crossingNumberBounds({ ...boundInput(), simplified });
     },
     simplified: () => {

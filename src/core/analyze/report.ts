@@ -29,7 +29,7 @@ export interface BoundReason {
   readonly theorem: TheoremId;
   /** One sentence, in our own words, saying why the bound holds for this diagram. */
   readonly text: string;
-  /** Set when the theorem was applied to a smaller diagram that Reidemeister moves reached: how ("3 moves (…)"). */
+  /** Set when the theorem was applied to a smaller diagram that Reidemeister moves and flypes reached: how ("3 moves (…)"). */
   readonly afterMoves?: string;
 }
 
@@ -86,7 +86,7 @@ export interface DiagramReport {
   readonly family?: { readonly identity: FamilyIdentity; readonly description: string };
   /**
    * A diagram of the same link with fewer crossings than the upper bound from nugatory crossings, found by
-   * Reidemeister moves; only sought when the crossing number is not already exact.
+   * Reidemeister moves and flypes; only sought when the crossing number is not already exact.
    */
   readonly simplified?: { readonly diagram: LinkDiagram; readonly moves: MoveCounts; readonly description: string };
 }

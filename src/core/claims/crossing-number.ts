@@ -182,7 +182,7 @@ export const THEOREM_NAMES: Readonly<Record<TheoremId, string>> = {
   'murasugi-torus': "Murasugi's theorem on torus knots",
   'lickorish-thistlethwaite': 'the Lickorish–Thistlethwaite theorem on reduced Montesinos diagrams',
   'two-bridge-alternating': 'the Kauffman–Murasugi–Thistlethwaite theorem for the alternating diagram of a two-bridge link',
-  'reidemeister-moves': 'Reidemeister moves that reduce the diagram',
+  'reidemeister-moves': 'the moves that reduce the diagram (Reidemeister moves and flypes, which keep the link)',
 };
 
 function reasonFor(report: DiagramReport, bound: BoundReason['bound']): BoundReason | undefined {
@@ -308,7 +308,7 @@ export function crossingNumberStatement(report: DiagramReport, convention: Conve
   const exactReason = reasonFor(report, 'exact');
   if (n === 0) return `The diagram has no crossings, so it shows an unlink and its crossing number is $0$.`;
   if (exact !== null && exactReason?.afterMoves !== undefined) {
-    return `Reidemeister moves (${exactReason.afterMoves.replace(/^\d+ moves? \((.*)\)$/, '$1')}) reduce the diagram to $${exact}$ crossings, and by ${THEOREM_NAMES[exactReason.theorem]} that diagram has the fewest crossings of its link, so the crossing number is $${exact}$.`;
+    return `Moves that keep the link (${exactReason.afterMoves.replace(/^\d+ moves? \((.*)\)$/, '$1')}) reduce the diagram to $${exact}$ crossings, and by ${THEOREM_NAMES[exactReason.theorem]} that diagram has the fewest crossings of its link, so the crossing number is $${exact}$.`;
   }
   if (exact !== null && exactReason) {
     switch (exactReason.theorem) {

@@ -20,14 +20,16 @@ export interface CrossingBoundInput {
   readonly pieces?: readonly CrossingNumberBounds[];
   /** What the diagram is, when it was built from a family (or is a literal torus braid). */
   readonly family?: FamilyIdentity;
-  /** A smaller diagram of the same link that Reidemeister moves reached, with the bounds of its own analysis. */
+  /** A smaller diagram of the same link that Reidemeister moves (and flypes) reached, with the bounds of its own analysis. */
   readonly simplified?: SimplifiedBounds;
 }
 
 export interface SimplifiedBounds {
   readonly crossings: number;
-  /** How it was reached, e.g. "3 moves (2 Reidemeister II, 1 Reidemeister III)". */
+  /** How it was reached, e.g. "3 moves (2 Reidemeister II, 1 flype)". */
   readonly moves: string;
+  /** Whether flypes were among the moves (the reason then names them). */
+  readonly flyped: boolean;
   readonly bounds: CrossingNumberBounds;
 }
 
@@ -43,7 +45,8 @@ export function crossingNumberBounds({ properties: p, jonesSpan, pieces, family,
   const exactReasons = theoremsFixingTheCrossingNumber(p);
   if (family) exactReasons.push(...familyTheorems(p, family));
   if (simplified && simplified.crossings < upper.value) {
-    upper = reason('upper', simplified.crossings, 'reidemeister-moves', `Reidemeister moves reduce the diagram to ${simplified.crossings} crossing${simplified.crossings === 1 ? '' : 's'}, by ${simplified.moves}; the moves keep the link, so c ≤ ${simplified.crossings}.`);
+    const kinds = simplified.flyped ? 'Reidemeister moves and flypes' : 'Reidemeister moves';
+    upper = reason('upper', simplified.crossings, 'reidemeister-moves', `${kinds} reduce the diagram to ${simplified.crossings} crossing${simplified.crossings === 1 ? '' : 's'}, by ${simplified.moves}; the moves keep the link, so c ≤ ${simplified.crossings}.`);
     // What decides the smaller diagram decides the link; bounds that merely meet are found again below.
     const smaller = simplified.bounds;
     const smallerLower = smaller.reasons.find((r) => r.bound === 'lower');
@@ -93,7 +96,7 @@ const THEOREM_TITLES: Readonly<Record<BoundReason['theorem'], string>> = {
   'murasugi-torus': 'Murasugi, torus knots',
   'lickorish-thistlethwaite': 'Lickorish–Thistlethwaite, reduced Montesinos diagrams',
   'two-bridge-alternating': 'Kauffman–Murasugi–Thistlethwaite, two-bridge links',
-  'reidemeister-moves': 'Reidemeister moves',
+  'reidemeister-moves': 'Reidemeister moves and flypes',
 };
 
 function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {

@@ -76,12 +76,16 @@ function closedTangleSum(tangleTerms: readonly (readonly number[])[]): LinkDiagr
 /**
  * The Montesinos link of rational tangles p₁/q₁, …, p_r/q_r: the numerator
  * closure of their sum, each tangle drawn alternating from the continued
- * fraction of its fraction.
+ * fraction of its fraction. When every tangle is 1/aᵢ with |aᵢ| ≥ 2 the drawing
+ * is the pretzel diagram P(a₁, …, a_r) (the continued fraction of 1/a is then
+ * [0, a], the column `pretzelLink` draws), and it is marked as one.
  */
 export function montesinosLink(tangles: readonly Fraction[]): LinkDiagram {
   if (tangles.length === 0) throw new RangeError('a Montesinos link needs at least one tangle');
   const d = closedTangleSum(tangles.map((f) => continuedFraction(f.p, f.q)));
-  return markFamily(d, { kind: 'montesinos', tangles: tangles.map((f) => reduced(f)) });
+  const lowest = tangles.map((f) => reduced(f));
+  const columns = lowest.every((f) => Math.abs(f.p) === 1 && f.q >= 2) ? { pretzel: lowest.map((f) => f.p * f.q) } : {};
+  return markFamily(d, { kind: 'montesinos', tangles: lowest, ...columns });
 }
 
 /** P(a₁, …, a_k): the Montesinos link of the tangles 1/a₁, …, 1/a_k (column i has |aᵢ| crossings). */
