@@ -59,7 +59,7 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits, store: ResultStore | 
   let plain: CrossingNumberBounds | undefined;
   /** The bounds without simplification: the theorems about this diagram as drawn. */
   const plainBounds = () => (plain ??= crossingNumberBounds(boundInput()));
-  const report = { diagram: d, notation: d.notation, chiralityFixed: d.chiralityFixed } as Record<string, unknown>;
+  const report = { diagram: d, limits, notation: d.notation, chiralityFixed: d.chiralityFixed } as Record<string, unknown>;
   const r = report as unknown as DiagramReport;
   const fields: Record<string, () => unknown> = {
     crossings: () => props().crossings,

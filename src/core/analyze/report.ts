@@ -7,6 +7,7 @@ import type { LinkDiagram, Notation } from '../diagram/model.ts';
 import type { ClassicalInvariants } from '../invariants/classical/index.ts';
 import type { FamilyIdentity } from '../families/identity.ts';
 import type { MoveCounts } from '../simplify/simplify.ts';
+import type { ComputeLimits } from '../limits.ts';
 
 /** Theorems a bound can rest on; the claims layer names them in its verdicts. */
 export type TheoremId =
@@ -49,6 +50,8 @@ export interface LinkingNumber {
 
 export interface DiagramReport {
   readonly diagram: LinkDiagram;
+  /** The limits the diagram is analysed under: its engines' memory, time and work budgets. */
+  readonly limits: ComputeLimits;
   readonly notation: Notation;
   readonly crossings: number;
   readonly components: number;

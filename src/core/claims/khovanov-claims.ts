@@ -11,7 +11,8 @@
 import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention, KhovanovGrading } from '../convention/convention.ts';
 import { InputError } from '../errors.ts';
-import { khovanovReport, isOverBudget, type KhovanovHomology, type KhovanovReport } from '../invariants/khovanov/index.ts';
+import { khovanovReport, isOverBudget, WORK_UNITS_PER_SECOND, workBudgetFor, type KhovanovHomology, type KhovanovReport } from '../invariants/khovanov/index.ts';
+import { LIMIT_OPTIONS } from '../limits.ts';
 import { primaryParts } from '../invariants/khovanov/homology.ts';
 import { mirrorDiagram } from '../diagram/model.ts';
 import { quantity, valueOf } from '../invariants/registry/lazy.ts';
@@ -27,20 +28,28 @@ type Outcome = { readonly ok: true; readonly value: KhovanovReport } | { readonl
 
 const khovanovValue = quantity<Outcome>('khovanov', (report) => {
   try {
-    return { ok: true, value: throughStore(storeOf(report), STORED.khovanov, report.diagram, () => khovanovReport(report.diagram)) };
+    return { ok: true, value: throughStore(storeOf(report), STORED.khovanov, report.diagram, () => khovanovReport(report.diagram, budgetOf(report))) };
   } catch (e) {
     if (!isOverBudget(e)) throw e;
     const n = report.diagram.crossings.length;
+    // Only the work budget grows with the time budget; the width and the exact integer range are fixed.
+    const raise =
+      e.workBudget === undefined
+        ? ''
+        : `, raise the time budget (${LIMIT_OPTIONS.time} ${Number(((2 * e.workBudget) / WORK_UNITS_PER_SECOND).toPrecision(2))} doubles the ${e.workBudget.toExponential(0).replace('e+', '·10^')} steps it allows)`;
     return {
       ok: false,
       error: new InputError(
         KHOVANOV_OVER_LIMIT,
         `Khovanov homology of this ${n}-crossing diagram is over the limit of the computation (${e.message}); ` +
-          'give a diagram of the same link with fewer crossings or fewer strands, or leave out the Khovanov claims for it',
+          `give a diagram of the same link with fewer crossings or fewer strands${raise}, or leave out the Khovanov claims for it`,
       ),
     };
   }
 });
+
+/** The work budget of the report's time budget (`--time-budget`): deterministic units, scaled. */
+const budgetOf = (report: DiagramReport): { workBudget: number } => ({ workBudget: workBudgetFor(report.limits.timeBudgetMs) });
 
 /** The Khovanov data of the report's diagram (computed once); throws `khovanov-over-limit` beyond the budget. */
 export function khovanovOf(report: DiagramReport): KhovanovReport {
@@ -309,7 +318,7 @@ const mirrorValue = quantity<KhovanovReport | undefined>('khovanov-mirror', (rep
   try {
     // Stored as the Khovanov homology of the mirror diagram, which is what it is.
     const mirror = mirrorDiagram(report.diagram);
-    return throughStore(storeOf(report), STORED.khovanov, mirror, () => khovanovReport(mirror));
+    return throughStore(storeOf(report), STORED.khovanov, mirror, () => khovanovReport(mirror, budgetOf(report)));
   } catch (e) {
     if (isOverBudget(e)) return undefined;
     throw e;

@@ -142,7 +142,7 @@ export function judgeDiagramClaims(report: DiagramReport, claims: readonly Diagr
   const realised = new Map<Candidate, DiagramReport>([[list[0]!, Object.create(report, { chiralityFixed: { value: true } }) as DiagramReport]]);
   const reportOf = (c: Candidate): DiagramReport => {
     let r = realised.get(c);
-    if (!r) realised.set(c, (r = analyzeDiagram(open.realise(c.signs))));
+    if (!r) realised.set(c, (r = analyzeDiagram(open.realise(c.signs), report.limits)));
     return r;
   };
   const dependent = claims.map((c, i) => ((claimSpec(c.key)?.changedBy.length ?? 0) > 0 ? i : -1)).filter((i) => i >= 0);

@@ -5,6 +5,8 @@ import { readPoincarePolynomial, readTorsionGroup } from '../../../src/core/clai
 import { DEFAULT_CONVENTION, type Convention, type KhovanovGrading } from '../../../src/core/convention/convention.ts';
 import { parseDiagramCode } from '../../../src/core/notation/index.ts';
 import { braid } from './support.ts';
+import { closeBraid } from '../../../src/core/diagram/braid-closure.ts';
+import { DEFAULT_WORK_BUDGET, workBudgetFor } from '../../../src/core/invariants/khovanov/local.ts';
 
 const trefoil = analyzeDiagram(braid([1, 1, 1]));
 const convention = (khovanovGrading: KhovanovGrading): Convention => ({ ...DEFAULT_CONVENTION, khovanovGrading });
@@ -95,5 +97,25 @@ describe('reading Khovanov claims', () => {
     expect(readTorsionGroup('(\\mathbb{Z}/2)^2')).toEqual([2, 2]);
     expect(readTorsionGroup('ℤ/6')).toEqual([2, 3]);
     expect(() => readTorsionGroup('Q/2')).toThrow(/not a cyclic group/);
+  });
+});
+
+describe('the work budget follows the time budget (--time-budget)', () => {
+  // T(4,5), 15 crossings, s = (p − 1)(q − 1) = 12 (Rasmussen 2010): its computation counts about 2·10⁵ work units.
+  const word = Array.from({ length: 5 }, () => [1, 2, 3]).flat();
+  const torus45 = (timeBudgetMs: number) => analyzeDiagram(closeBraid(word, 4), { timeBudgetMs });
+  it('scales 2·10⁶ units per second: 10 s gives the default budget, 1 s computes T(4,5), 50 ms stops it', () => {
+    expect(workBudgetFor(10_000)).toBe(DEFAULT_WORK_BUDGET);
+    expect(workBudgetFor(undefined)).toBe(DEFAULT_WORK_BUDGET);
+    expect(judgeClaim('rasmussen', '12', torus45(1000), { convention: DEFAULT_CONVENTION }).verdict).toBe('agrees');
+    let error: unknown;
+    try {
+      judgeClaim('rasmussen', '12', torus45(50), { convention: DEFAULT_CONVENTION });
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toMatchObject({ ruleId: 'khovanov-over-limit' });
+    expect((error as Error).message).toContain('more than 100000 elementary steps');
+    expect((error as Error).message).toContain('raise the time budget (--time-budget 0.1 doubles the 1·10^5 steps it allows)');
   });
 });

@@ -14,7 +14,7 @@ import { khovanovAndReduced, KhovanovBudgetError, type LocalOptions } from './lo
 import { rasmussenInvariant } from './rasmussen.ts';
 
 export type { KhovanovHomology, RankEntry, TorsionEntry } from './homology.ts';
-export { KhovanovBudgetError } from './local.ts';
+export { KhovanovBudgetError, WORK_UNITS_PER_SECOND, workBudgetFor } from './local.ts';
 
 export interface KhovanovReport {
   /** Integral Khovanov homology: rational ranks and torsion. */

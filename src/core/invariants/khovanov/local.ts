@@ -43,6 +43,12 @@ export type Theory = 'khovanov' | 'deformed';
 /** Over-budget diagrams throw this, so callers can report "over the limit" instead of hanging. */
 export class KhovanovBudgetError extends RangeError {
   override readonly name = 'KhovanovBudgetError';
+  /** The work budget that was spent, when that (and not the width or a coefficient) stopped the computation. */
+  readonly workBudget: number | undefined;
+  constructor(message: string, workBudget?: number) {
+    super(message);
+    this.workBudget = workBudget;
+  }
 }
 
 export interface LocalOptions {
@@ -84,8 +90,18 @@ const A_PARTNER = [1, 0, 3, 2];
 const B_PARTNER = [3, 2, 1, 0];
 /** Work units charged per gluing or composition on top of its terms (about 10⁶ units per second on the development machine). */
 const WORK_PER_CALL = 16;
-/** About half a minute of work; the deformed run for s gets the same again. */
+/** The budget without a time budget to scale it (the core's default); the deformed run for s gets the same again. */
 export const DEFAULT_WORK_BUDGET = 2e7;
+/**
+ * Work units per second of a time budget (`--time-budget`): the command line's default of 10 s gives the
+ * default 2·10⁷. Units are counted, not timed, so a verdict does not depend on the machine or its load.
+ */
+export const WORK_UNITS_PER_SECOND = 2e6;
+
+/** The work budget for a time budget in milliseconds (DEFAULT_WORK_BUDGET when none is given). */
+export function workBudgetFor(timeBudgetMs: number | undefined): number {
+  return timeBudgetMs === undefined ? DEFAULT_WORK_BUDGET : Math.max(1, Math.round((timeBudgetMs / 1000) * WORK_UNITS_PER_SECOND));
+}
 /** Boundary widths beyond this need more matchings (and loop bits) than the engine keeps. */
 export const MAX_KHOVANOV_WIDTH = 30;
 
@@ -322,7 +338,7 @@ class Stage {
   tick(units: number): void {
     this.meter.work += units;
     if (this.meter.work > this.meter.budget) {
-      throw new KhovanovBudgetError(`Khovanov computation stopped: more than ${this.meter.budget} elementary steps`);
+      throw new KhovanovBudgetError(`Khovanov computation stopped: more than ${this.meter.budget} elementary steps`, this.meter.budget);
     }
   }
 
