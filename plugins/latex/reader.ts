@@ -13,8 +13,9 @@ import type { Convention } from '../../src/core/convention/convention.ts';
 import { CONVENTION_SETTINGS, readConventionSettings, type SettingSpans } from '../../src/core/convention/settings.ts';
 import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
-import type { ClaimEntry, DiagramEntry, FillEntry, KhovanovGridEntry, Locator } from '../../src/core/manuscript/api.ts';
+import type { ClaimEntry, DiagramEntry, FigureEntry, FillEntry, KhovanovGridEntry, Locator } from '../../src/core/manuscript/api.ts';
 import { gridCellClaim, type GridValues } from '../../src/core/claims/khovanov-grid.ts';
+import type { FigureSetting } from '../../src/core/manuscript/figure-settings.ts';
 import { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
 import { NOTATIONS } from '../../src/core/notation/index.ts';
@@ -62,10 +63,20 @@ export interface LatexFill {
   readonly target: FillTarget;
 }
 
+/** A `\skeindrawing[settings]{id}`: the package finds its picture in the sidecar by the id and the settings as written. */
+export interface LatexFigure {
+  readonly entry: FigureEntry;
+  readonly id: string;
+  readonly settingsText: string;
+}
+
 /** A replacement in one file for the flat copy. */
 export type Splice =
   | { readonly kind: 'text'; readonly span: Span; readonly text: string }
   | { readonly kind: 'fill'; readonly span: Span; readonly fill: number }
+  | { readonly kind: 'figure'; readonly span: Span; readonly figure: number }
+  /** `\usepackage{skeinproof}`: the flat copy loads what the package provides instead; `kept` is the rest of the list. */
+  | { readonly kind: 'package'; readonly span: Span; readonly kept: string }
   | { readonly kind: 'include'; readonly span: Span; readonly file: SourceFile; readonly command: 'input' | 'include' }
   /** A use of an author's macro whose definition holds skeinproof markup: replaced by its expansion, itself spliced. */
   | { readonly kind: 'expansion'; readonly span: Span; readonly text: string; readonly splices: readonly Splice[] };
@@ -79,6 +90,9 @@ export interface LatexDocument {
   readonly fills: readonly LatexFill[];
   /** The skein grids, whose cells are among the claims and fills: the degrees each prints. */
   readonly khovanovGrids: readonly KhovanovGridEntry[];
+  readonly figures: readonly LatexFigure[];
+  /** Whether the manuscript loads tikz itself (then neither the sidecar nor the flat copy loads it for the figures). */
+  readonly tikzLoaded: boolean;
   /** What \skeinconvention declares. */
   readonly convention: Partial<Convention>;
   /** Problems with the markup itself, located in the file where they are. */
@@ -93,16 +107,6 @@ export interface LatexDocument {
 /** Keys of \begin{skeincode}{…} besides the claim keys. */
 const CODE_KEYS = ['id', 'notation', 'strands', 'part-signs', 'for'] as const;
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
-/**
- * What the package provides, in plain LaTeX for the flat copy: the array
- * package it loads (tables keep its look, and column templates such as
- * >{$}c<{$} keep working), \operatorname for statements, which amsmath
- * defines properly when the document loads it, \mathbb (bold without amsfonts)
- * for Khovanov groups, and \texorpdfstring for values
- * in section titles, which hyperref defines when the document loads it.
- */
-const VALUE_SUPPORT =
-  '\\RequirePackage{array}\\AtBeginDocument{\\providecommand\\operatorname[1]{\\mathop{\\mathrm{#1}}\\nolimits}\\providecommand\\mathbb[1]{\\mathbf{#1}}\\providecommand\\texorpdfstring[2]{#1}}';
 /** A fill-in macro (\skeinvalue or a shortcut) or \skeinclaim in a text. */
 const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
 /** What a macro's body may hold that makes skeinproof read it at each use: its markup, or an \input of a file named by a parameter. */
@@ -129,6 +133,8 @@ class ManuscriptReader {
   private readonly refusedIds = new Map<string, SourceLocation>();
   private readonly claims: ClaimEntry[] = [];
   private readonly fills: LatexFill[] = [];
+  private readonly figures: LatexFigure[] = [];
+  private tikzLoaded = false;
   private readonly diagnostics: Diagnostic[] = [];
   private readonly splices = new Map<SourceFile, Splice[]>();
   /** The author's macros whose definitions hold skeinproof markup, by name: read at each use. */
@@ -179,6 +185,8 @@ class ManuscriptReader {
       claims: this.claims,
       fills: this.fills,
       khovanovGrids: this.khovanovGrids,
+      figures: this.figures,
+      tikzLoaded: this.tikzLoaded,
       convention: this.convention,
       diagnostics: [...this.diagnostics].sort((a, b) => rank(a) - rank(b) || a.location!.start.offset! - b.location!.start.offset!),
       refusedIds: this.refusedIds,
@@ -248,11 +256,14 @@ class ManuscriptReader {
         return this.fill(file, item, splices);
       case 'claim':
         return this.claim(file, item, splices);
+      case 'drawing':
+        return this.drawing(file, item, splices);
       case 'convention':
         return this.conventionSettings(file, item, splices);
       case 'input':
         return this.input(file, item, splices, open);
       case 'package':
+        if (item.names.some((n) => n.text === 'tikz')) this.tikzLoaded = true;
         if (item.names.some((n) => n.text === 'skeinproof')) this.usePackage(file, item, splices);
         for (const name of item.names) this.localPackage(name, '.sty', open);
         return;
@@ -349,6 +360,26 @@ class ManuscriptReader {
       return;
     }
     if (id !== undefined) this.addClaim(file, id, key.text, item.value, undefined);
+  }
+
+  private drawing(file: SourceFile, item: Extract<ScanItem, { kind: 'drawing' }>, splices: Splice[]): void {
+    const id = this.validId(file, trim(item.id), item.span, '\\skeindrawing', '\\skeindrawing[size=5cm]{trefoil}');
+    if (id === undefined) return;
+    const settings: FigureSetting[] = [];
+    for (const kv of item.settings ? readKeyValues(item.settings) : []) {
+      const locateKey = locatorFor(file, kv.keySpan);
+      if (kv.value === undefined) {
+        this.error(file, kv.keySpan, 'latex-option-invalid', `\`${kv.key}\` in \\skeindrawing has no value: write ${kv.key}=…, e.g. size=5cm`);
+        continue;
+      }
+      settings.push({ key: kv.key, value: kv.value.text, locateKey, locateValue: locatorFor(file, kv.value) });
+    }
+    splices.push({ kind: 'figure', span: item.span, figure: this.figures.length });
+    this.figures.push({
+      entry: { target: id, settings, markup: '\\skeindrawing', locate: locatorFor(file, item.span) },
+      id,
+      settingsText: item.settings?.text ?? '',
+    });
   }
 
   private addClaim(file: TextOrigin, target: string, key: ClaimKey, value: Arg, context: string | undefined, cell = false): void {
@@ -466,7 +497,7 @@ class ManuscriptReader {
       .map((p) => p.trim())
       .filter((p) => p !== '' && p !== 'skeinproof');
     const kept = others.length === 0 ? '' : `${file.text.slice(item.span.start, item.list.start)}${others.join(',')}}`;
-    splices.push({ kind: 'text', span: item.span, text: kept + VALUE_SUPPORT });
+    splices.push({ kind: 'package', span: item.span, kept });
     if (this.conventionBeforePackage && !this.packageLoaded) {
       const early = this.conventionBeforePackage;
       this.error(

@@ -80,6 +80,8 @@ export type ScanItem =
       readonly definition: DefinitionItem | undefined;
     }
   | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg; readonly definition: DefinitionItem | undefined }
+  /** `\skeindrawing[settings]{id}`: the figure of a diagram. */
+  | { readonly kind: 'drawing'; readonly span: Span; readonly settings: Arg | undefined; readonly id: Arg }
   | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
   | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg; readonly definition: DefinitionItem | undefined }
   | DefinitionItem
@@ -281,6 +283,8 @@ class Scanner {
         return this.fill(start, name, undefined);
       case 'skeinclaim':
         return this.claim(start);
+      case 'skeindrawing':
+        return this.drawing(start);
       default:
         if (Object.hasOwn(FILL_SHORTCUTS, name)) return this.fill(start, name, FILL_SHORTCUTS[name]!);
         if (this.options.macros?.has(name) && !NAMING_BEFORE.test(this.text.slice(Math.max(0, start - 80), start))) this.use(start, name);
@@ -618,6 +622,13 @@ class Scanner {
   private claim(start: number): void {
     const args = this.requiredGroups(start, '\\skeinclaim', ['diagram id', 'key', 'value'], 'e.g. \\skeinclaim{trefoil}{jones}{t + t^3 - t^4}');
     if (args) this.items.push({ kind: 'claim', span: { start, end: this.pos }, id: args[0]!, key: args[1]!, value: args[2]!, definition: this.definitionAt(start) });
+  }
+
+  private drawing(start: number): void {
+    const settings = this.bracket(this.pos);
+    if (settings) this.pos = settings.next;
+    const args = this.requiredGroups(start, '\\skeindrawing', ['diagram id'], 'e.g. \\skeindrawing[size=5cm]{trefoil}');
+    if (args) this.items.push({ kind: 'drawing', span: { start, end: this.pos }, settings: settings?.arg, id: args[0]! });
   }
 
   /** Reads the braced arguments a macro needs; reports the first one missing. */

@@ -1,8 +1,9 @@
 /**
  * The sidecar `paper.skein.tex`: the computed values, as definitions the
  * package reads on the next LaTeX run (\skein@value for a fill-in macro of a
- * named diagram, \skein@cell for an empty cell of a skein table). The
- * author's source is never touched.
+ * named diagram, \skein@cell for an empty cell of a skein table,
+ * \skein@drawing for the TikZ picture of a \skeindrawing). The author's
+ * source is never touched.
  */
 import { createHash } from 'node:crypto';
 import { basename, dirname, extname, join, relative } from 'node:path';
@@ -22,7 +23,7 @@ export function sidecarPath(manuscriptPath: string): string {
  * so the package can warn when a file changed after the build and the values
  * may be stale, the way LaTeX warns that labels may have changed.
  */
-export function sidecarText(doc: LatexDocument, values: readonly (Typeset | undefined)[]): string {
+export function sidecarText(doc: LatexDocument, values: readonly (Typeset | undefined)[], figures: readonly (string | undefined)[] = []): string {
   const lines = [
     `% Computed by skeinproof from ${basename(doc.main.displayPath)}; \`skeinproof build\` rewrites this file.`,
     '% Read by \\usepackage{skeinproof}. Do not edit: change the manuscript and build again.',
@@ -40,6 +41,17 @@ export function sidecarText(doc: LatexDocument, values: readonly (Typeset | unde
     const t = fill.target;
     const line =
       t.kind === 'macro' ? `\\skein@value{${t.id}}{${t.key}}{${kind}}{${content}}` : `\\skein@cell{${t.table}}{${t.row}}{${t.column}}{${kind}}{${content}}`;
+    if (seen.has(line)) return;
+    seen.add(line);
+    lines.push(line);
+  });
+  // The package reads the sidecar while it loads, in the preamble, where tikz can still be loaded.
+  if (figures.some((f) => f !== undefined) && !doc.tikzLoaded) lines.push('\\RequirePackage{tikz}');
+  doc.figures.forEach((figure, k) => {
+    const picture = figures[k];
+    if (picture === undefined) return;
+    // A figure is found by its id and its settings as written: the package compares them token by token.
+    const line = `\\skein@drawing{${figure.id}}{${figure.settingsText}}{%\n${asciiLatex(picture).trimEnd()}}`;
     if (seen.has(line)) return;
     seen.add(line);
     lines.push(line);

@@ -5,18 +5,20 @@
  * value is computed here.
  */
 import type { Code, Html, InlineCode, Nodes, PhrasingContent, Root, Table, TableCell, Text, Yaml } from 'mdast';
-import type { ContainerDirective, TextDirective } from 'mdast-util-directive';
+import type { ContainerDirective, LeafDirective, TextDirective } from 'mdast-util-directive';
 import { visit, SKIP } from 'unist-util-visit';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
 import type { Notation } from '../../src/core/diagram/model.ts';
-import type { ClaimEntry, DiagramEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
+import type { ClaimEntry, DiagramEntry, FigureEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
+import type { FigureSetting } from '../../src/core/manuscript/figure-settings.ts';
 import { alignValue, mapSpan, SourceText, type OffsetMap } from './source-text.ts';
 import {
   CLAIM_KEYS,
   COLUMNS_ATTRIBUTE,
   DIAGRAM_FENCE_LANGUAGE,
   DIAGRAM_HEADERS,
+  FIGURE_DIRECTIVE,
   FREE_TEXT_COLUMN,
   FREE_TEXT_HEADERS,
   columnMeaning,
@@ -42,12 +44,13 @@ import type { FillPlace } from './typeset-markdown.ts';
 export interface TextEdit {
   readonly start: number;
   readonly end: number;
-  readonly replacement: { readonly text: string } | { readonly fill: number; readonly place: FillPlace };
+  readonly replacement: { readonly text: string } | { readonly fill: number; readonly place: FillPlace } | { readonly figure: number; readonly blankAfter: boolean };
 }
 
 /** What the tree transformer does to a node (the same changes as the text edits, on the tree). */
 export type NodeAction =
   | { readonly kind: 'fill'; readonly fill: number }
+  | { readonly kind: 'figure'; readonly figure: number }
   | { readonly kind: 'unwrap' };
 
 export interface ExtractedManuscript {
@@ -55,6 +58,7 @@ export interface ExtractedManuscript {
   readonly diagrams: readonly DiagramEntry[];
   readonly claims: readonly ClaimEntry[];
   readonly fills: readonly FillEntry[];
+  readonly figures: readonly FigureEntry[];
   readonly edits: readonly TextEdit[];
   readonly actions: ReadonlyMap<Nodes, NodeAction>;
   /** Problems in skeinproof's own markup (bad settings, unknown columns, …). */
@@ -76,6 +80,7 @@ class Extractor {
   private readonly diagrams: DiagramEntry[] = [];
   private readonly claims: ClaimEntry[] = [];
   private readonly fills: FillEntry[] = [];
+  private readonly figures: FigureEntry[] = [];
   private readonly edits: TextEdit[] = [];
   private readonly actions = new Map<Nodes, NodeAction>();
   private readonly problems: Diagnostic[] = [];
@@ -105,6 +110,8 @@ class Extractor {
       if (node.type === 'tableCell') this.cell = offsets(node); // visited before the directives in it
       if (node.type === 'code' && node.lang === DIAGRAM_FENCE_LANGUAGE) this.diagramBlock(node);
       else if (node.type === 'code' && node.lang?.startsWith(DIAGRAM_FENCE_LANGUAGE)) this.misspelledFence(node);
+      else if (node.type === 'leafDirective' && node.name === FIGURE_DIRECTIVE) this.figureDirective(node);
+      else if ((node.type === 'textDirective' || node.type === 'containerDirective') && node.name === FIGURE_DIRECTIVE) this.misplacedFigure(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
       else if ((node.type === 'leafDirective' || node.type === 'containerDirective') && (isClaimKey(node.name) || isFillKey(node.name))) this.misplacedDirective(node);
@@ -117,6 +124,7 @@ class Extractor {
       diagrams: this.diagrams,
       claims: this.claims,
       fills: this.fills,
+      figures: this.figures,
       edits: [...this.edits].sort((a, b) => a.start - b.start || a.end - b.end),
       actions: this.actions,
       problems: this.problems,
@@ -259,6 +267,56 @@ class Extractor {
     for (const c of headerClaims) {
       this.claims.push({ target: id, key: c.key, text: c.value, locate: this.fixedLocator(c.at, c.end), context: `the header of diagram ${id}` });
     }
+  }
+
+  // ::drawing[title]{of=K size=5cm arrows=yes …}
+  private figureDirective(node: LeafDirective): void {
+    const [start, end] = offsets(node);
+    const nameEnd = start + 2 + node.name.length;
+    const labelEnd = this.text[nameEnd] === '[' ? matchingBracket(this.text, nameEnd, end) + 1 : nameEnd;
+    const title = labelEnd > nameEnd ? this.text.slice(nameEnd + 1, labelEnd - 1).replace(/\s+/g, ' ').trim() : '';
+    const hasAttributes = this.text[labelEnd] === '{' && this.text[end - 1] === '}';
+    const attributesStart = labelEnd + 1;
+    const { settings, problems } = hasAttributes ? splitInfoSettings(this.text.slice(attributesStart, end - 1)) : { settings: [], problems: [] };
+    for (const p of problems) this.error('markup-invalid', `\`::${FIGURE_DIRECTIVE}\`: ${p.message}`, attributesStart + p.start, attributesStart + p.end);
+    const target = settings.find((s) => s.key === TARGET_ATTRIBUTE);
+    if (!target || target.value.trim() === '') {
+      this.error('markup-invalid', `\`::${FIGURE_DIRECTIVE}\` names no diagram, so nothing would be drawn: write ::${FIGURE_DIRECTIVE}{${TARGET_ATTRIBUTE}=ID} with the id of a \`${DIAGRAM_FENCE_LANGUAGE}\` block`, start, end);
+      return;
+    }
+    const figureSettings: FigureSetting[] = settings
+      .filter((s) => s !== target)
+      .map((s) => ({
+        key: s.key,
+        value: s.value,
+        locateKey: this.fixedLocator(attributesStart + s.keyStart, attributesStart + s.keyStart + s.key.length),
+        locateValue: this.fixedLocator(attributesStart + s.valueStart, attributesStart + s.valueEnd),
+      }));
+    const figure = this.figures.length;
+    this.figures.push({
+      target: target.value,
+      settings: figureSettings,
+      markup: `::${FIGURE_DIRECTIVE}`,
+      ...(title !== '' ? { title } : {}),
+      locate: this.fixedLocator(start, end),
+    });
+    // The figure is an HTML block in the built text, which runs on to the next blank line: keep the next line out of it.
+    const rest = this.text.slice(end, end + 2000);
+    const blankAfter = !/^[ \t]*(?:\r\n|\r|\n|$)(?:[ \t]*(?:\r\n|\r|\n|$)|$)/.test(rest);
+    this.edits.push({ start, end, replacement: { figure, blankAfter } });
+    this.actions.set(node, { kind: 'figure', figure });
+  }
+
+  /** `:drawing{…}` in a line of text, or `:::drawing`: a figure is a block of its own. */
+  private misplacedFigure(node: TextDirective | ContainerDirective): void {
+    const [start, end] = offsets(node);
+    const colons = node.type === 'textDirective' ? ':' : ':::';
+    this.error(
+      'markup-invalid',
+      `\`${colons}${FIGURE_DIRECTIVE}\` is not read as a figure: a figure is a leaf directive on a line of its own, ::${FIGURE_DIRECTIVE}[TITLE]{${TARGET_ATTRIBUTE}=ID}`,
+      start,
+      Math.min(end, start + colons.length + node.name.length),
+    );
   }
 
   /** ```skein,id=k or ```skeinid=k: meant as a diagram, but the info string's first word is not `skein`. */

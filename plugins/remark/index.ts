@@ -24,7 +24,8 @@ import { fillTree } from './fill-tree.ts';
 import type { ManuscriptSettings } from './front-matter.ts';
 import { SourceText } from './source-text.ts';
 import { keepMathApart, type Splice } from './splice.ts';
-import { typesetMarkdown } from './typeset-markdown.ts';
+import { figureMarkdown, typesetMarkdown } from './typeset-markdown.ts';
+import { drawFigure } from '../../src/core/manuscript/figure-entries.ts';
 import type { ComputeLimits } from '../../src/core/limits.ts';
 import type { ResultStore } from '../../src/core/cache/store.ts';
 
@@ -41,6 +42,11 @@ export interface SkeinproofOptions {
   readonly limits?: ComputeLimits;
   /** Where computed values are kept between runs (none by default). */
   readonly resultStore?: ResultStore;
+  /**
+   * Draw the figures (default true). A check sets it false: a figure's settings and diagram are still
+   * checked, but its geometry is computed only for a build.
+   */
+  readonly draw?: boolean;
 }
 
 export interface SkeinproofData {
@@ -52,6 +58,8 @@ export interface SkeinproofData {
   readonly manuscript: ExtractedManuscript;
   /** The build's text edits, by offsets into the file text as given (fill-ins that could not be computed stay as written). */
   readonly splices: readonly Splice[];
+  /** Where the splices that place a drawn figure start (offsets into the file text as given). */
+  readonly figureStarts: readonly number[];
 }
 
 declare module 'vfile' {
@@ -75,6 +83,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       diagrams: manuscript.diagrams,
       claims: manuscript.claims,
       fills: manuscript.fills,
+      figures: manuscript.figures,
       convention,
       strict,
       refused: manuscript.refusedIds,
@@ -83,23 +92,39 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       ...(options.limits ? { limits: options.limits } : {}),
       ...(options.resultStore ? { resultStore: options.resultStore } : {}),
     });
-    const diagnostics = [...manuscript.problems, ...session.diagnostics].sort(byPosition);
-    const failed = session.failed || manuscript.problems.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
+    const drawProblems: Diagnostic[] = [];
+    const figures = manuscript.figures.map((entry, k) => {
+      const placed = session.figures[k];
+      if (placed === undefined || options.draw === false) return undefined;
+      const drawn = drawFigure(placed, entry, 'svg');
+      if ('problem' in drawn) drawProblems.push(drawn.problem);
+      return 'text' in drawn ? figureMarkdown(drawn.text) : undefined;
+    });
+    const own = [...manuscript.problems, ...drawProblems];
+    const diagnostics = [...own, ...session.diagnostics].sort(byPosition);
+    const failed = session.failed || own.some((d) => d.severity === 'error' || (strict && d.severity === 'warning'));
     for (const d of diagnostics) reportOnFile(file, d);
     const splices: Splice[] = [];
+    const figureStarts: number[] = [];
     for (const edit of manuscript.edits) {
       const r = edit.replacement;
       const start = edit.start + bom;
       const end = edit.end + bom;
       if ('text' in r) splices.push({ start, end, text: r.text });
-      else {
+      else if ('figure' in r) {
+        const figure = figures[r.figure];
+        if (figure === undefined) continue;
+        const lineBreak = /^[ \t]*(\r\n|\r|\n)/.exec(raw.slice(end))?.[1] ?? '\n';
+        splices.push({ start, end, text: r.blankAfter ? `${figure}${lineBreak}` : figure });
+        figureStarts.push(start);
+      } else {
         const value = session.fills[r.fill];
         // An empty text is a table cell whose key does not apply to the row's diagram: it stays as written.
         if (value !== undefined && !(value.kind === 'text' && value.text === '')) splices.push({ start, end, text: typesetMarkdown(value, r.place) });
       }
     }
-    file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices: keepMathApart(raw, splices) };
-    if (options.fill !== false) fillTree(tree, manuscript.actions, session.fills);
+    file.data.skeinproof = { settings: manuscript.settings, convention, diagnostics, failed, session, manuscript, splices: keepMathApart(raw, splices), figureStarts };
+    if (options.fill !== false) fillTree(tree, manuscript.actions, session.fills, figures);
   };
 }
 

@@ -10,7 +10,9 @@
  * - a claim is the same directive with the author's value as its label:
  *   `:jones[$t+t^3-t^4$]{of=trefoil}`;
  * - a table of invariants is a GFM table inside a container directive
- *   `:::invariants` … `:::`, one diagram per row, one invariant per column.
+ *   `:::invariants` … `:::`, one diagram per row, one invariant per column;
+ * - a figure is a leaf directive on a line of its own, its title as the label:
+ *   `::drawing[The trefoil]{of=trefoil size=5cm arrows=yes}`.
  *
  * A directive is ours only when its name is one of the names below and it has
  * an `of` attribute (inline) or is the `invariants` container; every other
@@ -21,6 +23,8 @@ import type { Notation } from '../../src/core/diagram/model.ts';
 export const DIAGRAM_FENCE_LANGUAGE = 'skein';
 export const TABLE_DIRECTIVE = 'invariants';
 export const TARGET_ATTRIBUTE = 'of';
+/** The leaf directive that places the figure of a diagram (its settings: src/core/manuscript/figure-settings.ts). */
+export const FIGURE_DIRECTIVE = 'drawing';
 
 export { CLAIM_KEYS, FILL_KEYS, isClaimKey, isFillKey } from '../../src/core/claims/index.ts';
 

@@ -18,3 +18,15 @@ export function typesetMarkdown(value: Typeset, place: FillPlace): string {
     .join('');
   return place === 'empty-cell' ? ` ${safe} ` : safe;
 }
+
+/** The class of a figure's block, which the HTML page's sanitizer keeps. */
+export const FIGURE_CLASS = 'skein-drawing';
+
+/**
+ * A figure's SVG as one line of Markdown: an HTML block (`<figure` starts one, which runs to the next blank
+ * line), on one line so that it stays whole inside a list item or a block quote.
+ */
+export function figureMarkdown(svg: string): string {
+  const inline = svg.replace(/^\s*<\?xml[^>]*\?>/, '').replace(/\s*[\r\n]+\s*/g, ' ').trim();
+  return `<figure class="${FIGURE_CLASS}">${inline}</figure>`;
+}

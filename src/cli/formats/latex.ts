@@ -9,6 +9,7 @@ import { basename, extname } from 'node:path';
 import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import { runSession } from '../../core/manuscript/session.ts';
+import { drawFigure } from '../../core/manuscript/figure-entries.ts';
 import type { SessionResult } from '../../core/manuscript/api.ts';
 import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '../../../plugins/latex/reader.ts';
 import { flatText } from '../../../plugins/latex/flat.ts';
@@ -85,6 +86,7 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     claims: doc.claims,
     fills: doc.fills.map((f) => f.entry),
     khovanovGrids: doc.khovanovGrids,
+    figures: doc.figures.map((f) => f.entry),
     convention: { ...DEFAULT_CONVENTION, ...doc.convention, ...options.convention },
     ...(options.strict ? { strict: true } : {}),
     refused: doc.refusedIds,
@@ -128,11 +130,27 @@ export const latexFormat: ManuscriptFormat = {
     const refusal = outputRefusal(path, options);
     if (refusal) return { diagnostics: [refusal], outputs: [], inputs: [path], failed: true };
     const { doc, session, diagnostics, failed } = checkManuscript(path, options);
+    // The figures' geometry is computed only now, for the build.
+    const notes: Diagnostic[] = [];
+    const figures = doc.figures.map((figure, k) => {
+      const placed = session.figures[k];
+      if (placed === undefined) return undefined;
+      const drawn = drawFigure(placed, figure.entry, 'tikz');
+      if ('problem' in drawn) notes.push(drawn.problem);
+      return 'text' in drawn ? drawn.text : undefined;
+    });
     const output =
       options.output !== undefined
-        ? { path: options.output, content: flatText(doc, session.fills) }
-        : { path: sidecarPath(path), content: sidecarText(doc, session.fills) };
-    const notes: Diagnostic[] = [];
+        ? { path: options.output, content: flatText(doc, session.fills, figures) }
+        : { path: sidecarPath(path), content: sidecarText(doc, session.fills, figures) };
+    if (options.output !== undefined && doc.packageLoadedBy && figures.some((f) => f !== undefined) && !doc.tikzLoaded) {
+      notes.push({
+        severity: 'warning',
+        ruleId: 'latex-flat-needs-package',
+        message: `the flat copy draws its figures with TikZ, but the manuscript loads skeinproof from ${doc.packageLoadedBy.file}, where the flat copy cannot load tikz in its place: add \\usepackage{tikz} to the manuscript's preamble`,
+        location: doc.packageLoadedBy,
+      });
+    }
     if (options.output !== undefined && doc.packageLoadedBy) {
       notes.push({
         severity: 'warning',
@@ -141,7 +159,8 @@ export const latexFormat: ManuscriptFormat = {
         location: doc.packageLoadedBy,
       });
     }
-    return { diagnostics: [...diagnostics, ...notes], outputs: [output], inputs: inputsOf(doc), failed };
+    const drawFailed = notes.some((d) => d.severity === 'error');
+    return { diagnostics: [...diagnostics, ...notes], outputs: [output], inputs: inputsOf(doc), failed: failed || drawFailed };
   },
 };
 

@@ -33,7 +33,8 @@ interface CheckedText {
 
 type Checked = CheckedText | { readonly ok: false; readonly unreadable: Diagnostic };
 
-async function checkManuscript(path: string, options: FormatOptions): Promise<Checked> {
+/** `draw`: compute the figures' geometry (a build); a check only checks their settings and diagrams. */
+async function checkManuscript(path: string, options: FormatOptions, draw: boolean): Promise<Checked> {
   let bytes: Uint8Array;
   try {
     bytes = await readFile(path);
@@ -54,6 +55,7 @@ async function checkManuscript(path: string, options: FormatOptions): Promise<Ch
     .use(remarkDirective)
     .use(remarkSkeinproof, {
       fill: false,
+      draw,
       ...(options.convention ? { convention: options.convention } : {}),
       ...(options.strict ? { strict: true } : {}),
       ...(options.limits ? { limits: options.limits } : {}),
@@ -126,6 +128,12 @@ function contradictedSpans(checked: CheckedText): ContradictedSpan[] {
   });
 }
 
+/** Where each drawn figure's block starts in the filled-in text the page is made from. */
+function figureOffsets(checked: CheckedText): number[] {
+  const bom = checked.text.startsWith('\uFEFF') ? 1 : 0;
+  return checked.data.figureStarts.map((start) => filledRange(checked.data.splices, start, start + 1).start - bom);
+}
+
 /**
  * The longest line a Markdown manuscript may have. The Markdown parser
  * (micromark) is linear but slow and memory-hungry on some long lines: one
@@ -181,7 +189,7 @@ export const markdownFormat: ManuscriptFormat = {
   extensions: FORMAT_EXTENSIONS.markdown,
 
   async check(path, options): Promise<FormatResult> {
-    const checked = await checkManuscript(path, options);
+    const checked = await checkManuscript(path, options, false);
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
     return { diagnostics: checked.diagnostics, outputs: [], inputs: [path], failed: checked.failed, counts: checked.data.session.counts };
   },
@@ -191,7 +199,7 @@ export const markdownFormat: ManuscriptFormat = {
       const message = `${path} is Markdown, and -o ${options.output} would put Markdown under a LaTeX name: give the output a Markdown name (.md) or an HTML one (.html)`;
       return { diagnostics: [{ severity: 'error', ruleId: 'output-unsupported', message }], outputs: [], inputs: [path], failed: true };
     }
-    const checked = await checkManuscript(path, options);
+    const checked = await checkManuscript(path, options, true);
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
     const { data, filled, diagnostics, failed } = checked;
     const output = options.output ?? defaultOutputPath(path, isHtmlBuild(options));
@@ -205,6 +213,7 @@ export const markdownFormat: ManuscriptFormat = {
       ...(data.settings.notation ? { defaultNotation: data.settings.notation } : {}),
       // Only a build written despite a failed check has contradicted values to mark.
       contradicted: contradictedSpans(checked),
+      figures: figureOffsets(checked),
     });
     const outputs: OutputFile[] = [{ path: output, content: page.html }];
     return { diagnostics, outputs, inputs: [path], failed };

@@ -9,7 +9,8 @@
  * script, event handler, script URL, form or refresh survives, whatever
  * policy a site that copies the page applies.
  */
-import type { Element, Root as HastRoot } from 'hast';
+import type { Element, ElementContent, Root as HastRoot } from 'hast';
+import { fromHtml } from 'hast-util-from-html';
 import type { Html, Nodes, Parent, Root, RootContent, Text } from 'mdast';
 import rehypeKatex from 'rehype-katex';
 import rehypeRaw from 'rehype-raw';
@@ -29,6 +30,7 @@ import { parse as parseYaml } from 'yaml';
 import { inlinedKatexCss } from './katex-assets.ts';
 import { KATEX_OPTIONS } from './math-problems.ts';
 import { PAGE_SCHEMA } from './sanitize-schema.ts';
+import { NOTATION_NOUNS } from '../../core/notation/nouns.ts';
 
 export interface PageOptions {
   readonly title: string;
@@ -42,6 +44,11 @@ export interface PageOptions {
    * on the page: a page is only written with them under --force-write.
    */
   readonly contradicted?: readonly ContradictedSpan[];
+  /**
+   * Where the build placed a drawn figure (offsets of its HTML block in the Markdown given): those blocks,
+   * and no raw HTML the author wrote, are parsed into the page (and sanitized like everything else).
+   */
+  readonly figures?: readonly number[];
 }
 
 export interface ContradictedSpan {
@@ -72,6 +79,8 @@ div.skein-force-written{border:2px solid #b3261e;background:#fde2e0;padding:.5re
 figure.skein-diagram{margin:1rem 0}
 figure.skein-diagram figcaption{font-size:.85em;color:#55554f}
 figure.skein-diagram pre{margin:.2rem 0 0}
+figure.skein-drawing{margin:1rem 0;text-align:center}
+figure.skein-drawing svg{max-width:100%;height:auto}
 code{font-size:.92em}`;
 
 // form-action and base-uri are not covered by default-src: forms must not submit, and no <base> may redirect links.
@@ -91,6 +100,7 @@ export async function renderHtmlPage(markdown: string, options: PageOptions): Pr
       const yamlNode = tree.children.find((n) => n.type === 'yaml');
       if (yamlNode) front = frontMatterOf(yamlNode.value);
       tree.children = tree.children.filter((n) => n.type !== 'yaml');
+      if (options.figures && options.figures.length > 0) placeFigures(tree, new Set(options.figures));
       if (!allow) {
         visit(tree, 'html', (node: Html, index, parent) => {
           if (parent && index !== undefined) parent.children[index] = { type: 'text', value: node.value } satisfies Text as never;
@@ -151,7 +161,22 @@ const diagramFigure = (defaultNotation: string | undefined): CodeHandler => (sta
   return figure;
 };
 
-const NOTATION_CAPTIONS: Readonly<Record<string, string>> = { pd: 'PD code', dt: 'DT code', gauss: 'Gauss code', braid: 'braid word' };
+const NOTATION_CAPTIONS: Readonly<Record<string, string>> = { pd: NOTATION_NOUNS.pd, dt: NOTATION_NOUNS.dt, gauss: NOTATION_NOUNS.gauss, braid: NOTATION_NOUNS.braid };
+
+/**
+ * The HTML blocks the build wrote for figures become the figure's elements. Only blocks at the given offsets
+ * are parsed: raw HTML of the author's is still shown as text unless --allow-html is given.
+ */
+function placeFigures(tree: Root, at: ReadonlySet<number>): void {
+  visit(tree, 'html', (node: Html, index, parent) => {
+    const start = node.position?.start.offset;
+    if (!parent || index === undefined || start === undefined || !at.has(start)) return;
+    const figure = fromHtml(node.value, { fragment: true }).children.find((c): c is Element => c.type === 'element' && c.tagName === 'figure');
+    if (!figure) return;
+    const drawn = { type: 'skeinFigure', data: { hName: 'figure', hProperties: figure.properties, hChildren: figure.children as ElementContent[] } };
+    parent.children[index] = drawn as unknown as RootContent;
+  });
+}
 
 /** The sanitizer prefixes every id (against DOM clobbering); links to a fragment on the page follow the prefix. */
 const CLOBBER_PREFIX = 'user-content-';

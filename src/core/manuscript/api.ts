@@ -13,6 +13,9 @@ import type { DiagramReport } from '../analyze/report.ts';
 import type { ComputeLimits } from '../limits.ts';
 import type { ResultStore } from '../cache/store.ts';
 import type { GridCell, GridRange } from '../claims/khovanov-grid.ts';
+import type { LinkDiagram } from '../diagram/model.ts';
+import type { FigureOptions } from '../drawing/index.ts';
+import type { FigureSetting } from './figure-settings.ts';
 
 /** Maps a span inside an entry's text (or the whole entry, when absent) to the file. */
 export type Locator = (span?: TextSpan) => SourceLocation;
@@ -88,11 +91,37 @@ export interface KhovanovGridEntry {
   readonly context: string;
 }
 
+/** A figure of a named diagram, drawn from its code where the manuscript places it. */
+export interface FigureEntry {
+  readonly target: string;
+  /** The figure's settings as written (size, line-width, …), each with its place. */
+  readonly settings: readonly FigureSetting[];
+  /** The markup's name in messages (`::drawing`, `\skeindrawing`). */
+  readonly markup: string;
+  /** The figure's title as the author wrote it (the Markdown label), if any. */
+  readonly title?: string;
+  readonly locate: Locator;
+}
+
+/**
+ * What a front end needs to draw a figure when it builds: the diagram and the options read from the
+ * settings. The geometry itself is computed only then (`drawDiagram`), never by a check.
+ */
+export interface PlacedFigure {
+  readonly diagram: LinkDiagram;
+  readonly options: FigureOptions;
+  /** For the picture's title and description (accessibility, the TikZ comment). */
+  readonly title: string;
+  readonly description: string;
+}
+
 export interface SessionInput {
   readonly diagrams: readonly DiagramEntry[];
   readonly claims: readonly ClaimEntry[];
   readonly fills: readonly FillEntry[];
   readonly khovanovGrids?: readonly KhovanovGridEntry[];
+  /** Figures placed in the manuscript (none when absent). */
+  readonly figures?: readonly FigureEntry[];
   readonly convention: Convention;
   /** Warnings count as failures. */
   readonly strict?: boolean;
@@ -132,6 +161,8 @@ export interface SessionResult {
   readonly diagnostics: readonly Diagnostic[];
   /** The typeset value for each fill-in, in the order given (undefined where it could not be computed). */
   readonly fills: readonly (Typeset | undefined)[];
+  /** For each figure entry, in the order given, what to draw (undefined where its diagram or settings are at fault). */
+  readonly figures: readonly (PlacedFigure | undefined)[];
   /** The analysed diagrams by id (invalid codes are absent). */
   readonly reports: ReadonlyMap<string, DiagramReport>;
   /** True when an error (or, under strict, a warning) was reported. */

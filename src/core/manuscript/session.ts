@@ -7,7 +7,8 @@
  *    error inside the code;
  * 2. every claim is judged against its diagram's report (unknown targets and
  *    unreadable values are located errors);
- * 3. every fill-in is typeset in the document's convention;
+ * 3. every fill-in is typeset in the document's convention, and every figure's settings are read and its
+ *    diagram handed back for the build to draw (./figure-entries.ts);
  * 4. what was checked is counted, and a manuscript without any markup gets a warning.
  *
  * It only sees entries, locators and a convention, never a file format, and
@@ -37,7 +38,8 @@ import { parseDiagramCode, readPartSigns } from '../notation/index.ts';
 import { gridCellFill, gridOmissionDiagnostic } from '../claims/khovanov-grid.ts';
 import { buildParametric, judgeParametricClaim, parametricFill } from './parametric-entries.ts';
 import type { ParametricDiagram } from '../parametric/parametric.ts';
-import type { ClaimEntry, DiagramEntry, Locator, SessionCounts, SessionInput, SessionResult } from './api.ts';
+import { placeFigure } from './figure-entries.ts';
+import type { ClaimEntry, DiagramEntry, Locator, PlacedFigure, SessionCounts, SessionInput, SessionResult } from './api.ts';
 
 export function runSession(input: SessionInput): SessionResult {
   const diagnostics: Diagnostic[] = [];
@@ -269,7 +271,15 @@ export function runSession(input: SessionInput): SessionResult {
     }
   });
 
-  const unmarked = input.diagrams.length + input.claims.length + input.fills.length === 0 && !input.markupFound && (input.refused?.size ?? 0) === 0;
+  const figureContext = {
+    reports,
+    diagrams: input.diagrams,
+    parametric: new Set(parametric.keys()),
+    missing: (target: string, locate: Locator, subject: string) => missing(target, locate, subject, 'drawn', false),
+  };
+  const figures: (PlacedFigure | undefined)[] = (input.figures ?? []).map((entry) => placeFigure(entry, figureContext, diagnostics));
+
+  const unmarked = input.diagrams.length + input.claims.length + input.fills.length + (input.figures?.length ?? 0) === 0 && !input.markupFound && (input.refused?.size ?? 0) === 0;
   if (unmarked) {
     diagnostics.push({
       severity: 'warning',
@@ -283,7 +293,7 @@ export function runSession(input: SessionInput): SessionResult {
   const ordered = diagnostics.map((d, i) => ({ d, i })).sort((a, b) => compareLocations(a.d.location, b.d.location) || a.i - b.i).map((x) => x.d);
   const failed = ordered.some((d) => d.severity === 'error' || (input.strict === true && d.severity === 'warning'));
   counts.diagrams = reports.size; // diagrams an engine refused on first use are no longer among them
-  return { diagnostics: ordered, fills, reports, failed, counts };
+  return { diagnostics: ordered, fills, figures, reports, failed, counts };
 }
 
 /**
