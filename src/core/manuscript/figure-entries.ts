@@ -4,10 +4,9 @@
  * builds. Nothing here computes geometry, so a check stays as fast with figures as without.
  */
 import type { DiagramReport } from '../analyze/report.ts';
-import { faceStructure } from '../diagram/faces.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import type { Diagnostic } from '../diagnostics/diagnostic.ts';
-import { drawDiagram, figureSvg, figureTikz } from '../drawing/index.ts';
+import { drawDiagram, figureSvg, figureTikz, type FigureOptions } from '../drawing/index.ts';
 import { isInputError } from '../errors.ts';
 import { NOTATION_NOUNS } from '../notation/nouns.ts';
 import { FIGURE_OPTION_INVALID, readFigureSettings } from './figure-settings.ts';
@@ -42,28 +41,21 @@ export function placeFigure(entry: FigureEntry, context: FigureContext, diagnost
     return undefined;
   }
   const diagram = report.diagram;
-  if (options.outerFace !== undefined) {
-    const faces = faceCount(diagram);
-    if (options.outerFace >= faces) {
-      const setting = entry.settings.find((s) => s.key === 'outer-face')!;
-      diagnostics.push({
-        severity: 'error',
-        ruleId: FIGURE_OPTION_INVALID,
-        message: `${entry.markup} of \`${entry.target}\`: outer-face=${options.outerFace + 1}, but the diagram has ${faces} face${faces === 1 ? '' : 's'}`,
-        location: setting.locateValue(),
-        hints: [`Write a face number from 1 to ${faces}, or leave outer-face out to have the largest face outside.`],
-      });
-      return undefined;
-    }
+  if (options.outerFace !== undefined && options.outerFace > diagram.edgeCount) {
+    const setting = entry.settings.find((s) => s.key === 'outer-face')!;
+    const edges = diagram.edgeCount;
+    diagnostics.push({
+      severity: 'error',
+      ruleId: FIGURE_OPTION_INVALID,
+      message: `${entry.markup} of \`${entry.target}\`: outer-face=${options.outerFace} names edge ${options.outerFace}, but the diagram has ${edges === 0 ? 'no edges' : `${edges} edge${edges === 1 ? '' : 's'}`}`,
+      location: setting.locateValue(),
+      hints: [edges === 0 ? 'Leave outer-face out: a diagram without crossings has only one way to be drawn.' : `Write an edge number from 1 to ${edges} (labels=edges shows them), or leave outer-face out to have the largest face outside.`],
+    });
+    return undefined;
   }
   if (problems.length > 0) return undefined;
   const source = context.diagrams.find((d) => d.id === entry.target);
   return { diagram, options, title: entry.title ?? `Diagram ${entry.target}`, description: describe(entry.target, diagram, source) };
-}
-
-/** The faces of the projection (a crossingless diagram has none to choose among). */
-function faceCount(d: LinkDiagram): number {
-  return d.crossings.length === 0 ? 0 : faceStructure(d).faceCount;
 }
 
 /** One sentence for the picture's description: which diagram, from which code, how big. */
@@ -86,7 +78,7 @@ function oneLine(code: string): string {
  */
 export function drawFigure(placed: PlacedFigure, entry: FigureEntry, format: 'svg' | 'tikz'): { readonly text: string } | { readonly problem: Diagnostic } {
   try {
-    const drawing = drawDiagram(placed.diagram, placed.options);
+    const drawing = drawDiagram(placed.diagram, inOutputUnits(placed.options, format));
     const meta = { title: placed.title, description: placed.description };
     return { text: format === 'svg' ? figureSvg(drawing, meta) : figureTikz(drawing, meta) };
   } catch (e) {
@@ -100,4 +92,14 @@ export function drawFigure(placed: PlacedFigure, entry: FigureEntry, format: 'sv
     };
     return { problem };
   }
+}
+
+/** The drawing's lengths are in px for SVG (96 to the inch) and in TeX points for TikZ (72.27 to the inch); settings are read in bp (72 to the inch). */
+const UNITS_PER_BP = { svg: 96 / 72, tikz: 72.27 / 72 } as const;
+
+function inOutputUnits(options: FigureOptions, format: 'svg' | 'tikz'): FigureOptions {
+  const scale = (x: number | undefined): number | undefined => (x === undefined ? undefined : Math.round(x * UNITS_PER_BP[format] * 1000) / 1000);
+  const scaled = { size: scale(options.size), lineWidth: scale(options.lineWidth), gap: scale(options.gap) };
+  const lengths = Object.fromEntries(Object.entries(scaled).filter(([, v]) => v !== undefined));
+  return { ...options, ...lengths };
 }

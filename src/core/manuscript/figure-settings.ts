@@ -17,7 +17,7 @@ export interface FigureSetting {
   readonly locateValue: Locator;
 }
 
-/** A length unit and its size in big points (1/72 in), the unit of FigureOptions' lengths. */
+/** A length unit and its size in big points (1/72 in): lengths are read in bp and converted for each output (drawFigure). */
 const LENGTH_UNITS: Readonly<Record<string, number>> = {
   bp: 1,
   pt: 72 / 72.27, // TeX's point
@@ -34,11 +34,14 @@ const LABELS = ['none', 'crossings', 'edges', 'both'] as const;
 
 type Reader = (value: string) => { readonly value: FigureOptions[keyof FigureOptions] } | { readonly problem: string };
 
-/** The smallest and largest lengths (in bp) worth drawing: below, nothing shows; above, no page holds it. */
+/**
+ * The smallest and largest lengths (in bp) taken: a figure below 20bp shows nothing, and the drawing takes
+ * at most 10,000 of its units (px or pt) on its longer side.
+ */
 const LENGTH_RANGES: Readonly<Record<string, readonly [number, number]>> = {
-  size: [10, 2000],
-  'line-width': [0.05, 20],
-  gap: [0, 50],
+  size: [20, 5000],
+  'line-width': [0.05, 50],
+  gap: [0, 100],
 };
 
 const SETTINGS: Readonly<Record<string, { readonly field: keyof FigureOptions; readonly read: Reader; readonly example: string }>> = {
@@ -48,7 +51,7 @@ const SETTINGS: Readonly<Record<string, { readonly field: keyof FigureOptions; r
   arrows: { field: 'arrows', read: yesNo, example: 'arrows=yes' },
   colours: { field: 'colours', read: yesNo, example: 'colours=yes' },
   labels: { field: 'labels', read: labels, example: 'labels=crossings' },
-  'outer-face': { field: 'outerFace', read: faceNumber, example: 'outer-face=2' },
+  'outer-face': { field: 'outerFace', read: edgeNumber, example: 'outer-face=2' },
 };
 
 /** The setting names, in the order the README lists them. */
@@ -114,10 +117,10 @@ function labels(value: string): ReturnType<Reader> {
   return (LABELS as readonly string[]).includes(v) ? { value: v as FigureOptions['labels'] } : { problem: `labels=${value}: write one of ${LABELS.join(', ')}` };
 }
 
-/** The author counts faces from 1; the drawing core from 0. */
-function faceNumber(value: string): ReturnType<Reader> {
-  if (!/^\d+$/.test(value) || Number(value) < 1) return { problem: `outer-face=${value} is not a face number: faces are counted from 1` };
-  return { value: Number(value) - 1 };
+/** The outer face is named by an edge on its boundary (the face on the edge's left), numbered from 1 as labels=edges shows them. */
+function edgeNumber(value: string): ReturnType<Reader> {
+  if (!/^\d+$/.test(value) || Number(value) < 1) return { problem: `outer-face=${value} is not an edge number: write the number of an edge (from 1, as labels=edges shows them) whose left side is to be outside` };
+  return { value: Number(value) };
 }
 
 function shown(x: number): string {
