@@ -33,10 +33,10 @@ function session(doc: LatexDocument) {
 }
 
 const TREFOIL = '\\begin{skeincode}{id=trefoil, notation=braid}\n1 1 1\n\\end{skeincode}\n';
-const FIGURE_EIGHT = '\\begin{skeincode}{id=eight, notation=braid}\n1 -2 1 -2\n\\end{skeincode}\n';
+const CINQUEFOIL = '\\begin{skeincode}{id=cinquefoil, notation=family}\ntorus 2 5\n\\end{skeincode}\n';
 
 function paper(body: string, preamble = ''): string {
-  return `\\documentclass{article}\n\\usepackage{skeinproof}\n${preamble}\\begin{document}\n${TREFOIL}${FIGURE_EIGHT}${body}\\end{document}\n`;
+  return `\\documentclass{article}\n\\usepackage{skeinproof}\n${preamble}\\begin{document}\n${TREFOIL}${CINQUEFOIL}${body}\\end{document}\n`;
 }
 
 const line = (text: string, needle: string): string => {
@@ -47,11 +47,11 @@ const line = (text: string, needle: string): string => {
 
 describe('the reader and the session', () => {
   it('find each figure with its settings as written, and read them', () => {
-    const doc = read(paper('\\begin{figure}\\centering\n\\skeindrawing[size=4cm, arrows=yes]{trefoil}\n\\caption{The trefoil.}\n\\end{figure}\n\\skeindrawing{eight}\n'));
+    const doc = read(paper('\\begin{figure}\\centering\n\\skeindrawing[size=4cm, arrows=yes]{trefoil}\n\\caption{The trefoil.}\n\\end{figure}\n\\skeindrawing{cinquefoil}\n'));
     expect(doc.diagnostics).toEqual([]);
     expect(doc.figures.map((f) => [f.id, f.settingsText])).toEqual([
       ['trefoil', 'size=4cm, arrows=yes'],
-      ['eight', ''],
+      ['cinquefoil', ''],
     ]);
     const s = session(doc);
     expect(s.diagnostics).toEqual([]);
@@ -82,7 +82,7 @@ describe.skipIf(!hasPdflatex)('the builds under pdflatex', () => {
   const BODY =
     'Two figures drawn from the codes above.\n' +
     '\\begin{figure}[h]\\centering\n\\skeindrawing[size=4cm, arrows=yes, colours=yes]{trefoil}\\qquad\n' +
-    '\\skeindrawing[size=4cm, labels=crossings]{eight}\n\\caption{A trefoil and a figure-eight knot.}\n\\end{figure}\n';
+    '\\skeindrawing[size=4cm, labels=crossings]{cinquefoil}\n\\caption{A trefoil and a cinquefoil.}\n\\end{figure}\n';
 
   function workDir(name: string): string {
     const dir = tempDir(name);
@@ -114,7 +114,7 @@ describe.skipIf(!hasPdflatex)('the builds under pdflatex', () => {
     expect(after.ok, after.log.slice(-2000)).toBe(true);
     expect(packageWarnings(after.log, 'skeinproof')).toEqual([]);
     expect(after.text).not.toContain('??');
-    expect(after.text).toContain('A trefoil and a figure-eight knot.');
+    expect(after.text).toContain('A trefoil and a cinquefoil.');
     render(dir, 'paper.pdf', 'figures-sidecar.png');
   });
 
@@ -130,7 +130,7 @@ describe.skipIf(!hasPdflatex)('the builds under pdflatex', () => {
     writeFileSync(join(dir, 'flat.tex'), flat);
     const run = pdflatex(dir, 'flat.tex');
     expect(run.ok, run.log.slice(-2000)).toBe(true);
-    expect(run.text).toContain('A trefoil and a figure-eight knot.');
+    expect(run.text).toContain('A trefoil and a cinquefoil.');
     render(dir, 'flat.pdf', 'figures-flat.png');
   });
 

@@ -96,10 +96,10 @@ describe('the settings', () => {
 
 describe('the markup', () => {
   it('names its diagram: an unknown id is the usual unknown target, with the nearest id', async () => {
-    const text = `${TREFOIL}\n::drawing{of=kk}\n`;
+    const text = '```skein id=trefoil notation=braid\n1 1 1\n```\n\n::drawing{of=trefoli}\n';
     const r = await processMarkdown(text, { draw: false });
     expect(placed(r.diagnostics)).toEqual([`error target-unknown ${positionOf(text, '::drawing')}`]);
-    expect(r.diagnostics[0]!.hints?.[0]).toBe('Did you mean `k`?');
+    expect(r.diagnostics[0]!.hints?.[0]).toBe('Did you mean `trefoil`?');
   });
 
   it('refuses a drawing without a diagram, inline in a sentence, or as a container', async () => {

@@ -2,8 +2,9 @@
  * What the page keeps of its HTML: rehype-sanitize's default (GitHub-style)
  * schema, which drops every script, event handler, script URL and unknown
  * element, plus exactly the markup KaTeX writes (MathML, its spans with inline
- * styles, and the SVG of stretchy accents and roots) and our own figures,
- * table containers and contradiction marks.
+ * styles, and the SVG of stretchy accents and roots), the SVG of the
+ * figures drawn from diagram codes, and our own figures, table containers and
+ * contradiction marks.
  */
 import { defaultSchema, type Options as Schema } from 'rehype-sanitize';
 
@@ -45,18 +46,32 @@ const SVG: Readonly<Record<string, readonly string[]>> = {
   line: ['x1', 'x2', 'y1', 'y2', 'strokeWidth'],
 };
 
+/**
+ * The SVG of a figure drawn from a diagram code (src/core/drawing/svg.ts): paths with presentation attributes,
+ * a title and description, and text labels. No style, id, link or script attribute is among them.
+ */
+const FIGURE_SVG: Readonly<Record<string, readonly (string | [string, ...string[]])[]>> = {
+  svg: [['role', 'img']],
+  title: [],
+  desc: [],
+  g: ['fill', 'strokeWidth', 'strokeLineCap', 'strokeLineJoin', 'fontFamily', 'fontSize', 'textAnchor', 'dominantBaseline'],
+  path: ['stroke', 'fill'],
+  text: ['x', 'y', 'fill'],
+};
+
 const defaults = defaultSchema.attributes ?? {};
 
 export const PAGE_SCHEMA: Schema = {
   ...defaultSchema,
-  tagNames: [...(defaultSchema.tagNames ?? []), ...Object.keys(MATHML), ...Object.keys(SVG), 'figure', 'figcaption', 'header', 'mark'],
+  tagNames: [...new Set([...(defaultSchema.tagNames ?? []), ...Object.keys(MATHML), ...Object.keys(SVG), ...Object.keys(FIGURE_SVG), 'figure', 'figcaption', 'header', 'mark'])],
   attributes: {
     ...defaults,
     ...Object.fromEntries(Object.entries({ ...MATHML, ...SVG }).map(([tag, names]) => [tag, [...names]])),
+    ...Object.fromEntries(Object.entries(FIGURE_SVG).map(([tag, names]) => [tag, [...(SVG[tag] ?? []), ...names]])),
     // KaTeX positions every glyph with inline styles; a style attribute runs no script.
     span: [...(defaults['span'] ?? []), 'className', 'style', 'ariaHidden'],
     div: [...(defaults['div'] ?? []), ['className', 'table-scroll', 'skein-force-written']],
-    figure: [['className', 'skein-diagram']],
+    figure: [['className', 'skein-diagram', 'skein-drawing']],
     header: [['className', 'skein-front']],
     p: [['className', 'skein-author', 'skein-date']],
     mark: [['className', 'skein-contradicted']],
