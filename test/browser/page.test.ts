@@ -66,6 +66,39 @@ describe.skipIf(!available)('the HTML page in chromium', () => {
     await page.close();
   }, 30_000);
 
+  it('draws the figures the build placed: SVG that survived the sanitizer, laid out with strokes inside the picture', async () => {
+    const path = await buildPage(join(ROOT, 'samples/twists-and-weaves.md'), 'twists-and-weaves.html');
+    const page = await browser!.newPage();
+    await page.goto(pathToFileURL(path).href);
+    const figures = page.locator('figure.skein-drawing svg');
+    expect(await figures.count()).toBe(2);
+    // The browser's own geometry: each stroke lies inside its picture's box, and the picture has a size.
+    const boxes = await page.$$eval('figure.skein-drawing svg', (svgs) =>
+      svgs.map((svg) => {
+        const frame = svg.getBoundingClientRect();
+        const strokes = [...svg.querySelectorAll('path')].map((p) => p.getBoundingClientRect());
+        const inside = strokes.every((r) => r.left >= frame.left - 1 && r.right <= frame.right + 1 && r.top >= frame.top - 1 && r.bottom <= frame.bottom + 1);
+        return { width: frame.width, height: frame.height, strokes: strokes.length, inside, title: svg.querySelector('title')?.textContent ?? '' };
+      }),
+    );
+    expect(boxes.map((b) => b.title)).toEqual(['The two-component twist T2, oriented, one colour per component', 'The twist T5 with numbered crossings']);
+    for (const b of boxes) {
+      expect(b.width).toBeGreaterThan(100);
+      expect(b.height).toBeGreaterThan(100);
+      expect(b.strokes).toBeGreaterThan(2);
+      expect(b.inside).toBe(true);
+    }
+    // Labels=crossings on T5: one number per crossing of the braid word 1 1 1 1 1.
+    expect(await page.$$eval('figure.skein-drawing svg text', (t) => t.map((n) => n.textContent))).toEqual(['1', '2', '3', '4', '5']);
+    const section = await page.evaluate(() => {
+      const h = [...document.querySelectorAll('h2')].find((e) => e.textContent === 'Pictures')!;
+      const r = h.getBoundingClientRect();
+      return { y: r.top + window.scrollY, bottom: document.documentElement.scrollHeight };
+    });
+    await page.screenshot({ path: join(ARTIFACTS, 'figures-page.png'), fullPage: true, clip: { x: 0, y: section.y, width: 1280, height: Math.min(900, section.bottom - section.y) } });
+    await page.close();
+  }, 30_000);
+
   it('shows raw HTML as text unless allowed', async () => {
     const sample = join(ARTIFACTS, 'raw-html.md');
     mkdirSync(ARTIFACTS, { recursive: true });
