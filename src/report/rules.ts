@@ -61,7 +61,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'latex-convention-misplaced', description: '\\skeinconvention comes after \\begin{document} or before \\usepackage{skeinproof}, where LaTeX does not accept it.' },
   { id: 'latex-macro-parameter', description: 'A LaTeX fill-in or claim takes its arguments from the parameters of a macro that skeinproof cannot expand (delimited \\def parameters, other argument types), so it is not checked or filled at the uses.' },
   { id: 'latex-package-unseen', description: 'A LaTeX document with skeinproof markup loads the package nowhere skeinproof reads, so the default convention is assumed.' },
-  { id: 'latex-flat-needs-package', description: 'The flat copy of a LaTeX manuscript still loads a package or class of the author\'s that loads skeinproof.' },
+  { id: 'latex-flat-needs-package', description: 'The flat copy of a LaTeX manuscript still loads a package or class of the author\'s that loads skeinproof (or draws figures with TikZ that nothing in it loads).' },
   { id: 'latex-macro-loop', description: 'Expanding an author\'s LaTeX macro never ends (a macro that uses itself) or grows beyond the expansion limit.' },
 ];
 
