@@ -139,11 +139,24 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
     const run = pdflatex(dir, 'rope-atlas.tex');
     expect(run.ok).toBe(true);
     const { doc } = computedValues(join(dir, 'rope-atlas.tex'));
-    const expected = doc.fills.map((f) =>
-      f.target.kind === 'macro'
-        ? `Value \`${f.target.key}' of \`${f.target.id}' is not computed yet`
-        : `Value \`${f.entry.key}' of row ${f.target.row} of skein table ${f.target.table} is not computed yet`,
-    );
+    const values = doc.fills.map((f) => ({
+      at: f.entry.locate(),
+      warning:
+        f.target.kind === 'macro'
+          ? `Value \`${f.target.key}' of \`${f.target.id}' is not computed yet`
+          : `Value \`${f.entry.key}' of row ${f.target.row} of skein table ${f.target.table} is not computed yet`,
+    }));
+    const figures = doc.figures.map((f) => ({ at: f.entry.locate(), warning: `Value \`figure' of \`${f.id}' is not computed yet` }));
+    // In the order TeX meets them: what an included file holds comes where the paper \input s it.
+    const inMain = (at: { file: string; start: { offset?: number } }): [number, number] => {
+      if (at.file === doc.main.displayPath) return [at.start.offset!, 0];
+      const stem = at.file.slice(at.file.indexOf('sections/')).replace(/\.tex$/, '');
+      return [doc.main.text.indexOf(`\\input{${stem}}`), at.start.offset!];
+    };
+    const expected = [...values, ...figures]
+      .map((x) => ({ ...x, rank: inMain(x.at) }))
+      .sort((a, b) => a.rank[0] - b.rank[0] || a.rank[1] - b.rank[1])
+      .map((x) => x.warning);
     const warnings = packageWarnings(run.log, 'skeinproof');
     const perValue = warnings.filter((w) => w.startsWith('Value'));
     expect(perValue.map((w) => w.replace(/ on input line \d+\.$/, ''))).toEqual(expected);
