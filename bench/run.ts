@@ -5,6 +5,8 @@
  * its answer against something independent, so a fast wrong engine shows up.
  */
 import os from 'node:os';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
 import { closeBraid } from '../src/core/diagram/braid-closure.ts';
 import { componentCount, writhe, type LinkDiagram, type Notation } from '../src/core/diagram/model.ts';
 import { connectedSum } from '../src/core/diagram/operations.ts';
@@ -16,6 +18,11 @@ import { Laurent } from '../src/core/poly/laurent.ts';
 import { randomAlternatingBraidWord, randomBraidWord, rng, shuffleDiagram } from '../test/support/random-diagrams.ts';
 
 type Parser = (text: string, notation: Notation) => LinkDiagram;
+
+// The command lines the benchmarks spawn keep their disk cache in a temporary directory, never the user's.
+const benchCache = mkdtempSync(join(os.tmpdir(), 'skeinproof-bench-cache-'));
+process.env['SKEINPROOF_CACHE_DIR'] = benchCache;
+process.on('exit', () => rmSync(benchCache, { recursive: true, force: true }));
 
 interface Row {
   family: string;
@@ -181,5 +188,6 @@ await main();
 await import('./classical.ts').then((classical) => classical.runClassicalBench());
 await import('./khovanov.ts').then((khovanov) => khovanov.runKhovanovBench());
 await import('./speed.ts').then((speed) => speed.runSpeedBench());
+await import('./cache.ts').then((cache) => cache.runCacheBench());
 await import('./skein-polynomials.ts').then((skein) => skein.runSkeinPolynomialBench());
 await import('./arf.ts').then((arf) => arf.runArfBench());
