@@ -14,8 +14,10 @@ import { randomBraidWord, rng } from '../support/random-diagrams.ts';
 const work = mkdtempSync(join(tmpdir(), 'skeinproof-batch-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-function batch(args: readonly string[], input?: string) {
-  return spawnSync(process.execPath, [join(ROOT, 'bin', 'skeinproof.js'), 'batch', ...args], { cwd: work, encoding: 'utf8', input, timeout: 60_000 });
+/** `poolAtOnce` starts the worker pool at the first line (normally small runs stay in one thread), so the pool is what is tested. */
+function batch(args: readonly string[], input?: string, poolAtOnce = false) {
+  const env = { ...process.env, ...(poolAtOnce ? { SKEINPROOF_POOL_AFTER_MS: '0' } : {}) };
+  return spawnSync(process.execPath, [join(ROOT, 'bin', 'skeinproof.js'), 'batch', ...args], { cwd: work, encoding: 'utf8', input, env, timeout: 60_000 });
 }
 
 const random = rng(2024);
@@ -31,7 +33,8 @@ writeFileSync(inputPath, `${lines.join('\n')}\n`);
 
 describe('batch', () => {
   const one = batch([inputPath, '--jobs', '1']);
-  const two = batch([inputPath, '--jobs', '2']);
+  const two = batch([inputPath, '--jobs', '2'], undefined, true);
+  const three = batch([inputPath, '--jobs', '3'], undefined, true);
 
   it('prints one line per input line, in input order, each led by its id', () => {
     const out = one.stdout.trim().split('\n').map((l) => JSON.parse(l) as Record<string, unknown>);
@@ -49,9 +52,10 @@ describe('batch', () => {
     expect(one.status).toBe(2);
   });
 
-  it('is byte-identical with one worker and with two', () => {
+  it('is byte-identical with one thread and with a pool of one or two workers', () => {
     expect(two.status).toBe(one.status);
     expect(two.stdout).toBe(one.stdout);
+    expect(three.stdout).toBe(one.stdout);
   });
 
   it('reads standard input', () => {
@@ -63,7 +67,7 @@ describe('batch', () => {
     const full = one.stdout;
     const cut = full.indexOf('\n', Math.floor(full.length / 2)) + 25; // a complete half and a torn line
     writeFileSync(partial, full.slice(0, cut));
-    const resumed = batch([inputPath, '--jobs', '2', '--resume', partial]);
+    const resumed = batch([inputPath, '--jobs', '2', '--resume', partial], undefined, true);
     expect(resumed.stdout).toBe('');
     expect(readFileSync(partial, 'utf8')).toBe(full);
     // Resuming a finished output computes nothing and changes nothing.

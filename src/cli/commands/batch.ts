@@ -11,7 +11,7 @@ import type { Argv } from 'yargs';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import { batchOutputLine } from '../batch-line.ts';
-import { computeInOrder, type BatchTask } from '../batch-pool.ts';
+import { computeBatch, type BatchTask } from '../batch-pool.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 import { availableParallelism } from 'node:os';
@@ -99,7 +99,7 @@ export const batchCommand: CliCommand = {
     limitOptions(y)
       .positional('input', { type: 'string', default: '-', describe: 'The JSON Lines file, or - for standard input' })
       .option('resume', { type: 'string', describe: 'Append to this output file, skipping the lines it already holds completely' })
-      .option('jobs', { type: 'number', describe: 'Worker threads (default: the machine\'s cores)' })
+      .option('jobs', { type: 'number', describe: 'Threads computing, this one included (default: the machine\'s cores)' })
       .option('convention', { type: 'string', describe: 'How values are written, e.g. "signature=positive"' }) as Argv,
   run: async (args) => {
     // main.ts passes a bare `-` on as STANDARD_INPUT_ARGUMENT.
@@ -134,7 +134,7 @@ export const batchCommand: CliCommand = {
       };
     }
     let failed = false;
-    for await (const result of computeInOrder(inputTasks(input, skip), jobs, { convention, limits })) {
+    for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits })) {
       failed ||= !result.ok;
       if (!out.write(batchOutputLine(result))) await new Promise((resolve) => out.once('drain', resolve));
     }

@@ -1,0 +1,17 @@
+/**
+ * What a pool worker can be asked to compute: each kind names the function it
+ * runs on every task. A worker loads only the module of its kind.
+ */
+import type { BatchOptions } from '../batch-line.ts';
+
+export type PoolJob = { readonly kind: 'batch-line'; readonly options: BatchOptions };
+
+/** The function a worker applies to each task of `job`. */
+export async function taskRunner(job: PoolJob): Promise<(task: never) => unknown> {
+  switch (job.kind) {
+    case 'batch-line': {
+      const { batchLine } = await import('../batch-line.ts');
+      return (task: { readonly text: string; readonly lineNumber: number }) => batchLine(task.text, task.lineNumber, job.options);
+    }
+  }
+}
