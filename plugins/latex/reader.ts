@@ -25,7 +25,7 @@ import { FILL_SHORTCUTS, scanLatexItems, type Arg, type DefinitionItem, type Sca
 import { SourceFile, type TextOrigin } from './source-file.ts';
 import { expandUse, type Expansion, type MacroDefinition } from './expansion.ts';
 import { killAt, splitTabular } from './tabular.ts';
-import { gridLayout, type GridRows } from './grid.ts';
+import { gridLayout, type GridRows } from '../../src/core/manuscript/grid-layout.ts';
 
 export interface LatexFileSystem {
   /**
@@ -638,8 +638,22 @@ class ManuscriptReader {
     const id = this.validId(file, idArg, item.beginSpan, `skein grid (table ${table})`, '\\begin{skeingrid}{trefoil}');
     if (id === undefined || options === undefined || this.killed(file, item, table)) return;
     const place = `skein table ${table} (grid of ${id})`;
-    const layout = gridLayout(splitTabular(item.body), options.head, options.rows, place, item.beginSpan);
-    for (const p of layout.problems) this.error(file, p.span, 'latex-table-malformed', p.message);
+    const rows = splitTabular(item.body);
+    const header = rows.find((r) => r.number === options.head);
+    if (!header) {
+      this.error(file, item.beginSpan, 'latex-table-malformed', `${place}: the grid has no row ${options.head} to hold the column degrees; write them in the last header row (head=N says which)`);
+      return;
+    }
+    // Rows after the header hold values, except spacers (every cell empty) and labels (one \multicolumn or \caption).
+    const valueRows = rows.filter(
+      (r) =>
+        r.number > options.head &&
+        !r.headOrFoot &&
+        !r.cells.every((c) => c.content.text === '') &&
+        !(r.cells.length === 1 && /^\\(multicolumn|caption)(?![A-Za-z])/.test(r.cells[0]!.content.text)),
+    );
+    const layout = gridLayout(header, valueRows, (c) => c.content.text, options.rows, place);
+    for (const p of layout.problems) this.error(file, p.at.content.text === '' ? p.at.raw : p.at.content, 'latex-table-malformed', p.message);
     for (const { i, j, row, cell } of layout.cells) {
       const context = `${place}, row ${row}, column ${cell.column} (i = ${i}, j = ${j})`;
       const gridCell = { i, j, values: options.values };

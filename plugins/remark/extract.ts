@@ -10,8 +10,10 @@ import { visit, SKIP } from 'unist-util-visit';
 import type { ClaimKey, FillKey } from '../../src/core/claims/api.ts';
 import type { Diagnostic, SourceLocation, TextSpan } from '../../src/core/diagnostics/diagnostic.ts';
 import type { Notation } from '../../src/core/diagram/model.ts';
-import type { ClaimEntry, DiagramEntry, FigureEntry, FillEntry, Locator } from '../../src/core/manuscript/api.ts';
+import type { ClaimEntry, DiagramEntry, FigureEntry, FillEntry, KhovanovGridEntry, Locator } from '../../src/core/manuscript/api.ts';
 import type { FigureSetting } from '../../src/core/manuscript/figure-settings.ts';
+import { gridLayout, type GridRows } from '../../src/core/manuscript/grid-layout.ts';
+import { gridCellClaim, type GridValues } from '../../src/core/claims/khovanov-grid.ts';
 import { alignValue, mapSpan, SourceText, type OffsetMap } from './source-text.ts';
 import {
   CLAIM_KEYS,
@@ -21,6 +23,8 @@ import {
   FIGURE_DIRECTIVE,
   FREE_TEXT_COLUMN,
   FREE_TEXT_HEADERS,
+  GRID_DIRECTIVE,
+  GRID_SETTINGS,
   columnMeaning,
   FILL_KEYS,
   ID_RULE,
@@ -59,6 +63,8 @@ export interface ExtractedManuscript {
   readonly claims: readonly ClaimEntry[];
   readonly fills: readonly FillEntry[];
   readonly figures: readonly FigureEntry[];
+  /** The `:::khovanov-grid` tables, whose cells are among the claims and fills: the degrees each prints. */
+  readonly khovanovGrids: readonly KhovanovGridEntry[];
   readonly edits: readonly TextEdit[];
   readonly actions: ReadonlyMap<Nodes, NodeAction>;
   /** Problems in skeinproof's own markup (bad settings, unknown columns, …). */
@@ -81,6 +87,7 @@ class Extractor {
   private readonly claims: ClaimEntry[] = [];
   private readonly fills: FillEntry[] = [];
   private readonly figures: FigureEntry[] = [];
+  private readonly khovanovGrids: KhovanovGridEntry[] = [];
   private readonly edits: TextEdit[] = [];
   private readonly actions = new Map<Nodes, NodeAction>();
   private readonly problems: Diagnostic[] = [];
@@ -114,6 +121,7 @@ class Extractor {
       else if ((node.type === 'textDirective' || node.type === 'containerDirective') && node.name === FIGURE_DIRECTIVE) this.misplacedFigure(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
       else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
+      else if (node.type === 'containerDirective' && node.name === GRID_DIRECTIVE) this.gridDirective(node);
       else if ((node.type === 'leafDirective' || node.type === 'containerDirective') && (isClaimKey(node.name) || isFillKey(node.name))) this.misplacedDirective(node);
       // Markdown inside a raw HTML block (`<div>` up to the next blank line) is not parsed, so nor are claims there.
       else if (node.type === 'text' || node.type === 'html') this.strayMarkup(node);
@@ -125,6 +133,7 @@ class Extractor {
       claims: this.claims,
       fills: this.fills,
       figures: this.figures,
+      khovanovGrids: this.khovanovGrids,
       edits: [...this.edits].sort((a, b) => a.start - b.start || a.end - b.end),
       actions: this.actions,
       problems: this.problems,
@@ -480,15 +489,84 @@ class Extractor {
     return m ? [from + m.index, from + m.index + m[0].length] : [from, to];
   }
 
-  private addFill(target: string, key: FillKey, locate: Locator, context: string | undefined, edit: TextEdit, node: Nodes, cell = false): void {
+  private addFill(target: string, key: FillKey, locate: Locator, context: string | undefined, edit: TextEdit, node: Nodes, cell = false, more: Partial<FillEntry> = {}): void {
     this.actions.set(node, { kind: 'fill', fill: this.fills.length });
-    this.fills.push({ target, key, locate, ...(context ? { context } : {}), ...(cell ? { cell } : {}) });
+    this.fills.push({ target, key, locate, ...(context ? { context } : {}), ...(cell ? { cell } : {}), ...more });
     this.edits.push(edit);
+  }
+
+  /** Empties the fence lines of a container (blank lines keep the table apart and the line numbers), and unwraps it in the tree. */
+  private unwrapFences(node: ContainerDirective): void {
+    const [start, end] = offsets(node);
+    this.edits.push({ start, end: lineEnd(this.text, start), replacement: { text: '' } });
+    const last = node.children[node.children.length - 1];
+    const closing = last ? /:{3,}[ \t]*$/.exec(this.text.slice(offsets(last)[1], end)) : null;
+    if (closing) this.edits.push({ start: end - closing[0].length, end, replacement: { text: '' } });
+    this.actions.set(node, { kind: 'unwrap' });
+  }
+
+  // :::khovanov-grid{of=… rows=quantum|homological values=ranks|groups} | j \ i | 0 | 1 | … | :::
+  private gridDirective(node: ContainerDirective): void {
+    const [start] = offsets(node);
+    const fenceEnd = lineEnd(this.text, start);
+    const braces = this.text.indexOf('{', start);
+    const at = (key: string): readonly [number, number] => (braces >= 0 && braces < fenceEnd ? this.attributeAt(key, braces, fenceEnd) : [start, fenceEnd]);
+    const attributes = node.attributes ?? {};
+    const usage = `a grid takes of=ID, rows=${GRID_SETTINGS.rows.join('|')} and values=${GRID_SETTINGS.values.join('|')}`;
+    let valid = true;
+    for (const key of Object.keys(attributes)) {
+      if (key === TARGET_ATTRIBUTE || Object.hasOwn(GRID_SETTINGS, key)) continue;
+      this.error('markup-invalid', `\`:::${GRID_DIRECTIVE}\`: unknown attribute \`${key}\`: ${usage}`, ...at(key));
+      valid = false;
+    }
+    const setting = <K extends keyof typeof GRID_SETTINGS>(key: K): (typeof GRID_SETTINGS)[K][number] | undefined => {
+      const written = attributes[key];
+      if (written == null) return GRID_SETTINGS[key][0];
+      const allowed: readonly string[] = GRID_SETTINGS[key];
+      if (allowed.includes(written)) return written as (typeof GRID_SETTINGS)[K][number];
+      this.error('markup-invalid', `\`:::${GRID_DIRECTIVE}\`: ${key}=${written} is not a choice: write ${key}=${allowed.join(' or ')}`, ...at(key));
+      return undefined;
+    };
+    const rows: GridRows | undefined = setting('rows');
+    const values: GridValues | undefined = setting('values');
+    const target = attributes[TARGET_ATTRIBUTE]?.trim();
+    if (!target) this.error('markup-invalid', `\`:::${GRID_DIRECTIVE}\` names no diagram: write {of=ID}; ${usage}`, start, fenceEnd);
+    const table = node.children.find((c): c is Table => c.type === 'table');
+    if (!table) this.error('markup-invalid', `\`:::${GRID_DIRECTIVE}\` holds no table: put a GFM table between the fences`, start, fenceEnd);
+    this.unwrapFences(node);
+    if (!valid || !target || !table || rows === undefined || values === undefined) return;
+    const place = `Khovanov grid of ${target} at line ${this.source.point(start).line}`;
+    const [headerRow, ...bodyRows] = table.children;
+    const cellOf = (cell: TableCell) => {
+      const [s, e] = offsets(cell);
+      return { node: cell, ...cellContent(this.text, s, e) };
+    };
+    type Cell = ReturnType<typeof cellOf>;
+    const textOf = (c: Cell): string => this.text.slice(c.start, c.end);
+    const header = { number: 0, cells: headerRow!.children.map(cellOf) };
+    const valueRows = bodyRows.map((r, k) => ({ number: k + 1, cells: r.children.map(cellOf) })).filter((r) => r.cells.some((c) => c.start < c.end));
+    const layout = gridLayout<Cell>(header, valueRows, textOf, rows, place);
+    for (const p of layout.problems) this.error('markup-invalid', p.message, p.at.start < p.at.end ? p.at.start : p.at.innerStart, Math.max(p.at.end, p.at.innerEnd));
+    for (const { i, j, row, column, cell } of layout.cells) {
+      const context = `${place}, row ${row}, column ${column} (i = ${i}, j = ${j})`;
+      // A fill-in or claim directive written in the cell speaks for itself.
+      if (cell.node.children.some((c) => c.type === 'textDirective' && c.attributes?.[TARGET_ATTRIBUTE] != null)) continue;
+      if (cell.start === cell.end) {
+        const edit: TextEdit = { start: cell.innerStart, end: cell.innerEnd, replacement: { fill: this.fills.length, place: 'empty-cell' } };
+        this.addFill(target, 'khovanov', this.fixedLocator(cell.innerStart, cell.innerEnd), context, edit, cell.node, true, { khovanovCell: { i, j, values } });
+        continue;
+      }
+      const claim = gridCellClaim({ i, j, values }, textOf(cell));
+      const location = this.source.location(cell.start, cell.end);
+      this.claims.push({ target, key: claim.key, text: claim.text, locate: () => location, context, cell: true, inGrid: true });
+    }
+    if (layout.problems.length > 0) return;
+    this.khovanovGrids.push({ target, range: { homological: layout.homological, quantum: layout.quantum, values }, locate: () => this.source.location(start, fenceEnd), context: place });
   }
 
   // :::invariants{notation=…} | diagram | jones | … | :::
   private tableDirective(node: ContainerDirective): void {
-    const [start, end] = offsets(node);
+    const [start] = offsets(node);
     const tables = node.children.filter((c): c is Table => c.type === 'table');
     if (tables.length === 0) {
       this.error('markup-invalid', `\`:::${TABLE_DIRECTIVE}\` holds no table: put a GFM table between the fences`, start, lineEnd(this.text, start));
@@ -520,10 +598,7 @@ class Extractor {
     // Each fence line is emptied, not deleted: the blank line keeps the table apart from
     // the text around it (a line right after it would otherwise become a table row), and
     // the built file keeps the manuscript's line numbers.
-    this.edits.push({ start, end: lineEnd(this.text, start), replacement: { text: '' } });
-    const closing = /:{3,}[ \t]*$/.exec(this.text.slice(offsets(node.children[node.children.length - 1]!)[1], end));
-    if (closing) this.edits.push({ start: end - closing[0].length, end, replacement: { text: '' } });
-    this.actions.set(node, { kind: 'unwrap' });
+    this.unwrapFences(node);
   }
 
   /**

@@ -84,6 +84,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       claims: manuscript.claims,
       fills: manuscript.fills,
       figures: manuscript.figures,
+      khovanovGrids: manuscript.khovanovGrids,
       convention,
       strict,
       refused: manuscript.refusedIds,

@@ -12,7 +12,9 @@
  * - a table of invariants is a GFM table inside a container directive
  *   `:::invariants` … `:::`, one diagram per row, one invariant per column;
  * - a figure is a leaf directive on a line of its own, its title as the label:
- *   `::drawing[The trefoil]{of=trefoil size=5cm arrows=yes}`.
+ *   `::drawing[The trefoil]{of=trefoil size=5cm arrows=yes}`;
+ * - a grid of Khovanov homology is a GFM table inside `:::khovanov-grid{of=…}`,
+ *   degrees in its header row and first column, a group in every other cell.
  *
  * A directive is ours only when its name is one of the names below and it has
  * an `of` attribute (inline) or is the `invariants` container; every other
@@ -22,6 +24,9 @@ import type { Notation } from '../../src/core/diagram/model.ts';
 
 export const DIAGRAM_FENCE_LANGUAGE = 'skein';
 export const TABLE_DIRECTIVE = 'invariants';
+export const GRID_DIRECTIVE = 'khovanov-grid';
+/** The settings of `:::khovanov-grid` besides `of`, with their values (the first is the default). */
+export const GRID_SETTINGS = { rows: ['quantum', 'homological'], values: ['ranks', 'groups'] } as const;
 export const TARGET_ATTRIBUTE = 'of';
 /** The leaf directive that places the figure of a diagram (its settings: src/core/manuscript/figure-settings.ts). */
 export const FIGURE_DIRECTIVE = 'drawing';

@@ -130,7 +130,7 @@ describe('mistakes in a grid', () => {
       'skein table 1 (grid of trefoil), column 4: the homological degree i 0 heads column 2 already; every degree has one column',
       'skein table 1 (grid of trefoil), row 3: the quantum degree j 1 heads row 2 already; every degree has one row',
       'skein table 1 (grid of trefoil), row 4: the first cell must hold the row\'s quantum degree j, an integer such as 5 or -3, not `three`',
-      'skein table 1 (grid of trefoil), row 5 has 3 cells, but a row holds its degree and one cell for each of the 3 column degrees: add the missing `&` separators (an empty cell is filled in)',
+      'skein table 1 (grid of trefoil), row 5 has 3 cells, but a row holds its degree and one cell for each of the 3 column degrees: add the missing cells (an empty cell is filled in)',
     ]);
     expect(doc.khovanovGrids).toEqual([]);
   });
