@@ -1,8 +1,8 @@
 /**
  * One line of `skeinproof batch`: a JSON object {"id","notation","code"} (optional
  * "strands" and "keys") in, the `compute --json` object with the id first out, or
- * an error object for a line that cannot be read. No I/O, so a worker thread can
- * run it as well as the command itself.
+ * an error object for a line that cannot be read. No I/O but the disk cache's,
+ * so a worker thread can run it as well as the command itself.
  */
 import { DEFAULT_CONVENTION, type Convention } from '../core/convention/convention.ts';
 import type { Notation } from '../core/diagram/model.ts';
@@ -10,10 +10,23 @@ import type { ComputeLimits } from '../core/limits.ts';
 import { NOTATIONS } from '../core/notation/index.ts';
 import { computeCode } from './commands/compute.ts';
 import { computeJson, invalidCodeJson, JSON_FIELDS } from './compute-json.ts';
+import { FileResultStore, type FileStoreOptions } from './result-store.ts';
 
 export interface BatchOptions {
   readonly convention?: Convention;
   readonly limits?: ComputeLimits;
+  /** The disk cache (plain data, so a worker thread can open it too); absent with --no-cache. */
+  readonly cache?: FileStoreOptions;
+}
+
+const stores = new WeakMap<BatchOptions, FileResultStore>();
+
+/** One store per options object: per worker thread, or for the whole run in this thread. */
+function storeFor(options: BatchOptions): FileResultStore | undefined {
+  if (!options.cache) return undefined;
+  let store = stores.get(options);
+  if (!store) stores.set(options, (store = new FileResultStore(options.cache)));
+  return store;
 }
 
 export type BatchResult = Record<string, unknown> & { readonly ok: boolean };
@@ -53,7 +66,7 @@ export function batchLine(text: string, lineNumber: number, options: BatchOption
     if (unknown.length > 0) return lineError(lineNumber, id, `line ${lineNumber} (${id}): unknown key ${unknown.join(', ')}; the keys are ${JSON_FIELDS.join(', ')}`);
     keys = new Set(list);
   }
-  const outcome = computeCode(code, notation as Notation, strands !== undefined ? { strands: strands as number } : {}, options.limits ?? {}, false);
+  const outcome = computeCode(code, notation as Notation, strands !== undefined ? { strands: strands as number } : {}, options.limits ?? {}, false, storeFor(options));
   if (!outcome.ok) return { id, ...invalidCodeJson(code, outcome.notation, outcome.error), ok: false };
   const json = computeJson(code, outcome.report, options.convention ?? DEFAULT_CONVENTION, keys);
   return { id, ...json, ok: json['notComputed'] === undefined };

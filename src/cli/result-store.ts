@@ -32,7 +32,7 @@ export interface FileStoreOptions {
   readonly engine: string;
   /** Size cap in bytes. */
   readonly maxBytes: number;
-  /** Called once, the first time the cache cannot be written. */
+  /** Called once, the first time the cache cannot be written (default: a warning on standard error). */
   readonly warn?: (message: string) => void;
 }
 
@@ -104,17 +104,17 @@ export class FileResultStore implements ResultStore {
         // Never created.
       }
       this.writable = false;
-      this.options.warn?.(`cannot write the cache in ${this.options.dir} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}); going on without storing results (--no-cache turns the cache off)`);
+      (this.options.warn ?? warnOnStandardError)(`cannot write the cache in ${this.options.dir} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}); going on without storing results (--no-cache turns the cache off)`);
     }
   }
 
   /**
-   * After a run that wrote: removes the least recently used entries until the cache holds at most
+   * After a run that wrote (or, with `force`, after other processes wrote to it): removes the least recently used entries until the cache holds at most
    * 90 % of its cap (so the next runs do not evict again at once), and temporary files left by
    * processes that died.
    */
-  evict(): void {
-    if (this.writtenSinceEviction === 0) return;
+  evict(force = false): void {
+    if (this.writtenSinceEviction === 0 && !force) return;
     this.writtenSinceEviction = 0;
     const files: { path: string; size: number; used: number }[] = [];
     let total = 0;
@@ -142,6 +142,10 @@ export class FileResultStore implements ResultStore {
       total -= file.size;
     }
   }
+}
+
+function warnOnStandardError(message: string): void {
+  process.stderr.write(`skeinproof: warning: ${message}\n`);
 }
 
 /** The value of an entry file, or undefined when the file is not a whole entry for `digest`. */

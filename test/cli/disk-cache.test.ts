@@ -142,6 +142,30 @@ describe('disk cache (command line)', () => {
     expect(entries(cache)).toEqual(rewritten);
   });
 
+  it('gives the same compute --json objects and batch output with and without the cache, boundary width included', () => {
+    const dir = freshDir();
+    const cache = join(dir, 'cache');
+    // A braid closure, its PD code with the tuples reversed (numbered differently, so its own boundary width), a link.
+    const codes = [['braid', '1 2 -1 2 2 -3 2 1 -3'], ['braid', '1 -2 1 -2'], ['pd', '(1,5,2,4) (3,1,4,6) (5,3,6,2)'], ['pd', '(5,3,6,2) (3,1,4,6) (1,5,2,4)'], ['braid', '1 1 1 1']];
+    for (const [notation, code] of codes) {
+      const args = ['compute', '--json', '-n', notation!, code!];
+      const uncached = skeinproof(dir, ...args, '--no-cache');
+      expect(uncached.status).toBe(0);
+      expect(skeinproof(dir, ...args, '--cache-dir', cache)).toEqual(uncached);
+      expect(skeinproof(dir, ...args, '--cache-dir', cache)).toEqual(uncached);
+    }
+    const input = join(dir, 'census.jsonl');
+    writeFileSync(input, codes.map(([notation, code], k) => JSON.stringify({ id: `k${k}`, notation, code })).join('\n') + '\n');
+    const batchCache = join(dir, 'batch-cache');
+    const uncached = skeinproof(dir, 'batch', 'census.jsonl', '--jobs', '2', '--no-cache');
+    expect(uncached.status).toBe(0);
+    expect(skeinproof(dir, 'batch', 'census.jsonl', '--jobs', '2', '--cache-dir', batchCache)).toEqual(uncached);
+    const filled = entries(batchCache);
+    expect(filled.size).toBeGreaterThan(0);
+    expect(skeinproof(dir, 'batch', 'census.jsonl', '--jobs', '1', '--cache-dir', batchCache)).toEqual(uncached);
+    expect(entries(batchCache)).toEqual(filled);
+  });
+
   it('reads and writes no cache with --no-cache, and refuses --cache-dir given twice', () => {
     const dir = freshDir();
     const cache = join(dir, 'cache');

@@ -13,6 +13,8 @@ import { parseConventionText } from '../../core/convention/settings.ts';
 import { batchOutputLine } from '../batch-line.ts';
 import { computeBatch, type BatchTask } from '../batch-pool.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
+import { cacheOptions, cacheSettings } from '../cache-options.ts';
+import { FileResultStore } from '../result-store.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 import { availableParallelism } from 'node:os';
 import type { CliCommand } from './index.ts';
@@ -96,7 +98,7 @@ export const batchCommand: CliCommand = {
   command: 'batch [input]',
   describe: 'Compute JSON Lines of diagram codes ({"id","notation","code"} per line) into JSON Lines of results, in input order',
   builder: (y: Argv) =>
-    limitOptions(y)
+    cacheOptions(limitOptions(y))
       .positional('input', { type: 'string', default: '-', describe: 'The JSON Lines file, or - for standard input' })
       .option('resume', { type: 'string', describe: 'Append to this output file, skipping the lines it already holds completely' })
       .option('jobs', { type: 'number', describe: 'Threads computing, this one included (default: the machine\'s cores)' })
@@ -107,6 +109,8 @@ export const batchCommand: CliCommand = {
     const input = given === STANDARD_INPUT_ARGUMENT ? '-' : given;
     const limits = readLimits(args);
     if (typeof limits === 'string') return usage(limits);
+    const cache = cacheSettings(args);
+    if (typeof cache === 'string') return usage(cache);
     const repeated = repeatedOptionMessage('jobs', args['jobs']) ?? repeatedOptionMessage('resume', args['resume']);
     if (repeated !== undefined) return usage(repeated);
     const jobs = args['jobs'] === undefined ? availableParallelism() : (args['jobs'] as number);
@@ -134,10 +138,12 @@ export const batchCommand: CliCommand = {
       };
     }
     let failed = false;
-    for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits })) {
+    for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits, ...(cache ? { cache } : {}) })) {
       failed ||= !result.ok;
       if (!out.write(batchOutputLine(result))) await new Promise((resolve) => out.once('drain', resolve));
     }
+    // The workers wrote to the cache, each with a store of its own: keep it under its cap.
+    if (cache) new FileResultStore(cache).evict(true);
     if (out !== process.stdout) await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
     return failed ? EXIT_BAD_INPUT : EXIT_OK;
   },

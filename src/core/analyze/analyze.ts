@@ -68,7 +68,6 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits, store: ResultStore | 
     positiveCrossings: () => props().signs.positive,
     negativeCrossings: () => props().signs.negative,
     linking: () => props().linking,
-    // The boundary width depends on the crossing order, so only the bracket itself is stored.
     bracket: () => throughStore(store, STORED.bracket, d, () => bracketResult().bracket),
     jones: () => jonesFromBracket(r.bracket, r.writhe),
     span: () => r.jones.span,
@@ -100,7 +99,7 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits, store: ResultStore | 
       return { diagram, moves, description: describeMoves(moves) };
     },
     family: () => (family ? { identity: family, description: describeFamily(family, componentCount(d)) } : undefined),
-    boundaryWidth: () => bracketResult().boundaryWidth,
+    boundaryWidth: () => throughStore(store, STORED.boundaryWidth, d, () => bracketResult().boundaryWidth),
     classical,
   };
   for (const [name, compute] of Object.entries(fields)) defineLazy(report, name, compute);

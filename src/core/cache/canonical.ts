@@ -100,3 +100,12 @@ function walkBelow(d: LinkDiagram, opposite: Int32Array, start: number, label: I
   }
   return smaller;
 }
+
+/**
+ * The diagram exactly as numbered: crossings in order with their signs and edge labels, the components'
+ * edge lists and the free loops. Keys values that depend on the numbering itself.
+ */
+export function labelledDiagramText(d: LinkDiagram): string {
+  const crossings = d.crossings.map((c) => `${c.sign} ${c.edges.join(' ')}`).join(',');
+  return `labelled|${crossings}|${d.components.map((k) => k.join(' ')).join(',')}|loops ${d.freeLoops}`;
+}

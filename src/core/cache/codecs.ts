@@ -13,6 +13,11 @@ import type { KhovanovHomology, KhovanovReport, RankEntry, TorsionEntry } from '
 export interface Codec<T> {
   /** The quantity and the version of its text form, e.g. `bracket/1`; part of every key. */
   readonly name: string;
+  /**
+   * True for a value that depends on how the diagram is numbered (its crossing order and edge labels), not
+   * only on the diagram: it is keyed by the diagram exactly as numbered (./canonical.ts, labelledDiagramText).
+   */
+  readonly labelled?: boolean;
   /** The value as text, or undefined when this value is not to be stored. */
   encode(value: T): string | undefined;
   /** The value, or undefined when `text` is not a text this codec writes. */
@@ -85,7 +90,10 @@ export const bigintCodec = (name: string): Codec<bigint> =>
     (json) => (isDecimal(json) ? BigInt(json) : undefined),
   );
 
-export const integerCodec = (name: string): Codec<number> => jsonCodec(name, (n) => n, (json) => (isInteger(json) ? json : undefined));
+export const integerCodec = (name: string, labelled = false): Codec<number> => ({
+  ...jsonCodec(name, (n: number) => n, (json) => (isInteger(json) ? json : undefined)),
+  ...(labelled ? { labelled } : {}),
+});
 
 function homologyToJson(h: KhovanovHomology): unknown {
   return { ranks: h.ranks, torsion: h.torsion };

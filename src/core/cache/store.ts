@@ -13,7 +13,7 @@
  * refuse to compute it: it is exact either way.
  */
 import type { LinkDiagram } from '../diagram/model.ts';
-import { canonicalDiagramText } from './canonical.ts';
+import { canonicalDiagramText, labelledDiagramText } from './canonical.ts';
 import type { Codec } from './codecs.ts';
 
 export interface ResultStore {
@@ -25,7 +25,7 @@ export interface ResultStore {
 
 /** The key of `codec`'s value for the diagram `d` (the engine's version is the store's part of the key). */
 export function resultKey(codec: Codec<unknown>, d: LinkDiagram): string {
-  return `${codec.name}\n${canonicalDiagramText(d)}`;
+  return `${codec.name}\n${codec.labelled ? labelledDiagramText(d) : canonicalDiagramText(d)}`;
 }
 
 /**

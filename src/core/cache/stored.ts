@@ -1,18 +1,20 @@
 /**
  * The quantities the result store keeps, each with its codec. Every one is a
  * function of the diagram up to relabelling (./canonical.ts) and of nothing
- * else: no convention, notation, family marking or crossing order. Not stored:
- * cheap values read off the diagram; the crossing-number bounds (their
- * reasons rest on family theorems that depend on how the diagram was built);
- * the simplified diagram; the bracket engine's boundary width (it depends on
- * the crossing order its heuristic picks, which depends on the numbering); the
- * braid index bounds (they read the notation) and the Arf invariant (both are
- * cheap once the stored polynomials are known).
+ * else (no convention, notation, family marking or limit), except the boundary
+ * width, which is keyed by the diagram as numbered. Not stored: cheap values
+ * read off the diagram; the crossing-number bounds (their reasons rest on
+ * family theorems that depend on how the diagram was built); the simplified
+ * diagram; the braid index bounds (they read the notation) and the Arf
+ * invariant (both are cheap once the stored polynomials are known).
  */
 import { bigintCodec, integerCodec, khovanovCodec, laurent2Codec, laurentCodec } from './codecs.ts';
 
 export const STORED = {
   bracket: laurentCodec('bracket/1'),
+  // The widest boundary of the bracket engine's contraction depends on the crossing order its heuristic picks
+  // from the numbering, so it is keyed by the diagram as numbered (a relabelled code computes it again).
+  boundaryWidth: integerCodec('boundary-width/1', true),
   alexander: laurentCodec('alexander/1'),
   conway: laurentCodec('conway/1'),
   determinant: bigintCodec('determinant/1'),
