@@ -16,6 +16,7 @@ const FRAGMENTS = [
   '\\begin{skeincode}{id=a, notation=braid}', '\\begin{skeincode}{', '\\end{skeincode}', '1 1 1', '(1,1,2,2)', '4 6 2',
   '\\skeinjones{a}', '\\skeinjones{', '\\skeinvalue{a}{span}', '\\skeinclaim{a}{jones}{t+t^3-t^4}', '\\skeinclaim{a}',
   '\\begin{skeintable}{id, jones}', '\\begin{tabular}{ll}', '\\end{tabular}', '\\end{skeintable}', ' & ', '\\\\', '\\hline',
+  '\\begin{skeingrid}{a}', '\\begin{skeingrid}[rows=homological, values=groups]{', '\\end{skeingrid}', '-3', '$\\mathbb{Z}/2$', '.',
   '\\input{x}', '\\input{../y}', '\\include{', '\\skeinconvention{jones=q}', '\\verb|', '\\begin{verbatim}', '\\end{verbatim}',
   '%', '\\%', '$', '$$', '\\(', '\\]', '{', '}', '[', ']', '=', ',', '\n', ' ', 'text', '\\', '\\begin{equation}', '\\end{equation}',
 ];
@@ -45,6 +46,14 @@ describe('the package file and the reader', () => {
   it('accept the same keys in \\begin{skeincode}{…}', () => {
     const list = /\\def\\skein@claimkeys\{([^}]*)\}/.exec(sty.replace(/%\n\s*/g, ''))![1]!.split(',');
     expect(list).toEqual(['id', 'notation', 'strands', 'part-signs', 'for', ...CLAIM_KEYS]);
+  });
+
+  it('accept the same options of \\begin{skeingrid}[…]', () => {
+    const keys = [...sty.matchAll(/\\define@key\{skein@grid\}\{([a-z-]+)\}/g)].map((m) => m[1]);
+    expect(keys).toEqual(['head', 'rows', 'values']);
+    const grid = `\\begin{skeingrid}[${keys.map((k) => `${k}=${k === 'head' ? 1 : k === 'rows' ? 'quantum' : 'ranks'}`).join(', ')}]{a}\\begin{tabular}{ll} & 0 \\\\ 1 & \\end{tabular}\\end{skeingrid}`;
+    const doc = readLatexManuscript('/paper/paper.tex', memoryFiles({ 'paper.tex': grid }));
+    expect(doc.diagnostics).toEqual([]);
   });
 
   it('define the same fill-in shortcuts', () => {

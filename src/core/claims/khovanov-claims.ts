@@ -391,10 +391,22 @@ function poincareSlip(
   return undefined;
 }
 
+/** A rank; a group written instead (ℤ, ℤ/2, a sum) is refused with the key that states groups. */
+function readRank(rest: string, restStart: number): string {
+  if (/\\mathbb|\\mathbf\{Z|ℤ|\\oplus|⊕|Z\s*[/_^]/.test(rest)) {
+    throw new InputError(
+      UNREADABLE,
+      `\`${rest.trim()}\` is a group, and a rank is a number: write the rank of the free part, or state the whole group with the key khovanov-group (in a grid: values=groups)`,
+      { start: restStart, end: restStart + rest.length },
+    );
+  }
+  return String(readInteger(rest, 'a rank'));
+}
+
 export type BidegreeKey = 'khovanov-rank' | 'khovanov-torsion' | 'khovanov-group';
 
 const BIDEGREE_CLAIMS: Record<BidegreeKey, { what: string; noun: string; read: (rest: string, restStart: number) => string; valueAt: (g: Graded, i: number, j: number) => string }> = {
-  'khovanov-rank': { what: 'Khovanov rank', noun: 'rank of Khovanov homology', read: (rest) => String(readInteger(rest, 'a rank')), valueAt: (g, i, j) => String(groupAt(g, i, j).rank) },
+  'khovanov-rank': { what: 'Khovanov rank', noun: 'rank of Khovanov homology', read: readRank, valueAt: (g, i, j) => String(groupAt(g, i, j).rank) },
   'khovanov-torsion': {
     what: 'Khovanov torsion',
     noun: 'torsion of Khovanov homology',

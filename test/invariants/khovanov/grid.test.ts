@@ -67,6 +67,12 @@ describe('grid cells', () => {
     expect(gridCellClaim({ i: 3, j: 7, values: 'groups' }, '$\\mathbb{Z}/2$')).toEqual({ key: 'khovanov-group', text: '3, 7: \\mathbb{Z}/2' });
     for (const mark of ['.', '$\\cdot$', '--', '\\textendash', '0']) expect(gridCellClaim({ i: 1, j: 3, values: 'ranks' }, mark).text).toBe('1, 3: 0');
   });
+  it('a group written where a rank is asked is refused with the key that states groups', () => {
+    const cell = gridCellClaim({ i: 3, j: 7, values: 'ranks' }, '$\\mathbb{Z}/2$');
+    expect(() => judgeClaim(cell.key, cell.text, trefoil, { convention: DEFAULT_CONVENTION })).toThrow(
+      '`\\mathbb{Z}/2` is a group, and a rank is a number: write the rank of the free part, or state the whole group with the key khovanov-group (in a grid: values=groups)',
+    );
+  });
   it('an empty cell is filled with the rank or the group in the declared grading, and stays empty for zero', () => {
     const fill = (i: number, j: number, values: 'ranks' | 'groups', grading: KhovanovGrading = 'standard') =>
       gridCellFill(trefoil, { i, j, values }, convention(grading));
