@@ -87,7 +87,24 @@ export function readFigureSettings(settings: readonly FigureSetting[], where: st
     if ('problem' in read) problem(read.problem, s.locateValue, `Write it as in ${spec.example}.`);
     else options[spec.field] = read.value;
   }
+  // Strokes and gaps are measured against the figure (the drawing's own bounds, said in the author's units here).
+  const size = (options['size'] as number | undefined) ?? DEFAULT_SIZE_BP;
+  for (const [key, field, fraction, what] of [['line-width', 'lineWidth', 10, 'a tenth'], ['gap', 'gap', 5, 'a fifth']] as const) {
+    const value = options[field] as number | undefined;
+    if (value === undefined || value <= size / fraction) continue;
+    const setting = settings.filter((x) => x.key === key).at(-1)!;
+    problem(`${key}=${setting.value} is more than ${what} of the figure's size (${sizeText(settings)}), so the strokes would fill it`, setting.locateValue, `Make ${key} smaller, or the figure larger.`);
+    delete options[field];
+  }
   return { options: options as FigureOptions, diagnostics };
+}
+
+/** The drawing's default size (240, px in SVG and pt in TikZ), in bp as SVG shows it. */
+const DEFAULT_SIZE_BP = 180;
+
+function sizeText(settings: readonly FigureSetting[]): string {
+  const written = settings.find((x) => x.key === 'size');
+  return written ? `size=${written.value}` : 'the default, 240px';
 }
 
 function length(key: string): Reader {
