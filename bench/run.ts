@@ -191,3 +191,4 @@ await import('./speed.ts').then((speed) => speed.runSpeedBench());
 await import('./cache.ts').then((cache) => cache.runCacheBench());
 await import('./skein-polynomials.ts').then((skein) => skein.runSkeinPolynomialBench());
 await import('./arf.ts').then((arf) => arf.runArfBench());
+await import('./figure-manuscripts.ts').then((figures) => figures.runFigureManuscriptBench());
