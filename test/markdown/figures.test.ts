@@ -144,6 +144,18 @@ describe('the build', () => {
     expect(strokes(tree).length).toBeGreaterThan(0);
   });
 
+  it('keeps a hostile title as text: in the SVG, in the built Markdown and on the page', async () => {
+    const path = join(work, 'hostile.md');
+    writeFileSync(path, `${TREFOIL}\n::drawing[</title><script>alert(1)</script> & "q"]{of=k}\n`);
+    const built = await markdownFormat.build(path, { output: join(work, 'hostile.filled.md') });
+    const line = String(built.outputs[0]!.content).split('\n').find((l) => l.startsWith('<figure'))!;
+    expect(elements(fromHtml(line, { fragment: true }), 'script')).toEqual([]);
+    const page = await markdownFormat.build(path, { output: join(work, 'hostile.html') });
+    const tree = fromHtml(String(page.outputs[0]!.content));
+    expect(elements(tree, 'script')).toEqual([]);
+    expect(elements(tree, 'title').map((t) => (t.children[0] as { value: string } | undefined)?.value)).toContain('</title><script>alert(1)</script> & "q"');
+  });
+
   it('is not attempted by check, and the page keeps every element and attribute of the figure through the sanitizer', async () => {
     const path = join(work, 'figure.md');
     writeFileSync(path, `${TREFOIL}\n::drawing[Trefoil]{of=k arrows=yes colours=yes labels=both}\n`);
