@@ -144,6 +144,8 @@ describe.skipIf(!hasPdflatex)('the package under pdflatex', () => {
       warning:
         f.target.kind === 'macro'
           ? `Value \`${f.target.key}' of \`${f.target.id}' is not computed yet`
+          : f.entry.khovanovCell
+          ? `Value \`khovanov' of row ${f.target.row}, column ${f.target.column} of skein grid ${f.target.table} is not computed yet`
           : `Value \`${f.entry.key}' of row ${f.target.row} of skein table ${f.target.table} is not computed yet`,
     }));
     const figures = doc.figures.map((f) => ({ at: f.entry.locate(), warning: `Value \`figure' of \`${f.id}' is not computed yet` }));
