@@ -79,6 +79,10 @@ function oneLine(code: string): string {
 export function drawFigure(placed: PlacedFigure, entry: FigureEntry, format: 'svg' | 'tikz'): { readonly text: string } | { readonly problem: Diagnostic } {
   try {
     const drawing = drawDiagram(placed.diagram, inOutputUnits(placed.options, format));
+    // A picture with coordinates that are not numbers would be written silently broken: that is a bug, not the author's.
+    if (![drawing.width, drawing.height, drawing.lineWidth].every(Number.isFinite)) {
+      throw new Error(`the drawing of \`${entry.target}\` has coordinates that are not finite numbers`);
+    }
     const meta = { title: placed.title, description: placed.description };
     return { text: format === 'svg' ? figureSvg(drawing, meta) : figureTikz(drawing, meta) };
   } catch (e) {
