@@ -192,3 +192,4 @@ await import('./cache.ts').then((cache) => cache.runCacheBench());
 await import('./skein-polynomials.ts').then((skein) => skein.runSkeinPolynomialBench());
 await import('./arf.ts').then((arf) => arf.runArfBench());
 await import('./figure-manuscripts.ts').then((figures) => figures.runFigureManuscriptBench());
+await import('./simplify.ts').then((simplify) => simplify.runSimplifyBench());

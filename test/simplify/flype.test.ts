@@ -91,7 +91,7 @@ describe('flypes in the simplifier', () => {
   it('P(1, 3, −1, 3, 3) reduces to 9 crossings by one flype and one Reidemeister II, and then KMT makes 9 exact (P(3, 3, 3) = 9₃₅, from memory)', () => {
     const d = family('pretzel 1 3 -1 3 3');
     // Without flypes the search finds nothing: the columns 1 and −1 are not beside each other.
-    expect(simplifyDiagram(d, { ...DEFAULT_BUDGET, flypes: false }).diagram.crossings.length).toBe(11);
+    expect(simplifyDiagram(d, { ...DEFAULT_BUDGET, flypeWork: 0 }).diagram.crossings.length).toBe(11);
     const { diagram, moves } = simplifyDiagram(d);
     expect(diagram.crossings.length).toBe(9);
     expect(moves).toEqual({ nugatory: 0, bigons: 1, slides: 0, flypes: 1 });
@@ -127,7 +127,7 @@ describe('flypes in the simplifier', () => {
       const { diagram } = simplifyDiagram(hidden);
       expect(diagram.crossings.length).toBe(n);
       expect(analyzeDiagram(hidden).crossingNumber.exact).toBe(n);
-      if (simplifyDiagram(hidden, { ...DEFAULT_BUDGET, flypes: false }).diagram.crossings.length === n) slidesAlone++;
+      if (simplifyDiagram(hidden, { ...DEFAULT_BUDGET, flypeWork: 0 }).diagram.crossings.length === n) slidesAlone++;
     }
     expect(built).toBe(12);
     expect(slidesAlone).toBeLessThan(built / 2);

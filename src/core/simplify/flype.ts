@@ -37,8 +37,12 @@ export interface FlypeSite {
   /** A slot id (4·crossing + slot) at one end of the tangle's north-east edge, and of its south-east edge. */
   readonly northEast: number;
   readonly southEast: number;
-  /** True when the far edges have an end at one crossing: the moved crossing may then land in a bigon. */
-  readonly farEdgesMeet: boolean;
+  /**
+   * True when the far edges end at one crossing in the way that makes the moved crossing and that
+   * one a bigon with one strand over at both ends, which Reidemeister II then removes (if that
+   * crossing lies outside the tangle, which only making the flype tells).
+   */
+  readonly opensBigon: boolean;
 }
 
 const next = (slotId: number, by: number): number => (slotId & ~3) | (((slotId & 3) + by) & 3);
@@ -48,14 +52,14 @@ const next = (slotId: number, by: number): number => (slotId & ~3) | (((slotId &
  * neighbouring edges that lead away from it, and each face F₃ that closes
  * off a tangle there (a side on F₁ and a side on F₂). The tangle itself is
  * found when the flype is made (`flype`), which refuses sites where it is not
- * a proper tangle. Sites where the far edges meet at a crossing come first.
+ * a proper tangle. Sites that open a bigon for Reidemeister II come first.
  */
 export function flypeSites(d: LinkDiagram): FlypeSite[] {
   const { opposite } = indexDiagram(d);
   const { faceOfCorner, faces } = faceStructure(d);
   // The face across the edge at slot id s from the face of corner s: that of corner s − 1.
   const across = (s: number): number => faceOfCorner[next(s, 3)]!;
-  const meeting: FlypeSite[] = [];
+  const bigons: FlypeSite[] = [];
   const others: FlypeSite[] = [];
   for (let c = 0; c < d.crossings.length; c++) {
     for (let q = 0; q < 4; q++) {
@@ -74,14 +78,15 @@ export function flypeSites(d: LinkDiagram): FlypeSite[] {
       }
       for (const southEast of faces[below]!) {
         for (const northEast of farFaces.get(across(southEast)) ?? []) {
-          const ends = [northEast, opposite[northEast]!, southEast, opposite[southEast]!].map((s) => s >> 2);
-          const farEdgesMeet = ends[0] === ends[2] || ends[0] === ends[3] || ends[1] === ends[2] || ends[1] === ends[3];
-          (farEdgesMeet ? meeting : others).push({ crossing: c, slot: q, northEast, southEast, farEdgesMeet });
+          const opensBigon = [northEast, opposite[northEast]!].some(
+            (a) => a >> 2 !== c && [southEast, opposite[southEast]!].some((b) => b >> 2 === a >> 2) && isOverSlot(a & 3) === isOverSlot(upperRight & 3),
+          );
+          (opensBigon ? bigons : others).push({ crossing: c, slot: q, northEast, southEast, opensBigon });
         }
       }
     }
   }
-  return [...meeting, ...others];
+  return [...bigons, ...others];
 }
 
 /**

@@ -3,10 +3,11 @@
  * count. Every step is a move that keeps the link, so the smallest diagram
  * found is a proof that the crossing number is at most its count. Moves I and
  * II (and the removal of nugatory crossings) are taken greedily; when none
- * applies, flypes and slides across triangles (III), which keep the count,
- * are tried a few in a row for one that opens a move I or II: first flypes
- * that bring a crossing beside another (the likeliest to make a bigon), then
- * slides, then the other flypes.
+ * applies, slides across triangles (III) and flypes, which keep the count,
+ * are tried a few in a row for one that opens a move I or II: flypes that
+ * open a bigon, then slides, then the other flypes, each kind within a budget
+ * of its own so that neither starves the other. The search also runs without
+ * flypes, and the smaller result wins.
  */
 import { nonPlanarPieces } from '../diagram/faces.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
@@ -34,17 +35,17 @@ export interface Simplification {
 export interface SimplifyBudget {
   readonly maxCrossings: number;
   /**
-   * Work allowed for slides and flypes over the whole search, counted as the sum of the crossing counts
-   * of the diagrams they are tried on (each one costs time linear in the crossings).
+   * Work allowed for triangle slides over the whole search, counted as the sum of the crossing counts
+   * of the diagrams slid (each slide costs time linear in the crossings).
    */
   readonly work: number;
+  /** Work allowed for flypes, counted the same way, apart from the slides' work. 0 leaves flypes out. */
+  readonly flypeWork: number;
   /** Slides and flypes chained before giving up on a branch. */
   readonly depth: number;
-  /** Whether flypes are tried (benchmarks and tests compare the search without them). */
-  readonly flypes: boolean;
 }
 
-export const DEFAULT_BUDGET: SimplifyBudget = { maxCrossings: 200, work: 2500, depth: 2, flypes: true };
+export const DEFAULT_BUDGET: SimplifyBudget = { maxCrossings: 200, work: 2500, flypeWork: 2500, depth: 2 };
 
 interface State {
   readonly diagram: LinkDiagram;
@@ -85,51 +86,83 @@ function checked(result: LinkDiagram, from: LinkDiagram): LinkDiagram {
   return result;
 }
 
+/** A slide or a flype that keeps the count, and the diagram after it (undefined: a flype site that bounds no tangle). */
+interface SideStep {
+  readonly kind: 'slide' | 'flype';
+  readonly result: State | undefined;
+}
+
 /**
- * The diagrams one slide or flype away, in the order they are tried. Each is made only when asked
- * for, so a search that runs out of budget pays for none beyond it; a flype site that bounds no
- * tangle yields nothing.
+ * The diagrams one slide or flype away, in the order they are tried: flypes that open a bigon for
+ * Reidemeister II, slides, the other flypes. Each is made only when asked for, so a search that runs
+ * out of budget pays for none beyond it.
  */
-function* sideSteps(state: State, withFlypes: boolean): Generator<State | undefined> {
+function* sideSteps(state: State, withFlypes: boolean): Generator<SideStep> {
   const { diagram, moves } = state;
   const sites = withFlypes ? flypeSites(diagram) : [];
-  const flyped = function* (meeting: boolean) {
+  const flyped = function* (opensBigon: boolean): Generator<SideStep> {
     for (const site of sites) {
-      if (site.farEdgesMeet !== meeting) continue;
+      if (site.opensBigon !== opensBigon) continue;
       const result = flype(diagram, site);
-      yield result && { diagram: checked(result, diagram), moves: { ...moves, flypes: moves.flypes + 1 } };
+      yield { kind: 'flype', result: result && { diagram: checked(result, diagram), moves: { ...moves, flypes: moves.flypes + 1 } } };
     }
   };
   yield* flyped(true);
   for (const triangle of slidableTriangles(diagram)) {
-    yield { diagram: checked(slideTriangle(diagram, triangle), diagram), moves: { ...moves, slides: moves.slides + 1 } };
+    yield { kind: 'slide', result: { diagram: checked(slideTriangle(diagram, triangle), diagram), moves: { ...moves, slides: moves.slides + 1 } } };
   }
   yield* flyped(false);
 }
 
-export function simplifyDiagram(d: LinkDiagram, budget: SimplifyBudget = DEFAULT_BUDGET): Simplification {
-  let best = reduceGreedily({ diagram: d, moves: { nugatory: 0, bigons: 0, slides: 0, flypes: 0 } });
-  if (best.diagram.crossings.length > budget.maxCrossings) return best;
-  let workLeft = budget.work;
-  // Depth-first over slides and flypes from the best diagram so far; restart from each improvement.
-  const improve = (state: State, depth: number): State | undefined => {
-    if (depth === 0) return undefined;
-    for (const step of sideSteps(state, budget.flypes)) {
-      workLeft -= state.diagram.crossings.length;
-      if (workLeft < 0) return undefined;
-      if (!step) continue;
-      const reduced = reduceGreedily(step);
-      if (reduced.diagram.crossings.length < state.diagram.crossings.length) return reduced;
-      const deeper = improve(step, depth - 1);
-      if (deeper) return deeper;
-    }
-    return undefined;
-  };
-  for (;;) {
-    const found = improve(best, budget.depth);
-    if (!found) return best;
-    best = found;
+/** Work left for each kind of side step; each kind stops when its own runs out. */
+interface WorkLeft {
+  slide: number;
+  flype: number;
+}
+
+/**
+ * A search from `state` for side steps after which moves I and II lower the count: every single step
+ * first, then (depth permitting) the steps after each of them.
+ */
+function improve(state: State, depth: number, work: WorkLeft): State | undefined {
+  if (depth === 0) return undefined;
+  const stepped: State[] = [];
+  for (const { kind, result } of sideSteps(state, work.flype > 0)) {
+    if (work.slide <= 0 && work.flype <= 0) return undefined;
+    if (work[kind] <= 0) continue;
+    work[kind] -= state.diagram.crossings.length;
+    if (!result) continue;
+    const reduced = reduceGreedily(result);
+    if (reduced.diagram.crossings.length < state.diagram.crossings.length) return reduced;
+    if (depth > 1) stepped.push(result);
   }
+  for (const step of stepped) {
+    const deeper = improve(step, depth - 1, work);
+    if (deeper) return deeper;
+  }
+  return undefined;
+}
+
+/**
+ * The search runs with slides alone and again with flypes too, and the smaller result wins (on a tie
+ * the one without flypes): a flype can lead the greedy moves away from what slides alone would have
+ * found, so this way flypes never make the result worse.
+ */
+export function simplifyDiagram(d: LinkDiagram, budget: SimplifyBudget = DEFAULT_BUDGET): Simplification {
+  const start = reduceGreedily({ diagram: d, moves: { nugatory: 0, bigons: 0, slides: 0, flypes: 0 } });
+  if (start.diagram.crossings.length > budget.maxCrossings) return start;
+  const search = (work: WorkLeft): State => {
+    let best = start;
+    for (;;) {
+      const found = improve(best, budget.depth, work);
+      if (!found) return best;
+      best = found;
+    }
+  };
+  const bySlides = search({ slide: budget.work, flype: 0 });
+  if (budget.flypeWork <= 0) return bySlides;
+  const withFlypes = search({ slide: budget.work, flype: budget.flypeWork });
+  return withFlypes.diagram.crossings.length < bySlides.diagram.crossings.length ? withFlypes : bySlides;
 }
 
 /** "3 moves (1 nugatory crossing removed, 1 Reidemeister II, 1 flype)". */
