@@ -86,16 +86,15 @@ function checked(result: LinkDiagram, from: LinkDiagram): LinkDiagram {
   return result;
 }
 
-/** A slide or a flype that keeps the count, and the diagram after it (undefined: a flype site that bounds no tangle). */
+/** A slide or a flype that keeps the count; `make` gives the diagram after it (undefined: a flype site that bounds no tangle). */
 interface SideStep {
   readonly kind: 'slide' | 'flype';
-  readonly result: State | undefined;
+  readonly make: () => State | undefined;
 }
 
 /**
- * The diagrams one slide or flype away, in the order they are tried: flypes that open a bigon for
- * Reidemeister II, slides, the other flypes. Each is made only when asked for, so a search that runs
- * out of budget pays for none beyond it.
+ * The slides and flypes from a diagram, in the order they are tried: flypes that open a bigon for
+ * Reidemeister II, slides, the other flypes. Each is made only when the search can pay for it.
  */
 function* sideSteps(state: State, withFlypes: boolean): Generator<SideStep> {
   const { diagram, moves } = state;
@@ -103,13 +102,18 @@ function* sideSteps(state: State, withFlypes: boolean): Generator<SideStep> {
   const flyped = function* (opensBigon: boolean): Generator<SideStep> {
     for (const site of sites) {
       if (site.opensBigon !== opensBigon) continue;
-      const result = flype(diagram, site);
-      yield { kind: 'flype', result: result && { diagram: checked(result, diagram), moves: { ...moves, flypes: moves.flypes + 1 } } };
+      yield {
+        kind: 'flype',
+        make: () => {
+          const result = flype(diagram, site);
+          return result && { diagram: checked(result, diagram), moves: { ...moves, flypes: moves.flypes + 1 } };
+        },
+      };
     }
   };
   yield* flyped(true);
   for (const triangle of slidableTriangles(diagram)) {
-    yield { kind: 'slide', result: { diagram: checked(slideTriangle(diagram, triangle), diagram), moves: { ...moves, slides: moves.slides + 1 } } };
+    yield { kind: 'slide', make: () => ({ diagram: checked(slideTriangle(diagram, triangle), diagram), moves: { ...moves, slides: moves.slides + 1 } }) };
   }
   yield* flyped(false);
 }
@@ -125,12 +129,13 @@ interface WorkLeft {
  * first, then (depth permitting) the steps after each of them.
  */
 function improve(state: State, depth: number, work: WorkLeft): State | undefined {
-  if (depth === 0) return undefined;
+  if (depth === 0 || (work.slide <= 0 && work.flype <= 0)) return undefined;
   const stepped: State[] = [];
-  for (const { kind, result } of sideSteps(state, work.flype > 0)) {
+  for (const { kind, make } of sideSteps(state, work.flype > 0)) {
     if (work.slide <= 0 && work.flype <= 0) return undefined;
     if (work[kind] <= 0) continue;
     work[kind] -= state.diagram.crossings.length;
+    const result = make();
     if (!result) continue;
     const reduced = reduceGreedily(result);
     if (reduced.diagram.crossings.length < state.diagram.crossings.length) return reduced;
