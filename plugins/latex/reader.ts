@@ -107,8 +107,8 @@ export interface LatexDocument {
 /** Keys of \begin{skeincode}{…} besides the claim keys. */
 const CODE_KEYS = ['id', 'notation', 'strands', 'part-signs', 'for'] as const;
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_.:+-]*$/;
-/** A fill-in macro (\skeinvalue or a shortcut) or \skeinclaim in a text. */
-const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
+/** A fill-in macro (\skeinvalue or a shortcut), \skeinclaim or \skeindrawing in a text. */
+const SKEIN_MACRO = new RegExp(`\\\\(skeinvalue|skeinclaim|skeindrawing|${Object.keys(FILL_SHORTCUTS).join('|')})(?![A-Za-z])`);
 /** What a macro's body may hold that makes skeinproof read it at each use: its markup, or an \input of a file named by a parameter. */
 const MARKUP_OR_INPUT = new RegExp(`${SKEIN_MACRO.source}|\\\\(input|include)(?![A-Za-z])`);
 /** How deep expansions of macros inside macros go before skeinproof stops (TeX would loop on a macro that uses itself). */
@@ -362,7 +362,9 @@ class ManuscriptReader {
     if (id !== undefined) this.addClaim(file, id, key.text, item.value, undefined);
   }
 
-  private drawing(file: SourceFile, item: Extract<ScanItem, { kind: 'drawing' }>, splices: Splice[]): void {
+  private drawing(file: TextOrigin, item: Extract<ScanItem, { kind: 'drawing' }>, splices: Splice[]): void {
+    const written = item.settings ? [item.id, item.settings] : [item.id];
+    if (this.readAtUses(file, item.definition, item.span, '\\skeindrawing', written, ' (the flat copy keeps it as written, so it needs the package)')) return;
     const id = this.validId(file, trim(item.id), item.span, '\\skeindrawing', '\\skeindrawing[size=5cm]{trefoil}');
     if (id === undefined) return;
     const settings: FigureSetting[] = [];
@@ -844,13 +846,15 @@ class ManuscriptReader {
     splices.push({ kind: 'expansion', span: item.span, text: expansion.text, splices: inner });
   }
 
-  /** What an expansion may hold: fill-ins, claims, inputs and further uses (diagrams, tables and conventions belong in the document). */
+  /** What an expansion may hold: fill-ins, claims, figures, inputs and further uses (diagrams, tables and conventions belong in the document). */
   private expandedItem(expansion: Expansion, item: ScanItem, splices: Splice[], open: readonly string[], depth: number, inTitle: boolean): void {
     switch (item.kind) {
       case 'fill':
         return this.fill(expansion, item, splices, inTitle || item.inTitle);
       case 'claim':
         return this.claim(expansion, item, splices);
+      case 'drawing':
+        return this.drawing(expansion, item, splices);
       case 'input':
         return this.input(expansion, item, splices, open);
       case 'use':

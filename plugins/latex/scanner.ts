@@ -81,7 +81,7 @@ export type ScanItem =
     }
   | { readonly kind: 'claim'; readonly span: Span; readonly id: Arg; readonly key: Arg; readonly value: Arg; readonly definition: DefinitionItem | undefined }
   /** `\skeindrawing[settings]{id}`: the figure of a diagram. */
-  | { readonly kind: 'drawing'; readonly span: Span; readonly settings: Arg | undefined; readonly id: Arg }
+  | { readonly kind: 'drawing'; readonly span: Span; readonly settings: Arg | undefined; readonly id: Arg; readonly definition: DefinitionItem | undefined }
   | { readonly kind: 'convention'; readonly span: Span; readonly settings: Arg }
   | { readonly kind: 'input'; readonly span: Span; readonly command: 'input' | 'include'; readonly path: Arg; readonly definition: DefinitionItem | undefined }
   | DefinitionItem
@@ -628,7 +628,7 @@ class Scanner {
     const settings = this.bracket(this.pos);
     if (settings) this.pos = settings.next;
     const args = this.requiredGroups(start, '\\skeindrawing', ['diagram id'], 'e.g. \\skeindrawing[size=5cm]{trefoil}');
-    if (args) this.items.push({ kind: 'drawing', span: { start, end: this.pos }, settings: settings?.arg, id: args[0]! });
+    if (args) this.items.push({ kind: 'drawing', span: { start, end: this.pos }, settings: settings?.arg, id: args[0]!, definition: this.definitionAt(start) });
   }
 
   /** Reads the braced arguments a macro needs; reports the first one missing. */

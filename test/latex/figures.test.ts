@@ -5,7 +5,7 @@
  * test-artifacts/ for a look.
  */
 import { execFileSync } from 'node:child_process';
-import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readLatexManuscript, type LatexDocument } from '../../plugins/latex/reader.ts';
@@ -76,6 +76,29 @@ describe('the reader and the session', () => {
   });
 });
 
+const MACRO = '\\newcommand\\knotfig[2][size=3cm]{\\skeindrawing[#1]{#2}}\n';
+const MACRO_USES = 'A figure in a macro: \\knotfig{trefoil} and \\knotfig[size=2cm, arrows=yes]{cinquefoil}.\n';
+
+describe('figures in macros and tables', () => {
+  it('a macro of the author’s that draws is read at each use, with the arguments in place', () => {
+    const doc = read(paper(MACRO_USES, MACRO));
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.figures.map((f) => [f.id, f.settingsText])).toEqual([
+      ['trefoil', 'size=3cm'],
+      ['cinquefoil', 'size=2cm, arrows=yes'],
+    ]);
+    expect(session(doc).diagnostics).toEqual([]);
+  });
+
+  it('a figure in a skein table cell is a figure, not the cell’s claimed value', () => {
+    const table = '\\begin{skeintable}{id, -, crossings}\n\\begin{tabular}{lll}\nid & picture & $n$ \\\\\ntrefoil & \\skeindrawing[size=1cm]{trefoil} & \\\\\n\\end{tabular}\n\\end{skeintable}\n';
+    const doc = read(paper(table));
+    expect(doc.diagnostics).toEqual([]);
+    expect(doc.figures.map((f) => f.id)).toEqual(['trefoil']);
+    expect(session(doc).diagnostics).toEqual([]);
+  });
+});
+
 describe.skipIf(!hasPdflatex)('the builds under pdflatex', () => {
   if (!hasPdflatex) console.warn(`test/latex/figures.test.ts skipped: ${NO_TEX_REASON}`);
 
@@ -132,6 +155,23 @@ describe.skipIf(!hasPdflatex)('the builds under pdflatex', () => {
     expect(run.ok, run.log.slice(-2000)).toBe(true);
     expect(run.text).toContain('A trefoil and a cinquefoil.');
     render(dir, 'flat.pdf', 'figures-flat.png');
+  });
+
+  it('a macro that draws finds its pictures in the sidecar: TeX reads the settings as the reader wrote them', async () => {
+    const dir = workDir('figure-macro');
+    copyFileSync(PACKAGE_FILE, join(dir, 'skeinproof.sty'));
+    writeFileSync(join(dir, 'paper.tex'), paper(MACRO_USES, MACRO));
+    const built = await latexFormat.build(join(dir, 'paper.tex'), {});
+    expect(built.diagnostics).toEqual([]);
+    writeFileSync(built.outputs[0]!.path, built.outputs[0]!.content);
+    const run = pdflatex(dir, 'paper.tex');
+    expect(run.ok, run.log.slice(-2000)).toBe(true);
+    expect(packageWarnings(run.log, 'skeinproof')).toEqual([]);
+    const flat = await latexFormat.build(join(dir, 'paper.tex'), { output: join(dir, 'flat.tex') });
+    expect(String(flat.outputs[0]!.content).match(/\\begin\{tikzpicture\}/g)).toHaveLength(2);
+    writeFileSync(join(dir, 'flat.tex'), flat.outputs[0]!.content);
+    rmSync(join(dir, 'skeinproof.sty'));
+    expect(pdflatex(dir, 'flat.tex').ok).toBe(true);
   });
 
   it('a paper that loads tikz itself (with options) gets no second load that would clash', async () => {

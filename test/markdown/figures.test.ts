@@ -144,6 +144,19 @@ describe('the build', () => {
     expect(strokes(tree).length).toBeGreaterThan(0);
   });
 
+  it('fills a pipeline’s own tree with the figure as raw HTML, which remark-rehype with rehype-raw shows', async () => {
+    const { unified } = await import('unified');
+    const remarkParse = (await import('remark-parse')).default;
+    const remarkDirective = (await import('remark-directive')).default;
+    const remarkRehype = (await import('remark-rehype')).default;
+    const rehypeRaw = (await import('rehype-raw')).default;
+    const remarkSkeinproof = (await import('../../plugins/remark/index.ts')).default;
+    const processor = unified().use(remarkParse).use(remarkDirective).use(remarkSkeinproof).use(remarkRehype, { allowDangerousHtml: true }).use(rehypeRaw);
+    const tree = (await processor.run(processor.parse(`${TREFOIL}\n::drawing[Trefoil]{of=k}\n`))) as Root;
+    expect(elements(tree, 'svg')).toHaveLength(1);
+    expect(strokes(tree).length).toBeGreaterThan(0);
+  });
+
   it('keeps a hostile title as text: in the SVG, in the built Markdown and on the page', async () => {
     const path = join(work, 'hostile.md');
     writeFileSync(path, `${TREFOIL}\n::drawing[</title><script>alert(1)</script> & "q"]{of=k}\n`);
