@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import type { Element, Root } from 'hast';
 import { fromHtml } from 'hast-util-from-html';
 import { visit } from 'unist-util-visit';
+import { VFile } from 'vfile';
 import { afterAll, describe, expect, it } from 'vitest';
 import { markdownFormat } from '../../src/cli/formats/markdown.ts';
 import { placed, positionOf, processMarkdown } from './helpers.ts';
@@ -152,7 +153,8 @@ describe('the build', () => {
     const rehypeRaw = (await import('rehype-raw')).default;
     const remarkSkeinproof = (await import('../../plugins/remark/index.ts')).default;
     const processor = unified().use(remarkParse).use(remarkDirective).use(remarkSkeinproof).use(remarkRehype, { allowDangerousHtml: true }).use(rehypeRaw);
-    const tree = (await processor.run(processor.parse(`${TREFOIL}\n::drawing[Trefoil]{of=k}\n`))) as Root;
+    const file = new VFile({ value: `${TREFOIL}\n::drawing[Trefoil]{of=k}\n`, path: 'doc.md' });
+    const tree = (await processor.run(processor.parse(file), file)) as Root;
     expect(elements(tree, 'svg')).toHaveLength(1);
     expect(strokes(tree).length).toBeGreaterThan(0);
   });
