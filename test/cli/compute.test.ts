@@ -124,6 +124,20 @@ describe('skeinproof compute (plain)', () => {
     expect(stdout).toContain('nugatory');
     expect(stdout).toContain('crossing number exactly 3');
   });
+  it('reduces P(1, 3, −1, 3, 3) by a flype and a Reidemeister II to P(3, 3, 3) = 9₃₅, crossing number 9 (from memory), and prints the 9-crossing diagram', () => {
+    const { status, stdout, stderr } = skeinproof('compute', '--json', '--notation', 'family', '--keys', 'crossingNumber,simplified', 'pretzel 1 3 -1 3 3');
+    expect(stderr).toBe('');
+    expect(status).toBe(0);
+    const [object] = jsonLines(stdout) as [Record<string, any>];
+    expect(object.simplified.crossings).toBe(9);
+    expect(object.simplified.moves).toEqual({ nugatory: 0, bigons: 1, slides: 0, flypes: 1 });
+    expect(object.crossingNumber.exact).toBe(9);
+    // The printed code is a diagram of the same knot: its own exact value is 9 without any move.
+    const again = skeinproof('compute', '--json', '--keys', 'crossingNumber,simplified', object.simplified.codes.pd);
+    const [reparsed] = jsonLines(again.stdout) as [Record<string, any>];
+    expect(reparsed.crossingNumber.exact).toBe(9);
+    expect(reparsed.simplified).toBeNull();
+  });
   it('refuses a notation outside the choices as a usage error, without running the command (it used to run and crash as an internal error)', () => {
     const { status, stdout, stderr } = skeinproof('compute', '--notation', 'knot', '1 1');
     expect(status).toBe(2);

@@ -72,6 +72,21 @@ describe('a flype keeps the link', () => {
     }
     expect(made).toBeGreaterThan(30);
   });
+  it('a flype keeps alternation, adequacy and the circle counts of the all-A and all-B states (the tangle\'s part of each state is only reflected), so on its own it never decides a crossing number', () => {
+    const random = rng(31);
+    let made = 0;
+    for (let i = 0; i < 60; i++) {
+      const d = randomDiagram(random, 12, 5);
+      const before = diagramProperties(d);
+      for (const result of flyped(d)) {
+        const after = diagramProperties(result);
+        expect([after.alternating, after.aAdequate, after.bAdequate]).toEqual([before.alternating, before.aAdequate, before.bAdequate]);
+        expect(after.stateCircles).toEqual(before.stateCircles);
+        made++;
+      }
+    }
+    expect(made).toBeGreaterThan(300);
+  });
   it('a reduced alternating diagram stays reduced alternating, with the same count, under every flype', () => {
     const random = rng(9);
     let made = 0;
