@@ -1,7 +1,7 @@
 /**
  * The disk cache on a generated manuscript of 200 diagrams of 8–40 crossings
  * (random braid closures on 3–6 strands), each with its Jones polynomial,
- * Alexander polynomial, determinant and signature filled in (and once more
+ * Alexander polynomial, determinant, signature and crossing number filled in (and once more
  * with the HOMFLY-PT and Kauffman polynomials too), in Markdown and in LaTeX: `build` with an empty cache (cold), with the cache the cold run
  * filled (warm, median of 3), and after one diagram's code is edited. Each run
  * is the command line as a user runs it, start-up included. The outputs of
@@ -19,7 +19,7 @@ const ROOT = join(import.meta.dirname, '..');
 const BIN = join(ROOT, 'bin', 'skeinproof.js');
 const DIAGRAMS = 200;
 /** What each diagram fills in: the classical set, and the same with the two-variable polynomials (dearer to compute). */
-const LIGHT = ['jones', 'alexander', 'determinant', 'signature'];
+const LIGHT = ['jones', 'alexander', 'determinant', 'signature', 'crossing-number'];
 const HEAVY = [...LIGHT, 'homfly', 'kauffman'];
 
 interface Diagram {
@@ -94,8 +94,8 @@ export function runCacheBench(): void {
     // One diagram's code edited: its first generator inverted (another diagram, so it must miss).
     const edited = list.map((d, k) => (k === DIAGRAMS / 2 ? { ...d, word: [-d.word[0]!, ...d.word.slice(1)] } : d));
     for (const [name, file, output, write, result, keys] of [
-      ['Markdown; V, Δ, det, σ', 'census.md', 'census.filled.md', markdown, 'census.filled.md', LIGHT],
-      ['LaTeX; V, Δ, det, σ', 'census.tex', '', latex, 'census.skein.tex', LIGHT],
+      ['Markdown; V, Δ, det, σ, c', 'census.md', 'census.filled.md', markdown, 'census.filled.md', LIGHT],
+      ['LaTeX; V, Δ, det, σ, c', 'census.tex', '', latex, 'census.skein.tex', LIGHT],
       ['Markdown; also HOMFLY-PT and Kauffman F', 'census.md', 'census.filled.md', markdown, 'census.filled.md', HEAVY],
       ['LaTeX; also HOMFLY-PT and Kauffman F', 'census.tex', '', latex, 'census.skein.tex', HEAVY],
     ] as const) {

@@ -80,6 +80,28 @@ describe('codecs of the stored quantities', () => {
     expect(STORED.khovanov.decode(k.slice(0, k.length / 2))).toBeUndefined();
   });
 
+  it('round-trips crossing-number bounds with their reasons and the simplified diagram (a non-alternating closure the moves shrink)', () => {
+    const r = analyzeDiagram(parseDiagramCode('1 -2 1 2 1 1 -2', 'braid'));
+    expect(r.simplified).toBeDefined();
+    const simplified = { diagram: r.simplified!.diagram, moves: r.simplified!.moves, description: r.simplified!.description };
+    expect(roundTrip(STORED.simplified, simplified)).toEqual(simplified);
+    expect(roundTrip(STORED.simplified, null)).toBeNull();
+    expect(r.crossingNumber.reasons.some((reason) => reason.afterMoves !== undefined)).toBe(true);
+    expect(roundTrip(STORED.crossingNumber, r.crossingNumber)).toEqual(r.crossingNumber);
+    const plain = analyzeDiagram(trefoil).crossingNumber;
+    expect(roundTrip(STORED.crossingNumber, plain)).toEqual(plain);
+  });
+
+  it('refuses a stored diagram that is not a diagram (an edge used three times) and bounds that are not bounds', () => {
+    const text = STORED.simplified.encode({ diagram: trefoil, moves: { nugatory: 0, bigons: 0, slides: 0, flypes: 0 }, description: 'no moves' })!;
+    expect(STORED.simplified.decode(text)).toBeDefined();
+    const json = JSON.parse(text) as { diagram: { crossings: number[][] } };
+    json.diagram.crossings[0]![1] = json.diagram.crossings[1]![1]!;
+    expect(STORED.simplified.decode(JSON.stringify(json))).toBeUndefined();
+    expect(STORED.crossingNumber.decode('{"lower":5,"upper":3,"exact":null,"reasons":[]}')).toBeUndefined();
+    expect(STORED.crossingNumber.decode('{"lower":3,"upper":3,"exact":3,"reasons":[{"bound":"exact","value":3,"theorem":"x","text":1}]}')).toBeUndefined();
+  });
+
   it('has one codec name per quantity, each with its format version', () => {
     const names = Object.values(STORED).map((c) => c.name);
     expect(new Set(names).size).toBe(names.length);

@@ -10,7 +10,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import type { ResultStore } from '../../src/core/cache/store.ts';
-import { parseDiagramCode } from '../../src/core/notation/index.ts';
+import { parseDiagramCode, printGaussCode, printPdCode } from '../../src/core/notation/index.ts';
 import { kauffmanBracket } from '../../src/core/invariants/bracket.ts';
 import { homflyOf } from '../../src/core/invariants/registered/skein-values.ts';
 import { khovanovOf } from '../../src/core/claims/khovanov-claims.ts';
@@ -84,6 +84,36 @@ describe('analysis through a result store', () => {
     expect(store.puts).toBe(puts); // the bracket was read, not computed
     expect(report.boundaryWidth).toBe(kauffmanBracket(e).boundaryWidth);
     expect(store.puts).toBe(puts + 1); // its own width was computed and stored
+  });
+
+  it('keys crossing-number bounds by the family marking too: a torus knot built as a family and the same drawing as a PD code each get their own reasons', () => {
+    const store = new MemoryStore();
+    const family = parseDiagramCode('torus 3 4', 'family');
+    const pd = parseDiagramCode(printPdCode(family), 'pd');
+    const uncachedFamily = analyzeDiagram(parseDiagramCode('torus 3 4', 'family')).crossingNumber;
+    const uncachedPd = analyzeDiagram(parseDiagramCode(printPdCode(family), 'pd')).crossingNumber;
+    // Murasugi's torus-knot theorem (1991) applies to the family member only.
+    expect(uncachedFamily.reasons.map((x) => x.theorem)).toContain('murasugi-torus');
+    expect(uncachedPd.reasons.map((x) => x.theorem)).not.toContain('murasugi-torus');
+    expect(analyzeDiagram(family, {}, store).crossingNumber).toEqual(uncachedFamily);
+    expect(analyzeDiagram(pd, {}, store).crossingNumber).toEqual(uncachedPd);
+    // A second run reads both back unchanged.
+    expect(analyzeDiagram(parseDiagramCode('torus 3 4', 'family'), {}, store).crossingNumber).toEqual(uncachedFamily);
+    expect(analyzeDiagram(parseDiagramCode(printPdCode(family), 'pd'), {}, store).crossingNumber).toEqual(uncachedPd);
+  });
+
+  it('reads a simplified diagram and its crossing-number bounds back the same', () => {
+    const store = new MemoryStore();
+    const code = '1 2 1 -2 -1 2 2 1 -1';
+    const uncached = analyzeDiagram(parseDiagramCode(code, 'braid'));
+    void analyzeDiagram(parseDiagramCode(code, 'braid'), {}, store).crossingNumber;
+    const puts = store.puts;
+    const warm = analyzeDiagram(parseDiagramCode(code, 'braid'), {}, store);
+    expect(warm.crossingNumber).toEqual(uncached.crossingNumber);
+    expect(printGaussCode(warm.simplified!.diagram)).toBe(printGaussCode(uncached.simplified!.diagram));
+    expect(warm.simplified!.diagram.freeLoops).toBe(uncached.simplified!.diagram.freeLoops);
+    expect(warm.simplified!.description).toBe(uncached.simplified!.description);
+    expect(store.puts).toBe(puts);
   });
 
   it('never serves a diagram\'s values to its mirror image (the trefoil is chiral)', () => {

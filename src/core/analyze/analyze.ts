@@ -85,19 +85,21 @@ function lazyReport(d: LinkDiagram, limits: ComputeLimits, store: ResultStore | 
     bAdequate: () => props().bAdequate,
     adequate: () => props().adequate,
     stateCircles: () => props().stateCircles,
-    crossingNumber: () => {
-      const smaller = plainBounds().exact === null ? r.simplified : undefined;
-      if (!smaller) return plainBounds();
-      const simplified = { crossings: smaller.diagram.crossings.length, moves: smaller.description, flyped: smaller.moves.flypes > 0, bounds: analyzeDiagram(smaller.diagram, limits, store).crossingNumber };
-      return crossingNumberBounds({ ...boundInput(), simplified });
-    },
-    simplified: () => {
-      // Only worth a search when no theorem has decided the number without it.
-      if (plainBounds().exact !== null) return undefined;
-      const { diagram, moves } = simplifyDiagram(d);
-      if (diagram.crossings.length >= plainBounds().upper) return undefined;
-      return { diagram, moves, description: describeMoves(moves) };
-    },
+    crossingNumber: () =>
+      throughStore(store, STORED.crossingNumber, d, () => {
+        const smaller = plainBounds().exact === null ? r.simplified : undefined;
+        if (!smaller) return plainBounds();
+        const simplified = { crossings: smaller.diagram.crossings.length, moves: smaller.description, flyped: smaller.moves.flypes > 0, bounds: analyzeDiagram(smaller.diagram, limits, store).crossingNumber };
+        return crossingNumberBounds({ ...boundInput(), simplified });
+      }),
+    simplified: () =>
+      throughStore(store, STORED.simplified, d, () => {
+        // Only worth a search when no theorem has decided the number without it.
+        if (plainBounds().exact !== null) return null;
+        const { diagram, moves } = simplifyDiagram(d);
+        if (diagram.crossings.length >= plainBounds().upper) return null;
+        return { diagram, moves, description: describeMoves(moves) };
+      }) ?? undefined,
     family: () => (family ? { identity: family, description: describeFamily(family, componentCount(d)) } : undefined),
     boundaryWidth: () => throughStore(store, STORED.boundaryWidth, d, () => bracketResult().boundaryWidth),
     classical,

@@ -18,6 +18,7 @@
  * text (n walks of O(n) each). Pieces are sorted; free loops are counted.
  */
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
+import { familyOf } from '../families/identity.ts';
 
 const texts = new WeakMap<LinkDiagram, string>();
 
@@ -103,9 +104,11 @@ function walkBelow(d: LinkDiagram, opposite: Int32Array, start: number, label: I
 
 /**
  * The diagram exactly as numbered: crossings in order with their signs and edge labels, the components'
- * edge lists and the free loops. Keys values that depend on the numbering itself.
+ * edge lists, the free loops, the notation and the family marking (src/core/families/identity.ts). Keys
+ * values that depend on the numbering itself or on what the diagram was built as.
  */
 export function labelledDiagramText(d: LinkDiagram): string {
   const crossings = d.crossings.map((c) => `${c.sign} ${c.edges.join(' ')}`).join(',');
-  return `labelled|${crossings}|${d.components.map((k) => k.join(' ')).join(',')}|loops ${d.freeLoops}`;
+  const family = familyOf(d);
+  return `labelled ${d.notation}|${crossings}|${d.components.map((k) => k.join(' ')).join(',')}|loops ${d.freeLoops}|family ${family ? JSON.stringify(family) : 'none'}`;
 }

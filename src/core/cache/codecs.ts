@@ -9,13 +9,17 @@
 import { Laurent } from '../poly/laurent.ts';
 import { Laurent2 } from '../poly/laurent2.ts';
 import type { KhovanovHomology, KhovanovReport, RankEntry, TorsionEntry } from '../invariants/khovanov/index.ts';
+import type { BoundReason, CrossingNumberBounds, TheoremId } from '../analyze/report.ts';
+import { structuralProblem, type Crossing, type LinkDiagram, type Notation } from '../diagram/model.ts';
+import type { MoveCounts } from '../simplify/simplify.ts';
 
 export interface Codec<T> {
   /** The quantity and the version of its text form, e.g. `bracket/1`; part of every key. */
   readonly name: string;
   /**
-   * True for a value that depends on how the diagram is numbered (its crossing order and edge labels), not
-   * only on the diagram: it is keyed by the diagram exactly as numbered (./canonical.ts, labelledDiagramText).
+   * True for a value that depends on how the diagram is numbered (its crossing order and edge labels) or on
+   * its family marking, not only on the diagram: it is keyed by the diagram exactly as numbered, with its
+   * notation and marking (./canonical.ts, labelledDiagramText).
    */
   readonly labelled?: boolean;
   /** The value as text, or undefined when this value is not to be stored. */
@@ -122,3 +126,81 @@ export const khovanovCodec = (name: string): Codec<KhovanovReport> =>
       return { homology, reduced, width, thin, rasmussen };
     },
   );
+
+const isBound = (x: unknown): x is BoundReason['bound'] => x === 'lower' || x === 'upper' || x === 'exact';
+
+function reasonFromJson(json: unknown): BoundReason | undefined {
+  if (typeof json !== 'object' || json === null) return undefined;
+  const { bound, value, theorem, text, afterMoves } = json as Record<string, unknown>;
+  if (!isBound(bound) || !isInteger(value) || typeof theorem !== 'string' || !/^[a-z-]+$/.test(theorem) || typeof text !== 'string') return undefined;
+  if (afterMoves !== undefined && typeof afterMoves !== 'string') return undefined;
+  return { bound, value, theorem: theorem as TheoremId, text, ...(afterMoves !== undefined ? { afterMoves } : {}) };
+}
+
+/** Crossing-number bounds with their reasons (keyed by the labelled diagram: the reasons read the family marking). */
+export const crossingBoundsCodec = (name: string): Codec<CrossingNumberBounds> => ({
+  labelled: true,
+  ...jsonCodec<CrossingNumberBounds>(
+    name,
+    (b) => ({ lower: b.lower, upper: b.upper, exact: b.exact, reasons: b.reasons }),
+    (json) => {
+      if (typeof json !== 'object' || json === null) return undefined;
+      const { lower, upper, exact, reasons } = json as Record<string, unknown>;
+      if (!isInteger(lower) || !isInteger(upper) || lower > upper || !(exact === null || isInteger(exact)) || !Array.isArray(reasons)) return undefined;
+      const read = reasons.map(reasonFromJson);
+      if (read.some((r) => r === undefined)) return undefined;
+      return { lower, upper, exact, reasons: read as BoundReason[] };
+    },
+  ),
+});
+
+const NOTATION_NAMES: readonly Notation[] = ['pd', 'braid', 'gauss', 'dt', 'family'];
+
+function diagramToJson(d: LinkDiagram): unknown {
+  return { notation: d.notation, crossings: d.crossings.map((c) => [c.sign, ...c.edges]), edgeCount: d.edgeCount, components: d.components, freeLoops: d.freeLoops, chiralityFixed: d.chiralityFixed };
+}
+
+/** A diagram, refused unless it passes the model's structural check. */
+function diagramFromJson(json: unknown): LinkDiagram | undefined {
+  if (typeof json !== 'object' || json === null) return undefined;
+  const { notation, crossings, edgeCount, components, freeLoops, chiralityFixed } = json as Record<string, unknown>;
+  if (!NOTATION_NAMES.includes(notation as Notation) || !isInteger(edgeCount) || !isInteger(freeLoops) || freeLoops < 0 || typeof chiralityFixed !== 'boolean') return undefined;
+  if (!Array.isArray(crossings) || !crossings.every((c) => isIntegerList(c, 5) && (c[0] === 1 || c[0] === -1))) return undefined;
+  if (!Array.isArray(components) || !components.every((k) => Array.isArray(k) && k.every(isInteger))) return undefined;
+  const d: LinkDiagram = {
+    notation: notation as Notation,
+    crossings: (crossings as number[][]).map(([sign, ...edges]) => ({ sign, edges }) as unknown as Crossing),
+    edgeCount,
+    components: components as number[][],
+    freeLoops,
+    chiralityFixed,
+  };
+  return structuralProblem(d) === undefined ? d : undefined;
+}
+
+export interface StoredSimplification {
+  readonly diagram: LinkDiagram;
+  readonly moves: MoveCounts;
+  readonly description: string;
+}
+
+const MOVE_NAMES = ['nugatory', 'bigons', 'slides', 'flypes'] as const;
+
+/** The smaller diagram the simplifier reached, or null when it found none (keyed by the labelled diagram). */
+export const simplificationCodec = (name: string): Codec<StoredSimplification | null> => ({
+  labelled: true,
+  ...jsonCodec<StoredSimplification | null>(
+    name,
+    (s) => s && { diagram: diagramToJson(s.diagram), moves: s.moves, description: s.description },
+    (json) => {
+      if (json === null) return null;
+      if (typeof json !== 'object') return undefined;
+      const { diagram, moves, description } = json as Record<string, unknown>;
+      const d = diagramFromJson(diagram);
+      if (!d || typeof description !== 'string' || typeof moves !== 'object' || moves === null) return undefined;
+      const counts = moves as Record<string, unknown>;
+      if (Object.keys(counts).length !== MOVE_NAMES.length || !MOVE_NAMES.every((m) => isInteger(counts[m]))) return undefined;
+      return { diagram: d, moves: counts as unknown as MoveCounts, description };
+    },
+  ),
+});

@@ -1,14 +1,13 @@
 /**
  * The quantities the result store keeps, each with its codec. Every one is a
  * function of the diagram up to relabelling (./canonical.ts) and of nothing
- * else (no convention, notation, family marking or limit), except the boundary
- * width, which is keyed by the diagram as numbered. Not stored: cheap values
- * read off the diagram; the crossing-number bounds (their reasons rest on
- * family theorems that depend on how the diagram was built); the simplified
- * diagram; the braid index bounds (they read the notation) and the Arf
+ * else (no convention, notation, family marking or limit), except the
+ * boundary width, the crossing-number bounds and the simplified diagram, which
+ * are keyed by the diagram as numbered with its notation and family marking.
+ * Not stored: cheap values read off the diagram; the braid index bounds (they read the notation) and the Arf
  * invariant (both are cheap once the stored polynomials are known).
  */
-import { bigintCodec, integerCodec, khovanovCodec, laurent2Codec, laurentCodec } from './codecs.ts';
+import { bigintCodec, crossingBoundsCodec, integerCodec, khovanovCodec, laurent2Codec, laurentCodec, simplificationCodec } from './codecs.ts';
 
 export const STORED = {
   bracket: laurentCodec('bracket/1'),
@@ -23,4 +22,8 @@ export const STORED = {
   homfly: laurent2Codec('homfly/1'),
   kauffman: laurent2Codec('kauffman/1'),
   dubrovnik: laurent2Codec('dubrovnik/1'),
+  // The bounds' reasons rest on theorems about the family a diagram was built as, and the simplifier's moves
+  // follow the numbering: both are keyed by the labelled diagram with its notation and family marking.
+  crossingNumber: crossingBoundsCodec('crossing-number/1'),
+  simplified: simplificationCodec('simplified/1'),
 } as const;
