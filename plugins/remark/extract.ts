@@ -311,7 +311,7 @@ class Extractor {
     });
     // The figure is an HTML block in the built text, which runs on to the next blank line: keep the next line out of it.
     const rest = this.text.slice(end, end + 2000);
-    const blankAfter = !/^[ \t]*(?:\r\n|\r|\n|$)(?:[ \t]*(?:\r\n|\r|\n|$)|$)/.test(rest);
+    const blankAfter = !/^[ \t]*(?:\r\n|\r(?!\n)|\n|$)(?:[ \t]*(?:\r\n|\r(?!\n)|\n|$)|$)/.test(rest);
     this.edits.push({ start, end, replacement: { figure, blankAfter } });
     this.actions.set(node, { kind: 'figure', figure });
   }

@@ -145,6 +145,14 @@ describe('the build', () => {
     expect(strokes(tree).length).toBeGreaterThan(0);
   });
 
+  it('keeps the manuscript’s line endings around a figure (CRLF here)', async () => {
+    const text = `${TREFOIL}\n::drawing{of=k}\nText right after.\n`.replace(/\n/g, '\r\n');
+    const r = await processMarkdown(text);
+    expect(r.diagnostics).toEqual([]);
+    expect(r.built).toMatch(/<\/figure>\r\n\r\nText right after\.\r\n$/);
+    expect(r.built.replace(/\r\n/g, '')).not.toContain('\n');
+  });
+
   it('fills a pipeline’s own tree with the figure as raw HTML, which remark-rehype with rehype-raw shows', async () => {
     const { unified } = await import('unified');
     const remarkParse = (await import('remark-parse')).default;
