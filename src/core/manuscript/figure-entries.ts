@@ -1,7 +1,7 @@
 /**
  * The session's side of figures: each figure's settings are read and checked against its diagram (the
- * outer face must be one of its faces), and the diagram is handed back for the front end to draw when it
- * builds. Nothing here computes geometry, so a check stays as fast with figures as without.
+ * outer face is named by one of its edges), and the diagram is handed back for the front end to draw when
+ * it builds (drawFigure). Placing computes no geometry, so a check stays as fast with figures as without.
  */
 import type { DiagramReport } from '../analyze/report.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
