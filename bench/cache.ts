@@ -17,9 +17,9 @@ import { randomBraidWord, randomInt, rng } from '../test/support/random-diagrams
 
 const ROOT = join(import.meta.dirname, '..');
 const BIN = join(ROOT, 'bin', 'skeinproof.js');
-const DIAGRAMS = 200;
+export const DIAGRAMS = 200;
 /** What each diagram fills in: the classical set, and the same with the two-variable polynomials (dearer to compute). */
-const LIGHT = ['jones', 'alexander', 'determinant', 'signature', 'crossing-number'];
+export const LIGHT = ['jones', 'alexander', 'determinant', 'signature', 'crossing-number'];
 const HEAVY = [...LIGHT, 'homfly', 'kauffman'];
 
 interface Diagram {
@@ -28,7 +28,7 @@ interface Diagram {
   readonly word: number[];
 }
 
-function diagrams(): Diagram[] {
+export function diagrams(): Diagram[] {
   const random = rng(2026);
   return Array.from({ length: DIAGRAMS }, (_, k) => {
     const strands = randomInt(random, 3, 6);
@@ -36,7 +36,7 @@ function diagrams(): Diagram[] {
   });
 }
 
-function markdown(list: readonly Diagram[], keys: readonly string[]): string {
+export function markdown(list: readonly Diagram[], keys: readonly string[]): string {
   const body = list.map(
     (d) =>
       `\`\`\`skein id=${d.id} notation=braid strands=${d.strands}\n${d.word.join(' ')}\n\`\`\`\n\n` +
@@ -45,7 +45,7 @@ function markdown(list: readonly Diagram[], keys: readonly string[]): string {
   return `# A generated census\n\n${body.join('\n')}`;
 }
 
-function latex(list: readonly Diagram[], keys: readonly string[]): string {
+export function latex(list: readonly Diagram[], keys: readonly string[]): string {
   const body = list.map(
     (d) =>
       `\\begin{skeincode}{id=${d.id}, notation=braid, strands=${d.strands}}\n${d.word.join(' ')}\n\\end{skeincode}\n` +
@@ -59,19 +59,19 @@ function latex(list: readonly Diagram[], keys: readonly string[]): string {
  * (cutime and cstime, in clock ticks of 1/100 s on Linux): unlike wall time, it does not grow when other
  * work shares the machine's cores.
  */
-function childCpuMs(): number {
+export function childCpuMs(): number {
   const fields = readFileSync('/proc/self/stat', 'utf8').replace(/^.*\) /, '').split(' ');
   // Fields 16 and 17 of stat(5); the text after "(comm) " starts at field 3.
   return (Number(fields[13]) + Number(fields[14])) * 10;
 }
 
-interface Timing {
+export interface Timing {
   readonly wallMs: number;
   readonly cpuMs: number;
 }
 
 /** Wall and CPU time of one `build`. */
-function build(cwd: string, file: string, output: string, cache: string[]): Timing {
+export function build(cwd: string, file: string, output: string, cache: string[]): Timing {
   const start = performance.now();
   const cpu = childCpuMs();
   const r = spawnSync(process.execPath, [BIN, 'build', file, ...(output ? ['-o', output] : []), ...cache], { cwd, stdio: ['ignore', 'ignore', 'pipe'], encoding: 'utf8' });
@@ -81,7 +81,7 @@ function build(cwd: string, file: string, output: string, cache: string[]): Timi
 }
 
 const seconds = (ms: number): string => (ms / 1000).toFixed(2);
-const format = (t: Timing): string => `${seconds(t.wallMs)} s (${seconds(t.cpuMs)} s)`;
+export const format = (t: Timing): string => `${seconds(t.wallMs)} s (${seconds(t.cpuMs)} s)`;
 
 export function runCacheBench(): void {
   const work = mkdtempSync(join(tmpdir(), 'skeinproof-cache-bench-'));

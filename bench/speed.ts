@@ -4,11 +4,12 @@
  * the compiled entry (dist/, what `npm ci` builds) with the old way of running
  * the TypeScript through tsx (SKEINPROOF_FROM_SOURCE=1), side by side in one run.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { spawn, spawnSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { randomBraidWord, rng } from '../test/support/random-diagrams.ts';
+import { childCpuMs, diagrams, format as formatTiming, LIGHT, markdown, type Timing } from './cache.ts';
 
 const ROOT = join(import.meta.dirname, '..');
 const BIN = join(ROOT, 'bin', 'skeinproof.js');
@@ -27,7 +28,7 @@ function median(values: number[]): number {
 
 const format = (ms: number): string => (ms < 1000 ? `${ms.toFixed(0)} ms` : `${(ms / 1000).toFixed(2)} s`);
 
-export function runSpeedBench(): void {
+export async function runSpeedBench(): Promise<void> {
   spawnSync(process.execPath, [join(ROOT, 'scripts', 'compile.mjs')], { stdio: 'inherit' });
   const startups: [string, string[], string][] = [
     ['`--help`', ['--help'], '0.25 s'],
@@ -47,7 +48,7 @@ export function runSpeedBench(): void {
   console.log(`\n${lines.join('\n')}`);
 
   // Batch throughput: random braid closures of 10–16 crossings on up to 4 strands.
-  const count = Number(process.env['SKEINPROOF_BENCH_BATCH'] ?? 1000);
+  const count = Number(process.env['SKEINPROOF_BENCH_BATCH'] ?? 10_000);
   const random = rng(10_000);
   const work = mkdtempSync(join(tmpdir(), 'skeinproof-bench-'));
   try {
@@ -56,15 +57,102 @@ export function runSpeedBench(): void {
       JSON.stringify({ id: `d${k}`, notation: 'braid', code: randomBraidWord(random, 2 + (k % 3), 10 + (k % 7)).join(' '), keys: 'jones,crossingNumber,determinant,signature' }),
     );
     writeFileSync(input, `${rows.join('\n')}\n`);
-    const batchLines = ['| batch of random 10–16-crossing braid closures (jones, crossing number, det, σ) | diagrams | time | diagrams/s |', '| --- | ---: | ---: | ---: |'];
-    let oneWorker = 0;
-    for (const jobs of [1, 2]) {
-      const ms = wallMs(['batch', input, '--jobs', String(jobs)]);
-      if (jobs === 1) oneWorker = ms;
-      batchLines.push(`| ${jobs} worker${jobs === 1 ? '' : 's'}${jobs === 2 ? ` (${(oneWorker / ms).toFixed(2)}× one worker)` : ''} | ${count} | ${format(ms)} | ${Math.round((count / ms) * 1000)} |`);
-    }
-    console.log(`\n${batchLines.join('\n')}`);
+    // --jobs 1 and 2 alternately, three times each, so both see the same load; medians compared.
+    const runs: Record<'1' | '2', Timing[]> = { '1': [], '2': [] };
+    for (let k = 0; k < 3; k++) for (const jobs of ['1', '2'] as const) runs[jobs].push(timed(['batch', input, '--jobs', jobs]));
+    const [one, two] = [medianTiming(runs['1']), medianTiming(runs['2'])];
+    console.log(
+      [
+        '',
+        `| batch of ${count} random 10–16-crossing braid closures (jones, crossing number, det, σ), median of 3 | wall (CPU) | diagrams/s |`,
+        '| --- | ---: | ---: |',
+        `| --jobs 1 | ${formatTiming(one)} | ${Math.round((count / one.wallMs) * 1000)} |`,
+        `| --jobs 2 | ${formatTiming(two)} | ${Math.round((count / two.wallMs) * 1000)} (${(one.wallMs / two.wallMs).toFixed(2)}× --jobs 1) |`,
+      ].join('\n'),
+    );
+    await runManuscriptBench(work);
   } finally {
     rmSync(work, { recursive: true, force: true });
+  }
+}
+
+/** Wall and CPU time (this process's children, worker threads included) of one command. */
+function timed(args: readonly string[]): Timing {
+  const cpu = childCpuMs();
+  const wall = wallMs(args);
+  return { wallMs: wall, cpuMs: childCpuMs() - cpu };
+}
+
+function medianTiming(runs: readonly Timing[]): Timing {
+  return [...runs].sort((a, b) => a.wallMs - b.wallMs)[Math.floor(runs.length / 2)]!;
+}
+
+/**
+ * The generated 200-diagram manuscript of the cache bench (V, Δ, det, σ filled in for each), built
+ * without the cache with --jobs 1 and 2 side by side; then `watch` (no cache, default jobs): the time
+ * from saving a one-claim edit to the end of the new build, as the watch prints it.
+ */
+async function runManuscriptBench(work: string): Promise<void> {
+  const path = join(work, 'census.md');
+  const text = markdown(diagrams(), LIGHT);
+  writeFileSync(path, text);
+  const runs: Record<'1' | '2', Timing[]> = { '1': [], '2': [] };
+  for (let k = 0; k < 3; k++) {
+    for (const jobs of ['1', '2'] as const) runs[jobs].push(timed(['build', path, '-o', join(work, `census-${jobs}.md`), '--no-cache', '--jobs', jobs]));
+  }
+  const [one, two] = [medianTiming(runs['1']), medianTiming(runs['2'])];
+  console.log(
+    [
+      '',
+      '| build of the 200-diagram Markdown manuscript, no cache, median of 3 | wall (CPU) |',
+      '| --- | ---: |',
+      `| --jobs 1 | ${formatTiming(one)} |`,
+      `| --jobs 2 | ${formatTiming(two)} (${(one.wallMs / two.wallMs).toFixed(2)}× --jobs 1) |`,
+    ].join('\n'),
+  );
+  const times = (await watchAfterEdits(path, text)).sort((a, b) => a - b);
+  console.log(
+    [
+      '',
+      `| watch of the same manuscript (no cache): a one-claim edit saved → new report printed and build written | median of ${times.length} | fastest | slowest |`,
+      '| --- | ---: | ---: | ---: |',
+      `| default --jobs | ${format(times[Math.floor(times.length / 2)]!)} | ${format(times[0]!)} | ${format(times[times.length - 1]!)} |`,
+    ].join('\n'),
+  );
+}
+
+/**
+ * Starts `watch`, waits for its first build, then saves edits of one claim (a determinant claimed for the
+ * first diagram, 1 then 2 then 1 …) and measures each from the write to the watch's "--- watching" line.
+ */
+async function watchAfterEdits(path: string, text: string, edits = 7): Promise<number[]> {
+  const withClaim = (value: number): string => `${text}\nThe determinant of d0 is :determinant[$${value}$]{of=d0}.\n`;
+  writeFileSync(path, withClaim(0));
+  const child = spawn(process.execPath, [BIN, 'watch', path, '-o', `${path}.out.md`, '--no-cache', '--force-write'], { stdio: ['ignore', 'pipe', 'ignore'] });
+  let pending: (() => void) | undefined;
+  let buffered = '';
+  child.stdout.setEncoding('utf8');
+  child.stdout.on('data', (data: string) => {
+    buffered += data;
+    if (buffered.includes('--- watching')) {
+      buffered = '';
+      pending?.();
+    }
+  });
+  const nextBuild = (): Promise<void> => new Promise((resolve) => (pending = resolve));
+  try {
+    await nextBuild();
+    const times: number[] = [];
+    for (let k = 1; k <= edits; k++) {
+      await new Promise((resolve) => setTimeout(resolve, 300)); // a pause between saves, as an author makes
+      const built = nextBuild();
+      const start = performance.now();
+      writeFileSync(path, withClaim(k));
+      await built;
+      times.push(performance.now() - start);
+    }
+    return times;
+  } finally {
+    child.kill('SIGINT');
   }
 }

@@ -28,6 +28,7 @@ import { figureMarkdown, typesetMarkdown } from './typeset-markdown.ts';
 import { drawFigure } from '../../src/core/manuscript/figure-entries.ts';
 import type { ComputeLimits } from '../../src/core/limits.ts';
 import type { ResultStore } from '../../src/core/cache/store.ts';
+import type { PrecomputeHook, SessionInput } from '../../src/core/manuscript/api.ts';
 
 export interface SkeinproofOptions {
   /** Overrides the convention the front matter declares, setting by setting. */
@@ -42,6 +43,8 @@ export interface SkeinproofOptions {
   readonly limits?: ComputeLimits;
   /** Where computed values are kept between runs (none by default). */
   readonly resultStore?: ResultStore;
+  /** Computes the diagrams' values elsewhere (worker threads) before the session; its store replaces `resultStore`. */
+  readonly precompute?: PrecomputeHook;
   /**
    * Draw the figures (default true). A check sets it false: a figure's settings and diagram are still
    * checked, but its geometry is computed only for a build.
@@ -71,7 +74,7 @@ declare module 'vfile' {
 const DEFAULT_FILE_NAME = '<input>';
 
 export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
-  return function transformer(tree: Root, file: VFile): void {
+  return async function transformer(tree: Root, file: VFile): Promise<void> {
     const raw = typeof file.value === 'string' ? file.value : new TextDecoder().decode(file.value ?? new Uint8Array());
     // micromark skips a leading byte order mark, so node offsets count from after it.
     const bom = raw.startsWith('\uFEFF') ? 1 : 0;
@@ -79,7 +82,7 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
     const manuscript = extractManuscript(tree, source, options.notation ? { notation: options.notation } : {});
     const convention: Convention = { ...DEFAULT_CONVENTION, ...manuscript.settings.convention, ...options.convention };
     const strict = options.strict ?? manuscript.settings.strict ?? false;
-    const session = runSession({
+    const input: SessionInput = {
       diagrams: manuscript.diagrams,
       claims: manuscript.claims,
       fills: manuscript.fills,
@@ -92,7 +95,8 @@ export default function remarkSkeinproof(options: SkeinproofOptions = {}) {
       markupFound: manuscript.problems.length > 0,
       ...(options.limits ? { limits: options.limits } : {}),
       ...(options.resultStore ? { resultStore: options.resultStore } : {}),
-    });
+    };
+    const session = runSession(options.precompute ? { ...input, ...(await options.precompute(input)) } : input);
     const drawProblems: Diagnostic[] = [];
     const figures = manuscript.figures.map((entry, k) => {
       const placed = session.figures[k];

@@ -52,7 +52,7 @@ export class FileResultStore implements ResultStore {
   private writable = true;
   private writtenSinceEviction = 0;
 
-  constructor(private readonly options: FileStoreOptions) {
+  constructor(readonly options: FileStoreOptions) {
     this.entries = join(options.dir, 'entries');
   }
 

@@ -16,7 +16,8 @@ import { limitOptions, readLimits } from '../limit-options.ts';
 import { cacheOptions, cacheSettings } from '../cache-options.ts';
 import { FileResultStore } from '../result-store.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
-import { availableParallelism } from 'node:os';
+import { jobsOptions, readJobs } from '../jobs-option.ts';
+import { progressDisplay } from '../progress.ts';
 import type { CliCommand } from './index.ts';
 import { STANDARD_INPUT_ARGUMENT } from './check.ts';
 
@@ -84,6 +85,28 @@ async function* inputTasks(path: string, skip: (task: BatchTask) => boolean): As
   }
 }
 
+/** The non-blank lines of a file, for the progress bar's total (read in blocks; the file is read again to compute). */
+function countLines(path: string): number {
+  const fd = openSync(path, 'r');
+  const block = Buffer.alloc(1 << 20);
+  let count = 0;
+  let inLine = false;
+  try {
+    for (let read; (read = readSync(fd, block, 0, block.length, null)) > 0; ) {
+      for (let k = 0; k < read; k++) {
+        const byte = block[k]!;
+        if (byte === 10) {
+          if (inLine) count++;
+          inLine = false;
+        } else if (byte !== 32 && byte !== 9 && byte !== 13) inLine = true;
+      }
+    }
+  } finally {
+    closeSync(fd);
+  }
+  return count + (inLine ? 1 : 0);
+}
+
 /** The id a line names, if it is an object with a string id (for --resume). */
 function idOf(text: string): string | undefined {
   try {
@@ -98,10 +121,9 @@ export const batchCommand: CliCommand = {
   command: 'batch [input]',
   describe: 'Compute JSON Lines of diagram codes ({"id","notation","code"} per line) into JSON Lines of results, in input order',
   builder: (y: Argv) =>
-    cacheOptions(limitOptions(y))
+    jobsOptions(cacheOptions(limitOptions(y)))
       .positional('input', { type: 'string', default: '-', describe: 'The JSON Lines file, or - for standard input' })
       .option('resume', { type: 'string', describe: 'Append to this output file, skipping the lines it already holds completely' })
-      .option('jobs', { type: 'number', describe: 'Threads computing, this one included (default: the machine\'s cores)' })
       .option('convention', { type: 'string', describe: 'How values are written, e.g. "signature=positive"' }) as Argv,
   run: async (args) => {
     // main.ts passes a bare `-` on as STANDARD_INPUT_ARGUMENT.
@@ -111,10 +133,10 @@ export const batchCommand: CliCommand = {
     if (typeof limits === 'string') return usage(limits);
     const cache = cacheSettings(args);
     if (typeof cache === 'string') return usage(cache);
-    const repeated = repeatedOptionMessage('jobs', args['jobs']) ?? repeatedOptionMessage('resume', args['resume']);
+    const repeated = repeatedOptionMessage('resume', args['resume']);
     if (repeated !== undefined) return usage(repeated);
-    const jobs = args['jobs'] === undefined ? availableParallelism() : (args['jobs'] as number);
-    if (!Number.isInteger(jobs) || jobs < 1) return usage(`--jobs needs a positive whole number of workers, not ${String(args['jobs'])}.`);
+    const jobs = readJobs(args);
+    if (typeof jobs === 'string') return usage(jobs);
     let convention: Convention = DEFAULT_CONVENTION;
     const conventionText = conventionOptionText(args['convention']);
     if (conventionText !== undefined) {
@@ -138,9 +160,17 @@ export const batchCommand: CliCommand = {
       };
     }
     let failed = false;
-    for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits, ...(cache ? { cache } : {}) })) {
-      failed ||= !result.ok;
-      if (!out.write(batchOutputLine(result))) await new Promise((resolve) => out.once('drain', resolve));
+    const progress = progressDisplay('lines', args['quiet'] === true);
+    // The total is known for a file read from its start; standard input and a resumed run count without one.
+    progress?.start(input !== '-' && resume === undefined ? countLines(input) : undefined);
+    try {
+      for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits, ...(cache ? { cache } : {}) })) {
+        failed ||= !result.ok;
+        progress?.advance(typeof result['id'] === 'string' ? result['id'] : `line ${String(result['line'])}`);
+        if (!out.write(batchOutputLine(result))) await new Promise((resolve) => out.once('drain', resolve));
+      }
+    } finally {
+      progress?.stop();
     }
     // The workers wrote to the cache, each with a store of its own: keep it under its cap.
     if (cache) new FileResultStore(cache).evict(true);

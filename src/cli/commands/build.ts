@@ -35,8 +35,9 @@ export function buildOptions(y: Argv): Argv {
     .option('force-write', { type: 'boolean', default: false, describe: 'Write the output even when the check fails' }) as Argv;
 }
 
-export function readBuildArgs(raw: Record<string, unknown>): BuildArgs | string {
-  const args = readManuscriptArgs(raw);
+/** `keepValues`: keep the computed values in memory for the next build (watch). */
+export function readBuildArgs(raw: Record<string, unknown>, keepValues = false): BuildArgs | string {
+  const args = readManuscriptArgs(raw, keepValues);
   if (typeof args === 'string') return args;
   const output = raw['output'];
   if (output !== undefined && (typeof output !== 'string' || output === '')) return '-o needs a file name';

@@ -19,6 +19,9 @@ import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/t
 import type { CliCommand } from './index.ts';
 import { conventionOptionText } from '../repeated-option.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
+import { jobsOptions, readJobs } from '../jobs-option.ts';
+import { ManuscriptValues } from '../manuscript-pool.ts';
+import { progressDisplay, wantsProgress } from '../progress.ts';
 import { cacheOptions, openCache } from '../cache-options.ts';
 
 export const EXIT_USAGE = EXIT_BAD_INPUT;
@@ -33,7 +36,7 @@ export interface ManuscriptArgs {
 
 /** The options every manuscript command takes. */
 export function manuscriptOptions(y: Argv): Argv {
-  return cacheOptions(limitOptions(y))
+  return jobsOptions(cacheOptions(limitOptions(y)))
     .option('format', { choices: REPORT_FORMATS, default: 'text', describe: 'How problems are reported: text for people, json or sarif for tools' })
     .option('strict', { type: 'boolean', default: false, describe: 'Warnings (undecided or mirror-only claims) fail too' })
     .option('convention', {
@@ -42,8 +45,12 @@ export function manuscriptOptions(y: Argv): Argv {
     }) as Argv;
 }
 
-/** The shared options, or a usage message. */
-export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArgs | string {
+/**
+ * The shared options, or a usage message. The diagrams are computed in a pool of threads
+ * (src/cli/manuscript-pool.ts) when --jobs allows more than one, when a progress bar may be shown, or
+ * when `keepValues` asks (watch keeps them in memory from one save to the next).
+ */
+export function readManuscriptArgs(args: Record<string, unknown>, keepValues = false): ManuscriptArgs | string {
   let convention: Partial<Convention> | undefined;
   const conventionText = conventionOptionText(args['convention']);
   if (conventionText !== undefined) {
@@ -55,9 +62,20 @@ export function readManuscriptArgs(args: Record<string, unknown>): ManuscriptArg
   if (typeof limits === 'string') return limits;
   const resultStore = openCache(args);
   if (typeof resultStore === 'string') return resultStore;
+  const jobs = readJobs(args);
+  if (typeof jobs === 'string') return jobs;
+  const quiet = args['quiet'] === true;
+  const pooled = jobs > 1 || keepValues || wantsProgress(quiet);
+  const values = pooled ? new ManuscriptValues({ jobs, ...(resultStore ? { disk: resultStore } : {}), progress: () => progressDisplay('diagrams', quiet) }) : undefined;
   return {
     report: args['format'] as ReportFormat,
-    options: { ...(convention ? { convention } : {}), strict: args['strict'] === true, limits, ...(resultStore ? { resultStore } : {}) },
+    options: {
+      ...(convention ? { convention } : {}),
+      strict: args['strict'] === true,
+      limits,
+      ...(resultStore ? { resultStore } : {}),
+      ...(values ? { precompute: values.precompute } : {}),
+    },
   };
 }
 

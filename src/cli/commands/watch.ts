@@ -11,15 +11,16 @@ import { buildOnce, buildOptions, readBuildArgs } from './build.ts';
 import { formatOf, usage } from './check.ts';
 import type { CliCommand } from './index.ts';
 
-/** Saves arrive as bursts of events; one rebuild per burst. */
-const DEBOUNCE_MS = 150;
+/** Saves arrive as bursts of events (a write and a rename within a few milliseconds); one rebuild per burst. */
+const DEBOUNCE_MS = 50;
 
 export const watchCommand: CliCommand = {
   command: 'watch <file>',
   describe: 'Check and build a manuscript, then again on every change (Ctrl-C stops)',
   builder: (y: Argv) => buildOptions(y.positional('file', { type: 'string', describe: 'The manuscript' })),
   run: async (raw) => {
-    const args = readBuildArgs(raw);
+    // One set of computed values for the whole session: after a save only changed diagrams are computed.
+    const args = readBuildArgs(raw, true);
     if (typeof args === 'string') return usage(args);
     const path = String(raw['file']);
     const format = formatOf(path);

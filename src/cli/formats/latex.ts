@@ -10,7 +10,7 @@ import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import { runSession } from '../../core/manuscript/session.ts';
 import { drawFigure } from '../../core/manuscript/figure-entries.ts';
-import type { SessionResult } from '../../core/manuscript/api.ts';
+import type { SessionInput, SessionResult } from '../../core/manuscript/api.ts';
 import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '../../../plugins/latex/reader.ts';
 import { flatText } from '../../../plugins/latex/flat.ts';
 import { sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
@@ -69,7 +69,7 @@ interface Checked {
   readonly failed: boolean;
 }
 
-function checkManuscript(path: string, options: FormatOptions): Checked {
+async function checkManuscript(path: string, options: FormatOptions): Promise<Checked> {
   const encodingProblems = new Map<string, Diagnostic>();
   const doc = readLatexManuscript(path, diskFiles(encodingProblems));
   // Named as the reader names the file (its display path); a file with such an error is not checked further.
@@ -81,7 +81,7 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     const session = runSession({ diagrams: [], claims: [], fills: [], convention: DEFAULT_CONVENTION });
     return { doc, session, diagnostics: undecodable, failed: true };
   }
-  const session = runSession({
+  const input: SessionInput = {
     diagrams: doc.diagrams,
     claims: doc.claims,
     fills: doc.fills.map((f) => f.entry),
@@ -94,7 +94,8 @@ function checkManuscript(path: string, options: FormatOptions): Checked {
     ...(options.resultStore ? { resultStore: options.resultStore } : {}),
     documentStart: { file: doc.main.displayPath, start: { line: 1, column: 1 } },
     markupFound: doc.diagnostics.length > 0,
-  });
+  };
+  const session = runSession(options.precompute ? { ...input, ...(await options.precompute(input)) } : input);
   const diagnostics = inDocumentOrder([...doc.diagnostics, ...session.diagnostics], doc);
   const failed = session.failed || doc.diagnostics.some((d) => d.severity === 'error');
   return { doc, session, diagnostics, failed };
@@ -121,7 +122,7 @@ export const latexFormat: ManuscriptFormat = {
   extensions: FORMAT_EXTENSIONS.latex,
 
   async check(path, options): Promise<FormatResult> {
-    const { doc, session, diagnostics, failed } = checkManuscript(path, options);
+    const { doc, session, diagnostics, failed } = await checkManuscript(path, options);
     return { diagnostics, outputs: [], inputs: inputsOf(doc), failed, counts: session.counts };
   },
 
@@ -129,7 +130,7 @@ export const latexFormat: ManuscriptFormat = {
     // Refused before any work: reading and checking a long paper only to refuse its output wastes the author's time.
     const refusal = outputRefusal(path, options);
     if (refusal) return { diagnostics: [refusal], outputs: [], inputs: [path], failed: true };
-    const { doc, session, diagnostics, failed } = checkManuscript(path, options);
+    const { doc, session, diagnostics, failed } = await checkManuscript(path, options);
     // The figures' geometry is computed only now, for the build.
     const notes: Diagnostic[] = [];
     const figures = doc.figures.map((figure, k) => {

@@ -60,6 +60,7 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
       ...(options.strict ? { strict: true } : {}),
       ...(options.limits ? { limits: options.limits } : {}),
       ...(options.resultStore ? { resultStore: options.resultStore } : {}),
+      ...(options.precompute ? { precompute: options.precompute } : {}),
     });
   await processor.run(processor.parse(file), file);
   const data = file.data.skeinproof!;

@@ -5,7 +5,7 @@
  */
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import type { Convention } from '../../core/convention/convention.ts';
-import type { SessionCounts } from '../../core/manuscript/api.ts';
+import type { PrecomputeHook, SessionCounts } from '../../core/manuscript/api.ts';
 import type { ComputeLimits } from '../../core/limits.ts';
 import type { FileResultStore } from '../result-store.ts';
 
@@ -21,6 +21,8 @@ export interface FormatOptions {
   readonly limits?: ComputeLimits;
   /** Where computed values are kept between runs (none when absent: --no-cache). */
   readonly resultStore?: FileResultStore;
+  /** Computes the diagrams' values in a pool of threads before the session (src/cli/manuscript-pool.ts); absent: the session computes them. */
+  readonly precompute?: PrecomputeHook;
 }
 
 export interface OutputFile {

@@ -29,11 +29,31 @@ export function mathProblems(markdown: string): MathProblem[] {
   visit(tree, (node) => {
     if (node.type !== 'math' && node.type !== 'inlineMath') return;
     const math = node as Literal; // remark-math's `math` and `inlineMath` nodes carry the TeX as their value
-    try {
-      katex.renderToString(math.value, { ...KATEX_OPTIONS, displayMode: node.type === 'math', throwOnError: true });
-    } catch (e) {
-      problems.push({ message: e instanceof Error ? e.message : String(e), offset: math.position?.start.offset ?? 0, end: math.position?.end.offset ?? 0 });
-    }
+    const message = katexProblem(math.value, node.type === 'math');
+    if (message !== undefined) problems.push({ message, offset: math.position?.start.offset ?? 0, end: math.position?.end.offset ?? 0 });
   });
   return problems;
+}
+
+/**
+ * KaTeX's verdict on each formula already typeset by this process (`watch` checks the same manuscript
+ * after every save, and a census repeats formulas): KaTeX is a pure function of the formula and the options.
+ */
+const verdicts = new Map<string, string | null>();
+const MAX_REMEMBERED = 20_000;
+
+function katexProblem(tex: string, displayMode: boolean): string | undefined {
+  const key = `${displayMode ? 'd' : 'i'}${tex}`;
+  let verdict = verdicts.get(key);
+  if (verdict === undefined) {
+    try {
+      katex.renderToString(tex, { ...KATEX_OPTIONS, displayMode, throwOnError: true });
+      verdict = null;
+    } catch (e) {
+      verdict = e instanceof Error ? e.message : String(e);
+    }
+    if (verdicts.size >= MAX_REMEMBERED) verdicts.clear();
+    verdicts.set(key, verdict);
+  }
+  return verdict ?? undefined;
 }

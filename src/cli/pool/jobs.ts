@@ -3,8 +3,9 @@
  * runs on every task. A worker loads only the module of its kind.
  */
 import type { BatchOptions } from '../batch-line.ts';
+import type { DiagramJob } from '../diagram-values.ts';
 
-export type PoolJob = { readonly kind: 'batch-line'; readonly options: BatchOptions };
+export type PoolJob = { readonly kind: 'batch-line'; readonly options: BatchOptions } | { readonly kind: 'diagram-values'; readonly job: DiagramJob };
 
 /** The function a worker applies to each task of `job`. */
 export async function taskRunner(job: PoolJob): Promise<(task: never) => unknown> {
@@ -12,6 +13,10 @@ export async function taskRunner(job: PoolJob): Promise<(task: never) => unknown
     case 'batch-line': {
       const { batchLine } = await import('../batch-line.ts');
       return (task: { readonly text: string; readonly lineNumber: number }) => batchLine(task.text, task.lineNumber, job.options);
+    }
+    case 'diagram-values': {
+      const { diagramValuesRunner } = await import('../diagram-values.ts');
+      return diagramValuesRunner(job.job);
     }
   }
 }

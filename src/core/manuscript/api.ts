@@ -12,6 +12,7 @@ import type { ClaimKey, FillKey, Typeset } from '../claims/api.ts';
 import type { DiagramReport } from '../analyze/report.ts';
 import type { ComputeLimits } from '../limits.ts';
 import type { ResultStore } from '../cache/store.ts';
+import type { InputError } from '../errors.ts';
 import type { GridCell, GridRange } from '../claims/khovanov-grid.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import type { FigureOptions } from '../drawing/index.ts';
@@ -135,6 +136,12 @@ export interface SessionInput {
   /** Where computed values are kept between runs (none when absent): see src/core/cache/store.ts. */
   readonly resultStore?: ResultStore;
   /**
+   * Diagrams the front end tried to compute elsewhere and could not (the worker thread computing one
+   * died), with the error that says so: each is reported at its code like a code over a limit, and not
+   * computed again here.
+   */
+  readonly uncomputed?: ReadonlyMap<string, InputError>;
+  /**
    * Where the manuscript starts: a manuscript with no diagram, claim or fill-in gets a `manuscript-unmarked`
    * warning there, unless `markupFound` says the front end met skeinproof markup it refused.
    */
@@ -169,3 +176,11 @@ export interface SessionResult {
   readonly failed: boolean;
   readonly counts: SessionCounts;
 }
+
+/**
+ * Lets a front end compute the diagrams' values elsewhere (worker threads, an earlier run kept in memory)
+ * before the session reads them. It gets the session's input and returns what to add to it: a store that
+ * serves the values it computed, and the diagrams it could not compute. The session itself stays
+ * synchronous and pure; the front end awaits this hook, then calls `runSession` with the additions.
+ */
+export type PrecomputeHook = (input: SessionInput) => Promise<Pick<SessionInput, 'resultStore' | 'uncomputed'>>;

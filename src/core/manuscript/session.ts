@@ -74,6 +74,8 @@ export function runSession(input: SessionInput): SessionResult {
       continue;
     }
     try {
+      const uncomputed = input.uncomputed?.get(entry.id);
+      if (uncomputed) throw uncomputed;
       // A family may name diagrams defined before it (mirror, sum, split).
       const named = (id: string) => reports.get(id)?.diagram;
       const limits = input.limits ?? {};
