@@ -99,6 +99,14 @@ const THEOREM_TITLES: Readonly<Record<BoundReason['theorem'], string>> = {
   'reidemeister-moves': 'Reidemeister moves and flypes',
 };
 
+/**
+ * span V ≤ c for every connected diagram with c crossings (L. H. Kauffman, State models and the Jones
+ * polynomial, Topology 26 (1987); K. Murasugi, Jones polynomials and classical conjectures in knot
+ * theory, Topology 26 (1987); M. B. Thistlethwaite, A spanning tree expansion of the Jones polynomial,
+ * Topology 26 (1987)); a link with a connected alternating diagram is non-split (W. Menasco, Closed
+ * incompressible surfaces in alternating knot and link complements, Topology 23 (1984)), so all its
+ * diagrams are connected.
+ */
 function spanLowerBound(p: DiagramProperties, jonesSpan: number): BoundReason {
   if (p.components === 1) {
     return reason('lower', jonesSpan, 'kauffman-murasugi-thistlethwaite', `Every diagram of a knot has at least span V crossings (Kauffman–Murasugi–Thistlethwaite), and span V is ${jonesSpan} here.`);
@@ -119,6 +127,12 @@ function nugatoryUpperBound(p: DiagramProperties): BoundReason {
   return reason('upper', p.crossings - k, 'nugatory-removal', `${k === 1 ? 'The nugatory crossing' : `Each of the ${k} nugatory crossings`} can be undone by turning over one side of the diagram, leaving ${p.crossings - k} crossings.`);
 }
 
+/**
+ * A reduced alternating connected diagram has the fewest crossings of its link (the three 1987 papers
+ * above); so does a reduced adequate one (M. B. Thistlethwaite, Kauffman's polynomial and alternating
+ * links, Topology 27 (1988); an adequate diagram has no nugatory crossing anyway). Connectedness is
+ * required here for both, the safe reading.
+ */
 function theoremsFixingTheCrossingNumber(p: DiagramProperties): BoundReason[] {
   const found: BoundReason[] = [];
   const n = p.crossings;
