@@ -175,3 +175,8 @@ async function syncDirectory(dir: string): Promise<void> {
     await h?.close().catch(() => undefined);
   }
 }
+
+/** Writes to standard output and waits until it is flushed, so the exit status follows the whole output. */
+export async function writeStandardOutput(content: string | Uint8Array): Promise<void> {
+  await new Promise<void>((done, fail) => process.stdout.write(content, (e) => (e ? fail(e) : done())));
+}

@@ -6,17 +6,13 @@
  */
 import { wantsColor } from '../terminal.ts';
 import type { Argv } from 'yargs';
-import { describeWriteFailure, writeFileAtomic } from '../write-atomic.ts';
+import { describeWriteFailure, writeFileAtomic, writeStandardOutput } from '../write-atomic.ts';
 import type { FormatOptions } from '../formats/types.ts';
 import { EXIT_USAGE, exitStatusFor, formatOf, manuscriptOptions, readManuscriptArgs, reportDiagnostics, resultFailed, usage, type ManuscriptArgs } from './check.ts';
 import type { CliCommand } from './index.ts';
 
 /** `-o -` writes the output to standard output (the report stays on stderr). */
 export const STANDARD_OUTPUT = '-';
-
-async function writeStandardOutput(content: string | Uint8Array): Promise<void> {
-  await new Promise<void>((done, fail) => process.stdout.write(content, (e) => (e ? fail(e) : done())));
-}
 
 export interface BuildArgs extends ManuscriptArgs {
   readonly forceWrite: boolean;

@@ -41,6 +41,7 @@ import { oddComponentsText, oddLinkingComponents } from '../../core/invariants/a
 import type { CliCommand } from './index.ts';
 import { wantsColor } from '../terminal.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
+import { figureOptions, readFigureArgs, runFigure } from '../figure-output.ts';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
 
@@ -393,7 +394,7 @@ export const computeCommand: CliCommand = {
   command: 'compute [codes..]',
   describe: 'Compute the invariants and diagram properties of each diagram code given',
   builder: (y: Argv) =>
-    cacheOptions(limitOptions(y))
+    figureOptions(cacheOptions(limitOptions(y)))
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
       .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true, 'parse-numbers': false, 'parse-positional-numbers': false })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })
@@ -413,6 +414,12 @@ export const computeCommand: CliCommand = {
       return EXIT_INVALID_INPUT;
     }
     const parseOptions: ParseOptions = args.strands === undefined ? {} : { strands: args.strands };
+    const figure = readFigureArgs(raw, args.codes.length);
+    if (typeof figure === 'string') {
+      process.stderr.write(`skeinproof: ${figure}\n`);
+      return EXIT_INVALID_INPUT;
+    }
+    if (figure) return runFigure(figure, args.codes[0]!, args.notation, parseOptions, args.limits);
     let anyInvalid = false;
     const outcomes = args.codes.map((code) => computeCode(code, args.notation, parseOptions, args.limits, !args.json, args.resultStore));
     // Every analysed code, so a claim equal to another code's value is diagnosed as swapped.

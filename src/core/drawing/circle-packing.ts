@@ -5,10 +5,10 @@
  * laying out flower after flower.
  *
  * The disc is a triangulated sphere with one vertex (the outer face) removed.
- * Interior vertices get angle sum 2π. Each boundary vertex gets π minus a share
- * of the total turning 2π proportional to its radius, so the boundary closes up
- * as a round curve and the circles near it keep the size of the circles inside
- * (fixing boundary radii instead would squeeze or swell them).
+ * Interior vertices get angle sum 2π. Each boundary vertex gets π minus an
+ * equal share of the total turning 2π, so the boundary closes up as a round
+ * convex curve and the circles near it keep about the size of the circles
+ * inside (fixing boundary radii instead would squeeze or swell them).
  */
 import { checkTimeBudget } from '../limits.ts';
 
@@ -52,21 +52,21 @@ export function packDisc(flowers: readonly Int32Array[], vertices: readonly numb
   const flowerOf = vertices.map((v) => petals(flowers[v]!, outer));
   const boundary = vertices.filter((_, i) => !flowerOf[i]!.closed);
   for (const v of vertices) radius[v] = 1;
+  // Equal turning at every boundary vertex: the boundary closes up as a round convex curve.
+  const boundaryTarget = Math.PI - (2 * Math.PI) / boundary.length;
   const previous = new Float64Array(vertices.length);
   let error = Infinity;
   let lastRatio = 0;
   let extrapolated = false;
   for (let sweep = 0; sweep < MAX_SWEEPS && error > TOLERANCE * Math.sqrt(vertices.length); sweep++) {
     if ((sweep & 63) === 0) checkTimeBudget();
-    let boundaryTotal = 0;
-    for (const v of boundary) boundaryTotal += radius[v]!;
     vertices.forEach((v, i) => (previous[i] = radius[v]!));
     const before = error;
     let squares = 0;
     vertices.forEach((v, i) => {
       const { chain, closed } = flowerOf[i]!;
       const r = radius[v]!;
-      const target = closed ? 2 * Math.PI : Math.PI - (2 * Math.PI * r) / boundaryTotal;
+      const target = closed ? 2 * Math.PI : boundaryTarget;
       const k = closed ? chain.length : chain.length - 1;
       const sum = angleSum(r, chain, closed, radius);
       squares += (sum - target) ** 2;

@@ -12,6 +12,8 @@ import type { DiagramLayout } from './layout.ts';
 
 export interface ComponentChain {
   readonly points: readonly Point[];
+  /** The radius of each point's packing circle: the room the curve has there. */
+  readonly room: readonly number[];
   /** For each crossing the component passes: index in `points`, the crossing, and whether it passes under there. */
   readonly visits: readonly { readonly at: number; readonly crossing: number; readonly under: boolean }[];
   /** For each edge of the component: its index in `points` (its midpoint) and the edge. */
@@ -21,6 +23,7 @@ export interface ComponentChain {
 export function componentChain(d: LinkDiagram, layout: DiagramLayout, component: number): ComponentChain {
   const { tail, head } = indexDiagram(d);
   const points: Point[] = [];
+  const room: number[] = [];
   const visits: { at: number; crossing: number; under: boolean }[] = [];
   const midpoints: { at: number; edge: number }[] = [];
   for (const edge of d.components[component]!) {
@@ -28,10 +31,12 @@ export function componentChain(d: LinkDiagram, layout: DiagramLayout, component:
     const to = head[edge]!;
     visits.push({ at: points.length, crossing: from.crossing, under: from.slot === 2 });
     points.push(layout.crossing[from.crossing]!, layout.end[4 * from.crossing + from.slot]!);
+    room.push(layout.crossingRadius[from.crossing]!, layout.endRadius[4 * from.crossing + from.slot]!);
     midpoints.push({ at: points.length, edge });
     points.push(layout.midpoint[edge]!, layout.end[4 * to.crossing + to.slot]!);
+    room.push(layout.midpointRadius[edge]!, layout.endRadius[4 * to.crossing + to.slot]!);
   }
-  return { points, visits, midpoints };
+  return { points, room, visits, midpoints };
 }
 
 /** The tangent direction (scaled as a derivative by arc length) at each point of a closed chain. */
@@ -45,18 +50,28 @@ function tangents(points: readonly Point[]): Point[] {
   });
 }
 
-/** Cubic i runs from points[i] to points[i+1] (cyclically). */
-export function smoothClosedChain(points: readonly Point[]): Cubic[] {
+/**
+ * Cubic i runs from points[i] to points[i+1] (cyclically). Each control point
+ * stays within `ARM_ROOM` of its point's circle radius, so where a small circle
+ * sits next to a big one the curve cannot swing out into a neighbouring strand's room.
+ */
+export function smoothClosedChain(points: readonly Point[], room?: readonly number[]): Cubic[] {
   const n = points.length;
   const m = tangents(points);
+  const arm = (i: number, third: number): number => Math.min(third, room ? ARM_ROOM * room[i]! : Infinity);
   return points.map((p, i) => {
-    const q = points[(i + 1) % n]!;
+    const j = (i + 1) % n;
+    const q = points[j]!;
     const third = distance(p, q) / 3;
     const mp = m[i]!;
-    const mq = m[(i + 1) % n]!;
-    return { from: p, c1: { x: p.x + mp.x * third, y: p.y + mp.y * third }, c2: { x: q.x - mq.x * third, y: q.y - mq.y * third }, to: q };
+    const mq = m[j]!;
+    const a = arm(i, third);
+    const b = arm(j, third);
+    return { from: p, c1: { x: p.x + mp.x * a, y: p.y + mp.y * a }, c2: { x: q.x - mq.x * b, y: q.y - mq.y * b }, to: q };
   });
 }
+
+const ARM_ROOM = 0.6;
 
 /** A drawn piece of a component: a run of cubics, closed when the component never passes under. */
 export interface Stroke {

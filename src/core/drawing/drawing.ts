@@ -70,7 +70,7 @@ export function drawDiagram(d: LinkDiagram, options: FigureOptions = {}): Drawin
   const resolved = resolveOptions(d, options);
   const layout = layOutDiagram(d, resolved.outerEdge === undefined ? undefined : faceLeftOfEdge(d, resolved.outerEdge));
   const chains = d.components.map((_, k) => componentChain(d, layout, k));
-  const centreLines = chains.map((chain) => smoothClosedChain(chain.points));
+  const centreLines = chains.map((chain) => smoothClosedChain(chain.points, chain.room));
   const loopLines = layout.loops.map((loop) => circleCubics(loop.centre, loop.radius));
   const box = boundingBox([...centreLines.flat(), ...loopLines.flat()]);
   const scale = resolved.size / (Math.max(box.maxX - box.minX, box.maxY - box.minY) + 2 * MARGIN);
@@ -85,7 +85,7 @@ export function drawDiagram(d: LinkDiagram, options: FigureOptions = {}): Drawin
     const size = layout.crossingRadius[i]! * scale;
     // Never past the waypoints next to the crossing, where the strand's neighbours begin.
     const nearest = Math.min(...[0, 1, 2, 3].map((q) => distance(layout.crossing[i]!, layout.end[4 * i + q]!))) * scale;
-    return { at: place(layout.crossing[i]!), sign: c.sign, size, gap: Math.min(gapWanted, 1.2 * nearest) };
+    return { at: place(layout.crossing[i]!), sign: c.sign, size, gap: Math.min(gapWanted, nearest) };
   });
   const colourOf = (k: number): string => (resolved.colours ? COMPONENT_COLOURS[k % COMPONENT_COLOURS.length]! : COMPONENT_COLOURS[0]);
   const components: DrawnComponent[] = chains.map((chain, k) => {

@@ -16,10 +16,12 @@ export interface DiagramLayout {
   readonly crossing: readonly Point[];
   /** Per crossing: its circle's radius, the local scale of the drawing there. */
   readonly crossingRadius: readonly number[];
-  /** Per slot 4c+q: the waypoint on that edge next to the crossing. */
+  /** Per slot 4c+q: the waypoint on that edge next to the crossing, and its circle's radius. */
   readonly end: readonly Point[];
-  /** Per edge: its midpoint. */
+  readonly endRadius: readonly number[];
+  /** Per edge: its midpoint, and its circle's radius. */
   readonly midpoint: readonly Point[];
+  readonly midpointRadius: readonly number[];
   /** Per corner 4c+q: a point inside the corner, for a crossing label. */
   readonly corner: readonly Point[];
   /** Per free loop: its centre and radius. */
@@ -51,17 +53,21 @@ export function layOutDiagram(d: LinkDiagram, outerFace?: number): DiagramLayout
   const { pieceOfCrossing, pieceCount } = connectedPieces(d);
   const { faces, faceCount } = faceStructure(d);
   const { opposite } = indexDiagram(d);
-  const complex = packingComplex(d);
+  const outer = outerFaces(d, pieceOfCrossing, pieceCount, outerFace);
+  const complex = packingComplex(d, new Set(outer));
   const radius = new Float64Array(complex.vertexCount);
   const x = new Float64Array(complex.vertexCount);
   const y = new Float64Array(complex.vertexCount);
-  const outer = outerFaces(d, pieceOfCrossing, pieceCount, outerFace);
   const vertices: number[][] = Array.from({ length: pieceCount }, () => []);
   // Crossings first, so each disc is laid out from a crossing (never on the boundary).
   for (let c = 0; c < n; c++) vertices[pieceOfCrossing[c]!]!.push(crossingVertex(c));
   for (let s = 0; s < 4 * n; s++) vertices[pieceOfCrossing[s >> 2]!]!.push(endVertex(n, s), cornerVertex(n, s));
   for (let s = 0; s < 4 * n; s++) if (s < opposite[s]!) vertices[pieceOfCrossing[s >> 2]!]!.push(midpointVertex(n, d.crossings[s >> 2]!.edges[s & 3]!));
-  for (let f = 0; f < faceCount; f++) if (f !== outer[pieceOfCrossing[faces[f]![0]! >> 2]!]) vertices[pieceOfCrossing[faces[f]![0]! >> 2]!]!.push(faceVertex(n, f));
+  for (let f = 0; f < faceCount; f++) {
+    const piece = pieceOfCrossing[faces[f]![0]! >> 2]!;
+    vertices[piece]!.push(...complex.fill[f]!);
+    if (f !== outer[piece]) vertices[piece]!.push(faceVertex(n, f));
+  }
   const boxes: Box[] = [];
   for (let p = 0; p < pieceCount; p++) {
     packDisc(complex.flowers, vertices[p]!, faceVertex(n, outer[p]!), radius, x, y);
@@ -74,7 +80,9 @@ export function layOutDiagram(d: LinkDiagram, outerFace?: number): DiagramLayout
     crossing: Array.from({ length: n }, (_, c) => at(crossingVertex(c), pieceOfCrossing[c]!)),
     crossingRadius: Array.from({ length: n }, (_, c) => radius[crossingVertex(c)]!),
     end: Array.from({ length: 4 * n }, (_, s) => at(endVertex(n, s), pieceOfCrossing[s >> 2]!)),
+    endRadius: Array.from({ length: 4 * n }, (_, s) => radius[endVertex(n, s)]!),
     midpoint: midpoints(d, (e, p) => at(midpointVertex(n, e), p), pieceOfCrossing),
+    midpointRadius: Array.from({ length: d.edgeCount }, (_, e) => radius[midpointVertex(n, e)]!),
     corner: Array.from({ length: 4 * n }, (_, s) => at(cornerVertex(n, s), pieceOfCrossing[s >> 2]!)),
     loops: loops.map((_, i) => ({ centre: { x: offsets[pieceCount + i]!.x, y: offsets[pieceCount + i]!.y }, radius: 1.5 })),
   };
@@ -105,7 +113,7 @@ function normalisePiece(vertices: readonly number[], n: number, radius: Float64A
     radius[v] = radius[v]! * scale;
     x[v] = x[v]! * scale;
     y[v] = y[v]! * scale;
-    // Face centres are not drawn; the rest are points the curves pass through.
+    // Face centres and fillings are not drawn; the rest are points the curves pass through.
     if (v >= 11 * n) continue;
     minX = Math.min(minX, x[v]!);
     minY = Math.min(minY, y[v]!);

@@ -4,8 +4,13 @@
  * Vertices, per connected piece of the projection: one per crossing (X), one
  * per edge end (S, beside the crossing on that edge), one per edge midpoint (P),
  * one per corner (K, between two consecutive edge ends of a crossing) and one
- * per face (F). Around a crossing the triangles are X·S·K; inside a face, a fan
- * from F over the polygon K, S, P, S, K, … that runs once round the face.
+ * per face (F). Around a crossing the triangles are X·S·K. Inside a face the
+ * polygon K, S, P, S, K, … that runs once round it is filled with concentric
+ * rings, each six vertices shorter than the one outside it (as in a hexagonal
+ * lattice), and F in the middle: a big face then packs as a patch of circles
+ * of the common size instead of one huge circle, which would squeeze the
+ * crossings along it. The outer face gets rings that grow away from the
+ * diagram instead, and its F (removed for the packing) outside them all.
  *
  * Every crossing end and every corner has a vertex of its own, so the result
  * is a simplicial triangulation even for curls (an edge from a crossing to
@@ -16,8 +21,10 @@ import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 import { faceStructure } from '../diagram/faces.ts';
 
 export interface PackingComplex {
-  /** Vertex count: 11n + faces for n crossings. */
+  /** Vertex count: 11n + faces for n crossings, and the rings filling the faces. */
   readonly vertexCount: number;
+  /** For each face, the ring vertices filling it (none for an outer face). */
+  readonly fill: readonly (readonly number[])[];
   /** For each vertex, its neighbours counterclockwise (a closed cycle). */
   readonly flowers: readonly Int32Array[];
 }
@@ -34,18 +41,20 @@ export function nextCornerOfFace(opposite: Int32Array, corner: number): number {
   return 4 * (arrive >> 2) + (((arrive & 3) + 3) & 3);
 }
 
-export function packingComplex(d: LinkDiagram): PackingComplex {
+export function packingComplex(d: LinkDiagram, outerFaces: ReadonlySet<number>): PackingComplex {
   const n = d.crossings.length;
   const { opposite } = indexDiagram(d);
   const { faces, faceCount } = faceStructure(d);
-  const vertexCount = 11 * n + faceCount;
+  let vertexCount = 11 * n + faceCount;
   // successor[v] maps a neighbour b to the neighbour after it counterclockwise.
-  const successor: Map<number, number>[] = Array.from({ length: vertexCount }, () => new Map());
+  const successor: Map<number, number>[] = [];
+  const around = (v: number): Map<number, number> => (successor[v] ??= new Map());
   const triangle = (a: number, b: number, c: number): void => {
-    successor[a]!.set(b, c);
-    successor[b]!.set(c, a);
-    successor[c]!.set(a, b);
+    around(a).set(b, c);
+    around(b).set(c, a);
+    around(c).set(a, b);
   };
+  const fill: number[][] = [];
   for (let c = 0; c < n; c++) {
     for (let q = 0; q < 4; q++) {
       const k = cornerVertex(n, 4 * c + q);
@@ -54,22 +63,65 @@ export function packingComplex(d: LinkDiagram): PackingComplex {
     }
   }
   faces.forEach((corners, f) => {
-    const centre = faceVertex(n, f);
-    for (const corner of corners) {
-      const leave = corner;
-      const arrive = opposite[leave]!;
-      const edge = d.crossings[leave >> 2]!.edges[leave & 3]!;
-      const polygon = [cornerVertex(n, corner), endVertex(n, leave), midpointVertex(n, edge), endVertex(n, arrive), cornerVertex(n, nextCornerOfFace(opposite, corner))];
-      for (let i = 0; i + 1 < polygon.length; i++) triangle(centre, polygon[i]!, polygon[i + 1]!);
+    // The face's boundary, counterclockwise (the face is on the left of each leg).
+    let ring = corners.flatMap((corner) => {
+      const arrive = opposite[corner]!;
+      const edge = d.crossings[corner >> 2]!.edges[corner & 3]!;
+      return [cornerVertex(n, corner), endVertex(n, corner), midpointVertex(n, edge), endVertex(n, arrive)];
+    });
+    const added: number[] = [];
+    const addRing = (size: number): void => {
+      const inner = Array.from({ length: size }, () => vertexCount++);
+      zipRings(ring, inner, triangle);
+      added.push(...inner);
+      ring = inner;
+    };
+    if (outerFaces.has(f)) {
+      // Seen from the diagram the outer face is the plane around it: rings that grow outwards, as around a hole in a lattice.
+      for (let k = 0; k < OUTER_RINGS; k++) addRing(ring.length + RING_STEP);
+    } else {
+      for (let k = 0; k < MAX_FILL_RINGS && ring.length - RING_STEP >= 3; k++) addRing(ring.length - RING_STEP);
     }
+    fill.push(added);
+    const centre = faceVertex(n, f);
+    ring.forEach((v, i) => triangle(centre, v, ring[(i + 1) % ring.length]!));
   });
-  const flowers = successor.map((next) => {
-    if (next.size === 0) return new Int32Array(0);
+  const flowers = Array.from({ length: vertexCount }, (_, v) => {
+    const next = successor[v];
+    if (!next || next.size === 0) return new Int32Array(0);
     // Start from the smallest neighbour so the order does not depend on insertion order.
     const start = Math.min(...next.keys());
     const cycle = [start];
     for (let v = next.get(start)!; v !== start; v = next.get(v)!) cycle.push(v);
     return Int32Array.from(cycle);
   });
-  return { vertexCount, flowers };
+  return { vertexCount, flowers, fill };
+}
+
+/** A ring inside another has this many fewer vertices, as the rings of a hexagonal lattice do. */
+const RING_STEP = 12;
+/** Rings around the outside of each piece: a margin of circles so the diagram's own circles do not touch the boundary. */
+const OUTER_RINGS = 0;
+/** At most this many rings fill a face: the ones near its edges do the work, and a huge face stays cheap. */
+const MAX_FILL_RINGS = 2;
+
+/**
+ * Triangulates the band between a counterclockwise ring and a shorter ring
+ * inside it, advancing on whichever ring lags behind in proportion.
+ */
+function zipRings(outer: readonly number[], inner: readonly number[], triangle: (a: number, b: number, c: number) => void): void {
+  const a = outer.length;
+  const b = inner.length;
+  let i = 0;
+  let j = 0;
+  while (i < a || j < b) {
+    const advanceOuter = j >= b || (i < a && (i + 1) * b <= (j + 1) * a);
+    if (advanceOuter) {
+      triangle(outer[i]!, outer[(i + 1) % a]!, inner[j % b]!);
+      i++;
+    } else {
+      triangle(outer[i % a]!, inner[(j + 1) % b]!, inner[j]!);
+      j++;
+    }
+  }
 }
