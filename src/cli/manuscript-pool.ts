@@ -123,7 +123,7 @@ function tasksOf(input: SessionInput): DiagramTask[] {
 function workerLost(reason: string): InputError {
   return new InputError(
     'limit-exceeded',
-    `the worker thread computing it stopped (${reason}), most likely out of memory: each worker's heap is limited to an even share of the machine's memory, so this diagram was not computed. ` +
+    `the worker thread computing it stopped (${reason}); each worker's heap is limited to an even share of the machine's memory, so this diagram was not computed. ` +
       'To compute it with the whole heap of the main thread, run with --jobs 1.',
   );
 }

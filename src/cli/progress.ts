@@ -7,8 +7,11 @@
  */
 import cliProgress from 'cli-progress';
 
-/** Runs shorter than this show no bar at all. */
-const SHOW_AFTER_MS = 1000;
+/** Runs shorter than this show no bar at all (SKEINPROOF_PROGRESS_AFTER_MS sets it: tests draw one at once). */
+function showAfterMs(): number {
+  const given = Number(process.env['SKEINPROOF_PROGRESS_AFTER_MS']);
+  return Number.isFinite(given) && given >= 0 ? given : 1000;
+}
 
 export interface ProgressDisplay {
   start(total: number | undefined): void;
@@ -30,6 +33,7 @@ export function progressDisplay(noun: string, quiet: boolean): ProgressDisplay |
   let total: number | undefined;
   let done = 0;
   let started = 0;
+  const showAfter = showAfterMs();
   return {
     start(count) {
       total = count;
@@ -37,7 +41,7 @@ export function progressDisplay(noun: string, quiet: boolean): ProgressDisplay |
     },
     advance(id) {
       done++;
-      if (!bar && performance.now() - started >= SHOW_AFTER_MS) {
+      if (!bar && performance.now() - started >= showAfter) {
         // Without a total (standard input) the bar shows a count and the rate instead of an estimate.
         const format = total === undefined ? `{value} ${noun} done | {id}` : `[{bar}] {value}/{total} ${noun} | about {eta_formatted} left | {id}`;
         bar = new cliProgress.SingleBar({ format, stream: process.stderr, hideCursor: true, clearOnComplete: true, etaBuffer: 200, fps: 5 }, cliProgress.Presets.shades_classic);

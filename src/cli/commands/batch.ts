@@ -10,7 +10,6 @@ import { createInterface } from 'node:readline';
 import type { Argv } from 'yargs';
 import { DEFAULT_CONVENTION, type Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
-import { batchOutputLine } from '../batch-line.ts';
 import { computeBatch, type BatchTask } from '../batch-pool.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { cacheOptions, cacheSettings } from '../cache-options.ts';
@@ -166,8 +165,8 @@ export const batchCommand: CliCommand = {
     try {
       for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits, ...(cache ? { cache } : {}) })) {
         failed ||= !result.ok;
-        progress?.advance(typeof result['id'] === 'string' ? result['id'] : `line ${String(result['line'])}`);
-        if (!out.write(batchOutputLine(result))) await new Promise((resolve) => out.once('drain', resolve));
+        progress?.advance(result.label);
+        if (!out.write(result.text)) await new Promise((resolve) => out.once('drain', resolve));
       }
     } finally {
       progress?.stop();

@@ -11,8 +11,8 @@ export type PoolJob = { readonly kind: 'batch-line'; readonly options: BatchOpti
 export async function taskRunner(job: PoolJob): Promise<(task: never) => unknown> {
   switch (job.kind) {
     case 'batch-line': {
-      const { batchLine } = await import('../batch-line.ts');
-      return (task: { readonly text: string; readonly lineNumber: number }) => batchLine(task.text, task.lineNumber, job.options);
+      const [{ batchLine }, { printedLine }] = await Promise.all([import('../batch-line.ts'), import('../batch-pool.ts')]);
+      return (task: { readonly text: string; readonly lineNumber: number }) => printedLine(batchLine(task.text, task.lineNumber, job.options));
     }
     case 'diagram-values': {
       const { diagramValuesRunner } = await import('../diagram-values.ts');

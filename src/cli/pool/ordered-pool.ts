@@ -37,14 +37,28 @@ export interface PoolSpec<T, R> {
   readonly runHere: (task: T) => R;
   /** The result standing for a task whose worker died while computing it alone. */
   readonly lost: (task: T, reason: string) => R;
-  /** Time computed in this thread before a pool is started (default 300 ms; 0 starts it at once). */
+  /** Time computed in this thread before a pool is started (default 300 ms; 0 starts it at once and sends every task to the workers). */
   readonly inProcessMs?: number;
 }
 
-/** The default time in this thread before a pool starts; tests set SKEINPROOF_POOL_AFTER_MS=0 to exercise the pool on small inputs. */
+/**
+ * The default time in this thread before a pool starts; tests set SKEINPROOF_POOL_AFTER_MS=0, which sends
+ * every task to the workers, to exercise the pool on small inputs.
+ */
 export function inProcessMsFromEnvironment(): number {
   const given = Number(process.env['SKEINPROOF_POOL_AFTER_MS']);
   return Number.isFinite(given) && given >= 0 ? given : DEFAULT_IN_PROCESS_MS;
+}
+
+/**
+ * Each worker's heap: an even share of the machine's memory (at least 512 MiB), so a runaway task kills
+ * its worker, costing that task, before it exhausts the machine. SKEINPROOF_WORKER_HEAP_MIB sets it (tests
+ * use a small heap to see a worker die).
+ */
+function workerHeapMiB(jobs: number): number {
+  const given = Number(process.env['SKEINPROOF_WORKER_HEAP_MIB']);
+  if (Number.isInteger(given) && given > 0) return given;
+  return Math.max(512, Math.floor(totalmem() / (1024 * 1024) / jobs));
 }
 
 /**
@@ -77,10 +91,11 @@ export async function* computeInOrder<T, R>(tasks: AsyncIterable<T>, spec: PoolS
   }
   const meanMs = computed > 0 ? (performance.now() - started) / computed : CHUNK_MS;
   const chunkSize = Math.max(1, Math.min(MAX_CHUNK, Math.floor(CHUNK_MS / Math.max(meanMs, 1e-3))));
-  yield* pooled(iterator, spec, chunkSize);
+  yield* pooled(iterator, spec, chunkSize, limitMs > 0);
 }
 
-async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, chunkSize: number): AsyncGenerator<R> {
+/** `helpsHere`: this thread computes chunks too (always, except when tests send every task to the workers). */
+async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, chunkSize: number, helpsHere: boolean): AsyncGenerator<R> {
   const done = new Map<number, R>();
   /** The chunk each worker is computing or has queued, by its first sequence number. */
   const held = new Map<Worker, Map<number, Chunk<T>>>();
@@ -97,9 +112,7 @@ async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, c
     wake = undefined;
   };
   const nextEvent = (): Promise<void> => (signalled ? Promise.resolve() : new Promise((resolve) => (wake = resolve)));
-  // Each worker's heap is an even share of the machine's memory (at least 512 MiB), so a runaway
-  // diagram kills its worker, costing that task, before it exhausts the machine.
-  const resourceLimits = { maxOldGenerationSizeMb: Math.max(512, Math.floor(totalmem() / (1024 * 1024) / spec.jobs)) };
+  const resourceLimits = { maxOldGenerationSizeMb: workerHeapMiB(spec.jobs) };
   const start = (): void => {
     const worker = new Worker(workerUrl(), { workerData: spec.job, resourceLimits });
     held.set(worker, new Map());
@@ -116,10 +129,12 @@ async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, c
       if (!lost) return;
       held.delete(worker);
       ready.delete(worker);
-      for (const chunk of lost.values()) {
-        if (chunk.tasks.length === 1) done.set(chunk.first, spec.lost(chunk.tasks[0]!, reason));
-        else queue.unshift(...chunk.tasks.map((task, k) => ({ first: chunk.first + k, tasks: [task] })));
-      }
+      // A worker computes its chunks in the order sent, so the first one held was being computed: alone, its
+      // task is what killed the worker. Every other task is sent again, one per message.
+      const [computing, ...waiting] = [...lost.values()];
+      const retried = computing && computing.tasks.length === 1 ? waiting : [computing, ...waiting];
+      if (computing && computing.tasks.length === 1) done.set(computing.first, spec.lost(computing.tasks[0]!, reason));
+      queue.unshift(...retried.flatMap((chunk) => (chunk ? chunk.tasks.map((task, k) => ({ first: chunk.first + k, tasks: [task] })) : [])));
       start();
       notify();
     };
@@ -161,7 +176,7 @@ async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, c
         worker.postMessage(chunk);
       }
       // This thread is one of the `jobs`: it computes a chunk whenever the workers have enough queued (or none is ready yet).
-      if (queue.length > 0) {
+      if (helpsHere && queue.length > 0) {
         const chunk = queue.shift()!;
         chunk.tasks.forEach((task, k) => done.set(chunk.first + k, spec.runHere(task)));
         await tick(); // lets the workers' messages arrive
@@ -174,7 +189,7 @@ async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, c
       if (exhausted && nextOut === nextSeq) return;
       // Wait for a worker unless there is more to read or compute here.
       const canRead = !exhausted && nextSeq - nextOut < window;
-      if (!canRead && !done.has(nextOut) && queue.length === 0) await nextEvent();
+      if (!canRead && !done.has(nextOut) && (queue.length === 0 || !helpsHere)) await nextEvent();
     }
   } finally {
     const workers = [...held.keys()];
