@@ -66,9 +66,12 @@ export function batchLine(text: string, lineNumber: number, options: BatchOption
     if (unknown.length > 0) return lineError(lineNumber, id, `line ${lineNumber} (${id}): unknown key ${unknown.join(', ')}; the keys are ${JSON_FIELDS.join(', ')}`);
     keys = new Set(list);
   }
-  const outcome = computeCode(code, notation as Notation, strands !== undefined ? { strands: strands as number } : {}, options.limits ?? {}, false, storeFor(options));
+  const store = storeFor(options);
+  const outcome = computeCode(code, notation as Notation, strands !== undefined ? { strands: strands as number } : {}, options.limits ?? {}, false, store);
   if (!outcome.ok) return { id, ...invalidCodeJson(code, outcome.notation, outcome.error), ok: false };
   const json = computeJson(code, outcome.report, options.convention ?? DEFAULT_CONVENTION, keys);
+  // Each line's values are on disk before its result is out, so an interrupted run loses none of them.
+  store?.flush();
   return { id, ...json, ok: json['notComputed'] === undefined };
 }
 

@@ -1,26 +1,30 @@
 /**
  * The disk cache: the command line's ResultStore (src/core/cache/store.ts).
- * Each value is one file, named by the SHA-256 of the engine's version and
- * the key, under DIR/entries/xy/. A file holds a header line
+ * The values of one diagram key are one file, named by the SHA-256 of the
+ * engine's version and the key, under DIR/entries/xy/. A file holds a header line
  *
- *     skeinproof-result 1 <SHA-256 of engine and key> <SHA-256 of the value> <value length>
+ *     skeinproof-result 2 <SHA-256 of engine and key> <SHA-256 of the body> <body length>
  *
- * and the value's text. A file whose header, key digest, length or checksum is
- * wrong (truncated, corrupted, written by something else) is ignored, and the
- * value is computed and written again. A file is written under a temporary
- * name and renamed into place, so two processes writing one entry at once
- * leave one whole entry, never a mix. Reading an entry touches its time, and
- * after a run that wrote, the least recently used entries are removed until
- * the cache is under its size cap. A cache that cannot be written is skipped
- * with one warning: it only saves time.
+ * and a body: a JSON object from quantity names to their texts. A file whose
+ * header, key digest, length or checksum is wrong (truncated, corrupted,
+ * written by something else) is ignored, and its values are computed and
+ * written again. New values are kept in memory and written when the command
+ * calls `flush` (at the end of a run, after each batch line): one file per
+ * diagram rather than per value, since creating files is what a cold run pays
+ * most for. A file is written under a temporary name and renamed into place,
+ * so two processes writing one entry at once leave one whole entry, never a
+ * mix (values only the other one had are computed again next time). Reading
+ * an entry touches its time, and after a run that wrote, the least recently
+ * used entries are removed until the cache is under its size cap. A cache that
+ * cannot be written is skipped with one warning: it only saves time.
  */
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdirSync, readdirSync, readFileSync, renameSync, statSync, unlinkSync, utimesSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, statSync, unlinkSync, utimesSync, writeFileSync } from 'node:fs';
 import { homedir } from 'node:os';
 import { join } from 'node:path';
 import type { ResultStore } from '../core/cache/store.ts';
 
-const MAGIC = 'skeinproof-result 1';
+const MAGIC = 'skeinproof-result 2';
 const MIB = 1024 * 1024;
 /** A temporary file older than this belongs to a process that died before renaming it. */
 const STALE_TEMPORARY_MS = 60 * 60 * 1000;
@@ -37,64 +41,121 @@ export interface FileStoreOptions {
 }
 
 export interface StoreCounts {
+  /** Values found, and values asked for but not found. */
   hits: number;
   misses: number;
-  /** Entries found but not trusted (bad header, digest, length or checksum). */
+  /** Entry files found but not trusted (bad header, digest, length or checksum). */
   rejected: number;
+  /** Entry files written. */
   writes: number;
 }
 
 const sha256 = (text: string): string => createHash('sha256').update(text).digest('hex');
+
+/** One diagram key's entry file: where it is, and its values as read and as added since. */
+interface Entry {
+  readonly path: string;
+  readonly shard: string;
+  readonly digest: string;
+  readonly values: Record<string, string>;
+  dirty: boolean;
+}
 
 export class FileResultStore implements ResultStore {
   readonly counts: StoreCounts = { hits: 0, misses: 0, rejected: 0, writes: 0 };
   private readonly entries: string;
   private writable = true;
   private writtenSinceEviction = 0;
+  /**
+   * The entry names of each shard directory, listed when the shard is first used: a key whose entry is not
+   * listed is a miss without trying to open it. An entry another process writes meanwhile is missed and
+   * written again, which is harmless.
+   */
+  private readonly shards = new Map<string, Set<string> | undefined>();
+  /** The entries read or added since the last flush, by diagram key. */
+  private readonly open = new Map<string, Entry>();
 
   constructor(readonly options: FileStoreOptions) {
     this.entries = join(options.dir, 'entries');
   }
 
-  /** The entry file of `key` and the digest its header must carry. */
-  private locate(key: string): { path: string; digest: string } {
-    const digest = sha256(`${this.options.engine}\u0000${key}`);
-    return { path: join(this.entries, digest.slice(0, 2), digest), digest };
+  /** The names in a shard directory (undefined when it does not exist), listed once. */
+  private listing(shard: string): Set<string> | undefined {
+    if (!this.shards.has(shard)) this.shards.set(shard, existsSync(shard) ? new Set(listDir(shard)) : undefined);
+    return this.shards.get(shard);
   }
 
-  get(key: string): string | undefined {
-    const { path, digest } = this.locate(key);
+  /** The entry of a diagram key, read from its file the first time (empty when there is none or it is not trusted). */
+  private entry(diagram: string): Entry {
+    const known = this.open.get(diagram);
+    if (known) return known;
+    const digest = sha256(`${this.options.engine}\u0000${diagram}`);
+    const shard = join(this.entries, digest.slice(0, 2));
+    const path = join(shard, digest);
+    const entry: Entry = { path, shard, digest, values: {}, dirty: false };
+    this.open.set(diagram, entry);
+    if (!this.listing(shard)?.has(digest)) return entry;
     let text: string;
     try {
       text = readFileSync(path, 'utf8');
     } catch {
-      this.counts.misses++;
-      return undefined;
+      return entry; // evicted by another process meanwhile
     }
-    const value = entryValue(text, digest);
-    if (value === undefined) {
+    const values = entryValues(text, digest);
+    if (!values) {
       this.counts.rejected++;
-      return undefined;
+      return entry;
     }
-    this.counts.hits++;
+    Object.assign(entry.values, values);
     const now = new Date();
     try {
       utimesSync(path, now, now);
     } catch {
-      // Another process evicted it meanwhile: the value read is still whole.
+      // Evicted meanwhile: the values read are still whole.
     }
+    return entry;
+  }
+
+  get(diagram: string, quantity: string): string | undefined {
+    const value = this.entry(diagram).values[quantity];
+    if (value === undefined) this.counts.misses++;
+    else this.counts.hits++;
     return value;
   }
 
-  put(key: string, value: string): void {
+  put(diagram: string, quantity: string, text: string): void {
+    const entry = this.entry(diagram);
+    entry.values[quantity] = text;
+    entry.dirty = true;
+  }
+
+  /** Writes every entry that gained values since the last flush, and forgets the entries read (memory stays small). */
+  flush(): void {
+    for (const entry of this.open.values()) if (entry.dirty) this.write(entry);
+    this.open.clear();
+  }
+
+  /** Flushes, then keeps the cache under its cap: what a command does when it is done. */
+  finish(): void {
+    this.flush();
+    this.evict();
+  }
+
+  private write(entry: Entry): void {
     if (!this.writable) return;
-    const { path, digest } = this.locate(key);
-    const text = `${MAGIC} ${digest} ${sha256(value)} ${Buffer.byteLength(value, 'utf8')}\n${value}`;
-    const temporary = `${path}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`;
+    const body = JSON.stringify(entry.values);
+    const text = `${MAGIC} ${entry.digest} ${sha256(body)} ${Buffer.byteLength(body, 'utf8')}\n${body}`;
+    const temporary = `${entry.path}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`;
     try {
-      mkdirSync(join(path, '..'), { recursive: true });
+      let names = this.listing(entry.shard);
+      if (!names) {
+        mkdirSync(entry.shard, { recursive: true });
+        this.shards.set(entry.shard, (names = new Set()));
+      }
       writeFileSync(temporary, text, { flag: 'wx' });
-      renameSync(temporary, path);
+      renameSync(temporary, entry.path);
+      names.add(entry.digest);
+      entry.dirty = false;
       this.counts.writes++;
       this.writtenSinceEviction++;
     } catch (e) {
@@ -148,15 +209,22 @@ function warnOnStandardError(message: string): void {
   process.stderr.write(`skeinproof: warning: ${message}\n`);
 }
 
-/** The value of an entry file, or undefined when the file is not a whole entry for `digest`. */
-function entryValue(text: string, digest: string): string | undefined {
+/** The values of an entry file, or undefined when the file is not a whole entry for `digest`. */
+function entryValues(text: string, digest: string): Record<string, string> | undefined {
   const newline = text.indexOf('\n');
   if (newline < 0) return undefined;
   const header = text.slice(0, newline).split(' ');
   if (header.length !== 5 || `${header[0]} ${header[1]}` !== MAGIC || header[2] !== digest) return undefined;
-  const value = text.slice(newline + 1);
-  if (String(Buffer.byteLength(value, 'utf8')) !== header[4] || sha256(value) !== header[3]) return undefined;
-  return value;
+  const body = text.slice(newline + 1);
+  if (String(Buffer.byteLength(body, 'utf8')) !== header[4] || sha256(body) !== header[3]) return undefined;
+  let values: unknown;
+  try {
+    values = JSON.parse(body);
+  } catch {
+    return undefined;
+  }
+  if (typeof values !== 'object' || values === null || Array.isArray(values)) return undefined;
+  return Object.values(values).every((v) => typeof v === 'string') ? (values as Record<string, string>) : undefined;
 }
 
 function listDir(dir: string): string[] {

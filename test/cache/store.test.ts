@@ -21,13 +21,13 @@ class MemoryStore implements ResultStore {
   readonly entries = new Map<string, string>();
   gets = 0;
   puts = 0;
-  get(key: string): string | undefined {
+  get(diagram: string, quantity: string): string | undefined {
     this.gets++;
-    return this.entries.get(key);
+    return this.entries.get(`${quantity}\n${diagram}`);
   }
-  put(key: string, text: string): void {
+  put(diagram: string, quantity: string, text: string): void {
     this.puts++;
-    this.entries.set(key, text);
+    this.entries.set(`${quantity}\n${diagram}`, text);
   }
 }
 

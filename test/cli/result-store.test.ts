@@ -1,6 +1,7 @@
 /**
- * The disk cache's file store: entries are checked before they are trusted
- * (a truncated, corrupted or foreign file is a miss and is rewritten), several
+ * The disk cache's file store: values are written per diagram key when the
+ * store is flushed, entries are checked before they are trusted (a truncated,
+ * corrupted or foreign file is a miss and is rewritten), several
  * processes writing one entry at once leave a whole entry (temporary file and
  * rename: the POSIX rename replaces the target in one step, common practice),
  * and the least recently used entries go first when the cache is over its cap.
@@ -31,21 +32,35 @@ function entryFiles(dir: string): string[] {
 }
 
 describe('file result store', () => {
-  it('gives back what was stored, and nothing for another key or another engine version', () => {
+  it('gives back what was stored, after a flush to other processes too, and nothing for another key or engine version', () => {
     const dir = freshDir();
     const store = open(dir);
-    store.put('bracket/1\nkey one', '[[1,"2"]]');
-    expect(store.get('bracket/1\nkey one')).toBe('[[1,"2"]]');
-    expect(store.get('bracket/1\nkey two')).toBeUndefined();
-    expect(open(dir, 'engine-b').get('bracket/1\nkey one')).toBeUndefined();
-    expect(store.counts).toMatchObject({ hits: 1, misses: 1, writes: 1 });
+    store.put('key one', 'bracket/1', '[[1,"2"]]');
+    store.put('key one', 'determinant/1', '"3"');
+    expect(store.get('key one', 'bracket/1')).toBe('[[1,"2"]]');
+    expect(open(dir).get('key one', 'bracket/1')).toBeUndefined(); // not written before the flush
+    store.flush();
+    expect(entryFiles(dir)).toHaveLength(1); // one file per diagram key
+    const reader = open(dir);
+    expect(reader.get('key one', 'bracket/1')).toBe('[[1,"2"]]');
+    expect(reader.get('key one', 'determinant/1')).toBe('"3"');
+    expect(reader.get('key one', 'signature/1')).toBeUndefined();
+    expect(reader.get('key two', 'bracket/1')).toBeUndefined();
+    expect(open(dir, 'engine-b').get('key one', 'bracket/1')).toBeUndefined();
+    expect(reader.counts).toMatchObject({ hits: 2, misses: 2, writes: 0 });
+    // A later run adds a value to the entry and keeps the others.
+    reader.put('key one', 'signature/1', '-2');
+    reader.flush();
+    const third = open(dir);
+    expect(['bracket/1', 'determinant/1', 'signature/1'].map((q) => third.get('key one', q))).toEqual(['[[1,"2"]]', '"3"', '-2']);
   });
 
   it('ignores a truncated, corrupted or emptied entry and takes the rewritten one', () => {
     const dir = freshDir();
     const store = open(dir);
     const value = JSON.stringify(Array.from({ length: 50 }, (_, i) => [i, String(i * 7919)]));
-    store.put('k', value);
+    store.put('k', 'q', value);
+    store.flush();
     const [file] = entryFiles(dir);
     const whole = readFileSync(file!, 'utf8');
     const damaged = [
@@ -55,26 +70,32 @@ describe('file result store', () => {
       '',
       'not an entry at all\n[]',
     ];
+    let rejected = 0;
     for (const text of damaged) {
       writeFileSync(file!, text);
-      expect(store.get('k')).toBeUndefined();
+      const reader = open(dir);
+      expect(reader.get('k', 'q')).toBeUndefined();
+      rejected += reader.counts.rejected;
     }
-    expect(store.counts.rejected).toBe(damaged.length);
-    store.put('k', value);
-    expect(store.get('k')).toBe(value);
+    expect(rejected).toBe(damaged.length);
+    const writer = open(dir);
+    writer.put('k', 'q', value);
+    writer.flush();
+    expect(open(dir).get('k', 'q')).toBe(value);
   });
 
   it('does not trust an entry that belongs to another key (a file copied or renamed into place)', () => {
     const dir = freshDir();
     const store = open(dir);
-    store.put('first', '"1"');
-    store.put('second', '"2"');
+    store.put('first', 'q', '"1"');
+    store.put('second', 'q', '"2"');
+    store.flush();
     const files = entryFiles(dir);
-    const first = files.find((f) => readFileSync(f, 'utf8').endsWith('"1"'))!;
+    const first = files.find((f) => readFileSync(f, 'utf8').endsWith(JSON.stringify({ q: '"1"' })))!;
     const second = files.find((f) => f !== first)!;
     writeFileSync(second, readFileSync(first));
-    expect(store.get('second')).toBeUndefined();
-    expect(store.get('first')).toBe('"1"');
+    expect(open(dir).get('second', 'q')).toBeUndefined();
+    expect(open(dir).get('first', 'q')).toBe('"1"');
   });
 
   it('leaves one whole entry when several processes write the same entry at once', async () => {
@@ -86,13 +107,13 @@ describe('file result store', () => {
         const script = `import { FileResultStore } from ${JSON.stringify(module)};
           const store = new FileResultStore({ dir: ${JSON.stringify(dir)}, engine: 'e', maxBytes: 1 << 30 });
           const value = JSON.stringify('${id}'.repeat(200000));
-          for (let i = 0; i < 40; i++) store.put('shared', value);`;
+          for (let i = 0; i < 40; i++) { store.put('shared', 'q', value); store.flush(); }`;
         const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { stdio: 'inherit' });
         child.on('error', fail);
         child.on('exit', (code) => done(code ?? -1));
       });
     expect(await Promise.all([1, 2, 3, 4].map(writer))).toEqual([0, 0, 0, 0]);
-    const value = open(dir, 'e').get('shared');
+    const value = open(dir, 'e').get('shared', 'q');
     expect(value).toBeDefined();
     expect(['1', '2', '3', '4'].map((id) => JSON.stringify(id.repeat(200000)))).toContain(value);
     expect(entryFiles(dir).filter((f) => f.endsWith('.tmp'))).toEqual([]);
@@ -103,18 +124,19 @@ describe('file result store', () => {
     const dir = freshDir();
     const valueOf = (k: string) => `${k}:${'x'.repeat(1000)}`;
     const writer = open(dir);
-    for (let i = 0; i < 10; i++) writer.put(`k${i}`, valueOf(`k${i}`));
+    for (let i = 0; i < 10; i++) writer.put(`k${i}`, 'q', valueOf(`k${i}`));
+    writer.flush();
     // Last used: k0 longest ago … k9 most recently.
     const now = Date.now() / 1000;
     for (const file of entryFiles(dir)) {
-      const i = Number(/\nk(\d+):/.exec(readFileSync(file, 'utf8'))![1]);
+      const i = Number(/"k(\d+):/.exec(readFileSync(file, 'utf8'))![1]);
       utimesSync(file, now - 1000 + i, now - 1000 + i);
     }
     const store = open(dir, 'engine-a', 6 * 1100);
-    expect(store.get('k0')).toBe(valueOf('k0')); // now the most recently used
-    store.put('new', valueOf('new'));
-    store.evict();
-    const left = ['k0', 'k1', 'k2', 'k3', 'k4', 'k5', 'k6', 'k7', 'k8', 'k9', 'new'].filter((k) => open(dir).get(k) !== undefined);
+    expect(store.get('k0', 'q')).toBe(valueOf('k0')); // now the most recently used
+    store.put('new', 'q', valueOf('new'));
+    store.finish();
+    const left = ['k0', 'k1', 'k2', 'k3', 'k4', 'k5', 'k6', 'k7', 'k8', 'k9', 'new'].filter((k) => open(dir).get(k, 'q') !== undefined);
     // Cap 6600 bytes, evicted down to 90 % of it: five entries of about 1.1 kB stay, the most recently used ones.
     expect(left).toEqual(['k0', 'k7', 'k8', 'k9', 'new']);
   });
@@ -125,9 +147,11 @@ describe('file result store', () => {
     writeFileSync(blocked, '');
     const warnings: string[] = [];
     const store = open(blocked, 'e', 1 << 30, (m) => warnings.push(m));
-    store.put('a', '1');
-    store.put('b', '2');
-    expect(store.get('a')).toBeUndefined();
+    store.put('a', 'q', '1');
+    store.flush();
+    store.put('b', 'q', '2');
+    store.flush();
+    expect(open(blocked).get('a', 'q')).toBeUndefined();
     expect(warnings).toHaveLength(1);
     expect(warnings[0]).toContain('cannot write the cache');
   });

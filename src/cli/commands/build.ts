@@ -57,7 +57,7 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
   const format = formatOf(path);
   if (typeof format === 'string') return { status: usage(format), inputs: [path] };
   const result = await format.build(path, args.options);
-  args.options.resultStore?.evict();
+  args.options.resultStore?.finish();
   const strict = args.options.strict === true;
   const failed = resultFailed(result, strict);
   if (result.diagnostics.length > 0) process.stderr.write(reportDiagnostics(result.diagnostics, args.report, result.inputs, strict || failed, wantsColor(process.stderr)));

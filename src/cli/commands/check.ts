@@ -182,7 +182,7 @@ export const checkCommand: CliCommand = {
       failed ||= resultFailed(result, args.options.strict === true);
       if (result.counts) checked = addCounts(checked, result.counts);
     }
-    args.options.resultStore?.evict();
+    args.options.resultStore?.finish();
     const strict = args.options.strict === true;
     process.stdout.write(reportDiagnostics(diagnostics, args.report, [...read], strict || failed, wantsColor(process.stdout), checked));
     return exitStatusFor(diagnostics, failed, strict);

@@ -456,7 +456,7 @@ export const computeCommand: CliCommand = {
       process.stderr.write(`${invalidCodeMessage(position, code, outcome.notation, outcome.error)}\n`);
       if (args.json) process.stdout.write(`${JSON.stringify(invalidCodeJson(code, outcome.notation, outcome.error))}\n`);
     });
-    args.resultStore?.evict();
+    args.resultStore?.finish();
     return anyInvalid ? EXIT_INVALID_INPUT : Math.max(EXIT_ALL_VALID, exitStatus(claimDiagnostics, { strict: args.strict }));
   },
 };
