@@ -1,6 +1,6 @@
 /**
  * The disk cache: the command line's ResultStore (src/core/cache/store.ts).
- * The values of one diagram key are one file, named by the SHA-256 of the
+ * The values of one diagram (the part of a key after the quantity) are one file, named by the SHA-256 of the
  * engine's version and the key, under DIR/entries/xy/. A file holds a header line
  *
  *     skeinproof-result 2 <SHA-256 of engine and key> <SHA-256 of the body> <body length>
@@ -22,7 +22,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, statSync, unlinkSync, utimesSync, writeFileSync } from 'node:fs';
 import { homedir } from 'node:os';
 import { join } from 'node:path';
-import type { ResultStore } from '../core/cache/store.ts';
+import { splitResultKey, type ResultStore } from '../core/cache/store.ts';
 
 const MAGIC = 'skeinproof-result 2';
 const MIB = 1024 * 1024;
@@ -116,14 +116,16 @@ export class FileResultStore implements ResultStore {
     return entry;
   }
 
-  get(diagram: string, quantity: string): string | undefined {
+  get(key: string): string | undefined {
+    const { quantity, diagram } = splitResultKey(key);
     const value = this.entry(diagram).values[quantity];
     if (value === undefined) this.counts.misses++;
     else this.counts.hits++;
     return value;
   }
 
-  put(diagram: string, quantity: string, text: string): void {
+  put(key: string, text: string): void {
+    const { quantity, diagram } = splitResultKey(key);
     const entry = this.entry(diagram);
     entry.values[quantity] = text;
     entry.dirty = true;

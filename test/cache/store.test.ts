@@ -21,13 +21,13 @@ class MemoryStore implements ResultStore {
   readonly entries = new Map<string, string>();
   gets = 0;
   puts = 0;
-  get(diagram: string, quantity: string): string | undefined {
+  get(key: string): string | undefined {
     this.gets++;
-    return this.entries.get(`${quantity}\n${diagram}`);
+    return this.entries.get(key);
   }
-  put(diagram: string, quantity: string, text: string): void {
+  put(key: string, text: string): void {
     this.puts++;
-    this.entries.set(`${quantity}\n${diagram}`, text);
+    this.entries.set(key, text);
   }
 }
 

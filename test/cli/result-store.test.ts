@@ -23,6 +23,8 @@ afterEach(() => {
   for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
 });
 
+/** A key of the core's form: quantity, line break, diagram. */
+const k = (diagram: string, quantity: string): string => `${quantity}\n${diagram}`;
 const open = (dir: string, engine = 'engine-a', maxBytes = 1 << 30, warn?: (m: string) => void) => new FileResultStore({ dir, engine, maxBytes, ...(warn ? { warn } : {}) });
 
 /** Every entry file under the store (temporary files included). */
@@ -35,31 +37,31 @@ describe('file result store', () => {
   it('gives back what was stored, after a flush to other processes too, and nothing for another key or engine version', () => {
     const dir = freshDir();
     const store = open(dir);
-    store.put('key one', 'bracket/1', '[[1,"2"]]');
-    store.put('key one', 'determinant/1', '"3"');
-    expect(store.get('key one', 'bracket/1')).toBe('[[1,"2"]]');
-    expect(open(dir).get('key one', 'bracket/1')).toBeUndefined(); // not written before the flush
+    store.put(k('key one', 'bracket/1'), '[[1,"2"]]');
+    store.put(k('key one', 'determinant/1'), '"3"');
+    expect(store.get(k('key one', 'bracket/1'))).toBe('[[1,"2"]]');
+    expect(open(dir).get(k('key one', 'bracket/1'))).toBeUndefined(); // not written before the flush
     store.flush();
     expect(entryFiles(dir)).toHaveLength(1); // one file per diagram key
     const reader = open(dir);
-    expect(reader.get('key one', 'bracket/1')).toBe('[[1,"2"]]');
-    expect(reader.get('key one', 'determinant/1')).toBe('"3"');
-    expect(reader.get('key one', 'signature/1')).toBeUndefined();
-    expect(reader.get('key two', 'bracket/1')).toBeUndefined();
-    expect(open(dir, 'engine-b').get('key one', 'bracket/1')).toBeUndefined();
+    expect(reader.get(k('key one', 'bracket/1'))).toBe('[[1,"2"]]');
+    expect(reader.get(k('key one', 'determinant/1'))).toBe('"3"');
+    expect(reader.get(k('key one', 'signature/1'))).toBeUndefined();
+    expect(reader.get(k('key two', 'bracket/1'))).toBeUndefined();
+    expect(open(dir, 'engine-b').get(k('key one', 'bracket/1'))).toBeUndefined();
     expect(reader.counts).toMatchObject({ hits: 2, misses: 2, writes: 0 });
     // A later run adds a value to the entry and keeps the others.
-    reader.put('key one', 'signature/1', '-2');
+    reader.put(k('key one', 'signature/1'), '-2');
     reader.flush();
     const third = open(dir);
-    expect(['bracket/1', 'determinant/1', 'signature/1'].map((q) => third.get('key one', q))).toEqual(['[[1,"2"]]', '"3"', '-2']);
+    expect(['bracket/1', 'determinant/1', 'signature/1'].map((q) => third.get(k('key one', q)))).toEqual(['[[1,"2"]]', '"3"', '-2']);
   });
 
   it('ignores a truncated, corrupted or emptied entry and takes the rewritten one', () => {
     const dir = freshDir();
     const store = open(dir);
     const value = JSON.stringify(Array.from({ length: 50 }, (_, i) => [i, String(i * 7919)]));
-    store.put('k', 'q', value);
+    store.put(k('k', 'q'), value);
     store.flush();
     const [file] = entryFiles(dir);
     const whole = readFileSync(file!, 'utf8');
@@ -74,28 +76,28 @@ describe('file result store', () => {
     for (const text of damaged) {
       writeFileSync(file!, text);
       const reader = open(dir);
-      expect(reader.get('k', 'q')).toBeUndefined();
+      expect(reader.get(k('k', 'q'))).toBeUndefined();
       rejected += reader.counts.rejected;
     }
     expect(rejected).toBe(damaged.length);
     const writer = open(dir);
-    writer.put('k', 'q', value);
+    writer.put(k('k', 'q'), value);
     writer.flush();
-    expect(open(dir).get('k', 'q')).toBe(value);
+    expect(open(dir).get(k('k', 'q'))).toBe(value);
   });
 
   it('does not trust an entry that belongs to another key (a file copied or renamed into place)', () => {
     const dir = freshDir();
     const store = open(dir);
-    store.put('first', 'q', '"1"');
-    store.put('second', 'q', '"2"');
+    store.put(k('first', 'q'), '"1"');
+    store.put(k('second', 'q'), '"2"');
     store.flush();
     const files = entryFiles(dir);
     const first = files.find((f) => readFileSync(f, 'utf8').endsWith(JSON.stringify({ q: '"1"' })))!;
     const second = files.find((f) => f !== first)!;
     writeFileSync(second, readFileSync(first));
-    expect(open(dir).get('second', 'q')).toBeUndefined();
-    expect(open(dir).get('first', 'q')).toBe('"1"');
+    expect(open(dir).get(k('second', 'q'))).toBeUndefined();
+    expect(open(dir).get(k('first', 'q'))).toBe('"1"');
   });
 
   it('leaves one whole entry when several processes write the same entry at once', async () => {
@@ -107,13 +109,13 @@ describe('file result store', () => {
         const script = `import { FileResultStore } from ${JSON.stringify(module)};
           const store = new FileResultStore({ dir: ${JSON.stringify(dir)}, engine: 'e', maxBytes: 1 << 30 });
           const value = JSON.stringify('${id}'.repeat(200000));
-          for (let i = 0; i < 40; i++) { store.put('shared', 'q', value); store.flush(); }`;
+          for (let i = 0; i < 40; i++) { store.put('q\\nshared', value); store.flush(); }`;
         const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { stdio: 'inherit' });
         child.on('error', fail);
         child.on('exit', (code) => done(code ?? -1));
       });
     expect(await Promise.all([1, 2, 3, 4].map(writer))).toEqual([0, 0, 0, 0]);
-    const value = open(dir, 'e').get('shared', 'q');
+    const value = open(dir, 'e').get(k('shared', 'q'));
     expect(value).toBeDefined();
     expect(['1', '2', '3', '4'].map((id) => JSON.stringify(id.repeat(200000)))).toContain(value);
     expect(entryFiles(dir).filter((f) => f.endsWith('.tmp'))).toEqual([]);
@@ -124,7 +126,7 @@ describe('file result store', () => {
     const dir = freshDir();
     const valueOf = (k: string) => `${k}:${'x'.repeat(1000)}`;
     const writer = open(dir);
-    for (let i = 0; i < 10; i++) writer.put(`k${i}`, 'q', valueOf(`k${i}`));
+    for (let i = 0; i < 10; i++) writer.put(k(`k${i}`, 'q'), valueOf(`k${i}`));
     writer.flush();
     // Last used: k0 longest ago … k9 most recently.
     const now = Date.now() / 1000;
@@ -133,10 +135,10 @@ describe('file result store', () => {
       utimesSync(file, now - 1000 + i, now - 1000 + i);
     }
     const store = open(dir, 'engine-a', 6 * 1100);
-    expect(store.get('k0', 'q')).toBe(valueOf('k0')); // now the most recently used
-    store.put('new', 'q', valueOf('new'));
+    expect(store.get(k('k0', 'q'))).toBe(valueOf('k0')); // now the most recently used
+    store.put(k('new', 'q'), valueOf('new'));
     store.finish();
-    const left = ['k0', 'k1', 'k2', 'k3', 'k4', 'k5', 'k6', 'k7', 'k8', 'k9', 'new'].filter((k) => open(dir).get(k, 'q') !== undefined);
+    const left = ['k0', 'k1', 'k2', 'k3', 'k4', 'k5', 'k6', 'k7', 'k8', 'k9', 'new'].filter((name) => open(dir).get(k(name, 'q')) !== undefined);
     // Cap 6600 bytes, evicted down to 90 % of it: five entries of about 1.1 kB stay, the most recently used ones.
     expect(left).toEqual(['k0', 'k7', 'k8', 'k9', 'new']);
   });
@@ -147,11 +149,11 @@ describe('file result store', () => {
     writeFileSync(blocked, '');
     const warnings: string[] = [];
     const store = open(blocked, 'e', 1 << 30, (m) => warnings.push(m));
-    store.put('a', 'q', '1');
+    store.put(k('a', 'q'), '1');
     store.flush();
-    store.put('b', 'q', '2');
+    store.put(k('b', 'q'), '2');
     store.flush();
-    expect(open(blocked).get('a', 'q')).toBeUndefined();
+    expect(open(blocked).get(k('a', 'q'))).toBeUndefined();
     expect(warnings).toHaveLength(1);
     expect(warnings[0]).toContain('cannot write the cache');
   });

@@ -17,19 +17,25 @@ import { canonicalDiagramText, labelledDiagramText } from './canonical.ts';
 import type { Codec } from './codecs.ts';
 
 /**
- * Values are stored per diagram: `diagram` is the diagram's key text (./canonical.ts), `quantity` the
- * codec's name. A store may keep all quantities of one diagram together.
+ * A key is the quantity (the codec's name, which has no line break), a line break, and the diagram's key
+ * text (./canonical.ts): a store may keep all quantities of one diagram together (`splitResultKey`).
  */
 export interface ResultStore {
-  /** The text stored for the quantity of the diagram, or undefined when there is none or it cannot be trusted. */
-  get(diagram: string, quantity: string): string | undefined;
-  /** Stores `text` for the quantity of the diagram, replacing what was there; a failure to store is the store's own business. */
-  put(diagram: string, quantity: string, text: string): void;
+  /** The text stored under `key`, or undefined when there is none or it cannot be trusted. */
+  get(key: string): string | undefined;
+  /** Stores `text` under `key`, replacing what was there; a failure to store is the store's own business. */
+  put(key: string, text: string): void;
 }
 
-/** The key text of the diagram `d` for `codec`'s value (the engine's version is the store's part of the key). */
-export function diagramKey(codec: Codec<unknown>, d: LinkDiagram): string {
-  return codec.labelled ? labelledDiagramText(d) : canonicalDiagramText(d);
+/** The key of `codec`'s value for the diagram `d` (the engine's version is the store's part of the key). */
+export function resultKey(codec: Codec<unknown>, d: LinkDiagram): string {
+  return `${codec.name}\n${codec.labelled ? labelledDiagramText(d) : canonicalDiagramText(d)}`;
+}
+
+/** A key's quantity and diagram parts. */
+export function splitResultKey(key: string): { readonly quantity: string; readonly diagram: string } {
+  const newline = key.indexOf('\n');
+  return newline < 0 ? { quantity: key, diagram: '' } : { quantity: key.slice(0, newline), diagram: key.slice(newline + 1) };
 }
 
 /**
@@ -39,15 +45,15 @@ export function diagramKey(codec: Codec<unknown>, d: LinkDiagram): string {
  */
 export function throughStore<T>(store: ResultStore | undefined, codec: Codec<T>, d: LinkDiagram, compute: () => T): T {
   if (!store) return compute();
-  const key = diagramKey(codec as Codec<unknown>, d);
-  const text = store.get(key, codec.name);
+  const key = resultKey(codec as Codec<unknown>, d);
+  const text = store.get(key);
   if (text !== undefined) {
     const value = codec.decode(text);
     if (value !== undefined) return value;
   }
   const value = compute();
   const encoded = codec.encode(value);
-  if (encoded !== undefined) store.put(key, codec.name, encoded);
+  if (encoded !== undefined) store.put(key, encoded);
   return value;
 }
 
