@@ -191,5 +191,6 @@ await import('./speed.ts').then((speed) => speed.runSpeedBench());
 await import('./cache.ts').then((cache) => cache.runCacheBench());
 await import('./skein-polynomials.ts').then((skein) => skein.runSkeinPolynomialBench());
 await import('./arf.ts').then((arf) => arf.runArfBench());
+await import('./figures.ts').then((figures) => figures.runFigureBench());
 await import('./figure-manuscripts.ts').then((figures) => figures.runFigureManuscriptBench());
 await import('./simplify.ts').then((simplify) => simplify.runSimplifyBench());
