@@ -71,9 +71,14 @@ describe('skeinproof compute --figure', () => {
     }
   });
 
-  it('refuses a diagram over the crossing limit as limit-exceeded', () => {
+  it('refuses a diagram over the crossing limit, or one whose layout outruns the time budget, as limit-exceeded', () => {
     const run = skeinproof('compute', '--figure', 'svg', '--max-crossings', '2', TREFOIL);
     expect(run.status).toBe(2);
     expect(run.stderr).toMatch(/error\[limit-exceeded\]/);
+    const word = Array.from({ length: 120 }, (_, i) => `${(i % 5) + 1}`).join(' ');
+    const slow = skeinproof('compute', '--figure', 'svg', '-n', 'braid', '--time-budget', '0.001', word);
+    expect(slow.status).toBe(2);
+    expect(slow.stdout).toBe('');
+    expect(slow.stderr).toMatch(/error\[limit-exceeded\].*computing its figure took longer than the time budget/);
   });
 });
