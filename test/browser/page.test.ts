@@ -71,7 +71,7 @@ describe.skipIf(!available)('the HTML page in chromium', () => {
     const page = await browser!.newPage();
     await page.goto(pathToFileURL(path).href);
     const figures = page.locator('figure.skein-drawing svg');
-    expect(await figures.count()).toBe(2);
+    expect(await figures.count()).toBe(3);
     // The browser's own geometry: each stroke lies inside its picture's box, and the picture has a size.
     const boxes = await page.$$eval('figure.skein-drawing svg', (svgs) =>
       svgs.map((svg) => {
@@ -81,7 +81,7 @@ describe.skipIf(!available)('the HTML page in chromium', () => {
         return { width: frame.width, height: frame.height, strokes: strokes.length, inside, title: svg.querySelector('title')?.textContent ?? '' };
       }),
     );
-    expect(boxes.map((b) => b.title)).toEqual(['The two-component twist T2, oriented, one colour per component', 'The twist T5 with numbered crossings']);
+    expect(boxes.map((b) => b.title)).toEqual(['The two-component twist T2, oriented, one colour per component', 'The twist T5 with numbered crossings', 'The weave W2']);
     for (const b of boxes) {
       expect(b.width).toBeGreaterThan(100);
       expect(b.height).toBeGreaterThan(100);
