@@ -151,7 +151,8 @@ export class FileResultStore implements ResultStore {
     try {
       let names = this.listing(entry.shard);
       if (!names) {
-        mkdirSync(entry.shard, { recursive: true });
+        // Private to the user: a checksum detects a damaged entry, not one forged by someone who can write here.
+        mkdirSync(entry.shard, { recursive: true, mode: 0o700 });
         this.shards.set(entry.shard, (names = new Set()));
       }
       writeFileSync(temporary, text, { flag: 'wx' });

@@ -7,7 +7,7 @@
  * and the least recently used entries go first when the cache is over its cap.
  */
 import { spawn } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -141,6 +141,14 @@ describe('file result store', () => {
     const left = ['k0', 'k1', 'k2', 'k3', 'k4', 'k5', 'k6', 'k7', 'k8', 'k9', 'new'].filter((name) => open(dir).get(k(name, 'q')) !== undefined);
     // Cap 6600 bytes, evicted down to 90 % of it: five entries of about 1.1 kB stay, the most recently used ones.
     expect(left).toEqual(['k0', 'k7', 'k8', 'k9', 'new']);
+  });
+
+  it('creates its directories for the owner only (a checksum does not stop someone else writing a forged entry)', () => {
+    const dir = join(freshDir(), 'cache');
+    const store = open(dir);
+    store.put(k('a', 'q'), '1');
+    store.flush();
+    for (const path of [dir, join(dir, 'entries'), join(dir, 'entries', readdirSync(join(dir, 'entries'))[0]!)]) expect(statSync(path).mode & 0o777).toBe(0o700);
   });
 
   it('goes on without storing, with one warning, when the cache cannot be written', () => {
