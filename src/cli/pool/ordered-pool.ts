@@ -23,8 +23,8 @@ import type { PoolJob } from './jobs.ts';
 /** About this much work per message: large enough that copying costs little, small enough to share work evenly. */
 const CHUNK_MS = 40;
 const MAX_CHUNK = 512;
-/** Chunks sent to a worker at a time (one computing, one queued, so a worker never waits on this thread). */
-const CHUNKS_PER_WORKER = 2;
+/** Chunks sent to a worker at a time (one computing, the others queued, so a worker never waits on this thread). */
+const CHUNKS_PER_WORKER = 3;
 /** Compute in this thread for this long before a pool is started (override: SKEINPROOF_POOL_AFTER_MS). */
 const DEFAULT_IN_PROCESS_MS = 300;
 
@@ -175,10 +175,13 @@ async function* pooled<T, R>(iterator: AsyncIterator<T>, spec: PoolSpec<T, R>, c
         held.get(worker)!.set(chunk.first, chunk);
         worker.postMessage(chunk);
       }
-      // This thread is one of the `jobs`: it computes a chunk whenever the workers have enough queued (or none is ready yet).
+      // This thread is one of the `jobs`: it computes the next task whenever the workers have enough queued
+      // (or none is ready yet), one task at a time, so a worker that finishes a chunk gets the next one at once.
       if (helpsHere && queue.length > 0) {
-        const chunk = queue.shift()!;
-        chunk.tasks.forEach((task, k) => done.set(chunk.first + k, spec.runHere(task)));
+        const chunk = queue[0]!;
+        done.set(chunk.first, spec.runHere(chunk.tasks[0]!));
+        if (chunk.tasks.length === 1) queue.shift();
+        else queue[0] = { first: chunk.first + 1, tasks: chunk.tasks.slice(1) };
         await tick(); // lets the workers' messages arrive
       }
       while (done.has(nextOut)) {
