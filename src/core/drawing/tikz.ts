@@ -23,6 +23,9 @@ function texText(text: string): string {
   return text.replace(/[\\{}$&#^_%~]/g, (c) => `\\char${c.charCodeAt(0)}{}`);
 }
 
+/** \footnotesize in the standard classes at 10pt, in pt. */
+const FOOTNOTE_SIZE = 8;
+
 export function figureTikz(drawing: Drawing, meta: FigureMeta): string {
   const pt = (p: Point): string => `(${fixed(p.x)},${fixed(p.y)})`;
   const cubicText = (k: Cubic): string => ` .. controls ${pt(k.c1)} and ${pt(k.c2)} .. ${pt(k.to)}`;
@@ -40,7 +43,8 @@ export function figureTikz(drawing: Drawing, meta: FigureMeta): string {
   for (const a of drawing.arrowheads) lines.push(`\\fill[fill=${colour(a.colour)}] ${pt(a.tip)} -- ${pt(a.left)} -- ${pt(a.right)} -- cycle;`);
   for (const label of drawing.labels) {
     const shade = label.kind === 'crossing' ? '#444444' : '#767676';
-    lines.push(`\\node[text=${colour(shade)},font=\\fontsize{${fixed(drawing.fontSize)}}{${fixed(drawing.fontSize * 1.2)}}\\selectfont,inner sep=0pt] at ${pt(label.at)} {${texText(label.text)}};`);
+    // A standard size scaled, not \fontsize: odd sizes of the default bitmap-size fonts make LaTeX substitute fonts with a warning.
+    lines.push(`\\node[text=${colour(shade)},font=\\footnotesize,scale=${fixed(drawing.fontSize / FOOTNOTE_SIZE, 3)},inner sep=0pt] at ${pt(label.at)} {${texText(label.text)}};`);
   }
   lines.push('\\end{tikzpicture}');
   return `${lines.join('\n')}\n`;
