@@ -11,6 +11,7 @@
  */
 import type { ResultStore } from '../core/cache/store.ts';
 import { InputError } from '../core/errors.ts';
+import type { LinkDiagram } from '../core/diagram/model.ts';
 import type { PrecomputeHook, SessionInput } from '../core/manuscript/api.ts';
 import { diagramValues, type DiagramJob, type DiagramTask, type DiagramValues } from './diagram-values.ts';
 import { computeInOrder } from './pool/ordered-pool.ts';
@@ -32,6 +33,11 @@ export class ManuscriptValues {
   private readonly memory = new Map<string, string>();
   /** The tasks already computed (by their text and the job's), which need not be sent again. */
   private readonly done = new Set<string>();
+  /** The diagrams the sessions read, so a code read before keeps its diagram and the values computed for it. */
+  private readonly readBefore = new Map<string, LinkDiagram>();
+
+  /** Diagrams computed so far (by this thread or a worker), over all sessions. */
+  computedDiagrams = 0;
 
   constructor(private readonly options: ManuscriptValuesOptions) {}
 
@@ -77,11 +83,12 @@ export class ManuscriptValues {
         for (const [key, text] of outcome.read) this.memory.set(key, text);
         for (const [key, text] of outcome.computed) this.store.put(key, text);
         this.done.add(fingerprint(task, jobText));
+        this.computedDiagrams++;
       }
     } finally {
       progress?.stop();
     }
-    return { resultStore: this.store, uncomputed };
+    return { resultStore: this.store, uncomputed, readBefore: this.readBefore };
   };
 }
 
@@ -89,8 +96,13 @@ async function* asyncList<T>(items: readonly T[]): AsyncGenerator<T> {
   yield* items;
 }
 
+/**
+ * What decides which values a task computes: its code and the keys of its claims and fill-ins, not what a
+ * claim states (an edited claim needs no new values; whatever else it needs, the session computes).
+ */
 function fingerprint(task: DiagramTask, jobText: string): string {
-  return `${JSON.stringify(task)}\n${jobText}`;
+  const keys = { ...task, claims: task.claims.map((c) => [c.key, c.cell === true]) };
+  return `${JSON.stringify(keys)}\n${jobText}`;
 }
 
 /** One task per diagram (the first of each id; a parametric family is left to the session), with its claims and fill-ins. */

@@ -142,6 +142,13 @@ export interface SessionInput {
    */
   readonly uncomputed?: ReadonlyMap<string, InputError>;
   /**
+   * Diagrams read by earlier sessions of the same front end (`watch`: one per save), by what their
+   * reading depends on: a code read before is not read again, and its diagram keeps every value already
+   * computed for it. The session adds what it reads. Family codes, which may name other diagrams, are
+   * always read afresh.
+   */
+  readonly readBefore?: Map<string, LinkDiagram>;
+  /**
    * Where the manuscript starts: a manuscript with no diagram, claim or fill-in gets a `manuscript-unmarked`
    * warning there, unless `markupFound` says the front end met skeinproof markup it refused.
    */
@@ -180,7 +187,7 @@ export interface SessionResult {
 /**
  * Lets a front end compute the diagrams' values elsewhere (worker threads, an earlier run kept in memory)
  * before the session reads them. It gets the session's input and returns what to add to it: a store that
- * serves the values it computed, and the diagrams it could not compute. The session itself stays
+ * serves the values it computed, the diagrams it could not compute, and the diagrams read by earlier sessions. The session itself stays
  * synchronous and pure; the front end awaits this hook, then calls `runSession` with the additions.
  */
-export type PrecomputeHook = (input: SessionInput) => Promise<Pick<SessionInput, 'resultStore' | 'uncomputed'>>;
+export type PrecomputeHook = (input: SessionInput) => Promise<Pick<SessionInput, 'resultStore' | 'uncomputed' | 'readBefore'>>;

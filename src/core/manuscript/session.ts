@@ -30,11 +30,12 @@ import {
 } from '../claims/index.ts';
 import { judgeDiagramClaims, type DiagramVerdicts } from '../claims/open-choices.ts';
 import type { Judgement, Typeset } from '../claims/api.ts';
+import type { LinkDiagram } from '../diagram/model.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import { isInputError, type InputError } from '../errors.ts';
 import { isLimitError } from '../limits.ts';
-import { parseDiagramCode, readPartSigns } from '../notation/index.ts';
+import { parseDiagramCode, readPartSigns, type ParseOptions } from '../notation/index.ts';
 import { gridCellFill, gridOmissionDiagnostic } from '../claims/khovanov-grid.ts';
 import { buildParametric, judgeParametricClaim, parametricFill } from './parametric-entries.ts';
 import type { ParametricDiagram } from '../parametric/parametric.ts';
@@ -86,7 +87,7 @@ export function runSession(input: SessionInput): SessionResult {
         ...(limits.maxCrossings !== undefined ? { maxCrossings: limits.maxCrossings } : {}),
         ...(partSigns ? { partSigns } : {}),
       };
-      reports.set(entry.id, analyzeDiagram(parseDiagramCode(entry.code, entry.notation, parseOptions), limits, input.resultStore));
+      reports.set(entry.id, analyzeDiagram(readCode(entry, parseOptions, input.readBefore), limits, input.resultStore));
     } catch (e) {
       if (!isInputError(e)) throw e;
       invalid.set(entry.id, entry);
@@ -296,6 +297,15 @@ export function runSession(input: SessionInput): SessionResult {
   const failed = ordered.some((d) => d.severity === 'error' || (input.strict === true && d.severity === 'warning'));
   counts.diagrams = reports.size; // diagrams an engine refused on first use are no longer among them
   return { diagnostics: ordered, fills, figures, reports, failed, counts };
+}
+
+/** The entry's diagram, read once per `readBefore` (a family code, which may name other diagrams, is read every time). */
+function readCode(entry: DiagramEntry, options: ParseOptions, readBefore: Map<string, LinkDiagram> | undefined): LinkDiagram {
+  if (!readBefore || entry.notation === 'family') return parseDiagramCode(entry.code, entry.notation, options);
+  const key = JSON.stringify([entry.notation, entry.code, options.strands ?? null, entry.partSigns?.text ?? null, options.maxCrossings ?? null]);
+  let diagram = readBefore.get(key);
+  if (!diagram) readBefore.set(key, (diagram = parseDiagramCode(entry.code, entry.notation, options)));
+  return diagram;
 }
 
 /**
