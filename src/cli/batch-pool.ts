@@ -29,10 +29,11 @@ function workerFailed(task: BatchTask, reason: string): PrintedLine {
   });
 }
 
-/** One printed line per task, in the order of `tasks`; `jobs` = 1 computes in this thread. */
-export function computeBatch(tasks: AsyncIterable<BatchTask>, jobs: number, options: BatchOptions): AsyncGenerator<PrintedLine> {
+/** One printed line per task, in the order of `tasks` (`total` of them, when known); `jobs` = 1 computes in this thread. */
+export function computeBatch(tasks: AsyncIterable<BatchTask>, jobs: number, options: BatchOptions, total?: number): AsyncGenerator<PrintedLine> {
   return computeInOrder(tasks, {
     jobs,
+    ...(total !== undefined ? { total } : {}),
     job: { kind: 'batch-line', options },
     runHere: (task) => printedLine(batchLine(task.text, task.lineNumber, options)),
     lost: workerFailed,

@@ -9,7 +9,7 @@
  */
 import type { Convention } from '../core/convention/convention.ts';
 import type { ResultStore } from '../core/cache/store.ts';
-import type { Notation } from '../core/diagram/model.ts';
+import type { LinkDiagram, Notation } from '../core/diagram/model.ts';
 import type { ClaimKey, FillKey } from '../core/claims/api.ts';
 import type { ComputeLimits } from '../core/limits.ts';
 import type { SourceLocation } from '../core/diagnostics/diagnostic.ts';
@@ -43,17 +43,25 @@ export interface DiagramValues {
 const nowhere: SourceLocation = { file: '', start: { line: 1, column: 1 } };
 const locate = () => nowhere;
 
-/** The stored values the manuscript needs of one diagram; none when it cannot be computed alone (the main session then tells why). */
-export function diagramValues(task: DiagramTask, job: DiagramJob, disk?: ResultStore): DiagramValues {
+/**
+ * The stored values the manuscript needs of one diagram; none when it cannot be computed alone (the main
+ * session then tells why). `store` is read first and receives every value computed; in this thread it is
+ * the session's own store, and `readBefore` the session's, so the session then finds the very diagram and
+ * report this computed, with nothing left to compute.
+ */
+export function diagramValues(task: DiagramTask, job: DiagramJob, store?: ResultStore, readBefore?: Map<string, LinkDiagram>): DiagramValues {
   const computed = new Map<string, string>();
   const read = new Map<string, string>();
   const recorder: ResultStore = {
     get: (key) => {
-      const text = disk?.get(key);
+      const text = store?.get(key);
       if (text !== undefined) read.set(key, text);
       return text;
     },
-    put: (key, text) => void computed.set(key, text),
+    put: (key, text) => {
+      computed.set(key, text);
+      store?.put(key, text);
+    },
   };
   try {
     runSession({
@@ -73,6 +81,7 @@ export function diagramValues(task: DiagramTask, job: DiagramJob, disk?: ResultS
       convention: job.convention,
       resultStore: recorder,
       ...(job.limits ? { limits: job.limits } : {}),
+      ...(readBefore ? { readBefore } : {}),
     });
   } catch {
     // A bug: the main session computes this diagram again and reports it as an internal error there.

@@ -61,16 +61,19 @@ export class ManuscriptValues {
     const jobText = JSON.stringify(job);
     const fresh = tasksOf(input).filter((task) => !this.done.has(fingerprint(task, jobText)));
     const uncomputed = new Map<string, InputError>();
-    // In this thread the disk cache is read through the session's store (memory first).
-    const readOnly: ResultStore = { get: (key) => this.store.get(key), put: () => undefined };
     const progress = fresh.length > 0 ? this.options.progress?.() : undefined;
     progress?.start(fresh.length);
     let index = 0;
     try {
       const outcomes = computeInOrder<DiagramTask, Outcome>(asyncList(fresh), {
         jobs: this.options.jobs,
+        total: fresh.length,
         job: { kind: 'diagram-values', job },
-        runHere: (task) => diagramValues(task, job, readOnly),
+        // In this thread the values go straight into the session's store, and the diagrams into its `readBefore`.
+        runHere: (task) => {
+          diagramValues(task, job, this.store, this.readBefore);
+          return { computed: [], read: [] };
+        },
         lost: (_task, reason) => ({ lost: reason }),
       });
       for await (const outcome of outcomes) {

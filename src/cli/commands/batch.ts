@@ -84,7 +84,7 @@ async function* inputTasks(path: string, skip: (task: BatchTask) => boolean): As
   }
 }
 
-/** The non-blank lines of a file, for the progress bar's total (read in blocks; the file is read again to compute). */
+/** The non-blank lines of a file, for the progress bar and the pool (read in blocks; the file is read again to compute). */
 function countLines(path: string): number {
   const fd = openSync(path, 'r');
   const block = Buffer.alloc(1 << 20);
@@ -161,9 +161,10 @@ export const batchCommand: CliCommand = {
     let failed = false;
     const progress = progressDisplay('lines', args['quiet'] === true);
     // The total is known for a file read from its start; standard input and a resumed run count without one.
-    progress?.start(input !== '-' && resume === undefined ? countLines(input) : undefined);
+    const total = input !== '-' && resume === undefined ? countLines(input) : undefined;
+    progress?.start(total);
     try {
-      for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits, ...(cache ? { cache } : {}) })) {
+      for await (const result of computeBatch(inputTasks(input, skip), jobs, { convention, limits, ...(cache ? { cache } : {}) }, total)) {
         failed ||= !result.ok;
         progress?.advance(result.label);
         if (!out.write(result.text)) await new Promise((resolve) => out.once('drain', resolve));
