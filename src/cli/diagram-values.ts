@@ -9,7 +9,8 @@
  */
 import type { Convention } from '../core/convention/convention.ts';
 import type { ResultStore } from '../core/cache/store.ts';
-import type { LinkDiagram, Notation } from '../core/diagram/model.ts';
+import type { Notation } from '../core/diagram/model.ts';
+import type { ReadDiagrams } from '../core/manuscript/api.ts';
 import type { ClaimKey, FillKey } from '../core/claims/api.ts';
 import type { ComputeLimits } from '../core/limits.ts';
 import type { SourceLocation } from '../core/diagnostics/diagnostic.ts';
@@ -49,7 +50,7 @@ const locate = () => nowhere;
  * the session's own store, and `readBefore` the session's, so the session then finds the very diagram and
  * report this computed, with nothing left to compute.
  */
-export function diagramValues(task: DiagramTask, job: DiagramJob, store?: ResultStore, readBefore?: Map<string, LinkDiagram>): DiagramValues {
+export function diagramValues(task: DiagramTask, job: DiagramJob, store?: ResultStore, readBefore?: ReadDiagrams): DiagramValues {
   const computed = new Map<string, string>();
   const read = new Map<string, string>();
   const recorder: ResultStore = {

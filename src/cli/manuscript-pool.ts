@@ -12,7 +12,7 @@
 import type { ResultStore } from '../core/cache/store.ts';
 import { InputError } from '../core/errors.ts';
 import type { LinkDiagram } from '../core/diagram/model.ts';
-import type { PrecomputeHook, SessionInput } from '../core/manuscript/api.ts';
+import type { PrecomputeHook, ReadDiagrams, SessionInput } from '../core/manuscript/api.ts';
 import { diagramValues, type DiagramJob, type DiagramTask, type DiagramValues } from './diagram-values.ts';
 import { computeInOrder } from './pool/ordered-pool.ts';
 import type { ProgressDisplay } from './progress.ts';
@@ -33,8 +33,12 @@ export class ManuscriptValues {
   private readonly memory = new Map<string, string>();
   /** The tasks already computed (by their text and the job's), which need not be sent again. */
   private readonly done = new Set<string>();
-  /** The diagrams the sessions read, so a code read before keeps its diagram and the values computed for it. */
-  private readonly readBefore = new Map<string, LinkDiagram>();
+  /**
+   * The diagrams the sessions read, so a code read before keeps its diagram and the values computed for it.
+   * Two generations: what the last session read and what this one reads; a diagram the last session did
+   * not read is let go, so a long `watch` does not keep every code an author ever wrote.
+   */
+  private lastRead = new Map<string, LinkDiagram>();
 
   /** Diagrams computed so far (by this thread or a worker), over all sessions. */
   computedDiagrams = 0;
@@ -59,6 +63,17 @@ export class ManuscriptValues {
       ...(this.options.disk ? { cache } : {}),
     };
     const jobText = JSON.stringify(job);
+    const previous = this.lastRead;
+    const current = new Map<string, LinkDiagram>();
+    this.lastRead = current;
+    const readBefore: ReadDiagrams = {
+      get: (key) => {
+        const diagram = current.get(key) ?? previous.get(key);
+        if (diagram) current.set(key, diagram);
+        return diagram;
+      },
+      set: (key, diagram) => void current.set(key, diagram),
+    };
     const fresh = tasksOf(input).filter((task) => !this.done.has(fingerprint(task, jobText)));
     const uncomputed = new Map<string, InputError>();
     const progress = fresh.length > 0 ? this.options.progress?.() : undefined;
@@ -71,7 +86,7 @@ export class ManuscriptValues {
         job: { kind: 'diagram-values', job },
         // In this thread the values go straight into the session's store, and the diagrams into its `readBefore`.
         runHere: (task) => {
-          diagramValues(task, job, this.store, this.readBefore);
+          diagramValues(task, job, this.store, readBefore);
           return { computed: [], read: [] };
         },
         lost: (_task, reason) => ({ lost: reason }),
@@ -91,7 +106,7 @@ export class ManuscriptValues {
     } finally {
       progress?.stop();
     }
-    return { resultStore: this.store, uncomputed, readBefore: this.readBefore };
+    return { resultStore: this.store, uncomputed, readBefore };
   };
 }
 

@@ -147,7 +147,7 @@ export interface SessionInput {
    * computed for it. The session adds what it reads. Family codes, which may name other diagrams, are
    * always read afresh.
    */
-  readonly readBefore?: Map<string, LinkDiagram>;
+  readonly readBefore?: ReadDiagrams;
   /**
    * Where the manuscript starts: a manuscript with no diagram, claim or fill-in gets a `manuscript-unmarked`
    * warning there, unless `markupFound` says the front end met skeinproof markup it refused.
@@ -191,3 +191,9 @@ export interface SessionResult {
  * synchronous and pure; the front end awaits this hook, then calls `runSession` with the additions.
  */
 export type PrecomputeHook = (input: SessionInput) => Promise<Pick<SessionInput, 'resultStore' | 'uncomputed' | 'readBefore'>>;
+
+/** Diagrams by what their reading depends on (see `SessionInput.readBefore`); a front end decides how long it keeps them. */
+export interface ReadDiagrams {
+  get(key: string): LinkDiagram | undefined;
+  set(key: string, diagram: LinkDiagram): void;
+}

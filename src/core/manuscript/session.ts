@@ -40,7 +40,7 @@ import { gridCellFill, gridOmissionDiagnostic } from '../claims/khovanov-grid.ts
 import { buildParametric, judgeParametricClaim, parametricFill } from './parametric-entries.ts';
 import type { ParametricDiagram } from '../parametric/parametric.ts';
 import { placeFigure } from './figure-entries.ts';
-import type { ClaimEntry, DiagramEntry, Locator, PlacedFigure, SessionCounts, SessionInput, SessionResult } from './api.ts';
+import type { ClaimEntry, DiagramEntry, Locator, PlacedFigure, ReadDiagrams, SessionCounts, SessionInput, SessionResult } from './api.ts';
 
 export function runSession(input: SessionInput): SessionResult {
   const diagnostics: Diagnostic[] = [];
@@ -300,7 +300,7 @@ export function runSession(input: SessionInput): SessionResult {
 }
 
 /** The entry's diagram, read once per `readBefore` (a family code, which may name other diagrams, is read every time). */
-function readCode(entry: DiagramEntry, options: ParseOptions, readBefore: Map<string, LinkDiagram> | undefined): LinkDiagram {
+function readCode(entry: DiagramEntry, options: ParseOptions, readBefore: ReadDiagrams | undefined): LinkDiagram {
   if (!readBefore || entry.notation === 'family') return parseDiagramCode(entry.code, entry.notation, options);
   const key = JSON.stringify([entry.notation, entry.code, options.strands ?? null, entry.partSigns?.text ?? null, options.maxCrossings ?? null]);
   let diagram = readBefore.get(key);
