@@ -12,7 +12,7 @@ import type { DiagramLayout } from './layout.ts';
 
 export interface ComponentChain {
   readonly points: readonly Point[];
-  /** The radius of each point's packing circle: the room the curve has there. */
+  /** For the cubic from each point to the next: how far it may bend away from its chord (layout.segmentRoom). */
   readonly room: readonly number[];
   /** For each crossing the component passes: index in `points`, the crossing, and whether it passes under there. */
   readonly visits: readonly { readonly at: number; readonly crossing: number; readonly under: boolean }[];
@@ -31,16 +31,16 @@ export function componentChain(d: LinkDiagram, layout: DiagramLayout, component:
     const to = head[edge]!;
     visits.push({ at: points.length, crossing: from.crossing, under: from.slot === 2 });
     points.push(layout.crossing[from.crossing]!, layout.end[4 * from.crossing + from.slot]!);
-    room.push(layout.crossingRadius[from.crossing]!, layout.endRadius[4 * from.crossing + from.slot]!);
+    room.push(layout.segmentRoom[4 * edge]!, layout.segmentRoom[4 * edge + 1]!);
     midpoints.push({ at: points.length, edge });
     points.push(layout.midpoint[edge]!, layout.end[4 * to.crossing + to.slot]!);
-    room.push(layout.midpointRadius[edge]!, layout.endRadius[4 * to.crossing + to.slot]!);
+    room.push(layout.segmentRoom[4 * edge + 2]!, layout.segmentRoom[4 * edge + 3]!);
   }
   return { points, room, visits, midpoints };
 }
 
-/** The tangent direction (scaled as a derivative by arc length) at each point of a closed chain. */
-function tangents(points: readonly Point[]): Point[] {
+/** The tangent direction (scaled as a derivative by arc length, so at most 1 long) at each point of a closed chain. */
+export function chainTangents(points: readonly Point[]): Point[] {
   const n = points.length;
   return points.map((_, i) => {
     const before = points[(i + n - 1) % n]!;
@@ -51,13 +51,14 @@ function tangents(points: readonly Point[]): Point[] {
 }
 
 /**
- * Cubic i runs from points[i] to points[i+1] (cyclically). Each control point
- * stays within `ARM_ROOM` of its point's circle radius, so where a small circle
- * sits next to a big one the curve cannot swing out into a neighbouring strand's room.
+ * Cubic i runs from points[i] to points[i+1] (cyclically). Both its control
+ * points stay within `ARM_ROOM` of room[i] of their ends, so the cubic (inside
+ * the hull of its control points) keeps within ARM_ROOM·room[i] of its chord;
+ * two chords sharing no point are at least that room apart, so with
+ * ARM_ROOM < ½ their curves cannot meet, whatever the tangents (of length at most 1).
  */
-export function smoothClosedChain(points: readonly Point[], room?: readonly number[]): Cubic[] {
+export function smoothClosedChain(points: readonly Point[], room?: readonly number[], m: readonly Point[] = chainTangents(points)): Cubic[] {
   const n = points.length;
-  const m = tangents(points);
   const arm = (i: number, third: number): number => Math.min(third, room ? ARM_ROOM * room[i]! : Infinity);
   return points.map((p, i) => {
     const j = (i + 1) % n;
@@ -66,12 +67,28 @@ export function smoothClosedChain(points: readonly Point[], room?: readonly numb
     const mp = m[i]!;
     const mq = m[j]!;
     const a = arm(i, third);
-    const b = arm(j, third);
-    return { from: p, c1: { x: p.x + mp.x * a, y: p.y + mp.y * a }, c2: { x: q.x - mq.x * b, y: q.y - mq.y * b }, to: q };
+    return { from: p, c1: { x: p.x + mp.x * a, y: p.y + mp.y * a }, c2: { x: q.x - mq.x * a, y: q.y - mq.y * a }, to: q };
   });
 }
 
-const ARM_ROOM = 0.6;
+const ARM_ROOM = 0.45;
+
+/**
+ * The two strands' unit tangents at a crossing turned symmetrically about
+ * their bisectors until they are perpendicular, so the strands cross at 90°
+ * and the broken one is told apart clearly.
+ */
+export function perpendicularPair(u: Point, v: Point): [Point, Point] {
+  const unit = (p: Point): Point => {
+    const l = Math.hypot(p.x, p.y) || 1;
+    return { x: p.x / l, y: p.y / l };
+  };
+  const a = unit(u);
+  const b = unit(v);
+  const w1 = unit({ x: a.x + b.x, y: a.y + b.y });
+  const w2 = unit({ x: a.x - b.x, y: a.y - b.y });
+  return [unit({ x: w1.x + w2.x, y: w1.y + w2.y }), unit({ x: w1.x - w2.x, y: w1.y - w2.y })];
+}
 
 /** A drawn piece of a component: a run of cubics, closed when the component never passes under. */
 export interface Stroke {

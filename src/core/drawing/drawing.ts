@@ -6,7 +6,7 @@
  * The writers (svg.ts, tikz.ts) only print it; read-back.ts checks it.
  */
 import { indexDiagram, type LinkDiagram, type Sign } from '../diagram/model.ts';
-import { componentChain, circleCubics, cutStrokes, smoothClosedChain, type Stroke } from './curves.ts';
+import { chainTangents, componentChain, circleCubics, cutStrokes, perpendicularPair, smoothClosedChain, type ComponentChain, type Stroke } from './curves.ts';
 import { cubicTangent, distance, type Cubic, type Point } from './geometry.ts';
 import { faceLeftOfEdge, layOutDiagram, type DiagramLayout } from './layout.ts';
 import { resolveOptions, type FigureOptions, type LabelChoice } from './options.ts';
@@ -70,7 +70,8 @@ export function drawDiagram(d: LinkDiagram, options: FigureOptions = {}): Drawin
   const resolved = resolveOptions(d, options);
   const layout = layOutDiagram(d, resolved.outerEdge === undefined ? undefined : faceLeftOfEdge(d, resolved.outerEdge));
   const chains = d.components.map((_, k) => componentChain(d, layout, k));
-  const centreLines = chains.map((chain) => smoothClosedChain(chain.points, chain.room));
+  const tangents = crossingTangents(d, chains);
+  const centreLines = chains.map((chain, k) => smoothClosedChain(chain.points, chain.room, tangents[k]));
   const loopLines = layout.loops.map((loop) => circleCubics(loop.centre, loop.radius));
   const box = boundingBox([...centreLines.flat(), ...loopLines.flat()]);
   const scale = resolved.size / (Math.max(box.maxX - box.minX, box.maxY - box.minY) + 2 * MARGIN);
@@ -82,7 +83,7 @@ export function drawDiagram(d: LinkDiagram, options: FigureOptions = {}): Drawin
   const lineWidth = resolved.lineWidth ?? Math.min(2.5, 0.2 * scale);
   const gapWanted = resolved.gap ?? Math.max(1.2 * scale, 3 * lineWidth);
   const crossings: DrawnCrossing[] = d.crossings.map((c, i) => {
-    const size = layout.crossingRadius[i]! * scale;
+    const size = layout.crossingSize[i]! * scale;
     // Never past the waypoints next to the crossing, where the strand's neighbours begin.
     const nearest = Math.min(...[0, 1, 2, 3].map((q) => distance(layout.crossing[i]!, layout.end[4 * i + q]!))) * scale;
     return { at: place(layout.crossing[i]!), sign: c.sign, size, gap: Math.min(gapWanted, nearest) };
@@ -110,6 +111,21 @@ export function drawDiagram(d: LinkDiagram, options: FigureOptions = {}): Drawin
     arrowheads: resolved.arrows ? arrowheads(chains, components, lineWidth) : [],
     labels: labels(d, layout, chains, components, resolved.labels, place, fontSize),
   };
+}
+
+/** Each chain's tangents, with the two strands at every crossing made perpendicular. */
+function crossingTangents(d: LinkDiagram, chains: readonly ComponentChain[]): Point[][] {
+  const tangents = chains.map((chain) => chainTangents(chain.points));
+  const passes: { component: number; at: number }[][] = d.crossings.map(() => []);
+  chains.forEach((chain, k) => {
+    for (const v of chain.visits) passes[v.crossing]!.push({ component: k, at: v.at });
+  });
+  for (const [first, second] of passes) {
+    const [u, v] = perpendicularPair(tangents[first!.component]![first!.at]!, tangents[second!.component]![second!.at]!);
+    tangents[first!.component]![first!.at] = u;
+    tangents[second!.component]![second!.at] = v;
+  }
+  return tangents;
 }
 
 function boundingBox(cubics: readonly Cubic[]): { minX: number; minY: number; maxX: number; maxY: number } {

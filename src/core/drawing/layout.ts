@@ -2,26 +2,33 @@
  * Where a diagram goes in the plane: each connected piece of the projection is
  * circle-packed (triangulation.ts, circle-packing.ts) with its outer face as the
  * removed vertex; crossings sit at their circles' centres and each edge runs
- * through the centres of its end, midpoint and end circles. Pieces are scaled to
- * a common crossing size and set side by side in rows, followed by the free loops.
+ * through the centres of its end, midpoint and end circles. The packing shrinks
+ * twist regions and clasps, so each piece is then relaxed (relaxed-piece.ts)
+ * without changing its embedding. Pieces are set side by side in rows,
+ * followed by the free loops.
  */
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 import { connectedPieces, faceStructure } from '../diagram/faces.ts';
 import { packDisc } from './circle-packing.ts';
+import { relaxPiece } from './relaxed-piece.ts';
 import { cornerVertex, crossingVertex, endVertex, faceVertex, midpointVertex, packingComplex } from './triangulation.ts';
 import type { Point } from './geometry.ts';
 
 export interface DiagramLayout {
   /** Per crossing: its centre. */
   readonly crossing: readonly Point[];
-  /** Per crossing: its circle's radius, the local scale of the drawing there. */
-  readonly crossingRadius: readonly number[];
-  /** Per slot 4c+q: the waypoint on that edge next to the crossing, and its circle's radius. */
+  /** Per crossing: half its shortest arm (crossing to edge end), the local scale of the drawing there. */
+  readonly crossingSize: readonly number[];
+  /** Per slot 4c+q: the waypoint on that edge next to the crossing. */
   readonly end: readonly Point[];
-  readonly endRadius: readonly number[];
-  /** Per edge: its midpoint, and its circle's radius. */
+  /** Per edge: its midpoint. */
   readonly midpoint: readonly Point[];
-  readonly midpointRadius: readonly number[];
+  /**
+   * Per edge e and k = 0…3: a lower bound on the distance from the k-th straight
+   * segment along it (crossing, end, midpoint, end, crossing) to every segment
+   * sharing no point with it: how far a curve along it may bend.
+   */
+  readonly segmentRoom: readonly number[];
   /** Per corner 4c+q: a point inside the corner, for a crossing label. */
   readonly corner: readonly Point[];
   /** Per free loop: its centre and radius. */
@@ -47,7 +54,7 @@ function outerFaces(d: LinkDiagram, pieceOfCrossing: Int32Array, pieceCount: num
   return outer;
 }
 
-/** Layout units: the median crossing radius of every piece is 1. */
+/** Layout units: each piece's packing is scaled to median crossing radius 1 before it is relaxed. */
 export function layOutDiagram(d: LinkDiagram, outerFace?: number): DiagramLayout {
   const n = d.crossings.length;
   const { pieceOfCrossing, pieceCount } = connectedPieces(d);
@@ -69,20 +76,22 @@ export function layOutDiagram(d: LinkDiagram, outerFace?: number): DiagramLayout
     if (f !== outer[piece]) vertices[piece]!.push(faceVertex(n, f));
   }
   const boxes: Box[] = [];
+  const room = new Float64Array(4 * d.edgeCount);
   for (let p = 0; p < pieceCount; p++) {
     packDisc(complex.flowers, vertices[p]!, faceVertex(n, outer[p]!), radius, x, y);
-    boxes.push(normalisePiece(vertices[p]!, n, radius, x, y));
+    normalisePiece(vertices[p]!, n, radius, x, y);
+    relaxPiece(d, vertices[p]!.filter((v) => v < n), x, y, room);
+    boxes.push(boxOf(vertices[p]!, n, x, y));
   }
   const loops = Array.from({ length: d.freeLoops }, (): Box => ({ vertices: [], minX: -2, minY: -2, maxX: 2, maxY: 2 }));
   const offsets = arrangeInRows([...boxes, ...loops]);
   const at = (v: number, p: number): Point => ({ x: x[v]! + offsets[p]!.x, y: y[v]! + offsets[p]!.y });
   return {
     crossing: Array.from({ length: n }, (_, c) => at(crossingVertex(c), pieceOfCrossing[c]!)),
-    crossingRadius: Array.from({ length: n }, (_, c) => radius[crossingVertex(c)]!),
+    crossingSize: Array.from({ length: n }, (_, c) => shortestArm(n, c, x, y) / 2),
     end: Array.from({ length: 4 * n }, (_, s) => at(endVertex(n, s), pieceOfCrossing[s >> 2]!)),
-    endRadius: Array.from({ length: 4 * n }, (_, s) => radius[endVertex(n, s)]!),
     midpoint: midpoints(d, (e, p) => at(midpointVertex(n, e), p), pieceOfCrossing),
-    midpointRadius: Array.from({ length: d.edgeCount }, (_, e) => radius[midpointVertex(n, e)]!),
+    segmentRoom: Array.from(room),
     corner: Array.from({ length: 4 * n }, (_, s) => at(cornerVertex(n, s), pieceOfCrossing[s >> 2]!)),
     loops: loops.map((_, i) => ({ centre: { x: offsets[pieceCount + i]!.x, y: offsets[pieceCount + i]!.y }, radius: 1.5 })),
   };
@@ -101,18 +110,28 @@ interface Box {
   readonly maxY: number;
 }
 
-/** Scales a packed piece so its median crossing radius is 1; returns its bounding box (of the drawn points). */
-function normalisePiece(vertices: readonly number[], n: number, radius: Float64Array, x: Float64Array, y: Float64Array): Box {
+function shortestArm(n: number, c: number, x: Float64Array, y: Float64Array): number {
+  return Math.min(...[0, 1, 2, 3].map((q) => Math.hypot(x[endVertex(n, 4 * c + q)]! - x[c]!, y[endVertex(n, 4 * c + q)]! - y[c]!)));
+}
+
+/** Scales a packed piece so its median crossing radius is 1. */
+function normalisePiece(vertices: readonly number[], n: number, radius: Float64Array, x: Float64Array, y: Float64Array): void {
   const crossingRadii = vertices.filter((v) => v < n).map((v) => radius[v]!).sort((a, b) => a - b);
   const scale = 1 / crossingRadii[crossingRadii.length >> 1]!;
+  for (const v of vertices) {
+    radius[v] = radius[v]! * scale;
+    x[v] = x[v]! * scale;
+    y[v] = y[v]! * scale;
+  }
+}
+
+/** The bounding box of a piece's drawn points. */
+function boxOf(vertices: readonly number[], n: number, x: Float64Array, y: Float64Array): Box {
   let minX = Infinity;
   let minY = Infinity;
   let maxX = -Infinity;
   let maxY = -Infinity;
   for (const v of vertices) {
-    radius[v] = radius[v]! * scale;
-    x[v] = x[v]! * scale;
-    y[v] = y[v]! * scale;
     // Face centres and fillings are not drawn; the rest are points the curves pass through.
     if (v >= 11 * n) continue;
     minX = Math.min(minX, x[v]!);

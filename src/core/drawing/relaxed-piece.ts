@@ -1,0 +1,128 @@
+/**
+ * One packed piece of a diagram as a plane graph (crossings, edge ends and
+ * midpoints joined along the strands), relaxed by relax.ts so that crossings
+ * come out of similar size with right-angled arms, then written back; the
+ * corner points (for labels) are set afresh inside the relaxed corners.
+ */
+import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
+import { relaxPlaneGraph, segmentRoom, type PlaneGraph } from './relax.ts';
+import { cornerVertex, crossingVertex, endVertex, midpointVertex } from './triangulation.ts';
+
+/**
+ * Relaxes the piece with these crossings in place (x, y indexed by packing
+ * vertex) and fills, for each of its edges e, roomOut[4e + k] with the room
+ * of the k-th straight segment along it (crossing, end, midpoint, end, crossing).
+ */
+export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Float64Array, y: Float64Array, roomOut: Float64Array): void {
+  const n = d.crossings.length;
+  const { tail, head } = indexDiagram(d);
+  const vertices: number[] = [];
+  const local = new Map<number, number>();
+  const add = (v: number): number => {
+    const known = local.get(v);
+    if (known !== undefined) return known;
+    local.set(v, vertices.length);
+    vertices.push(v);
+    return vertices.length - 1;
+  };
+  const edges: number[] = [];
+  for (const c of crossings) {
+    add(crossingVertex(c));
+    for (let q = 0; q < 4; q++) add(endVertex(n, 4 * c + q));
+    for (let q = 0; q < 4; q++) if (tail[d.crossings[c]!.edges[q]!]!.crossing === c && tail[d.crossings[c]!.edges[q]!]!.slot === q) edges.push(d.crossings[c]!.edges[q]!);
+  }
+  edges.sort((a, b) => a - b);
+  const segments: number[] = [];
+  const straights: number[] = [];
+  const crosses: number[] = [];
+  for (const e of edges) {
+    const t = tail[e]!;
+    const h = head[e]!;
+    const path = [crossingVertex(t.crossing), endVertex(n, 4 * t.crossing + t.slot), midpointVertex(n, e), endVertex(n, 4 * h.crossing + h.slot), crossingVertex(h.crossing)].map(add);
+    for (let k = 0; k < 4; k++) segments.push(path[k]!, path[k + 1]!);
+    // Only the midpoint is pulled into line: pulling an edge end toward the line from
+    // its crossing to the midpoint would fight the right-angled cross (and fold a curl shut).
+    straights.push(path[1]!, path[2]!, path[3]!);
+  }
+  for (const c of crossings) {
+    const arm = (q: number): number => local.get(endVertex(n, 4 * c + q))!;
+    const centre = local.get(crossingVertex(c))!;
+    crosses.push(centre, arm(0), arm(1), arm(2), arm(3));
+    straights.push(arm(0), centre, arm(2), arm(1), centre, arm(3));
+  }
+  const g: PlaneGraph = {
+    x: Float64Array.from(vertices, (v) => x[v]!),
+    y: Float64Array.from(vertices, (v) => y[v]!),
+    segments: Int32Array.from(segments),
+    straights: Int32Array.from(straights),
+    crosses: Int32Array.from(crosses),
+  };
+  const target = medianSegment(g);
+  const packed = { x: g.x.slice(), y: g.y.slice() };
+  relaxPlaneGraph(g, target);
+  // The forces do not always open every crossing into a cross; a piece where
+  // one stays pinched keeps its packing, whose crossings are round.
+  if (!crossesOpen(g)) {
+    g.x.set(packed.x);
+    g.y.set(packed.y);
+  }
+  vertices.forEach((v, i) => {
+    x[v] = g.x[i]!;
+    y[v] = g.y[i]!;
+  });
+  const room = segmentRoom(g, target);
+  edges.forEach((e, i) => {
+    for (let k = 0; k < 4; k++) roomOut[4 * e + k] = room[4 * i + k]!;
+  });
+  for (const c of crossings) placeCorners(n, c, x, y);
+}
+
+/** Least and greatest angle between consecutive arms of an acceptable crossing. */
+const ARM_ANGLES = { min: (50 * Math.PI) / 180, max: (130 * Math.PI) / 180 };
+
+function crossesOpen(g: PlaneGraph): boolean {
+  const { x, y, crosses } = g;
+  for (let i = 0; i < crosses.length; i += 5) {
+    const c = crosses[i]!;
+    for (let q = 0; q < 4; q++) {
+      const a = crosses[i + 1 + q]!;
+      const b = crosses[i + 1 + ((q + 1) & 3)]!;
+      const ax = x[a]! - x[c]!;
+      const ay = y[a]! - y[c]!;
+      const bx = x[b]! - x[c]!;
+      const by = y[b]! - y[c]!;
+      const angle = Math.abs(Math.atan2(ax * by - ay * bx, ax * bx + ay * by));
+      if (angle < ARM_ANGLES.min || angle > ARM_ANGLES.max) return false;
+    }
+  }
+  return true;
+}
+
+function medianSegment(g: PlaneGraph): number {
+  const lengths: number[] = [];
+  for (let i = 0; i < g.segments.length; i += 2) {
+    const a = g.segments[i]!;
+    const b = g.segments[i + 1]!;
+    lengths.push(Math.hypot(g.x[b]! - g.x[a]!, g.y[b]! - g.y[a]!));
+  }
+  lengths.sort((a, b) => a - b);
+  return lengths[lengths.length >> 1]!;
+}
+
+/** Each corner point on the bisector of its two arms, half the shorter arm out. */
+function placeCorners(n: number, c: number, x: Float64Array, y: Float64Array): void {
+  const cx = x[crossingVertex(c)]!;
+  const cy = y[crossingVertex(c)]!;
+  for (let q = 0; q < 4; q++) {
+    const a = endVertex(n, 4 * c + q);
+    const b = endVertex(n, 4 * c + ((q + 1) & 3));
+    const la = Math.hypot(x[a]! - cx, y[a]! - cy);
+    const lb = Math.hypot(x[b]! - cx, y[b]! - cy);
+    const ux = (x[a]! - cx) / la + (x[b]! - cx) / lb;
+    const uy = (y[a]! - cy) / la + (y[b]! - cy) / lb;
+    const u = Math.hypot(ux, uy) || 1;
+    const reach = 0.5 * Math.min(la, lb);
+    x[cornerVertex(n, 4 * c + q)] = cx + (ux / u) * reach;
+    y[cornerVertex(n, 4 * c + q)] = cy + (uy / u) * reach;
+  }
+}
