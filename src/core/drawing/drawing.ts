@@ -14,7 +14,7 @@ import { resolveOptions, type FigureOptions, type LabelChoice } from './options.
 export interface DrawnCrossing {
   readonly at: Point;
   readonly sign: Sign;
-  /** The local scale there (its packing circle's radius), in figure units. */
+  /** The local scale there (half its shortest arm to the edge-end waypoints), in figure units. */
   readonly size: number;
   /** The length of the break in its under-strand. */
   readonly gap: number;

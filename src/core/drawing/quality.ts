@@ -9,7 +9,7 @@ import { flattenCubic, type Point } from './geometry.ts';
 import { centreLineIntersections } from './read-back.ts';
 
 export interface FigureQuality {
-  /** Largest over smallest crossing size (the packing circle radius at each crossing); 1 is uniform. */
+  /** Largest over smallest crossing size (half the shortest arm from a crossing to its edge-end waypoints); 1 is uniform. */
   readonly crossingSizeRatio: number;
   /** Smallest distance between two strands outside the crossings, over the typical edge length (capped at 0.5). */
   readonly closestStrands: number;
