@@ -23,9 +23,12 @@ export function sidecarPath(manuscriptPath: string): string {
  * so the package can warn when a file changed after the build and the values
  * may be stale, the way LaTeX warns that labels may have changed.
  */
+/** The start of the sidecar's first line: a file without it was not written by skeinproof. */
+export const SIDECAR_MARK = '% Computed by skeinproof from ';
+
 export function sidecarText(doc: LatexDocument, values: readonly (Typeset | undefined)[], figures: readonly (string | undefined)[] = []): string {
   const lines = [
-    `% Computed by skeinproof from ${basename(doc.main.displayPath)}; \`skeinproof build\` rewrites this file.`,
+    `${SIDECAR_MARK}${basename(doc.main.displayPath)}; \`skeinproof build\` rewrites this file.`,
     '% Read by \\usepackage{skeinproof}. Do not edit: change the manuscript and build again.',
   ];
   const paperDir = dirname(doc.main.absolutePath);

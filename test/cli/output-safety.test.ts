@@ -139,6 +139,37 @@ describe('build', () => {
     }
   });
 
+  it('never replaces a file at a default output path that skeinproof did not write; replaces its own outputs and a named -o', () => {
+    const dir = mkdtempSync(join(work, 'defaults-'));
+    const note = join(dir, 'note.md');
+    writeFileSync(note, '```skein id=k notation=braid\n1 1 1\n```\n\nV = :jones{of=k}.\n');
+    const paper = join(dir, 'paper.tex');
+    writeFileSync(paper, '\\documentclass{article}\n\\usepackage{skeinproof}\n\\begin{document}\n\\begin{skeincode}{id=k, notation=braid}\n1 1 1\n\\end{skeincode}\n$V = \\skeinjones{k}$\n\\end{document}\n');
+    const cases: [string[], string][] = [
+      [['build', note], join(dir, 'note.filled.md')],
+      [['build', note, '--html'], join(dir, 'note.html')],
+      [['build', paper], join(dir, 'paper.skein.tex')],
+    ];
+    for (const [args, output] of cases) {
+      writeFileSync(output, 'the author’s own file');
+      const refused = skeinproof(args);
+      expect(refused.status, args.join(' ')).toBe(2);
+      expect(refused.stderr).toContain('skeinproof did not write it');
+      expect(readFileSync(output, 'utf8')).toBe('the author’s own file');
+      rmSync(output);
+      // Its own output is replaced on the next build.
+      expect(skeinproof(args).status, args.join(' ')).toBe(0);
+      expect(skeinproof(args).status, args.join(' ')).toBe(0);
+    }
+    expect(readFileSync(join(dir, 'note.filled.md'), 'utf8')).toMatch(/<!-- filled in by skeinproof from note\.md: edit that file and build again -->\n$/);
+    // An output the author names is replaced: they asked for it.
+    const named = join(dir, 'named.md');
+    writeFileSync(named, 'old');
+    expect(skeinproof(['build', note, '-o', named]).status).toBe(0);
+    expect(readFileSync(named, 'utf8')).toContain('$t + t^3 - t^4$');
+    expect(temporaries(dir)).toEqual([]);
+  });
+
   it('refuses a Markdown build into a LaTeX name', () => {
     const input = join(work, 'md-to-tex.md');
     writeFileSync(input, 'Text.\n');

@@ -4,10 +4,11 @@
  * Nothing is written when the check fails unless --force-write asks; the input
  * is never overwritten; each output appears whole or not at all.
  */
+import { readFile, stat } from 'node:fs/promises';
 import { wantsColor } from '../terminal.ts';
 import type { Argv } from 'yargs';
 import { describeWriteFailure, writeFileAtomic, writeStandardOutput } from '../write-atomic.ts';
-import type { FormatOptions } from '../formats/types.ts';
+import type { FormatOptions, OutputFile } from '../formats/types.ts';
 import { EXIT_USAGE, exitStatusFor, formatOf, manuscriptOptions, readManuscriptArgs, reportDiagnostics, resultFailed, usage, type ManuscriptArgs } from './check.ts';
 import type { CliCommand } from './index.ts';
 
@@ -68,6 +69,13 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
     if (result.outputs.length > 0 && args.report === 'text') process.stderr.write('skeinproof: nothing written because the check failed; fix the errors above, or pass --force-write\n');
     return { status, inputs };
   }
+  const unowned = await firstUnownedOutput(result.outputs);
+  if (unowned) {
+    process.stderr.write(
+      `skeinproof: nothing written: ${unowned} already exists and skeinproof did not write it (it lacks the mark every build leaves in its output), so the build will not replace it unasked; move or rename that file, or name the output with -o (an output named there is replaced)\n`,
+    );
+    return { status: EXIT_USAGE, inputs };
+  }
   for (const output of result.outputs) {
     if (output.path === STANDARD_OUTPUT) {
       await writeStandardOutput(output.content);
@@ -82,6 +90,19 @@ export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOut
     process.stdout.write(`wrote ${output.path}\n`);
   }
   return { status, inputs };
+}
+
+/** The first output at a default path whose existing file skeinproof did not write. */
+async function firstUnownedOutput(outputs: readonly OutputFile[]): Promise<string | undefined> {
+  for (const output of outputs) {
+    if (output.ownMark === undefined) continue;
+    // Only a regular file is read (a named pipe would block); anything else is refused by the write itself.
+    const entry = await stat(output.path).catch(() => undefined);
+    if (!entry?.isFile()) continue;
+    const existing = await readFile(output.path, 'utf8').catch(() => undefined);
+    if (existing !== undefined && !existing.includes(output.ownMark)) return output.path;
+  }
+  return undefined;
 }
 
 export const buildCommand: CliCommand = {

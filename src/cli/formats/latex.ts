@@ -13,7 +13,7 @@ import { drawFigure } from '../../core/manuscript/figure-entries.ts';
 import type { SessionInput, SessionResult } from '../../core/manuscript/api.ts';
 import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '../../../plugins/latex/reader.ts';
 import { flatText } from '../../../plugins/latex/flat.ts';
-import { sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
+import { SIDECAR_MARK, sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
 import { decodeManuscript } from '../utf8.ts';
 import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat } from './types.ts';
 
@@ -143,7 +143,7 @@ export const latexFormat: ManuscriptFormat = {
     const output =
       options.output !== undefined
         ? { path: options.output, content: flatText(doc, session.fills, figures) }
-        : { path: sidecarPath(path), content: sidecarText(doc, session.fills, figures) };
+        : { path: sidecarPath(path), content: sidecarText(doc, session.fills, figures), ownMark: SIDECAR_MARK };
     if (options.output !== undefined && doc.packageLoadedBy && figures.some((f) => f !== undefined) && !doc.tikzLoaded) {
       notes.push({
         severity: 'warning',

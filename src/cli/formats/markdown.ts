@@ -180,6 +180,13 @@ function unreadable(path: string, e: unknown): Diagnostic {
 }
 
 /** Where the build writes when no -o is given: beside the input, never over it. */
+/** The last line of every filled-in Markdown file (not of `-o -`, which pipes the text on): an HTML comment, so no renderer shows it. */
+const FILLED_MARKDOWN_MARK = '<!-- filled in by skeinproof';
+
+function withFilledMark(filled: string, input: string): string {
+  return `${filled}${filled.endsWith('\n') ? '' : '\n'}\n${FILLED_MARKDOWN_MARK} from ${basename(input)}: edit that file and build again -->\n`;
+}
+
 export function defaultOutputPath(input: string, html: boolean): string {
   const stem = basename(input, extname(input));
   return join(dirname(input), html ? `${stem}.html` : `${stem}.filled.md`);
@@ -204,7 +211,10 @@ export const markdownFormat: ManuscriptFormat = {
     if (!checked.ok) return { diagnostics: [checked.unreadable], outputs: [], inputs: [path], failed: true };
     const { data, filled, diagnostics, failed } = checked;
     const output = options.output ?? defaultOutputPath(path, isHtmlBuild(options));
-    if (!isHtmlBuild(options)) return { diagnostics, outputs: [{ path: output, content: filled }], inputs: [path], failed };
+    if (!isHtmlBuild(options)) {
+      const written: OutputFile = { path: output, content: output === '-' ? filled : withFilledMark(filled, path), ...(options.output === undefined ? { ownMark: FILLED_MARKDOWN_MARK } : {}) };
+      return { diagnostics, outputs: [written], inputs: [path], failed };
+    }
     // The HTML stack (rehype, KaTeX) loads only when a page is written.
     const { renderHtmlPage } = await import('../html/page.ts');
     const page = await renderHtmlPage(filled, {
@@ -216,7 +226,7 @@ export const markdownFormat: ManuscriptFormat = {
       contradicted: contradictedSpans(checked),
       figures: figureOffsets(checked),
     });
-    const outputs: OutputFile[] = [{ path: output, content: page.html }];
+    const outputs: OutputFile[] = [{ path: output, content: page.html, ...(options.output === undefined ? { ownMark: '<meta name="generator" content="skeinproof">' } : {}) }];
     return { diagnostics, outputs, inputs: [path], failed };
   },
 };

@@ -28,6 +28,12 @@ export interface FormatOptions {
 export interface OutputFile {
   readonly path: string;
   readonly content: string | Uint8Array;
+  /**
+   * Set when the path is the build's default, not one the author named: a file
+   * already there is replaced only if it holds this mark (skeinproof wrote it),
+   * so a file of the author's that happens to have the name is never overwritten unasked.
+   */
+  readonly ownMark?: string;
 }
 
 export interface FormatResult {
