@@ -58,13 +58,17 @@ export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Floa
     crosses: Int32Array.from(crosses),
   };
   const target = medianSegment(g);
-  const packed = { x: g.x.slice(), y: g.y.slice() };
-  relaxPlaneGraph(g, target);
-  // The forces do not always open every crossing into a cross; a piece where
-  // one stays pinched keeps its packing, whose crossings are round.
-  if (!crossesOpen(g)) {
-    g.x.set(packed.x);
-    g.y.set(packed.y);
+  const packedRatio = crossingSizeRatio(g);
+  // An even packing is left as it is: it is smoother than the relaxed picture.
+  if (packedRatio >= EVEN_ENOUGH) {
+    const packed = { x: g.x.slice(), y: g.y.slice() };
+    relaxPlaneGraph(g, target);
+    // The forces do not always open every crossing into a cross; a piece where
+    // one stays pinched, or that came out no more even, keeps its packing.
+    if (!crossesOpen(g) || crossingSizeRatio(g) >= packedRatio) {
+      g.x.set(packed.x);
+      g.y.set(packed.y);
+    }
   }
   vertices.forEach((v, i) => {
     x[v] = g.x[i]!;
@@ -75,6 +79,23 @@ export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Floa
     for (let k = 0; k < 4; k++) roomOut[4 * e + k] = room[4 * i + k]!;
   });
   for (const c of crossings) placeCorners(n, c, x, y);
+}
+
+/** The crossing size ratio (largest over smallest shortest arm) from which a piece is relaxed: the target. */
+const EVEN_ENOUGH = 2;
+
+function crossingSizeRatio(g: PlaneGraph): number {
+  const { x, y, crosses } = g;
+  let least = Infinity;
+  let most = 0;
+  for (let i = 0; i < crosses.length; i += 5) {
+    const c = crosses[i]!;
+    let arm = Infinity;
+    for (let q = 1; q <= 4; q++) arm = Math.min(arm, Math.hypot(x[crosses[i + q]!]! - x[c]!, y[crosses[i + q]!]! - y[c]!));
+    least = Math.min(least, arm);
+    most = Math.max(most, arm);
+  }
+  return most / least;
 }
 
 /** Least and greatest angle between consecutive arms of an acceptable crossing. */
