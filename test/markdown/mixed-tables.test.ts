@@ -68,11 +68,17 @@ describe('Markdown: knots and links in one table', () => {
 
   it('a crossing-number range fills a cell as a compact range and prose as a phrase', async () => {
     expect(WIDE.exact).toBeNull();
-    const text = `${DIAGRAMS}In prose :crossing-number{of=wide}.\n\n:::invariants\n| diagram | crossing number |\n|---|---|\n| wide | |\n| wide | $${RANGE}$ |\n| wide | ${WIDE.lower}–${WIDE.upper} |\n:::\n`;
+    const text = `${DIAGRAMS}In prose :crossing-number{of=wide}.\n\n:::invariants\n| diagram | crossing number |\n|---|---|\n| wide | |\n| wide | $${RANGE}$ |\n| wide | ${WIDE.lower}–${WIDE.upper} |\n| wide | ${WIDE.lower}-${WIDE.upper} |\n:::\n`;
     const r = await processMarkdown(text);
     expect(r.diagnostics).toEqual([]);
     expect(r.built).toContain(`In prose between $${WIDE.lower}$ and $${WIDE.upper}$.`);
     expect(r.built).toContain(`| wide | $${RANGE}$ |`);
+  });
+
+  it('a hyphen between two counts is a range too (authors type 6-8 for 6–8), judged like one', async () => {
+    const text = `${DIAGRAMS}:::invariants\n| diagram | crossing number |\n|---|---|\n| wide | ${WIDE.lower}-${WIDE.upper} |\n| wide | ${WIDE.upper + 1}-${WIDE.upper + 3} |\n:::\n`;
+    const r = await processMarkdown(text);
+    expect(r.diagnostics.map((d) => d.ruleId)).toEqual(['claim-contradicted']);
   });
 });
 

@@ -103,7 +103,7 @@ function refuse(message: string, start: number, end: number): never {
 /**
  * Reads `7`, `\le 7`, `≥ 5`, `< 8`, `at most 7`, also after a left-hand side
  * (`c(K) \le 7`), turned round (`5 \le c(K)`), or two-sided (`5 \le c(K) \le 7`,
- * `between 5 and 7`, `5–7`, both ends included).
+ * `between 5 and 7`, `5–7`, `5-7`, both ends included).
  */
 export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
   const plain = blankMarkup(text);
@@ -112,8 +112,9 @@ export function readCrossingNumberClaim(text: string): CrossingNumberClaim {
     const [, lead, low, joint, high] = between as unknown as [string, string, string, string, string];
     return range(integerAt({ text: low, start: lead.length }), integerAt({ text: high, start: lead.length + low.length + joint.length }), text);
   }
-  // The compact range a table cell is filled with: `6–8`, `6--8`, `$6\textrm{--}8$`.
-  const dashed = /^(\s*\d+\s*)(–|--)(\s*\d+\s*[.,;]?\s*)$/.exec(plain);
+  // The compact range a table cell is filled with: `6–8`, `6--8`, `$6\textrm{--}8$`; and the
+  // hyphen authors type for it (`6-8`): a crossing number is never a difference, so it is a range.
+  const dashed = /^(\s*\d+\s*)(–|--|-)(\s*\d+\s*[.,;]?\s*)$/.exec(plain);
   if (dashed) {
     const [, low, dash, high] = dashed as unknown as [string, string, string, string];
     return range(integerAt({ text: low, start: 0 }), integerAt({ text: high, start: low.length + dash.length }), text);

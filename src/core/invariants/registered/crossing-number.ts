@@ -13,7 +13,7 @@ export const crossingNumberInvariant: Invariant = {
       noun: 'crossing number',
       aliases: ['crossing number', 'c(K)', 'c(L)'],
       valueDoc:
-        'a natural number `k`, or `\\le k`, `\\leq k`, `≤ k`, `<= k`, `< k`, `at most k`, and likewise `\\ge`, `\\geq`, `≥`, `>=`, `>`, `at least`; a left-hand side is skipped (`c(K) \\le 7`), a bound may be turned round (`5 \\le c(K)`), and a range has two relations pointing the same way (`5 \\le c(K) \\le 7`) or reads `between 5 and 7` or `5–7` (ends included)',
+        'a natural number `k`, or `\\le k`, `\\leq k`, `≤ k`, `<= k`, `< k`, `at most k`, and likewise `\\ge`, `\\geq`, `≥`, `>=`, `>`, `at least`; a left-hand side is skipped (`c(K) \\le 7`), a bound may be turned round (`5 \\le c(K)`), and a range has two relations pointing the same way (`5 \\le c(K) \\le 7`) or reads `between 5 and 7`, `5–7` or `5-7` (ends included)',
       example: '3',
       changedBy: [],
       judge: (text, report) => judgeCrossingNumberClaim(text, report),
