@@ -55,6 +55,13 @@ describe('skeinproof compute --figure', () => {
       const badOption = skeinproof('compute', '--figure', 'svg', '--outer-face', '9', TREFOIL, '-o', out);
       expect(badOption.status).toBe(2);
       expect(badOption.stderr).toMatch(/error\[figure-option-invalid\].*outer-face is 9; it takes an edge number from 1 to 6/);
+      // A word where a number belongs reaches the option check as NaN; the message must say so, not print "null".
+      const notNumber = skeinproof('compute', '--figure', 'svg', '--figure-size', 'abc', TREFOIL, '-o', out);
+      expect(notNumber.status).toBe(2);
+      expect(notNumber.stderr).toMatch(/error\[figure-option-invalid\].*size is not a number; it takes a number from 20 to 10000/);
+      expect(notNumber.stderr).not.toContain('null');
+      const notWidth = skeinproof('compute', '--figure', 'svg', '--line-width', 'wide', TREFOIL, '-o', out);
+      expect(notWidth.stderr).toMatch(/line-width is not a number; it takes a positive number/);
       const badCode = skeinproof('compute', '--figure', 'svg', '(1,2,3)', '-o', out);
       expect(badCode.status).toBe(2);
       expect(badCode.stderr).toMatch(/error\[code-invalid\]/);

@@ -86,7 +86,7 @@ describe('figure options', () => {
   };
   it('refuses bad values, naming the option and what it takes', () => {
     refused({ size: 5 }, /size is 5; it takes a number from 20 to 10000/);
-    refused({ size: Number.NaN }, /size is null/);
+    refused({ size: Number.NaN }, /size is not a number/);
     refused({ lineWidth: -1 }, /line-width is -1; it takes a positive number/);
     refused({ gap: 1000 }, /gap is 1000; it takes a non-negative number of at most 48/);
     refused({ labels: 'all' as never }, /labels is "all"; it takes one of none, crossings, edges, both/);

@@ -42,32 +42,38 @@ function invalid(message: string): InputError {
   return new InputError('figure-option-invalid', message);
 }
 
+/** The bad value as the user should read it: a word given where a number belongs arrives as NaN, which JSON prints as "null". */
+function shown(value: unknown): string {
+  if (typeof value === 'number') return Number.isNaN(value) ? 'not a number' : String(value);
+  return JSON.stringify(value);
+}
+
 function positiveNumber(name: string, value: unknown, max: number, allowZero = false): number | undefined {
   if (value === undefined) return undefined;
   const ok = typeof value === 'number' && Number.isFinite(value) && (allowZero ? value >= 0 : value > 0) && value <= max;
-  if (!ok) throw invalid(`figure option ${name} is ${JSON.stringify(value)}; it takes a ${allowZero ? 'non-negative' : 'positive'} number of at most ${max} (in the figure's units, px in SVG and pt in TikZ)`);
+  if (!ok) throw invalid(`figure option ${name} is ${shown(value)}; it takes a ${allowZero ? 'non-negative' : 'positive'} number of at most ${max} (in the figure's units, px in SVG and pt in TikZ)`);
   return value as number;
 }
 
 function flag(name: string, value: unknown): boolean {
   if (value === undefined) return false;
-  if (typeof value !== 'boolean') throw invalid(`figure option ${name} is ${JSON.stringify(value)}; it takes true or false`);
+  if (typeof value !== 'boolean') throw invalid(`figure option ${name} is ${shown(value)}; it takes true or false`);
   return value;
 }
 
 export function resolveOptions(d: LinkDiagram, options: FigureOptions): ResolvedOptions {
   const sizeValue = options.size ?? 240;
   if (typeof sizeValue !== 'number' || !Number.isFinite(sizeValue) || sizeValue < SIZE_RANGE.min || sizeValue > SIZE_RANGE.max) {
-    throw invalid(`figure option size is ${JSON.stringify(options.size)}; it takes a number from ${SIZE_RANGE.min} to ${SIZE_RANGE.max} (the longer side, px in SVG and pt in TikZ)`);
+    throw invalid(`figure option size is ${shown(options.size)}; it takes a number from ${SIZE_RANGE.min} to ${SIZE_RANGE.max} (the longer side, px in SVG and pt in TikZ)`);
   }
   const labels = options.labels ?? 'none';
-  if (!LABEL_CHOICES.includes(labels)) throw invalid(`figure option labels is ${JSON.stringify(labels)}; it takes one of ${LABEL_CHOICES.join(', ')}`);
+  if (!LABEL_CHOICES.includes(labels)) throw invalid(`figure option labels is ${shown(labels)}; it takes one of ${LABEL_CHOICES.join(', ')}`);
   let outerEdge: number | undefined;
   if (options.outerFace !== undefined) {
     const edge = options.outerFace;
     if (typeof edge !== 'number' || !Number.isInteger(edge) || edge < 1 || edge > d.edgeCount) {
       const range = d.edgeCount === 0 ? 'this diagram has no edges, so leave it out' : `it takes an edge number from 1 to ${d.edgeCount} (show them with labels: edges), whose left side is drawn outside`;
-      throw invalid(`figure option outer-face is ${JSON.stringify(edge)}; ${range}`);
+      throw invalid(`figure option outer-face is ${shown(edge)}; ${range}`);
     }
     outerEdge = edge - 1;
   }
