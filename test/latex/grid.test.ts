@@ -92,7 +92,7 @@ describe('a grid of groups with homological rows', () => {
     ]);
     const result = check(doc);
     expect(result.diagnostics.map(where)).toEqual(['claim-contradicted@12:28']);
-    expect(result.diagnostics[0]!.message).toContain('integral Khovanov homology at (3, 9) is \\mathbb{Z}, not \\mathbb{Z} \\oplus \\mathbb{Z}/2');
+    expect(result.diagnostics[0]!.message).toContain('integral Khovanov homology at (3, 9) is ℤ, not ℤ ⊕ ℤ/2');
   });
   it('a grid without the row i = 3 leaves out ℚ at (3, 9) and ℤ/2 at (3, 7): one error at the grid', () => {
     const result = check(grid(['0 & & & & & & \\\\', '2 & & & & & & \\\\']));

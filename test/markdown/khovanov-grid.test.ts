@@ -35,7 +35,7 @@ describe('Markdown Khovanov grids', () => {
     const r = await processMarkdown(text);
     expect(placed(r.diagnostics)).toEqual([`error claim-contradicted ${positionOf(text, '1 | . |', '| -1 |')}`, `error claim-contradicted ${positionOf(text, '. |', '| -1 |')}`]);
     expect(r.diagnostics[0]!.message).toBe(
-      'Khovanov grid of fig8 at line 9, row 2, column 3 (i = -1, j = -3): wrong integral Khovanov homology: the integral Khovanov homology at (-1, -3) is \\mathbb{Z}/2, not \\mathbb{Z}',
+      'Khovanov grid of fig8 at line 9, row 2, column 3 (i = -1, j = -3): wrong integral Khovanov homology: the integral Khovanov homology at (-1, -3) is ℤ/2, not ℤ',
     );
     expect(r.diagnostics[1]!.message).toContain('the integral Khovanov homology at (-1, -1) is \\mathbb{Z}, not 0');
   });

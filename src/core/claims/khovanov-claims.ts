@@ -264,6 +264,9 @@ export function integralGroupLatex(group: IntegralGroup): string {
   return parts.length === 0 ? '0' : parts.join(' \\oplus ');
 }
 
+/** A group as the messages print it, in the Unicode both front ends' authors read: `ℤ^2 ⊕ ℤ/2`, not LaTeX. */
+const groupText = (latex: string): string => latex.replace(/\\mathbb\{Z\}/g, 'ℤ').replace(/ \\oplus /g, ' ⊕ ').replace(/\^\{(\d+)\}/g, '^$1');
+
 /** The integral group at (i, j) of homology relabelled into a grading. */
 export function groupAt(g: Graded, i: number, j: number): IntegralGroup {
   return { rank: g.ranks.get(at(i, j)) ?? 0, torsion: g.torsion.get(at(i, j)) ?? [] };
@@ -434,7 +437,7 @@ export function judgeBidegreeClaim(key: BidegreeKey, text: string, report: Diagr
   const computed = valueAt(graded, i, j);
   const noun = `${spec.noun} at ${place}`;
   const base = { key, claimed: text, computed };
-  if (claimed === computed) return { ...base, verdict: 'agrees', reason: `the ${noun} is ${computed}` };
+  if (claimed === computed) return { ...base, verdict: 'agrees', reason: `the ${noun} is ${groupText(computed)}` };
   let diagnosis: Diagnosis | undefined;
   const mirror = valueOf(report, mirrorValue);
   if (mirror && valueAt(inGrading(mirror.homology, grading), i, j) === claimed) {
@@ -448,7 +451,7 @@ export function judgeBidegreeClaim(key: BidegreeKey, text: string, report: Diagr
     }
   }
   if (diagnosis?.kind === 'mirror' && !report.chiralityFixed) return mirrorAgreement(noun, computed, text, key, diagnosis);
-  return { ...base, verdict: 'contradicts', ...(diagnosis ? { diagnosis } : {}), reason: `the ${noun} is ${computed}, not ${claimed}${diagnosis ? `: ${diagnosis.detail}` : ''}` };
+  return { ...base, verdict: 'contradicts', ...(diagnosis ? { diagnosis } : {}), reason: `the ${noun} is ${groupText(computed)}, not ${groupText(claimed)}${diagnosis ? `: ${diagnosis.detail}` : ''}` };
 }
 
 export function judgeWidthClaim(text: string, report: DiagramReport): Judgement {

@@ -42,7 +42,7 @@ describe('the integral group at a bidegree (khovanov-group)', () => {
     expect(judge('1, 3: 0').verdict).toBe('agrees');
     const extra = judge('3, 9: \\mathbb{Z} \\oplus \\mathbb{Z}/2');
     expect([extra.verdict, extra.computed]).toEqual(['contradicts', '\\mathbb{Z}']);
-    expect(extra.reason).toContain('integral Khovanov homology at (3, 9) is \\mathbb{Z}, not \\mathbb{Z} \\oplus \\mathbb{Z}/2');
+    expect(extra.reason).toContain('integral Khovanov homology at (3, 9) is ℤ, not ℤ ⊕ ℤ/2');
   });
   it('diagnoses the mirror and the other grading, with the torsion moved by universal coefficients under mirror', () => {
     // The left-handed trefoil has ℤ/2 at (−2, −7): (1 − i, −j) of (3, 7).
