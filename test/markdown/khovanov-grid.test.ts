@@ -37,14 +37,14 @@ describe('Markdown Khovanov grids', () => {
     expect(r.diagnostics[0]!.message).toBe(
       'Khovanov grid of fig8 at line 9, row 2, column 3 (i = -1, j = -3): wrong integral Khovanov homology: the integral Khovanov homology at (-1, -3) is ℤ/2, not ℤ',
     );
-    expect(r.diagnostics[1]!.message).toContain('the integral Khovanov homology at (-1, -1) is \\mathbb{Z}, not 0');
+    expect(r.diagnostics[1]!.message).toContain('the integral Khovanov homology at (-1, -1) is ℤ, not 0');
   });
 
   it('homological rows; a grid without the row i = 3 leaves out ℚ at (3, 9) and ℤ/2 at (3, 7), reported once at the fence', async () => {
     const text = grid('of=t3 rows=homological values=groups', ['| | 1 | 3 | 5 | 7 | 9 |', '|---|---|---|---|---|---|', '| 0 | | | | | |', '| 2 | | | | | |']);
     const r = await processMarkdown(text);
     expect(placed(r.diagnostics)).toEqual([`error claim-contradicted ${positionOf(text, ':::khovanov-grid')}`]);
-    expect(r.diagnostics[0]!.message).toContain('leaves out 2 bidegrees where Khovanov homology is nonzero, (3, 7): \\mathbb{Z}/2, (3, 9): \\mathbb{Z}');
+    expect(r.diagnostics[0]!.message).toContain('leaves out 2 bidegrees where Khovanov homology is nonzero, (3, 7): ℤ/2, (3, 9): ℤ');
     expect(r.diagnostics[0]!.hints).toEqual(['Add homological degree i = 3 to the grid.']);
   });
 

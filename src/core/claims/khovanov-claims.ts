@@ -265,7 +265,7 @@ export function integralGroupLatex(group: IntegralGroup): string {
 }
 
 /** A group as the messages print it, in the Unicode both front ends' authors read: `ℤ^2 ⊕ ℤ/2`, not LaTeX. */
-const groupText = (latex: string): string => latex.replace(/\\mathbb\{Z\}/g, 'ℤ').replace(/ \\oplus /g, ' ⊕ ').replace(/\^\{(\d+)\}/g, '^$1');
+export const groupText = (latex: string): string => latex.replace(/\\mathbb\{Z\}/g, 'ℤ').replace(/ \\oplus /g, ' ⊕ ').replace(/\^\{(\d+)\}/g, '^$1');
 
 /** The integral group at (i, j) of homology relabelled into a grading. */
 export function groupAt(g: Graded, i: number, j: number): IntegralGroup {

@@ -10,7 +10,7 @@ import type { DiagramReport } from '../analyze/report.ts';
 import type { Convention } from '../convention/convention.ts';
 import type { Diagnostic, SourceLocation } from '../diagnostics/diagnostic.ts';
 import type { ClaimKey, Typeset } from './api.ts';
-import { groupAt, inGrading, integralGroupLatex, khovanovOf, type IntegralGroup } from './khovanov-claims.ts';
+import { groupAt, groupText, inGrading, integralGroupLatex, khovanovOf, type IntegralGroup } from './khovanov-claims.ts';
 
 /** `ranks`: each cell is the rank of rational homology; `groups`: the integral group (free part and torsion). */
 export type GridValues = 'ranks' | 'groups';
@@ -90,7 +90,7 @@ export function gridOmissions(report: DiagramReport, range: GridRange, conventio
 export function gridOmissionDiagnostic(report: DiagramReport, range: GridRange, convention: Convention, context: string, location: SourceLocation): Diagnostic | undefined {
   const left = gridOmissions(report, range, convention);
   if (left.length === 0) return undefined;
-  const value = (g: IntegralGroup): string => (range.values === 'ranks' ? `rank ${g.rank}` : integralGroupLatex(g));
+  const value = (g: IntegralGroup): string => (range.values === 'ranks' ? `rank ${g.rank}` : groupText(integralGroupLatex(g)));
   const shown = left.slice(0, 12).map((o) => `(${o.i}, ${o.j}): ${value(o.group)}`);
   const more = left.length > shown.length ? `, and ${left.length - shown.length} more` : '';
   const newDegrees = (printed: readonly number[], degrees: number[]): number[] => [...new Set(degrees.filter((d) => !printed.includes(d)))].sort((a, b) => a - b);

@@ -107,7 +107,7 @@ describe('what a grid leaves out', () => {
     const d = gridOmissionDiagnostic(figureEight, range([0, 1, 2], [-1, 1, 5], 'groups'), DEFAULT_CONVENTION, 'skein table 1 (grid of eight)', location);
     expect(d?.ruleId).toBe('claim-contradicted');
     expect(d?.location).toEqual(location);
-    expect(d?.message).toContain('(-2, -5): \\mathbb{Z}, (-1, -3): \\mathbb{Z}/2, (-1, -1): \\mathbb{Z}, (2, 3): \\mathbb{Z}/2');
+    expect(d?.message).toContain('(-2, -5): ℤ, (-1, -3): ℤ/2, (-1, -1): ℤ, (2, 3): ℤ/2');
     expect(d?.hints).toEqual(['Add homological degrees i = -2, -1 and quantum degrees j = -5, -3, 3 to the grid.']);
     expect(gridOmissionDiagnostic(figureEight, range(span(-2, 2), span(-5, 5), 'groups'), DEFAULT_CONVENTION, 'x', location)).toBeUndefined();
   });
