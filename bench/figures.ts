@@ -2,7 +2,8 @@
  * Figures: how long drawDiagram takes and how the pictures come out, on
  * classical diagrams and on random braid closures of 100 and 500 crossings.
  * Each row is also read back (read-back.ts) so a fast wrong drawing shows up.
- * Targets: 100 crossings under 1 s, 500 under 10 s; crossing size ratio under 2.
+ * Targets: 100 crossings under 1 s, 500 under 10 s; crossing size ratio under 2,
+ * without kinks (the sharpest bend) or wavy strands (turning per edge).
  * `node --import tsx bench/figures.ts` runs this table alone.
  */
 import { closeBraid } from '../src/core/diagram/braid-closure.ts';
@@ -40,8 +41,8 @@ export function runFigureBench(): void {
     ['random 12-braid, 500 crossings', shuffleDiagram(closeBraid(randomBraidWord(random, 12, 500), 12), random), 1],
   ];
   const lines = [
-    '| diagram | crossings | draw (median) | crossing size ratio | closest strands / edge length | crossing angles | read back |',
-    '| --- | ---: | ---: | ---: | ---: | ---: | --- |',
+    '| diagram | crossings | draw (median) | crossing size ratio | closest strands / edge length | crossing angles | sharpest bend | turning per edge | read back |',
+    '| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | --- |',
   ];
   for (const [label, d, runs] of rows) {
     const { ms, drawing } = timedDraw(d, runs);
@@ -49,7 +50,7 @@ export function runFigureBench(): void {
     const back = readBackDrawing(drawing);
     const ok = back.diagram !== undefined && sameDiagram(d, back.diagram);
     lines.push(
-      `| ${label} | ${d.crossings.length} | ${format(ms)} | ${q.crossingSizeRatio.toFixed(2)} | ${q.closestStrands.toFixed(2)} | ${q.crossingAngles.min.toFixed(0)}°–${q.crossingAngles.max.toFixed(0)}° | ${ok ? 'same diagram ✓' : `WRONG: ${back.problems.length} problems`} |`,
+      `| ${label} | ${d.crossings.length} | ${format(ms)} | ${q.crossingSizeRatio.toFixed(2)} | ${q.closestStrands.toFixed(2)} | ${q.crossingAngles.min.toFixed(0)}°–${q.crossingAngles.max.toFixed(0)}° | ${q.bends.sharpest.toFixed(0)}° | ${q.bends.perEdge.toFixed(0)}° | ${ok ? 'same diagram ✓' : `WRONG: ${back.problems.length} problems`} |`,
     );
   }
   console.log(`\n${lines.join('\n')}`);

@@ -72,6 +72,18 @@ describe('figure output', () => {
   });
 });
 
+describe('figure quality', () => {
+  it('measures the bends of a round circle as its geometry gives them', () => {
+    // A circle of radius r turns by s/r radians along an arc of length s (common practice). A lone free loop is
+    // drawn as a circle and its typical edge length is its diameter 2r, so it turns 2 rad (360°/π) per edge
+    // length and (2r/4)/r = 0.5 rad (28.6°) along a quarter of it; the flattened samples may add one sample's turn (7.5°).
+    const { bends } = figureQuality(drawDiagram(closeBraid([], 1)));
+    expect(bends.perEdge).toBeCloseTo(360 / Math.PI, 0);
+    expect(bends.sharpest).toBeGreaterThan(28.6 - 7.5);
+    expect(bends.sharpest).toBeLessThan(28.6 + 7.5);
+  });
+});
+
 describe('figure options', () => {
   const d = parseDiagramCode(TREFOIL, 'pd');
   const refused = (options: FigureOptions, pattern: RegExp) => {

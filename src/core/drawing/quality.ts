@@ -1,8 +1,10 @@
 /**
- * How good a drawing looks, in three numbers the benchmark reports: how much
+ * How good a drawing looks, in the numbers the benchmark reports: how much
  * the crossings differ in size, how close two strands come away from the
- * crossings (relative to the typical edge length), and the range of angles at
- * which strands cross (90° is best).
+ * crossings (relative to the typical edge length), the range of angles at
+ * which strands cross (90° is best), and how much the strands bend (a picture
+ * can make its crossings even by crumpling its strands, so evenness alone is
+ * no measure of a good figure).
  */
 import type { Drawing } from './drawing.ts';
 import { flattenCubic, type Point } from './geometry.ts';
@@ -15,6 +17,13 @@ export interface FigureQuality {
   readonly closestStrands: number;
   /** The smallest and largest angle between the two strands at a crossing, in degrees (0–90). */
   readonly crossingAngles: { readonly min: number; readonly max: number };
+  /**
+   * How the centre lines turn, in degrees: `sharpest` is the most they turn
+   * along any stretch a quarter of the typical edge length long (a kink), and
+   * `perEdge` the total turning (left and right both counted) per typical edge
+   * length (waviness). A round circle of twelve edge lengths turns 30° per edge.
+   */
+  readonly bends: { readonly sharpest: number; readonly perEdge: number };
 }
 
 const SAMPLES = 12;
@@ -31,7 +40,49 @@ export function figureQuality(drawing: Drawing): FigureQuality {
     crossingSizeRatio: sizes.length === 0 ? 1 : Math.max(...sizes) / Math.min(...sizes),
     closestStrands: closestStrands(drawing),
     crossingAngles: angles.length === 0 ? { min: 90, max: 90 } : { min: Math.min(...angles), max: Math.max(...angles) },
+    bends: bends(drawing),
   };
+}
+
+/** The stretch over which turning counts as one kink, in typical edge lengths. */
+const KINK_STRETCH = 0.25;
+
+function bends(drawing: Drawing): { sharpest: number; perEdge: number } {
+  const unit = drawing.edgeLength;
+  let sharpest = 0;
+  let turning = 0;
+  let length = 0;
+  for (const component of drawing.components) {
+    const points = component.centreLine.flatMap((k) => flattenCubic(k, SAMPLES));
+    const n = points.length;
+    // At point i: the length of the chord arriving there and the turn from it to the chord leaving.
+    const chord = points.map((p, i) => Math.hypot(p.x - points[(i + n - 1) % n]!.x, p.y - points[(i + n - 1) % n]!.y));
+    const turn = points.map((p, i) => {
+      const a = points[(i + n - 1) % n]!;
+      const b = points[(i + 1) % n]!;
+      return Math.abs(Math.atan2((p.x - a.x) * (b.y - p.y) - (p.y - a.y) * (b.x - p.x), (p.x - a.x) * (b.x - p.x) + (p.y - a.y) * (b.y - p.y)));
+    });
+    turning += turn.reduce((s, t) => s + t, 0);
+    length += chord.reduce((s, c) => s + c, 0);
+    // A window of points whose chords sum to at most the stretch, slid once round the closed line.
+    let end = 0;
+    let span = 0;
+    let inWindow = 0;
+    for (let start = 0; start < n; start++) {
+      while (end < start + n && span + chord[(end + 1) % n]! <= KINK_STRETCH * unit) {
+        end++;
+        span += chord[end % n]!;
+        inWindow += turn[end % n]!;
+      }
+      sharpest = Math.max(sharpest, inWindow + turn[start]!);
+      if (end > start) {
+        span -= chord[(start + 1) % n]!;
+        inWindow -= turn[(start + 1) % n]!;
+      } else end = start + 1;
+    }
+  }
+  const degrees = 180 / Math.PI;
+  return { sharpest: sharpest * degrees, perEdge: length === 0 ? 0 : ((turning * unit) / length) * degrees };
 }
 
 interface Sample {
