@@ -191,29 +191,96 @@ export function planSteps(d: LinkDiagram, order: readonly number[], cut = -1): S
 }
 
 /**
- * The states of one step, in flat typed arrays: state s's polynomial has `len[s]`
+ * The states of one step in flat typed arrays, no object per state (so the
+ * garbage collector has nothing to trace). State s's polynomial has `len[s]`
  * coefficients, coefficient i holding the exponent lo[s] + i·step, stored as
- * `limbs[s]` base-2^32 digits: digit j of coefficient i is slab[offset[s] + j·len[s] + i].
- * `bound[s]` bounds |digit| over all its digits. No object per state, so the
- * garbage collector has nothing to trace.
+ * `limbs[s]` base-2^32 digits: digit j of coefficient i is
+ * slab[offset[s] + j·len[s] + i]. `bound[s]` bounds |digit| over all its
+ * digits. State s's matching is partners[s·width … s·width + width − 1]. Two
+ * of these take turns (sources and targets of a step), so their arrays are
+ * allocated only when a step needs more room than any before it.
  */
-interface States {
-  count: number;
-  lo: Int32Array;
-  len: Int32Array;
-  limbs: Int32Array;
-  offset: Int32Array;
-  bound: Float64Array;
-  slab: Float64Array;
+class States {
+  count = 0;
+  width = 0;
+  lo = new Int32Array(1);
+  len = new Int32Array(1);
+  limbs = new Int32Array(1);
+  offset = new Int32Array(1);
+  bound = new Float64Array(1);
+  /** Boundary positions are below MAX_BOUNDARY_WIDTH + 4, so a byte holds one. */
+  partners = new Uint8Array(0);
+  slab = new Float64Array(1);
+
+  /** Room for up to `count` states of `width` ends (contents are not kept). */
+  reserve(count: number, width: number): void {
+    this.width = width;
+    if (this.lo.length < count) {
+      const room = Math.ceil(count * 1.25);
+      this.lo = new Int32Array(room);
+      this.len = new Int32Array(room);
+      this.limbs = new Int32Array(room);
+      this.offset = new Int32Array(room);
+      this.bound = new Float64Array(room);
+    }
+    if (this.partners.length < count * width) this.partners = new Uint8Array(Math.ceil(count * width * 1.25));
+  }
+
+  reserveSlab(size: number): void {
+    if (this.slab.length < size) this.slab = new Float64Array(Math.ceil(size * 1.25));
+  }
 }
+
+/** Per-contribution scratch of one step (contribution 2s + smoothing comes from state s), reused across steps. */
+class Contributions {
+  target = new Int32Array(0);
+  loops = new Int32Array(0);
+  /** Contributions grouped by target: those of target t are byTarget[groupStart[t] … groupStart[t + 1] − 1]. */
+  byTarget = new Int32Array(0);
+  groupStart = new Int32Array(0);
+  /** Per target: the highest exponent any contribution reaches. */
+  hi = new Int32Array(0);
+
+  reserve(sources: number): void {
+    const count = 2 * sources;
+    if (this.target.length >= count) return;
+    const room = Math.ceil(count * 1.25);
+    this.target = new Int32Array(room);
+    this.loops = new Int32Array(room);
+    this.byTarget = new Int32Array(room);
+    this.groupStart = new Int32Array(room + 1);
+    this.hi = new Int32Array(room);
+  }
+
+  /** Fills byTarget and groupStart (a counting sort of the contributions by target). */
+  group(contributions: number, targets: number): void {
+    const start = this.groupStart;
+    start.fill(0, 0, targets + 1);
+    for (let c = 0; c < contributions; c++) start[this.target[c]! + 1]!++;
+    for (let t = 0; t < targets; t++) start[t + 1]! += start[t]!;
+    const cursor = this.hi; // free once the target ranges are known
+    cursor.set(start.subarray(0, targets));
+    for (let c = 0; c < contributions; c++) this.byTarget[cursor[this.target[c]!]!++] = c;
+  }
+}
+
+/**
+ * When set, every step checks each target digit against its bound (and that it
+ * is an integer below 2^53), throwing if one is not: a pass over all digits, so
+ * only the tests turn it on.
+ */
+export const digitBoundCheck = { enabled: false };
 
 const LIMB_BASE = 2 ** 32;
 /** Limbs may grow to this before a carry; leaves room for the carry itself below 2^53. */
 const LIMB_CEILING = 2 ** 52;
 
-/** Largest binomial coefficient C(l, ⌊l/2⌋): the growth factor of d^l. At most two loops close per crossing. */
-function centralBinomial(l: number): number {
-  return l < 2 ? 1 : l === 2 ? 2 : binomialRow(l)[l >> 1]!;
+/**
+ * How much multiplying by d^l can grow the largest |digit|: an entry of d^l·p
+ * sums C(l, m)·|p_i| over m = 0 … l, so the factor is Σ C(l, m) = 2^l.
+ */
+function loopGrowth(l: number): number {
+  return 2 ** l;
 }
 
 function binomialRow(l: number): number[] {
@@ -223,46 +290,40 @@ function binomialRow(l: number): number[] {
 }
 
 /**
- * A canonical key for a matching given as partner positions. Non-crossing
- * matchings (the only kind a disk-shaped region produces) are fixed by which
- * ends open an arc, so their key is that bit pattern as a number: cheap to
- * build and to hash. Crossing matchings (a region with holes, or a non-planar
- * code) fall back to a string of the partner positions, kept apart from the numbers.
+ * A number that tells perfect matchings of `width` ends apart, for any
+ * matching (crossing or not, so any region shape and non-planar codes too):
+ * scanning the ends upward, each end not yet paired with a lower one adds the
+ * rank of its partner among the ends still unpaired, in radix (ends still
+ * unpaired − 1). A mixed-radix number below (width − 1)!!, which is at most
+ * 27!! < 2^48 for width ≤ 28, so it is exact in a double.
  */
-type MatchingKey = number | string;
-
-/** The key of the empty matching (width 0): the bit pattern with no bits. */
-const EMPTY_MATCHING = 1;
-
-function matchingKey(partner: Uint16Array, width: number, stack: Int32Array): MatchingKey {
-  if (width <= 52) {
-    let key = 1; // a leading 1 keeps the pattern's length
-    let depth = 0;
-    let nonCrossing = true;
-    for (let i = 0; i < width && nonCrossing; i++) {
-      const p = partner[i]!;
-      if (p > i) {
-        stack[depth++] = p;
-        key = key * 2 + 1;
-      } else {
-        nonCrossing = depth > 0 && stack[--depth] === i;
-        key = key * 2;
-      }
-    }
-    if (nonCrossing) return key;
+export function matchingNumber(partner: Uint8Array, width: number): number {
+  if (width > MAX_BOUNDARY_WIDTH) throw new RangeError(`matchingNumber: width ${width} is more than ${MAX_BOUNDARY_WIDTH}`);
+  let unpaired = (1 << width) - 1;
+  let left = width;
+  let key = 0;
+  for (let i = 0; i < width; i++) {
+    if (((unpaired >>> i) & 1) === 0) continue;
+    const p = partner[i]!;
+    // Ends still unpaired below p: i itself and the ones between.
+    key = key * (left - 1) + bitCount(unpaired & ((1 << p) - 1)) - 1;
+    unpaired &= ~((1 << i) | (1 << p));
+    left -= 2;
   }
-  return String.fromCharCode.apply(null, partner as unknown as number[]);
+  return key;
 }
 
-/**
- * Matching key → target index for one step: open addressing over doubles for the
- * numeric keys (all ≥ 1, so 0 marks an empty slot), a Map for the rare string keys.
- */
+function bitCount(x: number): number {
+  x -= (x >>> 1) & 0x55555555;
+  x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
+  return Math.imul((x + (x >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24;
+}
+
+/** Matching number → target index for one step: open addressing over the numbers plus one (0 marks an empty slot). */
 class TargetTable {
   private keys = new Float64Array(0);
   private values = new Int32Array(0);
   private mask = 0;
-  private readonly strings = new Map<string, number>();
 
   /** Empties the table, sized for up to `expected` keys at load ≤ 1/2. */
   reset(expected: number): void {
@@ -273,30 +334,22 @@ class TargetTable {
       this.values = new Int32Array(capacity);
     } else this.keys.fill(0, 0, capacity);
     this.mask = capacity - 1;
-    this.strings.clear();
   }
 
-  /** The index stored for `key`, or −1. */
-  get(key: MatchingKey): number {
-    if (typeof key === 'string') return this.strings.get(key) ?? -1;
+  /** The index stored for matching number `key`; if there is none yet, stores `fresh` and returns it. */
+  lookup(key: number, fresh: number): number {
     const keys = this.keys;
-    for (let i = slotOf(key) & this.mask; ; i = (i + 1) & this.mask) {
+    const stored = key + 1;
+    let i = slotOf(stored) & this.mask;
+    for (;;) {
       const k = keys[i]!;
-      if (k === key) return this.values[i]!;
-      if (k === 0) return -1;
+      if (k === stored) return this.values[i]!;
+      if (k === 0) break;
+      i = (i + 1) & this.mask;
     }
-  }
-
-  set(key: MatchingKey, value: number): void {
-    if (typeof key === 'string') {
-      this.strings.set(key, value);
-      return;
-    }
-    const keys = this.keys;
-    let i = slotOf(key) & this.mask;
-    while (keys[i] !== 0) i = (i + 1) & this.mask;
-    keys[i] = key;
-    this.values[i] = value;
+    keys[i] = stored;
+    this.values[i] = fresh;
+    return fresh;
   }
 }
 
@@ -312,19 +365,15 @@ const B_SLOT_PARTNER = [3, 2, 1, 0];
 /** Runs the contraction with exponents stored at the given step; undefined if a state mixes classes mod `step`. */
 function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined {
   // The empty tangle: one (empty) matching with value 1.
-  let states: States = {
-    count: 1,
-    lo: Int32Array.of(0),
-    len: Int32Array.of(1),
-    limbs: Int32Array.of(1),
-    offset: Int32Array.of(0),
-    bound: Float64Array.of(1),
-    slab: Float64Array.of(1),
-  };
-  let partners = new Uint16Array(0);
-  let lastKey: MatchingKey = EMPTY_MATCHING;
-  // Two slabs take turns: the sources of one step live in one, its targets in the other.
-  let spareSlab: Float64Array = new Float64Array(0);
+  let states = new States();
+  states.reserve(1, 0);
+  states.count = 1;
+  states.len[0] = 1;
+  states.limbs[0] = 1;
+  states.bound[0] = 1;
+  states.slab[0] = 1;
+  let next = new States();
+  const work = new Contributions();
   const table = new TargetTable();
   const dStride = 4 / step; // index distance between the terms A^(2l−4j) of d^l
 
@@ -336,20 +385,17 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     const w2 = plan.newWidth;
     const { joins, layout, compact } = plan;
     const scratch = new Int32Array(w + 4);
-    const codes = new Uint16Array(w2);
-    const stack = new Int32Array(w2);
-    const { count, lo, len, limbs, bound } = states;
+    const codes = new Uint8Array(w2);
+    const { count, lo, len } = states;
+    const partners = states.partners;
 
-    // Phase 1: the target matching and loop count of every (state, smoothing).
+    // Phase 1: the target matching and loop count of every (state, smoothing), and each target's exponent range.
+    next.reserve(2 * count, w2);
+    work.reserve(count);
     table.reset(2 * count);
     let targets = 0;
-    let nextPartners = new Uint16Array(Math.max(16, 4 * w2));
-    const contributionTarget = new Int32Array(2 * count);
-    const contributionLoops = new Int32Array(2 * count);
-    const tLo = new Int32Array(2 * count);
-    const tHi = new Int32Array(2 * count);
-    const tBound = new Float64Array(2 * count);
-    const tLimbs = new Int32Array(2 * count);
+    const tLo = next.lo;
+    const tHi = work.hi;
     for (let s = 0; s < count; s++) {
       const sourceLo = lo[s]!;
       const sourceHi = sourceLo + step * (len[s]! - 1);
@@ -370,21 +416,13 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
           }
         }
         for (let i = 0; i < w2; i++) codes[i] = compact[scratch[layout[i]!]!]!;
-        const key = matchingKey(codes, w2, stack);
         if (isLast) loops--; // ⟨O⟩ = 1: the final picture's first circle is free
-        let t = table.get(key);
+        const t = table.lookup(matchingNumber(codes, w2), targets);
         const base = sourceLo + (smoothing === 0 ? 1 : -1) - 2 * loops;
         const top = sourceHi + (smoothing === 0 ? 1 : -1) + 2 * loops;
-        if (t < 0) {
-          t = targets++;
-          table.set(key, t);
-          lastKey = key;
-          if (nextPartners.length < (t + 1) * w2) {
-            const grown = new Uint16Array(2 * nextPartners.length + w2);
-            grown.set(nextPartners);
-            nextPartners = grown;
-          }
-          nextPartners.set(codes, t * w2);
+        if (t === targets) {
+          targets++;
+          next.partners.set(codes, t * w2);
           tLo[t] = base;
           tHi[t] = top;
         } else {
@@ -392,76 +430,35 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
           if (base < tLo[t]!) tLo[t] = base;
           if (top > tHi[t]!) tHi[t] = top;
         }
-        tBound[t]! += bound[s]! * centralBinomial(loops);
-        if (limbs[s]! > tLimbs[t]!) tLimbs[t] = limbs[s]!;
-        contributionTarget[2 * s + smoothing] = t;
-        contributionLoops[2 * s + smoothing] = loops;
+        work.target[2 * s + smoothing] = t;
+        work.loops[2 * s + smoothing] = loops;
       }
     }
+    next.count = targets;
+    for (let t = 0; t < targets; t++) next.len[t] = (tHi[t]! - tLo[t]!) / step + 1;
 
-    // Carry every source if some target limb could pass the ceiling.
-    if (tBound.subarray(0, targets).some((b) => b >= LIMB_CEILING)) {
-      states = carried(states);
-      tBound.fill(0);
-      tLimbs.fill(0);
-      for (let s = 0; s < count; s++) {
-        for (let smoothing = 0; smoothing < 2; smoothing++) {
-          const t = contributionTarget[2 * s + smoothing]!;
-          tBound[t]! += states.bound[s]! * centralBinomial(contributionLoops[2 * s + smoothing]!);
-          if (states.limbs[s]! > tLimbs[t]!) tLimbs[t] = states.limbs[s]!;
-        }
-      }
-      if (tBound.subarray(0, targets).some((b) => b >= LIMB_CEILING)) {
+    // Carry every source if some target digit could pass the ceiling.
+    if (!boundTargets(states, next, work)) {
+      carry(states);
+      if (!boundTargets(states, next, work)) {
         throw new RangeError('diagram too wide for exact contraction: more than 2^20 matchings merge into one');
       }
     }
 
-    // Phase 2: accumulate every contribution into its target, in one zeroed slab reused across steps.
-    const next: States = {
-      count: targets,
-      lo: tLo.slice(0, targets),
-      len: new Int32Array(targets),
-      limbs: tLimbs.slice(0, targets),
-      offset: new Int32Array(targets),
-      bound: tBound.slice(0, targets),
-      slab: spareSlab,
-    };
+    // Phase 2: each target in turn, summing its contributions while its digits stay in cache.
     let slabSize = 0;
     for (let t = 0; t < targets; t++) {
-      const length = (tHi[t]! - tLo[t]!) / step + 1;
-      next.len[t] = length;
       next.offset[t] = slabSize;
-      slabSize += length * next.limbs[t]!;
+      slabSize += next.len[t]! * next.limbs[t]!;
     }
-    if (spareSlab.length < slabSize) next.slab = new Float64Array(Math.ceil(slabSize * 1.25));
-    else spareSlab.fill(0, 0, slabSize);
-    const source = states.slab;
-    const target = next.slab;
-    for (let s = 0; s < count; s++) {
-      const tA = contributionTarget[2 * s]!;
-      const tB = contributionTarget[2 * s + 1]!;
-      const loopsA = contributionLoops[2 * s]!;
-      const loopsB = contributionLoops[2 * s + 1]!;
-      const n = states.len[s]!;
-      const startA = next.offset[tA]! + (states.lo[s]! + 1 - 2 * loopsA - next.lo[tA]!) / step;
-      const startB = next.offset[tB]! + (states.lo[s]! - 1 - 2 * loopsB - next.lo[tB]!) / step;
-      const strideA = next.len[tA]!;
-      const strideB = next.len[tB]!;
-      for (let j = 0, from = states.offset[s]!; j < states.limbs[s]!; j++, from += n) {
-        if (loopsA <= 1 && loopsB <= 1) {
-          addBothSmoothings(source, from, n, target, startA + j * strideA, loopsA, startB + j * strideB, loopsB, dStride);
-        } else {
-          addTimesLoopPower(target, startA + j * strideA, source, from, n, loopsA, dStride);
-          addTimesLoopPower(target, startB + j * strideB, source, from, n, loopsB, dStride);
-        }
-      }
-    }
-    partners = nextPartners;
-    spareSlab = states.slab;
-    states = next;
+    next.reserveSlab(slabSize);
+    work.group(2 * count, targets);
+    accumulate(states, next, work, step, dStride);
+    if (digitBoundCheck.enabled) checkDigitBounds(next);
+    [states, next] = [next, states];
   }
 
-  if (states.count !== 1 || lastKey !== EMPTY_MATCHING) throw new Error('internal: contraction ended with an open boundary');
+  if (states.count !== 1 || steps[steps.length - 1]!.newWidth !== 0) throw new Error('internal: contraction ended with an open boundary');
   const length = states.len[0]!;
   const dense: bigint[] = new Array(length);
   for (let i = 0; i < length; i++) {
@@ -472,17 +469,71 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
   return Laurent.fromDense(dense, states.lo[0]!, step);
 }
 
+/**
+ * Sets each target's digit count and digit bound from its contributions; false
+ * when some bound reaches the ceiling (the sources must be carried first).
+ */
+function boundTargets(sources: States, targets: States, work: Contributions): boolean {
+  targets.bound.fill(0, 0, targets.count);
+  targets.limbs.fill(0, 0, targets.count);
+  for (let c = 0; c < 2 * sources.count; c++) {
+    const s = c >> 1;
+    const t = work.target[c]!;
+    targets.bound[t]! += sources.bound[s]! * loopGrowth(work.loops[c]!);
+    if (sources.limbs[s]! > targets.limbs[t]!) targets.limbs[t] = sources.limbs[s]!;
+  }
+  for (let t = 0; t < targets.count; t++) if (targets.bound[t]! >= LIMB_CEILING) return false;
+  return true;
+}
+
+/**
+ * Writes every target polynomial: zeroes its digits, then adds A^(±1)·d^loops
+ * times each contributing source. Working target by target keeps the digits
+ * being summed in cache; each source is read once per smoothing.
+ */
+function accumulate(sources: States, targets: States, work: Contributions, step: number, dStride: number): void {
+  const source = sources.slab;
+  const target = targets.slab;
+  const { byTarget, groupStart } = work;
+  for (let t = 0; t < targets.count; t++) {
+    const tLen = targets.len[t]!;
+    const tOffset = targets.offset[t]!;
+    target.fill(0, tOffset, tOffset + tLen * targets.limbs[t]!);
+    for (let g = groupStart[t]!; g < groupStart[t + 1]!; g++) {
+      const c = byTarget[g]!;
+      const s = c >> 1;
+      const loops = work.loops[c]!;
+      const n = sources.len[s]!;
+      const shift = (sources.lo[s]! + ((c & 1) === 0 ? 1 : -1) - 2 * loops - targets.lo[t]!) / step;
+      for (let j = 0, from = sources.offset[s]!; j < sources.limbs[s]!; j++, from += n) {
+        addTimesLoopPower(target, tOffset + j * tLen + shift, source, from, n, loops, dStride);
+      }
+    }
+  }
+}
+
+function checkDigitBounds(states: States): void {
+  for (let t = 0; t < states.count; t++) {
+    const end = states.offset[t]! + states.len[t]! * states.limbs[t]!;
+    for (let at = states.offset[t]!; at < end; at++) {
+      const x = states.slab[at]!;
+      if (!Number.isSafeInteger(x) || Math.abs(x) > states.bound[t]!) {
+        throw new Error(`internal: digit ${x} of tangle state ${t} is outside its bound ${states.bound[t]}`);
+      }
+    }
+  }
+}
+
 /** target[at + i + m·stride] += (−1)^l C(l, m) · source[from + i] for i < n, m = 0 … l: multiplication by d^l. */
 function addTimesLoopPower(target: Float64Array, at: number, source: Float64Array, from: number, n: number, loops: number, stride: number): void {
   if (loops === 0) {
     for (let i = 0; i < n; i++) target[at + i]! += source[from + i]!;
   } else if (loops === 1) {
-    const at2 = at + stride;
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[at + i]! -= v;
-      target[at2 + i]! -= v;
-    }
+    // One pass over the target: its entry i receives −source[i] − source[i − stride].
+    const head = Math.min(stride, n);
+    for (let i = 0; i < head; i++) target[at + i]! -= source[from + i]!;
+    for (let i = stride; i < n; i++) target[at + i]! -= source[from + i]! + source[from + i - stride]!;
+    for (let i = Math.max(n, stride); i < n + stride; i++) target[at + i]! -= source[from + i - stride]!;
   } else {
     const row = binomialRow(loops);
     const sign = loops % 2 === 0 ? 1 : -1;
@@ -495,94 +546,55 @@ function addTimesLoopPower(target: Float64Array, at: number, source: Float64Arra
 }
 
 /**
- * Both smoothings of one source digit row in a single pass (the common case: at
- * most one loop closes on each side), reading the source once instead of twice.
- * The two target rows may be the same.
+ * Carries every state's base-2^32 digits upward so that afterwards each
+ * |digit| < 2^32 (the bounds then say so), giving one more digit to the states
+ * whose top digit overflows. Digits are below 2^53 beforehand, so the carry out
+ * of the top is below 2^21 and one added digit always suffices.
  */
-function addBothSmoothings(
-  source: Float64Array,
-  from: number,
-  n: number,
-  target: Float64Array,
-  atA: number,
-  loopsA: number,
-  atB: number,
-  loopsB: number,
-  stride: number,
-): void {
-  const a2 = atA + stride;
-  const b2 = atB + stride;
-  if (loopsA === 0 && loopsB === 0) {
+function carry(states: States): void {
+  const { count, len, limbs, offset, slab } = states;
+  const overflows = new Uint8Array(count);
+  let anyOverflow = false;
+  for (let s = 0; s < count; s++) {
+    const n = len[s]!;
+    const topRow = offset[s]! + (limbs[s]! - 1) * n;
     for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! += v;
-      target[atB + i]! += v;
+      let carried = 0;
+      for (let at = offset[s]! + i; at < topRow; at += n) {
+        const x = slab[at]! + carried;
+        carried = Math.floor(x / LIMB_BASE);
+        slab[at] = x - carried * LIMB_BASE;
+      }
+      const top = slab[topRow + i]! + carried;
+      slab[topRow + i] = top;
+      if (Math.abs(top) >= LIMB_BASE) overflows[s] = 1;
     }
-  } else if (loopsA === 1 && loopsB === 0) {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! -= v;
-      target[a2 + i]! -= v;
-      target[atB + i]! += v;
-    }
-  } else if (loopsA === 0) {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! += v;
-      target[atB + i]! -= v;
-      target[b2 + i]! -= v;
-    }
-  } else {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! -= v;
-      target[a2 + i]! -= v;
-      target[atB + i]! -= v;
-      target[b2 + i]! -= v;
-    }
+    anyOverflow ||= overflows[s] === 1;
   }
-}
-
-/**
- * The same states with base-2^32 digits carried upward, digits added where a top
- * one overflows; afterwards every |digit| < 2^32 (the bounds say so).
- */
-function carried(states: States): States {
-  const { count, len, offset, slab } = states;
-  const digits: Float64Array[][] = [];
-  const limbs = new Int32Array(count);
+  states.bound.fill(LIMB_BASE, 0, count);
+  if (!anyOverflow) return;
+  // Some states need one more digit: lay the slab out again.
   const newOffset = new Int32Array(count);
   let size = 0;
   for (let s = 0; s < count; s++) {
-    const n = len[s]!;
-    const rows: Float64Array[] = [];
-    for (let j = 0; j < states.limbs[s]!; j++) rows.push(slab.slice(offset[s]! + j * n, offset[s]! + (j + 1) * n));
-    for (let i = 0; i < n; i++) {
-      let carry = 0;
-      for (let j = 0; j < rows.length - 1; j++) {
-        const x = rows[j]![i]! + carry;
-        carry = Math.floor(x / LIMB_BASE);
-        rows[j]![i] = x - carry * LIMB_BASE;
-      }
-      rows[rows.length - 1]![i]! += carry;
-    }
-    for (;;) {
-      const top = rows[rows.length - 1]!;
-      if (!top.some((x) => Math.abs(x) >= LIMB_BASE)) break;
-      const above = new Float64Array(n);
-      for (let i = 0; i < n; i++) {
-        const q = Math.floor(top[i]! / LIMB_BASE);
-        top[i] = top[i]! - q * LIMB_BASE;
-        above[i] = q;
-      }
-      rows.push(above);
-    }
-    digits.push(rows);
-    limbs[s] = rows.length;
     newOffset[s] = size;
-    size += rows.length * n;
+    size += len[s]! * (limbs[s]! + overflows[s]!);
   }
-  const newSlab = new Float64Array(size);
-  for (let s = 0; s < count; s++) digits[s]!.forEach((row, j) => newSlab.set(row, newOffset[s]! + j * len[s]!));
-  return { count, lo: states.lo, len, limbs, offset: newOffset, bound: new Float64Array(count).fill(LIMB_BASE), slab: newSlab };
+  const grown = new Float64Array(Math.ceil(size * 1.25));
+  for (let s = 0; s < count; s++) {
+    const n = len[s]!;
+    const digits = limbs[s]! * n;
+    grown.set(slab.subarray(offset[s]!, offset[s]! + digits), newOffset[s]!);
+    if (overflows[s]) {
+      const topRow = newOffset[s]! + digits - n;
+      for (let i = 0; i < n; i++) {
+        const quotient = Math.floor(grown[topRow + i]! / LIMB_BASE);
+        grown[topRow + i]! -= quotient * LIMB_BASE;
+        grown[topRow + n + i] = quotient;
+      }
+      limbs[s]!++;
+    }
+    offset[s] = newOffset[s]!;
+  }
+  states.slab = grown;
 }
