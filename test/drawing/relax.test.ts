@@ -49,8 +49,20 @@ function cramped(teeth: number): { g: PlaneGraph; trapped: number } {
   xs.push(0.1125, 0.1125);
   ys.push(0.3, 0.05);
   segments.push(ring, ring + 1);
+  // Every force is switched on: charges on every point, slack springs, pulls along the ring.
+  const continuations: number[] = [];
+  for (let v = 0; v < ring; v++) continuations.push(v, (v + 1) % ring, (v + 2) % ring);
   return {
-    g: { x: Float64Array.from(xs), y: Float64Array.from(ys), segments: Int32Array.from(segments), straights: new Int32Array(0), crosses: new Int32Array(0) },
+    g: {
+      x: Float64Array.from(xs),
+      y: Float64Array.from(ys),
+      segments: Int32Array.from(segments),
+      straights: new Int32Array(0),
+      crosses: new Int32Array(0),
+      continuations: Int32Array.from(continuations),
+      charges: Int32Array.from(xs, (_, v) => v),
+      isArm: Uint8Array.from(segments.filter((_, i) => i % 2 === 0), (_, s) => s % 2),
+    },
     trapped: ring,
   };
 }

@@ -1,9 +1,13 @@
 /**
  * Evening out a packed layout without changing its picture: the straight-line
- * graph of crossings and waypoints is moved by forces (springs toward one edge
- * length, repulsion between points and segments, strands pulled straight at
- * midpoints and crossings, the four arms of each crossing pulled to right angles and
- * equal length), while every point's step is capped so that no segment can
+ * graph of crossings and waypoints is moved by forces (springs that hold each
+ * crossing's arms at one length and keep the other segments from getting
+ * short, but pull long ones in only weakly, so an edge can be as long as its
+ * route needs instead of crumpling; repulsion between points and segments, and
+ * between all crossings at any distance, as charges, so crowded parts spread
+ * into empty ones; strands pulled straight at midpoints and crossings, and on
+ * along each arm's direction; the four arms of each crossing pulled to right
+ * angles and equal length), while every point's step is capped so that no segment can
  * touch another during the step. So the relaxed graph has exactly the
  * crossings and the cyclic orders of the packed one, and the drawing built on
  * it is the same diagram.
@@ -29,14 +33,31 @@ export interface PlaneGraph {
   readonly straights: Int32Array;
   /** Five-tuples (centre, arm0, arm1, arm2, arm3), arms counterclockwise: pulled to a right-angled cross. */
   readonly crosses: Int32Array;
+  /** Triples (a, b, c) along a strand: c is pulled onto the ray from a through b, keeping its distance from b. */
+  readonly continuations: Int32Array;
+  /** Points that repel each other at every distance, with a force falling as 1/distance. */
+  readonly charges: Int32Array;
+  /** Per segment: 1 for an arm (its rest length is the target), 0 for a segment that may be as short as SLACK_LENGTH. */
+  readonly isArm: Uint8Array;
 }
 
 /** The fixed schedule: same input, same steps, same bytes. */
 const ITERATIONS = 160;
 const REACH = 2; // interaction reach, in target lengths
 const SPRING = 0.5;
+/**
+ * A segment longer than its rest length is pulled in this much more weakly than
+ * a short one is pushed out: the packing leaves outer edges long, and pulling
+ * them to the length of the inner ones squeezes the inner strands into zigzags.
+ */
+const STRETCHED_SPRING = 0.1;
+/** Rest length of a segment that is not an arm, in target lengths. */
+const SLACK_LENGTH = 0.5;
 const SEGMENT_REPULSION = 0.3;
 const STRAIGHTEN = 0.2;
+const CONTINUE = 0.3;
+/** Charge repulsion: two charges at distance d push each other with CHARGE·target²/d. */
+const CHARGE = 0.1;
 const CROSS = 0.5;
 
 /** Relaxes the graph toward segments of length `target`; moves points in place. */
@@ -57,6 +78,8 @@ export function relaxPlaneGraph(g: PlaneGraph, target: number): void {
     const grid = new SegmentGrid(g, reach);
     springs(g, target, fx, fy);
     straighten(g, fx, fy);
+    continueArms(g, fx, fy);
+    repelCharges(g, target, fx, fy);
     cx.fill(0);
     cy.fill(0);
     crosses(g, turn, target, cx, cy);
@@ -87,7 +110,8 @@ function springs(g: PlaneGraph, target: number, fx: Float64Array, fy: Float64Arr
     const dx = x[b]! - x[a]!;
     const dy = y[b]! - y[a]!;
     const length = Math.hypot(dx, dy) || 1e-12;
-    const pull = (SPRING * (length - target)) / length;
+    const rest = g.isArm[i >> 1] ? target : SLACK_LENGTH * target;
+    const pull = ((length > rest ? STRETCHED_SPRING : SPRING) * (length - rest)) / length;
     fx[a] = fx[a]! + pull * dx;
     fy[a] = fy[a]! + pull * dy;
     fx[b] = fx[b]! - pull * dx;
@@ -103,6 +127,45 @@ function straighten(g: PlaneGraph, fx: Float64Array, fy: Float64Array): void {
     const c = straights[i + 2]!;
     fx[b] = fx[b]! + STRAIGHTEN * ((x[a]! + x[c]!) / 2 - x[b]!);
     fy[b] = fy[b]! + STRAIGHTEN * ((y[a]! + y[c]!) / 2 - y[b]!);
+  }
+}
+
+/** The last point of each continuation triple is pulled to where the strand would go on straight. */
+function continueArms(g: PlaneGraph, fx: Float64Array, fy: Float64Array): void {
+  const { x, y, continuations: list } = g;
+  for (let i = 0; i < list.length; i += 3) {
+    const a = list[i]!;
+    const b = list[i + 1]!;
+    const c = list[i + 2]!;
+    const ux = x[b]! - x[a]!;
+    const uy = y[b]! - y[a]!;
+    const along = Math.hypot(x[c]! - x[b]!, y[c]! - y[b]!) / (Math.hypot(ux, uy) || 1e-12);
+    fx[c] = fx[c]! + CONTINUE * (x[b]! + ux * along - x[c]!);
+    fy[c] = fy[c]! + CONTINUE * (y[b]! + uy * along - y[c]!);
+  }
+}
+
+/**
+ * Every pair of charges pushes apart with CHARGE·target²/distance (the
+ * repulsion of Fruchterman and Reingold's force-directed layout), so a crowded
+ * part of the picture spreads into empty room however far away it is. Only the
+ * crossings are charged, so the pairs stay few enough (n²/2 per step).
+ */
+function repelCharges(g: PlaneGraph, target: number, fx: Float64Array, fy: Float64Array): void {
+  const { x, y, charges: list } = g;
+  const strength = CHARGE * target * target;
+  for (let i = 0; i < list.length; i++) {
+    const a = list[i]!;
+    for (let j = i + 1; j < list.length; j++) {
+      const b = list[j]!;
+      const dx = x[a]! - x[b]!;
+      const dy = y[a]! - y[b]!;
+      const push = strength / (dx * dx + dy * dy || 1e-12);
+      fx[a] = fx[a]! + push * dx;
+      fy[a] = fy[a]! + push * dy;
+      fx[b] = fx[b]! - push * dx;
+      fy[b] = fy[b]! - push * dy;
+    }
   }
 }
 

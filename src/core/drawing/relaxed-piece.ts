@@ -35,14 +35,19 @@ export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Floa
   const segments: number[] = [];
   const straights: number[] = [];
   const crosses: number[] = [];
+  const continuations: number[] = [];
+  const isArm: number[] = [];
   for (const e of edges) {
     const t = tail[e]!;
     const h = head[e]!;
     const path = [crossingVertex(t.crossing), endVertex(n, 4 * t.crossing + t.slot), midpointVertex(n, e), endVertex(n, 4 * h.crossing + h.slot), crossingVertex(h.crossing)].map(add);
     for (let k = 0; k < 4; k++) segments.push(path[k]!, path[k + 1]!);
+    isArm.push(1, 0, 0, 1);
     // Only the midpoint is pulled into line: pulling an edge end toward the line from
     // its crossing to the midpoint would fight the right-angled cross (and fold a curl shut).
     straights.push(path[1]!, path[2]!, path[3]!);
+    // The midpoint is pulled on along each arm instead, which turns no arm.
+    continuations.push(path[0]!, path[1]!, path[2]!, path[4]!, path[3]!, path[2]!);
   }
   for (const c of crossings) {
     const arm = (q: number): number => local.get(endVertex(n, 4 * c + q))!;
@@ -56,6 +61,9 @@ export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Floa
     segments: Int32Array.from(segments),
     straights: Int32Array.from(straights),
     crosses: Int32Array.from(crosses),
+    continuations: Int32Array.from(continuations),
+    charges: Int32Array.from(crossings, (c) => local.get(crossingVertex(c))!),
+    isArm: Uint8Array.from(isArm),
   };
   const target = medianSegment(g);
   const packedRatio = crossingSizeRatio(g);
@@ -63,8 +71,8 @@ export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Floa
   if (packedRatio >= EVEN_ENOUGH) {
     const packed = { x: g.x.slice(), y: g.y.slice() };
     relaxPlaneGraph(g, target);
-    // The forces do not always open every crossing into a cross; a piece where
-    // one stays pinched, or that came out no more even, keeps its packing.
+    // A safeguard: should the forces leave a crossing pinched, or the piece no
+    // more even, it keeps its packing.
     if (!crossesOpen(g) || crossingSizeRatio(g) >= packedRatio) {
       g.x.set(packed.x);
       g.y.set(packed.y);
