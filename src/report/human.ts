@@ -113,12 +113,13 @@ export function summaryLine(diagnostics: readonly Diagnostic[]): string {
 
 const counted = (n: number, word: string, plural = `${word}s`) => `${n} ${n === 1 ? word : plural}`;
 
-/** "checked 12 diagrams: 31 claims agree, 14 values filled; table cells: 20 checked or filled, 2 not applicable". */
+/** "checked 12 diagrams: 31 claims agree, 14 values filled, 3 figures; table cells: 20 checked or filled, 2 not applicable". */
 export function checkedLine(c: SessionCounts): string {
   const parts = [`${counted(c.claimsAgree, 'claim')} ${c.claimsAgree === 1 ? 'agrees' : 'agree'}`];
   if (c.claimsContradicted > 0) parts.push(`${c.claimsContradicted} contradicted`);
   if (c.claimsUndecided > 0) parts.push(`${c.claimsUndecided} undecided`);
   parts.push(`${counted(c.valuesFilled, 'value')} filled`);
+  if (c.figures > 0) parts.push(counted(c.figures, 'figure'));
   const cells = [...(c.tableCells > 0 ? [`${c.tableCells} checked or filled`] : []), ...(c.notApplicable > 0 ? [`${c.notApplicable} not applicable`] : [])];
   return `checked ${counted(c.diagrams, 'diagram')}: ${parts.join(', ')}${cells.length > 0 ? `; table cells: ${cells.join(', ')}` : ''}`;
 }

@@ -27,8 +27,8 @@ describe('the clean sample', () => {
   it('passes check with no diagnostics at all', () => {
     const r = skeinproof(['check', GOOD]);
     // The sample has 14 skein blocks and 2 codes written in table rows, 9 prose and 7 header claims, 10 prose fill-ins,
-    // and 60 table cells under claim columns (26 written, 34 empty): 16 + 26 = 42 claims, 10 + 34 = 44 values.
-    expect(r.stdout).toBe('checked 16 diagrams: 42 claims agree, 44 values filled; table cells: 60 checked or filled\nno problems found\n');
+    // and 60 table cells under claim columns (26 written, 34 empty): 16 + 26 = 42 claims, 10 + 34 = 44 values; 3 `::drawing` figures.
+    expect(r.stdout).toBe('checked 16 diagrams: 42 claims agree, 44 values filled, 3 figures; table cells: 60 checked or filled\nno problems found\n');
     expect(r.status).toBe(0);
   });
 

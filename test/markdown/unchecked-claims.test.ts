@@ -97,6 +97,7 @@ describe('what a pass checked', () => {
       valuesFilled: 4,
       tableCells: 5,
       notApplicable: 1,
+      figures: 0,
     });
   });
 

@@ -169,6 +169,8 @@ export interface SessionCounts {
   readonly tableCells: number;
   /** Table cells whose key does not apply to the row's diagram, left empty or marked so. */
   readonly notApplicable: number;
+  /** Figures whose diagram and settings were read without fault (a build draws them). */
+  readonly figures: number;
 }
 
 export interface SessionResult {

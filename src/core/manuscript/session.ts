@@ -143,7 +143,7 @@ export function runSession(input: SessionInput): SessionResult {
   };
   const isDiagramLevel = (e: InputError): boolean => !e.ruleId.startsWith('claim-');
 
-  const counts: { -readonly [K in keyof SessionCounts]: number } = { diagrams: 0, claimsAgree: 0, claimsContradicted: 0, claimsUndecided: 0, valuesFilled: 0, tableCells: 0, notApplicable: 0 };
+  const counts: { -readonly [K in keyof SessionCounts]: number } = { diagrams: 0, claimsAgree: 0, claimsContradicted: 0, claimsUndecided: 0, valuesFilled: 0, tableCells: 0, notApplicable: 0, figures: 0 };
   // Cells that hold no value (a not-applicable mark, or a key that does not apply) are settled first.
   const settled = new Set<ClaimEntry>();
   for (const claim of input.claims) {
@@ -281,6 +281,7 @@ export function runSession(input: SessionInput): SessionResult {
     missing: (target: string, locate: Locator, subject: string) => missing(target, locate, subject, 'drawn', false),
   };
   const figures: (PlacedFigure | undefined)[] = (input.figures ?? []).map((entry) => placeFigure(entry, figureContext, diagnostics));
+  counts.figures = figures.filter((placed) => placed !== undefined).length;
 
   const unmarked = input.diagrams.length + input.claims.length + input.fills.length + (input.figures?.length ?? 0) === 0 && !input.markupFound && (input.refused?.size ?? 0) === 0;
   if (unmarked) {
