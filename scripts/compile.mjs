@@ -31,7 +31,8 @@ const result = await build({
   logLevel: 'warning',
   metafile: true,
   // The disk cache keys values by the engine's version (src/cli/engine-version.ts): a digest of the core's sources.
-  define: { SKEINPROOF_ENGINE_DIGEST: JSON.stringify(digestOfSources(join(root, 'src', 'core'))) },
+  // A Markdown build remembers KaTeX's verdicts by the versions of KaTeX and the packages (src/cli/formats/remembered-math.ts).
+  define: { SKEINPROOF_ENGINE_DIGEST: JSON.stringify(digestOfSources(join(root, 'src', 'core'))), SKEINPROOF_MATH_READER: JSON.stringify(mathReaderVersion()) },
 });
 writeFileSync(join(outdir, 'build-graph.json'), `${JSON.stringify(buildGraph(result.metafile), null, 1)}\n`);
 
@@ -72,6 +73,13 @@ function buildGraph(metafile) {
     };
   }
   return graph;
+}
+
+/** As src/cli/formats/remembered-math.ts computes it from the sources: KaTeX's version and a digest of the package lock. */
+function mathReaderVersion() {
+  const katex = JSON.parse(readFileSync(join(root, 'node_modules', 'katex', 'package.json'), 'utf8'));
+  const lock = createHash('sha256').update(readFileSync(join(root, 'package-lock.json'))).digest('hex');
+  return `katex ${katex.version}, packages ${lock.slice(0, 16)}`;
 }
 
 /** SHA-256 over the relative path and text of every file under `dir`, in sorted order (as src/cli/engine-version.ts computes it). */

@@ -79,7 +79,7 @@ describe('each command loads only what it needs', () => {
   });
 
   it('check of a .md file loads remark and KaTeX (to find math the page could not typeset) but not rehype; writing HTML loads rehype', () => {
-    const checked = loadedBy(['check', 'samples/twists-and-weaves.md']);
+    const checked = loadedBy(['check', 'samples/twists-and-weaves.md', '--no-cache']);
     expect(checked.status).toBe(0);
     expect(checked.packages.has('remark-parse')).toBe(true);
     expect(matching(checked.packages, HTML_STACK)).toEqual(['katex']);
@@ -91,6 +91,19 @@ describe('each command loads only what it needs', () => {
       expect(built.packages.has('rehype-sanitize')).toBe(true);
     } finally {
       rmSync(out, { recursive: true, force: true });
+    }
+  });
+
+  it('a second check of an unchanged .md file with the disk cache does not load KaTeX (the cache remembers its verdicts)', () => {
+    const cache = mkdtempSync(join(tmpdir(), 'skeinproof-loads-cache-'));
+    try {
+      const args = ['check', 'samples/twists-and-weaves.md', '--cache-dir', cache];
+      expect(matching(loadedBy(args).packages, HTML_STACK)).toEqual(['katex']);
+      const warm = loadedBy(args);
+      expect(warm.status).toBe(0);
+      expect(matching(warm.packages, HTML_STACK)).toEqual([]);
+    } finally {
+      rmSync(cache, { recursive: true, force: true });
     }
   });
 });

@@ -16,6 +16,8 @@ import remarkSkeinproof, { applySplices, sourceOffsetOf, SourceText, type Skeinp
 import type { Splice } from '../../../plugins/remark/splice.ts';
 import type { ContradictedSpan } from '../html/page.ts';
 import { decodeManuscript } from '../utf8.ts';
+import type { ResultStore } from '../../core/cache/store.ts';
+import { mathReaderVersion, rememberedMathProblems } from './remembered-math.ts';
 import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat, type OutputFile } from './types.ts';
 
 const HTML_EXTENSIONS = ['.html', '.htm'];
@@ -65,7 +67,7 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
   await processor.run(processor.parse(file), file);
   const data = file.data.skeinproof!;
   const filled = applySplices(text, data.splices);
-  const untypeset = await untypesetMath(text, filled, data.splices, path, data.diagnostics);
+  const untypeset = await untypesetMath(text, filled, data.splices, path, data.diagnostics, options.resultStore);
   // The same strictness the plugin applied: the command line's, else the front matter's.
   const strict = options.strict ?? data.settings.strict ?? false;
   const failed = data.failed || (strict && untypeset.length > 0);
@@ -76,13 +78,12 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
  * Formulas of the filled-in text that KaTeX cannot typeset, located in the manuscript.
  * `check` reports them too, so that check and `build --html` agree.
  */
-async function untypesetMath(text: string, filled: string, splices: readonly Splice[], path: string, reported: readonly Diagnostic[]): Promise<Diagnostic[]> {
-  // KaTeX loads only for a text that can hold math.
+async function untypesetMath(text: string, filled: string, splices: readonly Splice[], path: string, reported: readonly Diagnostic[], store?: ResultStore): Promise<Diagnostic[]> {
+  // KaTeX loads only for a text that can hold math, and only when the disk cache does not remember this text's problems.
   if (!filled.includes('$')) return [];
-  const { mathProblems } = await import('../html/math-problems.ts');
+  const problems = await rememberedMathProblems(filled, { manuscript: path, readerVersion: await mathReaderVersion(), ...(store ? { store } : {}) });
   // The parser's offsets count from after a byte order mark, the splices' from the start of the text.
   const bom = text.startsWith('\uFEFF') ? 1 : 0;
-  const problems = mathProblems(filled);
   if (problems.length === 0) return [];
   const source = new SourceText(text.slice(bom), path);
   // A formula that already has an error inside it (an unreadable claim) gets no second message.

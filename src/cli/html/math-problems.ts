@@ -23,16 +23,34 @@ export interface MathProblem {
   readonly end: number;
 }
 
-export function mathProblems(markdown: string): MathProblem[] {
+/** KaTeX's verdict on one formula, by `formulaKey`: null when it typesets, else KaTeX's message. */
+export type MathVerdicts = ReadonlyMap<string, string | null>;
+
+export interface MathReading {
+  readonly problems: readonly MathProblem[];
+  /** The verdict on every formula of the text (to be remembered for the next run). */
+  readonly verdicts: MathVerdicts;
+}
+
+/** A formula's key among verdicts: display and inline math typeset differently. */
+export function formulaKey(tex: string, displayMode: boolean): string {
+  return `${displayMode ? 'd' : 'i'}${tex}`;
+}
+
+/** The formulas of `markdown` KaTeX cannot typeset; a formula with a verdict in `known` is not typeset again. */
+export function readMath(markdown: string, known: MathVerdicts = new Map()): MathReading {
   const tree = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath).parse(markdown);
   const problems: MathProblem[] = [];
+  const verdicts = new Map<string, string | null>();
   visit(tree, (node) => {
     if (node.type !== 'math' && node.type !== 'inlineMath') return;
     const math = node as Literal; // remark-math's `math` and `inlineMath` nodes carry the TeX as their value
-    const message = katexProblem(math.value, node.type === 'math');
-    if (message !== undefined) problems.push({ message, offset: math.position?.start.offset ?? 0, end: math.position?.end.offset ?? 0 });
+    const key = formulaKey(math.value, node.type === 'math');
+    const verdict = known.has(key) ? known.get(key)! : katexVerdict(key, math.value, node.type === 'math');
+    verdicts.set(key, verdict);
+    if (verdict !== null) problems.push({ message: verdict, offset: math.position?.start.offset ?? 0, end: math.position?.end.offset ?? 0 });
   });
-  return problems;
+  return { problems, verdicts };
 }
 
 /**
@@ -42,8 +60,7 @@ export function mathProblems(markdown: string): MathProblem[] {
 const verdicts = new Map<string, string | null>();
 const MAX_REMEMBERED = 20_000;
 
-function katexProblem(tex: string, displayMode: boolean): string | undefined {
-  const key = `${displayMode ? 'd' : 'i'}${tex}`;
+function katexVerdict(key: string, tex: string, displayMode: boolean): string | null {
   let verdict = verdicts.get(key);
   if (verdict === undefined) {
     try {
@@ -55,5 +72,5 @@ function katexProblem(tex: string, displayMode: boolean): string | undefined {
     if (verdicts.size >= MAX_REMEMBERED) verdicts.clear();
     verdicts.set(key, verdict);
   }
-  return verdict ?? undefined;
+  return verdict;
 }
