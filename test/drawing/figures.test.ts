@@ -12,9 +12,11 @@ import { describe, expect, it } from 'vitest';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { disjointUnion, withFreeLoops } from '../../src/core/diagram/operations.ts';
 import { COMPONENT_COLOURS, drawDiagram, figureSvg, figureTikz, type FigureOptions } from '../../src/core/drawing/index.ts';
+import { flattenCubic } from '../../src/core/drawing/geometry.ts';
 import { figureQuality } from '../../src/core/drawing/quality.ts';
 import { isInputError } from '../../src/core/errors.ts';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
+import { randomBraidWord, rng } from '../support/random-diagrams.ts';
 import { hasPdflatex, pdflatex, tempDir, removeDir } from '../latex/support.ts';
 
 const ARTIFACTS = join(import.meta.dirname, '..', '..', 'test-artifacts', 'figures');
@@ -92,6 +94,28 @@ describe('layout quality', () => {
       const q = figureQuality(drawDiagram(parseDiagramCode(code, notation)));
       expect(q.crossingSizeRatio, code).toBeLessThan(2);
       expect(q.bends.sharpest, code).toBeLessThan(120);
+    }
+  });
+});
+
+describe('crossing numbers', () => {
+  // Legibility (common practice): a number must not sit on a strand or on another number.
+  it('sit clear of the strands and of each other, on small and dense figures', () => {
+    const random = rng(4242);
+    const diagrams = [parseDiagramCode('pretzel -2 3 7', 'family'), parseDiagramCode('torus 3 4', 'family'), closeBraid(randomBraidWord(random, 5, 30), 5), closeBraid(randomBraidWord(random, 7, 80), 7)];
+    for (const d of diagrams) {
+      const drawing = drawDiagram(d, { labels: 'crossings', size: 600 });
+      const ink = drawing.components.flatMap((c) => c.centreLine.flatMap((k) => flattenCubic(k, 40)));
+      const numbers = drawing.labels.filter((l) => l.kind === 'crossing');
+      expect(numbers.length).toBe(d.crossings.length);
+      for (const label of numbers) {
+        const nearest = Math.min(...ink.map((p) => Math.hypot(p.x - label.at.x, p.y - label.at.y)));
+        // Half the text's height plus half the stroke: the digits' box does not reach the stroke's edge.
+        expect(nearest, `crossing ${label.text}`).toBeGreaterThan(0.36 * drawing.fontSize + drawing.lineWidth / 2);
+        for (const other of numbers) {
+          if (other !== label) expect(Math.hypot(other.at.x - label.at.x, other.at.y - label.at.y), `${label.text} and ${other.text}`).toBeGreaterThan(drawing.fontSize);
+        }
+      }
     }
   });
 });

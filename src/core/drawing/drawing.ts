@@ -8,6 +8,7 @@
 import { indexDiagram, type LinkDiagram, type Sign } from '../diagram/model.ts';
 import { chainTangents, componentChain, circleCubics, cutStrokes, perpendicularPair, smoothClosedChain, type ComponentChain, type Stroke } from './curves.ts';
 import { cubicTangent, distance, type Cubic, type Point } from './geometry.ts';
+import { crossingLabelPoints } from './label-placement.ts';
 import { faceLeftOfEdge, layOutDiagram, type DiagramLayout } from './layout.ts';
 import { resolveOptions, type FigureOptions, type LabelChoice } from './options.ts';
 
@@ -187,12 +188,17 @@ function labels(
 ): Label[] {
   const result: Label[] = [];
   if (choice === 'crossings' || choice === 'both') {
-    d.crossings.forEach((_, c) => {
-      // Inside the corner between slots 0 and 1, two thirds of the way out to the corner's circle.
-      const x = layout.crossing[c]!;
-      const k = layout.corner[4 * c]!;
-      result.push({ text: `${c + 1}`, at: place({ x: x.x + (k.x - x.x) * 0.75, y: x.y + (k.y - x.y) * 0.75 }), kind: 'crossing' });
-    });
+    const corners = d.crossings.map((_, c) => ({
+      at: place(layout.crossing[c]!),
+      arms: [0, 1, 2, 3].map((q) => place(layout.end[4 * c + q]!)),
+      text: `${c + 1}`,
+    }));
+    const points = crossingLabelPoints(
+      corners,
+      components.map((k) => k.centreLine),
+      fontSize,
+    );
+    corners.forEach((c, i) => result.push({ text: c.text, at: points[i]!, kind: 'crossing' }));
   }
   if (choice === 'edges' || choice === 'both') {
     chains.forEach((chain, k) => {

@@ -29,8 +29,6 @@ export interface DiagramLayout {
    * sharing no point with it: how far a curve along it may bend.
    */
   readonly segmentRoom: readonly number[];
-  /** Per corner 4c+q: a point inside the corner, for a crossing label. */
-  readonly corner: readonly Point[];
   /** Per free loop: its centre and radius. */
   readonly loops: readonly { readonly centre: Point; readonly radius: number }[];
 }
@@ -92,7 +90,6 @@ export function layOutDiagram(d: LinkDiagram, outerFace?: number): DiagramLayout
     end: Array.from({ length: 4 * n }, (_, s) => at(endVertex(n, s), pieceOfCrossing[s >> 2]!)),
     midpoint: midpoints(d, (e, p) => at(midpointVertex(n, e), p), pieceOfCrossing),
     segmentRoom: Array.from(room),
-    corner: Array.from({ length: 4 * n }, (_, s) => at(cornerVertex(n, s), pieceOfCrossing[s >> 2]!)),
     loops: loops.map((_, i) => ({ centre: { x: offsets[pieceCount + i]!.x, y: offsets[pieceCount + i]!.y }, radius: 1.5 })),
   };
 }
@@ -132,8 +129,9 @@ function boxOf(vertices: readonly number[], n: number, x: Float64Array, y: Float
   let maxX = -Infinity;
   let maxY = -Infinity;
   for (const v of vertices) {
-    // Face centres and fillings are not drawn; the rest are points the curves pass through.
-    if (v >= 11 * n) continue;
+    // Only crossings, edge ends and midpoints are points the curves pass through (corners,
+    // face centres and fillings keep their packed places, which relaxation leaves behind).
+    if (v >= cornerVertex(n, 0)) continue;
     minX = Math.min(minX, x[v]!);
     minY = Math.min(minY, y[v]!);
     maxX = Math.max(maxX, x[v]!);

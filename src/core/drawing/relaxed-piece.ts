@@ -1,12 +1,11 @@
 /**
  * One packed piece of a diagram as a plane graph (crossings, edge ends and
  * midpoints joined along the strands), relaxed by relax.ts so that crossings
- * come out of similar size with right-angled arms, then written back; the
- * corner points (for labels) are set afresh inside the relaxed corners.
+ * come out of similar size with right-angled arms, then written back.
  */
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 import { relaxPlaneGraph, segmentRoom, type PlaneGraph } from './relax.ts';
-import { cornerVertex, crossingVertex, endVertex, midpointVertex } from './triangulation.ts';
+import { crossingVertex, endVertex, midpointVertex } from './triangulation.ts';
 
 /**
  * Relaxes the piece with these crossings in place (x, y indexed by packing
@@ -86,7 +85,6 @@ export function relaxPiece(d: LinkDiagram, crossings: readonly number[], x: Floa
   edges.forEach((e, i) => {
     for (let k = 0; k < 4; k++) roomOut[4 * e + k] = room[4 * i + k]!;
   });
-  for (const c of crossings) placeCorners(n, c, x, y);
 }
 
 /** The crossing size ratio (largest over smallest shortest arm) from which a piece is relaxed: the target. */
@@ -136,22 +134,4 @@ function medianSegment(g: PlaneGraph): number {
   }
   lengths.sort((a, b) => a - b);
   return lengths[lengths.length >> 1]!;
-}
-
-/** Each corner point on the bisector of its two arms, half the shorter arm out. */
-function placeCorners(n: number, c: number, x: Float64Array, y: Float64Array): void {
-  const cx = x[crossingVertex(c)]!;
-  const cy = y[crossingVertex(c)]!;
-  for (let q = 0; q < 4; q++) {
-    const a = endVertex(n, 4 * c + q);
-    const b = endVertex(n, 4 * c + ((q + 1) & 3));
-    const la = Math.hypot(x[a]! - cx, y[a]! - cy);
-    const lb = Math.hypot(x[b]! - cx, y[b]! - cy);
-    const ux = (x[a]! - cx) / la + (x[b]! - cx) / lb;
-    const uy = (y[a]! - cy) / la + (y[b]! - cy) / lb;
-    const u = Math.hypot(ux, uy) || 1;
-    const reach = 0.5 * Math.min(la, lb);
-    x[cornerVertex(n, 4 * c + q)] = cx + (ux / u) * reach;
-    y[cornerVertex(n, 4 * c + q)] = cy + (uy / u) * reach;
-  }
 }
