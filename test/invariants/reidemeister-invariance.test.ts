@@ -17,12 +17,12 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
-import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { mirrorDiagram, writhe, type LinkDiagram } from '../../src/core/diagram/model.ts';
 import { parseDiagramCode, printPdCode } from '../../src/core/notation/index.ts';
-import { INVARIANTS } from '../../src/core/invariants/registry/index.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
+import { simplifyDiagram } from '../../src/core/simplify/simplify.ts';
+import { registryFields } from '../support/registry-fields.ts';
 import { randomBraidWord, rng, shuffleDiagram } from '../support/random-diagrams.ts';
 import { pushFinger, randomMove, randomMoves, type MoveKind } from '../support/reidemeister.ts';
 
@@ -51,13 +51,6 @@ const LINK_INVARIANT_FIELDS = [
 /** JSON fields that are bounds: two diagrams of one link must give overlapping ranges and equal exact values. */
 const BOUND_FIELDS = ['crossingNumber', 'braidIndex'] as const;
 
-function jsonFields(d: LinkDiagram): Map<string, unknown> {
-  const report = analyzeDiagram(d);
-  const fields = new Map<string, unknown>();
-  for (const invariant of INVARIANTS) for (const f of invariant.json) fields.set(f.field, f.value(report, DEFAULT_CONVENTION));
-  return fields;
-}
-
 interface Bounds {
   readonly lower: number;
   readonly upper: number;
@@ -66,7 +59,7 @@ interface Bounds {
 
 /** The link's values: exact fields, the linking numbers as a sorted list (components may be renumbered), bounds. */
 function linkValues(d: LinkDiagram): { exact: Record<string, unknown>; bounds: Record<string, Bounds> } {
-  const fields = jsonFields(d);
+  const fields = registryFields(d);
   const exact: Record<string, unknown> = {};
   for (const f of LINK_INVARIANT_FIELDS) {
     if (!fields.has(f)) throw new Error(`the registry has no JSON field ${f}: update this test`);
@@ -124,6 +117,19 @@ describe('registered link invariants are unchanged by random Reidemeister moves 
   });
 });
 
+describe('the simplifier keeps the link (its moves are Reidemeister moves and flypes; common practice)', () => {
+  it('the smaller diagram it finds has every link invariant of the diagram it started from (fast-check, seed 1926)', () => {
+    fc.assert(
+      fc.property(diagramArbitrary, fc.integer(), (d, seed) => {
+        const { diagram } = randomMoves(d, 6, rng(seed));
+        const smaller = simplifyDiagram(diagram).diagram;
+        expectSameLink(diagram, smaller, `${describeDiagram(diagram)} simplified to ${describeDiagram(smaller)}`);
+      }),
+      { seed: 1926, numRuns: 60 },
+    );
+  });
+});
+
 describe('the Kauffman bracket under the moves (Kauffman, Topology 26 (1987))', () => {
   it('II and III keep ⟨D⟩; I multiplies it by −A^(3·sign of the new crossing), so (−A³)^(−w)⟨D⟩ is kept', () => {
     fc.assert(
@@ -149,7 +155,7 @@ describe('mirror images (common practice; Khovanov, Duke Math. J. 101 (2000), Pr
   it('V(t) → V(t⁻¹), σ → −σ, lk → −lk, P(v, z) → P(−v⁻¹, z), F(a, z) → F(a⁻¹, z), s → −s, Δ and ∇ times (−1)^(μ−1); det, Arf, span kept', () => {
     fc.assert(
       fc.property(diagramArbitrary, (d) => {
-        const [a, m] = [jsonFields(d), jsonFields(mirrorDiagram(d))];
+        const [a, m] = [registryFields(d), registryFields(mirrorDiagram(d))];
         const terms = (f: string, from: Map<string, unknown>) => (from.get(f) as { terms: (readonly (number | string)[])[] }).terms;
         // Terms are listed by ascending exponents (the first, then the second): sort the flipped ones alike.
         const flipped = (ts: (readonly (number | string)[])[], flip: (t: readonly (number | string)[]) => (number | string)[]) =>
