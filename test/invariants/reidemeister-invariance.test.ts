@@ -24,6 +24,7 @@ import { Laurent } from '../../src/core/poly/laurent.ts';
 import { simplifyDiagram } from '../../src/core/simplify/simplify.ts';
 import { registryFields } from '../support/registry-fields.ts';
 import { randomBraidWord, rng, shuffleDiagram } from '../support/random-diagrams.ts';
+import { reverseComponent } from '../support/reverse-component.ts';
 import { pushFinger, randomMove, randomMoves, type MoveKind } from '../support/reidemeister.ts';
 
 /** JSON fields whose value is an invariant of the oriented link, compared exactly. */
@@ -177,6 +178,32 @@ describe('mirror images (common practice; Khovanov, Duke Math. J. 101 (2000), Pr
       }),
       { seed: 318, numRuns: 50 },
     );
+  });
+});
+
+describe('reversing one component K of a link, with λ = lk(K, L − K)', () => {
+  it('V becomes t^(−3λ)V (Lickorish, An Introduction to Knot Theory, Prop. 3.7, from memory), F becomes a^(4λ)F (F = a^(−w)Λ with Λ unoriented: w drops by 4λ), lk(K, ·) changes sign, det is kept and |Δσ| = 2|λ| (Murasugi 1965, sign left open)', () => {
+    let linked = 0;
+    fc.assert(
+      fc.property(diagramArbitrary, fc.nat(), (d, pick) => {
+        if (d.components.length < 2) return;
+        const k = pick % d.components.length;
+        const turned = reverseComponent(d, k);
+        const [a, b] = [registryFields(d), registryFields(turned)];
+        const lambda = analyzeDiagram(d).linking.filter((l) => l.components.includes(k)).reduce((s, l) => s + l.value, 0);
+        if (lambda !== 0) linked++;
+        const jones = (f: Map<string, unknown>) => (f.get('jones') as { terms: [number, string][] }).terms;
+        expect(jones(b)).toEqual(jones(a).map(([e, c]) => [e - 3 * lambda, c]));
+        const kauffman = (f: Map<string, unknown>) => (f.get('kauffman') as { terms: [number, number, string][] }).terms;
+        expect(kauffman(b)).toEqual(kauffman(a).map(([i, j, c]) => [i + 4 * lambda, j, c]));
+        expect(b.get('determinant')).toBe(a.get('determinant'));
+        expect(Math.abs((b.get('signature') as number) - (a.get('signature') as number))).toBe(2 * Math.abs(lambda));
+        const lkSum = (f: Map<string, unknown>) => (f.get('linking') as { value: number }[]).reduce((s, l) => s + l.value, 0);
+        expect(lkSum(b)).toBe(lkSum(a) - 2 * lambda);
+      }),
+      { seed: 1965, numRuns: 80 },
+    );
+    expect(linked, 'links with λ ≠ 0 among the random ones').toBeGreaterThan(15);
   });
 });
 
