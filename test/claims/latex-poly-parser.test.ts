@@ -96,6 +96,12 @@ describe('reading polynomials as authors type them in LaTeX math (forms: common 
     expect(() => readPolynomial('t^{123456}', inT)).toThrow(/too large to be meant/);
     expect(() => readNumber('7x', 'the writhe')).toThrow(/unexpected `x`: the writhe is a number/);
   });
+  it('says what a number is written with, and names a digit of another script, rather than describing a polynomial (a full-width ３ is U+FF13: Unicode, common practice)', () => {
+    expect(() => readInteger('３', 'the determinant')).toThrow(/unexpected character `３` \(a digit of another script\): the determinant is written with the digits 0–9$/);
+    expect(() => readNumber('½', 'the degree')).toThrow(/unexpected character `½`: the degree is written with the digits 0–9, a sign and a fraction such as `5\/2`$/);
+    expect(() => readNumber('½', 'the degree')).not.toThrow(/polynomial/);
+    expect(() => readPolynomial('t + ３', inT)).toThrow(/unexpected character `３` \(a digit of another script: write the digits 0–9\): a polynomial is made of integers/);
+  });
 });
 
 describe('refusing unreadable claims with a located, compiler-style message', () => {

@@ -270,7 +270,15 @@ class PolynomialParser {
         stray,
       );
     }
-    if (stray) fail(`unexpected character \`${stray.text}\`: a polynomial is made of integers, its variable, + − · ^ and brackets`, stray);
+    if (stray) {
+      // A digit of another script (a full-width ３ from an East Asian input method) looks right but is not read.
+      const foreignDigit = /^\p{Nd}$/u.test(stray.text);
+      if (this.readingNumber) {
+        const how = this.options.whole ? 'the digits 0–9' : 'the digits 0–9, a sign and a fraction such as `5/2`';
+        fail(`unexpected character \`${stray.text}\`${foreignDigit ? ' (a digit of another script)' : ''}: ${this.what()} is written with ${how}`, stray);
+      }
+      fail(`unexpected character \`${stray.text}\`${foreignDigit ? ' (a digit of another script: write the digits 0–9)' : ''}: a polynomial is made of integers, its variable, + − · ^ and brackets`, stray);
+    }
   }
 
   /** TeX braces must balance; an unclosed `{` is the fault, not whatever its group swallowed. */
