@@ -101,6 +101,24 @@ describe('what a pass checked', () => {
     });
   });
 
+  it('counts a family code with a free parameter as one diagram, and one whose instance is refused as none', async () => {
+    const text = [
+      '```skein id=tn notation=family for="n=3..7 step 2"',
+      'torus 2 n',
+      '```',
+      '',
+      '```skein id=tw notation=family for="k=-1..1"',
+      'twist k',
+      '```',
+      '',
+      // det T(2, n) = n (from memory: |Δ(−1)| of the (2, n) torus knot).
+      'Its determinant is :determinant[$n$]{of=tn}.',
+      '',
+    ].join('\n');
+    const r = await processMarkdown(text);
+    expect(r.file.data.skeinproof!.session.counts).toMatchObject({ diagrams: 1, claimsAgree: 1 });
+  });
+
   it('a manuscript without skeinproof markup gets a warning at its start', async () => {
     for (const text of ['', '# A paper\n\nIt has $V(t) = t + t^3 - t^4$ but no markup.\n']) {
       const r = await processMarkdown(text);

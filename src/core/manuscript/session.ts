@@ -296,7 +296,8 @@ export function runSession(input: SessionInput): SessionResult {
 
   const ordered = diagnostics.map((d, i) => ({ d, i })).sort((a, b) => compareLocations(a.d.location, b.d.location) || a.i - b.i).map((x) => x.d);
   const failed = ordered.some((d) => d.severity === 'error' || (input.strict === true && d.severity === 'warning'));
-  counts.diagrams = reports.size; // diagrams an engine refused on first use are no longer among them
+  // Diagrams an engine refused on first use are no longer among the reports; a family code with a free parameter is one diagram.
+  counts.diagrams = reports.size + parametric.size;
   return { diagnostics: ordered, fills, figures, reports, failed, counts };
 }
 
