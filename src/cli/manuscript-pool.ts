@@ -20,6 +20,16 @@ import type { FileResultStore } from './result-store.ts';
 
 type Outcome = DiagramValues | { readonly lost: string };
 
+/**
+ * The least work left (at the pace of the diagrams computed so far) for which a manuscript starts its
+ * workers. A manuscript pays more for a pool than a batch does: the main thread reads every diagram a
+ * worker computed again (its code, claims and fill-ins, to report them in place), its session and
+ * output are serial, and each worker starts cold. Measured side by side on the 2-core machine, the
+ * 200-diagram manuscript of bench/cache.ts (about 2 s of diagrams) lost with two threads on an idle
+ * machine (0.85×), where a batch of 20 s gained 1.14×: below about 5 s of diagrams the pool cannot win here.
+ */
+const MANUSCRIPT_POOL_PAYS_MS = 5000;
+
 export interface ManuscriptValuesOptions {
   /** Threads computing, this one included. */
   readonly jobs: number;
@@ -83,6 +93,7 @@ export class ManuscriptValues {
       const outcomes = computeInOrder<DiagramTask, Outcome>(asyncList(fresh), {
         jobs: this.options.jobs,
         total: fresh.length,
+        poolPaysMs: MANUSCRIPT_POOL_PAYS_MS,
         job: { kind: 'diagram-values', job },
         // In this thread the values go straight into the session's store, and the diagrams into its `readBefore`.
         runHere: (task) => {

@@ -25,7 +25,7 @@ const CHUNK_MS = 40;
 const MAX_CHUNK = 512;
 /** Chunks sent to a worker at a time (one computing, the others queued, so a worker never waits on this thread). */
 const CHUNKS_PER_WORKER = 3;
-/** A pool is started only for at least this much work left (when the total is known): less does not pay for the workers' start-up. */
+/** By default a pool is started only for at least this much work left (when the total is known): less does not pay for the workers' start-up. */
 const POOL_PAYS_MS = 1000;
 /** Compute in this thread for this long before a pool is started (override: SKEINPROOF_POOL_AFTER_MS). */
 const DEFAULT_IN_PROCESS_MS = 300;
@@ -41,6 +41,8 @@ export interface PoolSpec<T, R> {
   readonly lost: (task: T, reason: string) => R;
   /** The number of tasks, when known: a pool is then started only when the work left is worth it. */
   readonly total?: number;
+  /** The least work left, estimated from the pace so far, for which a pool is started (default 1 s; needs `total`). */
+  readonly poolPaysMs?: number;
   /** Time computed in this thread before a pool is started (default 300 ms; 0 starts it at once and sends every task to the workers). */
   readonly inProcessMs?: number;
 }
@@ -89,7 +91,7 @@ export async function* computeInOrder<T, R>(tasks: AsyncIterable<T>, spec: PoolS
   let computed = 0;
   // With a known total, the pool starts only when the work left, at the pace so far, is worth its start-up.
   const leftMs = (): number => (spec.total === undefined ? Infinity : ((performance.now() - started) / Math.max(computed, 1)) * (spec.total - computed));
-  while (performance.now() - started < limitMs || (computed === 0 && limitMs > 0) || (limitMs > 0 && leftMs() < POOL_PAYS_MS)) {
+  while (performance.now() - started < limitMs || (computed === 0 && limitMs > 0) || (limitMs > 0 && leftMs() < (spec.poolPaysMs ?? POOL_PAYS_MS))) {
     const next = await iterator.next();
     if (next.done) return;
     yield spec.runHere(next.value);
