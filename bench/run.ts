@@ -189,6 +189,7 @@ await import('./classical.ts').then((classical) => classical.runClassicalBench()
 await import('./khovanov.ts').then((khovanov) => khovanov.runKhovanovBench());
 await import('./speed.ts').then((speed) => speed.runSpeedBench());
 await import('./cache.ts').then((cache) => cache.runCacheBench());
+await import('./big-markdown.ts').then((big) => big.runBigMarkdownBench());
 await import('./skein-polynomials.ts').then((skein) => skein.runSkeinPolynomialBench());
 await import('./arf.ts').then((arf) => arf.runArfBench());
 await import('./figures.ts').then((figures) => figures.runFigureBench());

@@ -90,7 +90,14 @@ export async function* computeInOrder<T, R>(tasks: AsyncIterable<T>, spec: PoolS
   const started = performance.now();
   let computed = 0;
   // With a known total, the pool starts only when the work left, at the pace so far, is worth its start-up.
-  const leftMs = (): number => (spec.total === undefined ? Infinity : ((performance.now() - started) / Math.max(computed, 1)) * (spec.total - computed));
+  const startedCpu = process.cpuUsage();
+  // The pace is the smaller of wall and CPU time: on a busy machine wall time counts other people's work,
+  // which would start a pool exactly when the machine has no core to spare for it.
+  const spentMs = (): number => {
+    const cpu = process.cpuUsage(startedCpu);
+    return Math.min(performance.now() - started, (cpu.user + cpu.system) / 1000);
+  };
+  const leftMs = (): number => (spec.total === undefined ? Infinity : (spentMs() / Math.max(computed, 1)) * (spec.total - computed));
   while (performance.now() - started < limitMs || (computed === 0 && limitMs > 0) || (limitMs > 0 && leftMs() < (spec.poolPaysMs ?? POOL_PAYS_MS))) {
     const next = await iterator.next();
     if (next.done) return;
