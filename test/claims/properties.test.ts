@@ -10,7 +10,7 @@ import fc from 'fast-check';
 import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
 import { DEFAULT_CONVENTION, type Convention } from '../../src/core/convention/convention.ts';
 import { conventionBracket, conventionJones, jonesLetter } from '../../src/core/convention/convert.ts';
-import { CLAIM_KEYS, judgeClaim, polynomialLatex, typesetValue, type DiagnosisKind } from '../../src/core/claims/index.ts';
+import { CLAIM_KEYS, FILL_KEYS, inapplicableBecause, isClaimKey, judgeClaim, polynomialLatex, typesetValue, type ClaimKey, type DiagnosisKind } from '../../src/core/claims/index.ts';
 import { InputError } from '../../src/core/errors.ts';
 import { rng, randomDiagram } from '../support/random-diagrams.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
@@ -89,6 +89,37 @@ describe('judging properties on random diagrams', () => {
         return true;
       }),
       { numRuns: 40 },
+    );
+  });
+});
+
+describe('every key the tool fills in reads back as agreeing (a value it writes is a value it accepts; common practice)', () => {
+  // Every setting of every convention key, not only those of the Jones polynomial and the bracket.
+  const fullConventionArb: fc.Arbitrary<Convention> = fc.record({
+    jonesVariable: fc.constantFrom('t', 't-inverse', 'q', 'q-graded'),
+    bracketNormalization: fc.constantFrom('unit', 'loop'),
+    termOrder: fc.constantFrom('ascending', 'descending'),
+    halfPowers: fc.constantFrom('power', 'root'),
+    signatureSign: fc.constantFrom('negative', 'positive'),
+    khovanovGrading: fc.constantFrom('standard', 'q-inverse', 'homological', 'mirror'),
+    homflyVariables: fc.constantFrom('vz', 'az'),
+    kauffmanVariant: fc.constantFrom('kauffman', 'dubrovnik'),
+  }) as fc.Arbitrary<Convention>;
+  const keys = FILL_KEYS.filter((key) => isClaimKey(key));
+
+  it(`for ${keys.length} keys, in prose and in a table cell, on random diagrams (fast-check, seed 4242)`, () => {
+    expect(keys).toEqual(expect.arrayContaining(['jones', 'signature', 'homfly', 'kauffman', 'khovanov', 'crossing-number', 'arf', 'linking']));
+    fc.assert(
+      fc.property(reportArb, fullConventionArb, fc.boolean(), (report, convention, compact) => {
+        for (const key of keys) {
+          if (inapplicableBecause(key, report) !== undefined) continue;
+          const t = typesetValue(key, report, convention, { compact });
+          const text = t.kind === 'math' ? t.latex : t.text;
+          const j = judgeClaim(key as ClaimKey, text, report, { convention });
+          expect(j.verdict, `${key} = ${text} in ${JSON.stringify(convention)}: ${j.reason ?? ''}`).toBe('agrees');
+        }
+      }),
+      { seed: 4242, numRuns: 40 },
     );
   });
 });

@@ -1,4 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { analyzeDiagram } from '../../src/core/analyze/analyze.ts';
+import { judgeClaim } from '../../src/core/claims/index.ts';
+import { braidIndexLatex } from '../../src/core/claims/skein-polynomial-claims.ts';
+import { DEFAULT_CONVENTION } from '../../src/core/convention/convention.ts';
+import { braidIndexOf } from '../../src/core/invariants/registered/skein-values.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { componentCount, type LinkDiagram } from '../../src/core/diagram/model.ts';
 import { connectedSum } from '../../src/core/diagram/operations.ts';
@@ -43,6 +48,27 @@ describe('braid index', () => {
   it('a braid closure with surplus strands still gets the Seifert bound, and the unknot on 3 strands gets 1..3', () => {
     const b = bounds(closeBraid([1, -2], 3));
     expect([b.lower, b.upper, b.exact]).toEqual([1, 3, null]);
+  });
+});
+
+describe('braid-index claims: one number, one bound or a range, as crossing-number claims are written', () => {
+  // 5₂ drawn from its DT code: MFW gives 3, the drawing's Seifert circles 4; its braid index is 3 (from memory).
+  const fiveTwo = () => analyzeDiagram(parseDiagramCode('4 8 10 2 6', 'dt'));
+  const verdict = (text: string, report = fiveTwo()) => judgeClaim('braid-index', text, report, { convention: DEFAULT_CONVENTION }).verdict;
+  it('judges against the proven bounds 3 ≤ b ≤ 4 of this drawing of 5₂', () => {
+    expect(braidIndexLatex(braidIndexOf(fiveTwo()))).toBe('3 \\le b \\le 4');
+    expect(['3', '\\ge 3', '3 \\le b \\le 4', '3--4', 'between 2 and 5', 'b(K) \\le 4'].map((t) => verdict(t))).toEqual(['undecided', 'agrees', 'agrees', 'agrees', 'agrees', 'agrees']);
+    expect(['2', '\\le 2', '\\ge 5', '5-6'].map((t) => verdict(t))).toEqual(['contradicts', 'contradicts', 'contradicts', 'contradicts']);
+    expect(['\\le 3', '4', '2 \\le b \\le 3'].map((t) => verdict(t))).toEqual(['undecided', 'undecided', 'undecided']);
+  });
+  it('an exact braid index (the trefoil, 2: Franks–Williams 1987) agrees with itself and a range around it, and names the bounds when contradicted', () => {
+    const trefoil = analyzeDiagram(closeBraid([1, 1, 1], 2));
+    expect(['2', '1--3', '\\le 2'].map((t) => verdict(t, trefoil))).toEqual(['agrees', 'agrees', 'agrees']);
+    expect(judgeClaim('braid-index', '3', trefoil, { convention: DEFAULT_CONVENTION }).reason).toMatch(/^the braid index is 2, so it is not 3: .*Morton–Franks–Williams/);
+  });
+  it('refuses what is not a count, naming the braid index', () => {
+    expect(() => verdict('3 \\le b \\ge 2')).toThrow(/must point the same way, as in 5 \\le b \\le 7/);
+    expect(() => verdict('two')).toThrow(/the braid index/);
   });
 });
 

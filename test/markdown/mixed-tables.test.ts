@@ -48,6 +48,18 @@ describe('Markdown: knots and links in one table', () => {
     expect(r.file.data.skeinproof!.session.counts.notApplicable).toBe(6);
   });
 
+  it("knot-only Khovanov keys (Rasmussen's s, reduced homology) behave alike: a link row takes a mark or an empty cell, a knot row is filled, and a prose fill-in for a link is an error, not text in the paper", async () => {
+    // s(right-handed trefoil) = 2 (Rasmussen 2010, from memory); s and reduced Kh are defined for knots only (common practice).
+    const table = ':::invariants\n| diagram | s | reduced Kh |\n|---|---|---|\n| hopf | — | |\n| t3 | | |\n:::\n';
+    const r = await processMarkdown(`${DIAGRAMS}${table}\nThen s is :rasmussen{of=hopf} and reduced Kh is :khovanov-reduced{of=hopf}.\n`);
+    expect(placed(r.diagnostics)).toEqual(['error claim-inapplicable 19:11', 'error claim-inapplicable 19:49']);
+    expect(r.diagnostics[0]!.message).toMatch(/Rasmussen's s is defined here for knots, but this diagram has 2 components/);
+    expect(r.file.data.skeinproof!.session.counts.notApplicable).toBe(2);
+    const built = (await processMarkdown(`${DIAGRAMS}${table}`)).built;
+    expect(built).toContain('| hopf | — | |\n| t3 | $2$ | $q^{2} + t^{2}q^{6} + t^{3}q^{8}$ |');
+    expect(built).not.toContain('knots only');
+  });
+
   it('a value in a knot row, and a not-applicable mark in a link row, are errors', async () => {
     const text = `${DIAGRAMS}:::invariants\n| diagram | linking | writhe |\n|---|---|---|\n| t3 | $0$ | $3$ |\n| hopf | — | n/a |\n:::\n`;
     const r = await processMarkdown(text);

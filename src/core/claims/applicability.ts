@@ -10,7 +10,7 @@ import { invariantOfKey } from '../invariants/registry/index.ts';
 
 /** Why `key` does not apply to the diagram, or undefined when it does. */
 export function inapplicableBecause(key: string, report: DiagramReport): string | undefined {
-  return invariantOfKey(key)?.inapplicable?.(report);
+  return invariantOfKey(key)?.inapplicable?.(report, key);
 }
 
 /** Throws `claim-inapplicable` when `key` does not apply to the diagram. */

@@ -278,21 +278,27 @@ export function khovanovFill(key: 'khovanov' | 'khovanov-reduced' | 'khovanov-wi
     case 'khovanov':
       return { kind: 'math', latex: poincareLatex(inGrading(kh.homology, convention.khovanovGrading).ranks, convention) };
     case 'khovanov-reduced':
-      if (!kh.reduced) return KNOTS_ONLY;
+      if (!kh.reduced) throw inapplicable(key, report);
       return { kind: 'math', latex: poincareLatex(inGrading(kh.reduced, convention.khovanovGrading).ranks, convention) };
     case 'khovanov-width':
       return { kind: 'math', latex: String(kh.width) };
     case 'rasmussen':
-      if (kh.rasmussen === null) return KNOTS_ONLY;
+      if (kh.rasmussen === null) throw inapplicable(key, report);
       return { kind: 'math', latex: String(kh.rasmussen) };
   }
 }
 
-/** A knot-only value asked of a link. */
-const KNOTS_ONLY: Typeset = { kind: 'text', text: '(defined for knots only)' };
+/** The keys whose values are defined for knots only, with their nouns. */
+const KNOT_ONLY: Readonly<Record<string, string>> = { 'khovanov-reduced': 'reduced Khovanov homology', rasmussen: "Rasmussen's s" };
 
-function inapplicable(what: string, report: DiagramReport): InputError {
-  return new InputError('claim-inapplicable', `${what} is defined here for knots, but this diagram has ${report.components} components; remove the claim or attach it to a knot`);
+/** Why `key` does not apply to the diagram (a knot-only value asked of a link), or undefined when it does. */
+export function khovanovInapplicable(report: DiagramReport, key: string): string | undefined {
+  const noun = KNOT_ONLY[key];
+  return noun !== undefined && report.components !== 1 ? `${noun} is defined here for knots, but this diagram has ${report.components} components` : undefined;
+}
+
+function inapplicable(key: 'khovanov-reduced' | 'rasmussen', report: DiagramReport): InputError {
+  return new InputError('claim-inapplicable', `${khovanovInapplicable(report, key) ?? `${KNOT_ONLY[key]} is not defined for this diagram`}; remove the claim or attach it to a knot`);
 }
 
 // ---------------------------------------------------------------- judging
@@ -346,7 +352,7 @@ export function judgePoincareClaim(key: 'khovanov' | 'khovanov-reduced', text: s
   const reduced = key === 'khovanov-reduced';
   const noun = reduced ? 'reduced Khovanov Poincaré polynomial' : 'Khovanov Poincaré polynomial';
   const own = reduced ? kh.reduced : kh.homology;
-  if (!own) throw inapplicable('reduced Khovanov homology', report);
+  if (!own) throw inapplicable('khovanov-reduced', report);
   const grading = ctx.convention.khovanovGrading;
   const computed = inGrading(own, grading).ranks;
   const computedText = poincareLatex(computed, ctx.convention);
@@ -473,7 +479,7 @@ export function judgeThinClaim(text: string, report: DiagramReport): Judgement {
 export function judgeRasmussenClaim(text: string, report: DiagramReport): Judgement {
   const claimed = readInteger(text, "Rasmussen's s");
   const kh = khovanovOf(report);
-  if (kh.rasmussen === null) throw inapplicable("Rasmussen's s", report);
+  if (kh.rasmussen === null) throw inapplicable('rasmussen', report);
   const s = kh.rasmussen;
   const computed = String(s);
   const base = { key: 'rasmussen', claimed: text, computed };

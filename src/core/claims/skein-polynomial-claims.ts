@@ -11,6 +11,7 @@ import type { Arf, ArfResult } from '../invariants/arf.ts';
 import type { BraidIndexBounds } from '../invariants/braid-index.ts';
 import { Laurent2 } from '../poly/laurent2.ts';
 import type { Judgement } from './api.ts';
+import { readCountClaim, type Count } from './count-claim.ts';
 import { readInteger, readPolynomial, splitPaired, UNREADABLE } from './latex-poly-parser.ts';
 
 export type SkeinKey = 'homfly' | 'kauffman';
@@ -133,20 +134,20 @@ export function judgeSkeinClaim(key: SkeinKey, noun: string, text: string, value
   return { key, claimed: text, verdict: 'contradicts', computed, diagnosis: { kind: 'none', detail: 'no single common slip explains the difference' }, reason: `the ${noun} is ${computed}` };
 }
 
+const BRAID_INDEX: Count = { noun: 'braid index', symbol: 'b' };
+
+/** One number, one bound or a range (as for crossing numbers), judged against the proven bounds. */
 export function judgeBraidIndexClaim(text: string, bounds: BraidIndexBounds): Judgement {
-  const claimed = Number(readInteger(text, 'a braid index'));
-  const computed = bounds.exact !== null ? `${bounds.exact}` : `${bounds.lower} \\le b \\le ${bounds.upper}`;
+  const claim = readCountClaim(text, BRAID_INDEX);
+  const base = { key: 'braid-index', claimed: text, computed: braidIndexLatex(bounds) };
   const why = bounds.reasons.map((r) => r.text).join(' ');
-  if (bounds.exact !== null) {
-    return claimed === bounds.exact
-      ? { key: 'braid-index', claimed: text, verdict: 'agrees', computed, reason: why }
-      : { key: 'braid-index', claimed: text, verdict: 'contradicts', computed, reason: `the braid index is ${bounds.exact}: ${why}` };
+  const known = bounds.exact !== null ? `${bounds.exact}` : `between ${bounds.lower} and ${bounds.upper}`;
+  if (claim.high < bounds.lower || claim.low > bounds.upper) {
+    const broken = bounds.exact !== null ? why : (claim.high < bounds.lower ? bounds.reasons[0]! : bounds.reasons[1]!).text;
+    return { ...base, verdict: 'contradicts', reason: `the braid index is ${known}, so it is not ${claim.words}: ${broken}` };
   }
-  if (claimed < bounds.lower || claimed > bounds.upper) {
-    const broken = claimed < bounds.lower ? bounds.reasons[0]! : bounds.reasons[1]!;
-    return { key: 'braid-index', claimed: text, verdict: 'contradicts', computed, reason: `a braid index of ${claimed} is ruled out: ${broken.text}` };
-  }
-  return { key: 'braid-index', claimed: text, verdict: 'undecided', computed, reason: `the proven bounds leave ${bounds.lower} to ${bounds.upper} open: ${why}` };
+  if (claim.low <= bounds.lower && bounds.upper <= claim.high) return { ...base, verdict: 'agrees', reason: `the braid index is ${known}, so it is ${claim.words}: ${why}` };
+  return { ...base, verdict: 'undecided', reason: `the proven bounds leave ${bounds.lower} to ${bounds.upper} open, so whether the braid index is ${claim.words} is open: ${why}` };
 }
 
 export function braidIndexLatex(bounds: BraidIndexBounds): string {

@@ -13,7 +13,7 @@ export const braidIndexInvariant: Invariant = {
       key: 'braid-index',
       noun: 'braid index',
       aliases: ['braid index', 'b(K)', 'b(L)'],
-      valueDoc: 'a natural number; judged agrees, contradicts, or undecided when the proven bounds leave it open',
+      valueDoc: 'a natural number, one bound or a range, written as for the crossing number (`\\le 3`, `2 \\le b \\le 3`, `2–3`); judged agrees, contradicts, or undecided when the proven bounds leave it open',
       example: '2',
       changedBy: [],
       judge: (text, report) => judgeBraidIndexClaim(text, braidIndexOf(report)),

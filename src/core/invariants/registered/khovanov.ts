@@ -9,6 +9,7 @@ import {
   judgeThinClaim,
   judgeWidthClaim,
   khovanovFill,
+  khovanovInapplicable,
   khovanovOf,
 } from '../../claims/khovanov-claims.ts';
 import type { KhovanovReport } from '../khovanov/index.ts';
@@ -52,6 +53,7 @@ export const khovanovInvariant: Invariant = {
     "the homological width over ℚ, thinness and Rasmussen's s over ℚ from Bar-Natan's deformation; the grading is declared " +
     '(right-handed trefoil q + q³ + t²q⁵ + t³q⁹ with ℤ/2 at (3, 7) by default).',
   cost: 'contraction',
+  inapplicable: khovanovInapplicable,
   conventions: ['khovanov', 'order'],
   claims: [
     {

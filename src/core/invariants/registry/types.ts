@@ -82,11 +82,11 @@ export interface Invariant {
    */
   readonly conventions: readonly string[];
   /**
-   * Why the invariant's keys do not apply to this diagram (a linking number of a knot), or undefined when they
-   * do. A prose claim or fill-in of an inapplicable key is `claim-inapplicable`; a table cell may be empty or
-   * hold a not-applicable mark instead. Absent: the keys apply to every diagram.
+   * Why the invariant's key `key` does not apply to this diagram (a linking number of a knot, Rasmussen's s of a
+   * link), or undefined when it does. A prose claim or fill-in of an inapplicable key is `claim-inapplicable`; a
+   * table cell may be empty or hold a not-applicable mark instead. Absent: the keys apply to every diagram.
    */
-  readonly inapplicable?: (report: DiagramReport) => string | undefined;
+  readonly inapplicable?: (report: DiagramReport, key: string) => string | undefined;
   readonly claims: readonly ClaimSpec[];
   readonly fills: readonly FillSpec[];
   readonly json: readonly JsonField[];
