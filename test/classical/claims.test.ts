@@ -36,6 +36,12 @@ describe('claims about the classical invariants', () => {
     expect(j.verdict).toBe('contradicts');
     expect(j.diagnosis).toMatchObject({ kind: 'shifted', shift: 1 });
   });
+  it('explains the normalisation without saying Δ(1) = 1 of a link, whose Δ(1) is 0 (Hopf link: Δ = t^(1/2) − t^(−1/2), written t − 1; from memory)', () => {
+    const j = judge('alexander', 't - 1', hopf);
+    expect(j.diagnosis).toMatchObject({ kind: 'shifted', shift: 0.5 });
+    expect(j.diagnosis!.detail).toMatch(/normalised as Δ\(t\) = ∇\(t\^\{1\/2\} − t\^\{−1\/2\}\)/);
+    expect(j.diagnosis!.detail).not.toMatch(/with Δ\(1\) = 1/);
+  });
   it('name a negated Δ, the Conway polynomial given for Δ, and one wrong coefficient', () => {
     expect(judge('alexander', '-t^{-1} + 1 - t', trefoil).diagnosis?.kind).toBe('negated');
     expect(judge('alexander', '1 + z^2', trefoil).diagnosis?.kind).toBe('normalization');

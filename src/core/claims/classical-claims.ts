@@ -179,7 +179,7 @@ function diagnosePolynomial(key: PolynomialKey, claim: Laurent, claimLetter: str
         shift: k,
         detail:
           key === 'alexander'
-            ? `the claim is the computed value times ${factor}: Δ is fixed only up to ±t^k until it is normalised symmetric with Δ(1) = 1 (Conway's normalisation), which this document uses`
+            ? `the claim is the computed value times ${factor}: Δ is fixed only up to ±t^k until it is normalised as Δ(t) = ∇(t^{1/2} − t^{−1/2}) (Conway's normalisation: symmetric, and Δ(1) = 1 for a knot), which this document uses`
             : `the claim is the computed value times ${factor}`,
       };
     }
