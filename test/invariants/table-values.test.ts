@@ -15,6 +15,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseDiagramCode } from '../../src/core/notation/index.ts';
 import type { Notation } from '../../src/core/diagram/model.ts';
+import { randomDiagram, rng } from '../support/random-diagrams.ts';
 import { registryFields } from '../support/registry-fields.ts';
 
 interface Row {
@@ -124,5 +125,24 @@ describe('Jones polynomials of two links (from memory; V(1) = (−2)^(μ−1) an
     expect(atOne(recalled)).toBe(-2);
     const mirrored = recalled.map(([e, c]) => [0 - e, c] as const).reverse();
     expect([recalled, mirrored]).toContainEqual(jonesOf('two-bridge 8/3', 'family'));
+  });
+});
+
+describe('signature against determinant on random knots (Murasugi 1965, from memory: (−1)^(σ/2) = sign Δ(−1) in the Conway normalisation)', () => {
+  it('σ ≡ 0 (mod 4) exactly when Δ(−1) = ∇(2i) is positive, and |Δ(−1)| = det', () => {
+    const random = rng(1965);
+    let knots = 0;
+    for (let k = 0; k < 200 && knots < 60; k++) {
+      const d = randomDiagram(random, 12, 5);
+      if (d.components.length !== 1 || d.freeLoops > 0) continue;
+      knots++;
+      const f = registryFields(d);
+      const conway = (f.get('conway') as { terms: [number, string][] }).terms.map(([e, c]) => [e, Number(c)] as const);
+      const [re, im] = conwayAtTwoI(conway);
+      expect(im).toBe(0);
+      expect(Math.abs(re)).toBe(Number(f.get('determinant')));
+      expect((f.get('signature') as number) % 4 === 0).toBe(re > 0);
+    }
+    expect(knots).toBeGreaterThan(30);
   });
 });
