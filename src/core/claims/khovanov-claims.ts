@@ -188,6 +188,11 @@ function readBidegree(text: string, what: string): { i: number; j: number; rest:
   return { i: num(m[1]!), j: num(m[2]!), rest: text.slice(m[0].length), restStart: m[0].length };
 }
 
+/** ℤ as written: ℤ, Z, \mathbb{Z}, \mathbf{Z}, \Bbb{Z}, also without braces (TeX reads one token as the argument). */
+const INTEGERS = String.raw`(?:\\(?:mathbb|mathbf|Bbb)\s*(?:\{\s*Z\s*\}|Z)|ℤ|Z)`;
+const CYCLIC_SUMMAND = new RegExp(String.raw`^\s*\(?\s*${INTEGERS}\s*(?:\/\s*\{?\s*(\d+)\s*\}?|_\s*\{?\s*(\d+)\s*\}?)\s*\)?\s*(?:\^\s*\{?\s*(\d+)\s*\}?)?\s*$`);
+const FREE_SUMMAND = new RegExp(String.raw`^\s*${INTEGERS}\s*(?:\^\s*\{?\s*(\d+)\s*\}?)?\s*$`);
+
 /** A finite abelian torsion group: 0, or ℤ/n summands joined by ⊕ (ℤ/n, Z/n, \mathbb{Z}/n, \mathbb{Z}_n, (ℤ/2)^2). */
 export function readTorsionGroup(text: string, offset = 0): number[] {
   const bare = text.replace(/\$/g, ' ').trim().replace(/[.;]$/, '');
@@ -195,7 +200,7 @@ export function readTorsionGroup(text: string, offset = 0): number[] {
   const orders: number[] = [];
   const parts = bare.split(/\\oplus|⊕|\+/);
   for (const part of parts) {
-    const m = /^\s*\(?\s*(?:\\mathbb\{Z\}|\\mathbf\{Z\}|ℤ|Z)\s*(?:\/\s*\{?\s*(\d+)\s*\}?|_\s*\{?\s*(\d+)\s*\}?)\s*\)?\s*(?:\^\s*\{?\s*(\d+)\s*\}?)?\s*$/.exec(part);
+    const m = CYCLIC_SUMMAND.exec(part);
     if (!m) {
       throw new InputError(UNREADABLE, `\`${part.trim()}\` is not a cyclic group: write the torsion as 0 or as summands like \\mathbb{Z}/2 \\oplus \\mathbb{Z}/4`, {
         start: offset,
@@ -228,7 +233,7 @@ export function readIntegralGroup(text: string, offset = 0): IntegralGroup {
   const torsion: number[] = [];
   for (const part of bare.split(/\\oplus|⊕|\+|,/)) {
     const count = /^\s*(\d+)\s*$/.exec(part);
-    const free = /^\s*(?:\\mathbb\{Z\}|\\mathbf\{Z\}|ℤ|Z)\s*(?:\^\s*\{?\s*(\d+)\s*\}?)?\s*$/.exec(part);
+    const free = FREE_SUMMAND.exec(part);
     if (count) rank += Number(count[1]);
     else if (free) rank += free[1] === undefined ? 1 : Number(free[1]);
     else if (part.trim() === '') {
@@ -402,7 +407,7 @@ function poincareSlip(
 
 /** A rank; a group written instead (ℤ, ℤ/2, a sum) is refused with the key that states groups. */
 function readRank(rest: string, restStart: number): string {
-  if (/\\mathbb|\\mathbf\{Z|ℤ|\\oplus|⊕|Z\s*[/_^]/.test(rest)) {
+  if (/\\mathbb|\\Bbb|\\mathbf\s*\{?\s*Z|ℤ|\\oplus|⊕|Z\s*[/_^]/.test(rest)) {
     throw new InputError(
       UNREADABLE,
       `\`${rest.trim()}\` is a group, and a rank is a number: write the rank of the free part, or state the whole group with the key khovanov-group (in a grid: values=groups)`,

@@ -33,6 +33,9 @@ describe('the integral group at a bidegree (khovanov-group)', () => {
     expect(readIntegralGroup('1, \\mathbb{Z}/2')).toEqual({ rank: 1, torsion: [2] });
     expect(readIntegralGroup('ℤ/6 ⊕ ℤ')).toEqual({ rank: 1, torsion: [2, 3] });
     expect(() => readIntegralGroup('\\mathbb{Q}')).toThrow(/not a cyclic group/);
+    // TeX takes a single-token argument without braces, so \mathbb Z is \mathbb{Z}; plain TeX and amsfonts users write \Bbb Z (common practice).
+    expect(readIntegralGroup('\\mathbb Z \\oplus \\mathbb Z/2')).toEqual({ rank: 1, torsion: [2] });
+    expect(readIntegralGroup('\\mathbb{ Z }^2 \\oplus \\Bbb Z_{4} \\oplus \\mathbf Z/3')).toEqual({ rank: 2, torsion: [3, 4] });
     expect(() => readIntegralGroup('1 \\oplus \\oplus 2')).toThrow(/empty summand/);
   });
   it('judges the trefoil: ℤ at (0, 1), ℤ/2 at (3, 7), ℤ at (3, 9), 0 elsewhere', () => {
@@ -72,6 +75,9 @@ describe('grid cells', () => {
     expect(() => judgeClaim(cell.key, cell.text, trefoil, { convention: DEFAULT_CONVENTION })).toThrow(
       '`\\mathbb{Z}/2` is a group, and a rank is a number: write the rank of the free part, or state the whole group with the key khovanov-group (in a grid: values=groups)',
     );
+    for (const group of ['\\Bbb Z', '\\mathbf Z']) {
+      expect(() => judgeClaim('khovanov-rank', `3, 9: ${group}`, trefoil, { convention: DEFAULT_CONVENTION }), group).toThrow(/is a group, and a rank is a number/);
+    }
   });
   it('an empty cell is filled with the rank or the group in the declared grading, and stays empty for zero', () => {
     const fill = (i: number, j: number, values: 'ranks' | 'groups', grading: KhovanovGrading = 'standard') =>
