@@ -298,13 +298,24 @@ function binomialRow(l: number): number[] {
  * 27!! < 2^48 for width ≤ 28, so it is exact in a double.
  */
 export function matchingNumber(partner: Uint8Array, width: number): number {
+  return matchingNumberThrough(partner, IDENTITY, IDENTITY, width);
+}
+
+const IDENTITY = Int32Array.from({ length: MAX_BOUNDARY_WIDTH + 4 }, (_, i) => i);
+
+/**
+ * The matching number of the matching in which end i is paired with
+ * compact[scratch[layout[i]]]: a step reads its targets' matchings straight
+ * from its scratch positions, writing them out only for new targets.
+ */
+function matchingNumberThrough(scratch: ArrayLike<number>, layout: Int32Array, compact: Int32Array, width: number): number {
   if (width > MAX_BOUNDARY_WIDTH) throw new RangeError(`matchingNumber: width ${width} is more than ${MAX_BOUNDARY_WIDTH}`);
   let unpaired = (1 << width) - 1;
   let left = width;
   let key = 0;
   for (let i = 0; i < width; i++) {
     if (((unpaired >>> i) & 1) === 0) continue;
-    const p = partner[i]!;
+    const p = compact[scratch[layout[i]!]!]!;
     // Ends still unpaired below p: i itself and the ones between.
     key = key * (left - 1) + bitCount(unpaired & ((1 << p) - 1)) - 1;
     unpaired &= ~((1 << i) | (1 << p));
@@ -385,7 +396,6 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
     const w2 = plan.newWidth;
     const { joins, layout, compact } = plan;
     const scratch = new Int32Array(w + 4);
-    const codes = new Uint8Array(w2);
     const { count, lo, len } = states;
     const partners = states.partners;
 
@@ -415,14 +425,13 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
             scratch[py] = px;
           }
         }
-        for (let i = 0; i < w2; i++) codes[i] = compact[scratch[layout[i]!]!]!;
         if (isLast) loops--; // ⟨O⟩ = 1: the final picture's first circle is free
-        const t = table.lookup(matchingNumber(codes, w2), targets);
+        const t = table.lookup(matchingNumberThrough(scratch, layout, compact, w2), targets);
         const base = sourceLo + (smoothing === 0 ? 1 : -1) - 2 * loops;
         const top = sourceHi + (smoothing === 0 ? 1 : -1) + 2 * loops;
         if (t === targets) {
           targets++;
-          next.partners.set(codes, t * w2);
+          for (let i = 0; i < w2; i++) next.partners[t * w2 + i] = compact[scratch[layout[i]!]!]!;
           tLo[t] = base;
           tHi[t] = top;
         } else {
