@@ -14,8 +14,9 @@ import { kauffmanBracket, type BracketResult } from '../src/core/invariants/brac
 import { jonesFromBracket } from '../src/core/invariants/jones.ts';
 import { bracketByStateSum } from '../src/core/invariants/state-sum.ts';
 import { printPdCode } from '../src/core/notation/print.ts';
-import { Laurent } from '../src/core/poly/laurent.ts';
-import { randomAlternatingBraidWord, randomBraidWord, rng, shuffleDiagram } from '../test/support/random-diagrams.ts';
+import type { Laurent } from '../src/core/poly/laurent.ts';
+import { randomBraidWord, rng, shuffleDiagram } from '../test/support/random-diagrams.ts';
+import { alternatingBraidClosure, torusBraid, torusKnotJones } from './families.ts';
 
 type Parser = (text: string, notation: Notation) => LinkDiagram;
 
@@ -66,17 +67,6 @@ function meanTime<T>(work: () => T, minimumMs: number): { value: T; milliseconds
   return { value: value!, milliseconds: (performance.now() - start) / runs };
 }
 
-function torusBraid(p: number, q: number): number[] {
-  return Array.from({ length: q }, () => Array.from({ length: p - 1 }, (_, i) => i + 1)).flat();
-}
-
-/** V(T(p,q)) = t^((p−1)(q−1)/2)(1 − t^(p+1) − t^(q+1) + t^(p+q))/(1 − t²) (Jones 1987). */
-function torusKnotJones(p: number, q: number): Laurent {
-  return Laurent.fromTerms([[0, 1], [p + 1, -1], [q + 1, -1], [p + q, 1]])
-    .divExact(Laurent.fromTerms([[0, 1], [2, -1]]))
-    .shift(((p - 1) * (q - 1)) / 2);
-}
-
 function jonesOf(d: LinkDiagram, result: BracketResult): Laurent {
   return jonesFromBracket(result.bracket, writhe(d));
 }
@@ -97,11 +87,6 @@ function bench(family: string, input: string, d: LinkDiagram, check: (d: LinkDia
   const { value, milliseconds } = timed(() => kauffmanBracket(d));
   const memory = memoryNow();
   rows.push({ family, input, crossings: d.crossings.length, width: value.boundaryWidth, milliseconds, check: check(d, value), ...memory });
-}
-
-function alternatingBraidClosure(seed: number, strands: number, crossings: number): LinkDiagram {
-  const random = rng(seed);
-  return shuffleDiagram(closeBraid(randomAlternatingBraidWord(random, strands, crossings), strands), random);
 }
 
 function memoryNow(): { heapMb: number; peakRssMb: number } {
@@ -185,6 +170,7 @@ async function main(): Promise<void> {
 }
 
 await main();
+await import('./engine-constants.ts').then((engine) => engine.runEngineConstantsBench());
 await import('./classical.ts').then((classical) => classical.runClassicalBench());
 await import('./khovanov.ts').then((khovanov) => khovanov.runKhovanovBench());
 await import('./speed.ts').then((speed) => speed.runSpeedBench());
