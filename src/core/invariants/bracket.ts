@@ -99,8 +99,12 @@ function catalan(m: number): number {
  * crossings at width w there are at most 2^k states and (for a disk-shaped
  * region) at most Catalan(w/2) of them; each holds a polynomial of about k + 1
  * terms whose coefficients need one 32-bit limb per ~48 crossings (measured on
- * alternating closures), kept in two slabs, plus about 250 bytes of bookkeeping
- * and 100 per limb array. Calibrated against peak resident size at widths 16–24.
+ * alternating closures), kept in two slabs allocated a quarter larger than
+ * needed (20 bytes per digit), plus about 250 bytes of bookkeeping and 100 per
+ * limb. Calibrated against peak resident size at widths 16–24; rechecked for the
+ * flat layout: 8-strand alternating closures of 300 and 600 crossings grew the
+ * resident size by about 60 and 180 MiB (estimates 44 and 176 MiB), T(12,13)
+ * by about 230 MiB (estimate 788 MiB).
  */
 export function estimateStateBytes(steps: readonly { readonly newWidth: number }[]): number {
   let peak = 0;
@@ -108,7 +112,7 @@ export function estimateStateBytes(steps: readonly { readonly newWidth: number }
     const absorbed = k + 1;
     const states = Math.min(2 ** absorbed, catalan(step.newWidth / 2));
     const limbs = 1 + Math.floor(absorbed / 48);
-    peak = Math.max(peak, states * (250 + limbs * (100 + 16 * (absorbed + 1))));
+    peak = Math.max(peak, states * (250 + limbs * (100 + 20 * (absorbed + 1))));
   });
   return peak;
 }
