@@ -31,7 +31,7 @@ describe('remembered math problems', () => {
   it('finds what KaTeX refuses, stores it, and serves it for the same text', async () => {
     const version = await mathReaderVersion();
     const store = memoryStore();
-    const first = await rememberedMathProblems(BROKEN, { store, manuscript, readerVersion: version });
+    const first = await rememberedMathProblems(BROKEN, { store, manuscript, drawn: false, readerVersion: version });
     expect(first.map((p) => BROKEN.slice(p.offset, p.end))).toEqual(['$\\frac{1}{$']);
     expect(first[0]!.message).toMatch(/expected '}'/i); // KaTeX's own words
     expect(store.entries.size).toBe(1);
@@ -39,9 +39,12 @@ describe('remembered math problems', () => {
     const [key, text] = [...store.entries][0]!;
     const forged = { ...JSON.parse(text), problems: [{ message: 'forged', offset: 0, end: 4 }] };
     store.put(key, JSON.stringify(forged));
-    expect((await rememberedMathProblems(BROKEN, { store, manuscript, readerVersion: version })).map((p) => p.message)).toEqual(['forged']);
+    expect((await rememberedMathProblems(BROKEN, { store, manuscript, drawn: false, readerVersion: version })).map((p) => p.message)).toEqual(['forged']);
+    // A build (figures in its text) keeps an entry of its own beside the check's.
+    await rememberedMathProblems(BROKEN, { store, manuscript, drawn: true, readerVersion: version });
+    expect(store.entries.size).toBe(2);
     // Without a store every run asks KaTeX.
-    expect(await rememberedMathProblems(BROKEN, { manuscript, readerVersion: version })).toEqual(first);
+    expect(await rememberedMathProblems(BROKEN, { manuscript, drawn: false, readerVersion: version })).toEqual(first);
   });
 
   it('never trusts an entry written under another KaTeX version', async () => {
@@ -50,27 +53,27 @@ describe('remembered math problems', () => {
     expect(older).not.toBe(version);
     const store = memoryStore();
     // Under the older version the broken formula was (falsely) recorded as typesetting, for this very text.
-    await rememberedMathProblems(BROKEN, { store, manuscript, readerVersion: older });
+    await rememberedMathProblems(BROKEN, { store, manuscript, drawn: false, readerVersion: older });
     const [key, text] = [...store.entries][0]!;
     store.put(key, JSON.stringify({ ...JSON.parse(text), problems: [], verdicts: { [formulaKey('\\frac{1}{', false)]: null } }));
-    expect(await rememberedMathProblems(BROKEN, { store, manuscript, readerVersion: older })).toEqual([]);
+    expect(await rememberedMathProblems(BROKEN, { store, manuscript, drawn: false, readerVersion: older })).toEqual([]);
     // The current version finds the problem again.
-    const now = await rememberedMathProblems(BROKEN, { store, manuscript, readerVersion: version });
+    const now = await rememberedMathProblems(BROKEN, { store, manuscript, drawn: false, readerVersion: version });
     expect(now.map((p) => BROKEN.slice(p.offset, p.end))).toEqual(['$\\frac{1}{$']);
   });
 
   it('reuses the verdicts of formulas that did not change when the text did, and ignores a damaged entry', async () => {
     const version = await mathReaderVersion();
     const store = memoryStore();
-    await rememberedMathProblems(BROKEN, { store, manuscript, readerVersion: version });
+    await rememberedMathProblems(BROKEN, { store, manuscript, drawn: false, readerVersion: version });
     const [key, text] = [...store.entries][0]!;
     // A verdict the cache holds is not asked of KaTeX again: a forged "typesets" for the broken formula is believed in an edited text.
     store.put(key, JSON.stringify({ ...JSON.parse(text), verdicts: { [formulaKey('\\frac{1}{', false)]: null } }));
     const edited = `${BROKEN}One more line with $x$.\n`;
-    expect(await rememberedMathProblems(edited, { store, manuscript, readerVersion: version })).toEqual([]);
+    expect(await rememberedMathProblems(edited, { store, manuscript, drawn: false, readerVersion: version })).toEqual([]);
     for (const damaged of ['not json', '[]', '{"filled":1}', JSON.stringify({ filled: 'x', problems: [{ message: 3 }], verdicts: {} })]) {
       store.put(key, damaged);
-      const found = await rememberedMathProblems(edited, { store, manuscript, readerVersion: version });
+      const found = await rememberedMathProblems(edited, { store, manuscript, drawn: false, readerVersion: version });
       expect(found.map((p) => edited.slice(p.offset, p.end))).toEqual(['$\\frac{1}{$']);
     }
   });

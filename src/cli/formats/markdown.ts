@@ -67,7 +67,7 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
   await processor.run(processor.parse(file), file);
   const data = file.data.skeinproof!;
   const filled = applySplices(text, data.splices);
-  const untypeset = await untypesetMath(text, filled, data.splices, path, data.diagnostics, options.resultStore);
+  const untypeset = await untypesetMath(text, filled, data.splices, path, data.diagnostics, draw, options.resultStore);
   // The same strictness the plugin applied: the command line's, else the front matter's.
   const strict = options.strict ?? data.settings.strict ?? false;
   const failed = data.failed || (strict && untypeset.length > 0);
@@ -78,10 +78,10 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
  * Formulas of the filled-in text that KaTeX cannot typeset, located in the manuscript.
  * `check` reports them too, so that check and `build --html` agree.
  */
-async function untypesetMath(text: string, filled: string, splices: readonly Splice[], path: string, reported: readonly Diagnostic[], store?: ResultStore): Promise<Diagnostic[]> {
+async function untypesetMath(text: string, filled: string, splices: readonly Splice[], path: string, reported: readonly Diagnostic[], drawn: boolean, store?: ResultStore): Promise<Diagnostic[]> {
   // KaTeX loads only for a text that can hold math, and only when the disk cache does not remember this text's problems.
   if (!filled.includes('$')) return [];
-  const problems = await rememberedMathProblems(filled, { manuscript: path, readerVersion: await mathReaderVersion(), ...(store ? { store } : {}) });
+  const problems = await rememberedMathProblems(filled, { manuscript: path, drawn, readerVersion: await mathReaderVersion(), ...(store ? { store } : {}) });
   // The parser's offsets count from after a byte order mark, the splices' from the start of the text.
   const bom = text.startsWith('\uFEFF') ? 1 : 0;
   if (problems.length === 0) return [];

@@ -5,7 +5,8 @@
  * fill-ins become formulas and removed markup joins text) and KaTeX over every
  * formula; a warm run of an unchanged manuscript pays neither.
  *
- * One entry per manuscript file, replaced whenever its filled-in text changes,
+ * One entry per manuscript file and command kind (a check leaves figures out of
+ * the filled-in text, a build puts them in), replaced whenever that text changes,
  * holds the SHA-256 of that text, the problems found in it and KaTeX's verdict
  * on each of its formulas. Its key names the versions of KaTeX and of the
  * packages that read the Markdown (`mathReaderVersion`), so an entry written
@@ -52,13 +53,15 @@ export interface RememberOptions {
   readonly store?: ResultStore;
   /** The manuscript's path: its entry is replaced on every change. */
   readonly manuscript: string;
+  /** True for a build, whose filled-in text holds the figures a check leaves out: each keeps an entry of its own. */
+  readonly drawn: boolean;
   /** `mathReaderVersion()` (tests pass another to play an older KaTeX). */
   readonly readerVersion: string;
 }
 
 /** The problems of the filled-in text, from the cache when it holds them for exactly this text and these versions. */
 export async function rememberedMathProblems(filled: string, options: RememberOptions): Promise<readonly MathProblem[]> {
-  const key = `${QUANTITY}\n${options.readerVersion}\n${resolve(options.manuscript)}`;
+  const key = `${QUANTITY}\n${options.readerVersion}\n${options.drawn ? 'build' : 'check'} ${resolve(options.manuscript)}`;
   const stored = options.store ? storedMath(options.store.get(key)) : undefined;
   const digest = sha256(filled);
   if (stored?.filled === digest) return stored.problems;
