@@ -14,7 +14,7 @@ import { InputError } from '../core/errors.ts';
 import type { LinkDiagram } from '../core/diagram/model.ts';
 import type { PrecomputeHook, ReadDiagrams, SessionInput } from '../core/manuscript/api.ts';
 import { diagramValues, type DiagramJob, type DiagramTask, type DiagramValues } from './diagram-values.ts';
-import { computeInOrder } from './pool/ordered-pool.ts';
+import { computeInOrder, inProcessMsFromEnvironment } from './pool/ordered-pool.ts';
 import type { ProgressDisplay } from './progress.ts';
 import type { FileResultStore } from './result-store.ts';
 
@@ -26,9 +26,17 @@ type Outcome = DiagramValues | { readonly lost: string };
  * worker computed again (its code, claims and fill-ins, to report them in place), its session and
  * output are serial, and each worker starts cold. Measured side by side on the 2-core machine, the
  * 200-diagram manuscript of bench/cache.ts (about 2 s of diagrams) lost with two threads on an idle
- * machine (0.85×), where a batch of 20 s gained 1.14×: below about 5 s of diagrams the pool cannot win here.
+ * machine (0.85×), where a batch of 20 s gained 1.14× (two processes 1.23×): at that rate two threads save about
+ * a sixth of the work, which pays for the workers' start-up and cold code only from several seconds of diagrams.
+ * The estimate is rough (diagrams differ in cost), so the bar is set well above the census's 2–4 s.
  */
-const MANUSCRIPT_POOL_PAYS_MS = 5000;
+const MANUSCRIPT_POOL_PAYS_MS = 8000;
+/**
+ * The first diagrams run with cold code (several times the later pace), so a manuscript measures its pace
+ * over a second, not the batch's 0.3 s: measured over 0.3 s on a loaded machine, the 200-diagram manuscript
+ * looked like more than 5 s of work and started a pool it could not use.
+ */
+const MANUSCRIPT_IN_PROCESS_MS = 1000;
 
 export interface ManuscriptValuesOptions {
   /** Threads computing, this one included. */
@@ -94,6 +102,7 @@ export class ManuscriptValues {
         jobs: this.options.jobs,
         total: fresh.length,
         poolPaysMs: MANUSCRIPT_POOL_PAYS_MS,
+        inProcessMs: inProcessMsFromEnvironment(MANUSCRIPT_IN_PROCESS_MS),
         job: { kind: 'diagram-values', job },
         // In this thread the values go straight into the session's store, and the diagrams into its `readBefore`.
         runHere: (task) => {

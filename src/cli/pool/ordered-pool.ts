@@ -51,9 +51,9 @@ export interface PoolSpec<T, R> {
  * The default time in this thread before a pool starts; tests set SKEINPROOF_POOL_AFTER_MS=0, which sends
  * every task to the workers, to exercise the pool on small inputs.
  */
-export function inProcessMsFromEnvironment(): number {
-  const given = Number(process.env['SKEINPROOF_POOL_AFTER_MS']);
-  return Number.isFinite(given) && given >= 0 ? given : DEFAULT_IN_PROCESS_MS;
+export function inProcessMsFromEnvironment(fallbackMs = DEFAULT_IN_PROCESS_MS): number {
+  const given = Number(process.env['SKEINPROOF_POOL_AFTER_MS'] ?? Number.NaN);
+  return Number.isFinite(given) && given >= 0 ? given : fallbackMs;
 }
 
 /**
