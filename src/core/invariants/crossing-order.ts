@@ -29,7 +29,7 @@ const RUN_COST_PER_CROSSING = 64;
 const MIN_STARTS = 24;
 /** Up to this many crossings, planning stops after MIN_STARTS_SMALL starts once it costs more than SEARCH_FRACTION of the contraction. */
 const SMALL_DIAGRAM = 60;
-const MIN_STARTS_SMALL = 2;
+const MIN_STARTS_SMALL = 1;
 const BASE_BUDGET = 3e7;
 /**
  * Further starts are tried while planning has cost (in scan steps) less than
@@ -47,12 +47,13 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
   const neighbours = neighbourTable(d);
   const runCost = 2 * n * RUN_COST_PER_CROSSING; // two greedy walks
   const minimumStarts = Math.max(1, Math.min(MIN_STARTS, n, Math.floor(BASE_BUDGET / runCost)));
+  const buffers = new WalkBuffers(n);
   let best: ContractionPlan | undefined;
   let bestCost = Infinity;
   let spent = 0;
   for (const start of startOrder(n, minimumStarts)) {
     for (const tieBreak of ['oldest', 'newest'] as const) {
-      const order = greedyOrder(neighbours, n, start, tieBreak);
+      const order = greedyOrder(neighbours, n, start, tieBreak, buffers);
       const widths = widthsAlong(neighbours, order);
       const maxWidth = widths.reduce((m, w) => Math.max(m, w), 0);
       const cost = orderCost(widths);
@@ -64,7 +65,7 @@ export function planContraction(d: LinkDiagram): ContractionPlan {
     spent += runCost;
     const tried = spent / runCost;
     const overBudget = spent + runCost > Math.min(MAX_BUDGET, SEARCH_FRACTION * bestCost);
-    // A small diagram contracts in microseconds: two starts suffice, where more would cost more than the contraction.
+    // A small diagram contracts in microseconds: one start (two walks) suffices, where more would cost more than the contraction.
     if (overBudget && (tried >= minimumStarts || (tried >= MIN_STARTS_SMALL && n <= SMALL_DIAGRAM))) break;
   }
   return best!;
@@ -122,20 +123,15 @@ const KEY_FIELD = 2 ** 21;
  * deletion keeps each pick logarithmic: a crossing's stale entries are
  * skipped when its key has changed since they were pushed.
  */
-function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak: TieBreak): number[] {
+function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak: TieBreak, buffers: WalkBuffers): number[] {
   if (n >= KEY_FIELD) throw new RangeError(`crossing order: ${n} crossings is more than the planner supports (${KEY_FIELD - 1})`);
-  const absorbed = new Uint8Array(n);
-  const connections = new Int32Array(n);
-  // growth[c]: how much absorbing c would widen the boundary (4 − kink slots − 2·connections).
-  const growth = new Int32Array(n);
-  const currentKey = new Float64Array(n);
+  const { absorbed, connections, growth, currentKey, firstTouch } = buffers.cleared();
   const heap = new KeyHeap();
   const keyOf = (c: number, touchedAt: number): number => {
     const connected = connections[c]! > 0;
     const contact = !connected ? 0 : tieBreak === 'oldest' ? touchedAt : KEY_FIELD - 1 - touchedAt;
     return (((connected ? 0 : 1) * 16 + growth[c]! + 4) * KEY_FIELD + contact) * KEY_FIELD + c;
   };
-  const firstTouch = new Int32Array(n).fill(-1);
   for (let c = 0; c < n; c++) {
     let open = 0;
     for (let q = 0; q < 4; q++) if (neighbours[4 * c + q] !== c) open++;
@@ -169,6 +165,31 @@ function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak:
     }
   }
   return order;
+}
+
+/** The per-crossing arrays of a greedy walk, allocated once per plan and cleared for each walk. */
+class WalkBuffers {
+  readonly absorbed: Uint8Array;
+  readonly connections: Int32Array;
+  /** growth[c]: how much absorbing c would widen the boundary (4 − kink slots − 2·connections). */
+  readonly growth: Int32Array;
+  readonly currentKey: Float64Array;
+  readonly firstTouch: Int32Array;
+
+  constructor(n: number) {
+    this.absorbed = new Uint8Array(n);
+    this.connections = new Int32Array(n);
+    this.growth = new Int32Array(n);
+    this.currentKey = new Float64Array(n);
+    this.firstTouch = new Int32Array(n);
+  }
+
+  cleared(): this {
+    this.absorbed.fill(0);
+    this.connections.fill(0);
+    this.firstTouch.fill(-1);
+    return this;
+  }
 }
 
 /** A binary min-heap of numbers. */
