@@ -200,13 +200,12 @@ export function planSteps(d: LinkDiagram, order: readonly number[], cut = -1): S
  * coefficients, coefficient i holding the exponent lo[s] + i·step, stored as
  * `limbs[s]` base-2^32 digits: digit j of coefficient i is
  * slab[offset[s] + j·len[s] + i]. `bound[s]` bounds |digit| over all its
- * digits. State s's matching is partners[s·width … s·width + width − 1]. Two
+ * digits. With w open ends, state s's matching is partners[s·w … s·w + w − 1]. Two
  * of these take turns (sources and targets of a step), so their arrays are
  * allocated only when a step needs more room than any before it.
  */
 class States {
   count = 0;
-  width = 0;
   lo = new Int32Array(1);
   len = new Int32Array(1);
   limbs = new Int32Array(1);
@@ -218,7 +217,6 @@ class States {
 
   /** Room for up to `count` states of `width` ends (contents are not kept). */
   reserve(count: number, width: number): void {
-    this.width = width;
     if (this.lo.length < count) {
       const room = Math.ceil(count * 1.25);
       this.lo = new Int32Array(room);
