@@ -93,6 +93,8 @@ class Extractor {
   private readonly problems: Diagnostic[] = [];
   private readonly refused = new Map<string, SourceLocation>();
   private settings: ManuscriptSettings = { convention: {} };
+  /** Tables inside `:::invariants` or `:::khovanov-grid`, read as claims; any other table is prose. */
+  private readonly fencedTables = new Set<Table>();
   /** The extent of the table cell visited last, to tell a fill-in written in a cell. */
   private cell: [number, number] = [-1, -1];
   private readonly text: string;
@@ -120,8 +122,11 @@ class Extractor {
       else if (node.type === 'leafDirective' && node.name === FIGURE_DIRECTIVE) this.figureDirective(node);
       else if ((node.type === 'textDirective' || node.type === 'containerDirective') && node.name === FIGURE_DIRECTIVE) this.misplacedFigure(node);
       else if (node.type === 'textDirective') return this.textDirective(node);
-      else if (node.type === 'containerDirective' && node.name === TABLE_DIRECTIVE) this.tableDirective(node);
-      else if (node.type === 'containerDirective' && node.name === GRID_DIRECTIVE) this.gridDirective(node);
+      else if (node.type === 'containerDirective' && (node.name === TABLE_DIRECTIVE || node.name === GRID_DIRECTIVE)) {
+        for (const child of node.children) if (child.type === 'table') this.fencedTables.add(child);
+        if (node.name === TABLE_DIRECTIVE) this.tableDirective(node);
+        else this.gridDirective(node);
+      } else if (node.type === 'table' && !this.fencedTables.has(node)) this.unfencedTable(node);
       else if ((node.type === 'leafDirective' || node.type === 'containerDirective') && (isClaimKey(node.name) || isFillKey(node.name))) this.misplacedDirective(node);
       // Markdown inside a raw HTML block (`<div>` up to the next blank line) is not parsed, so nor are claims there.
       else if (node.type === 'text' || node.type === 'html') this.strayMarkup(node);
@@ -148,6 +153,30 @@ class Extractor {
 
   private inCell(offset: number): boolean {
     return this.cell[0] <= offset && offset < this.cell[1];
+  }
+
+  /**
+   * A GFM table outside `:::invariants` is prose and nothing in it is checked. When it looks like a table of
+   * claims (a diagram column and a column headed by a claim key), the author most likely forgot the fence.
+   */
+  private unfencedTable(table: Table): void {
+    const header = table.children[0];
+    if (!header) return;
+    const meanings = header.children.map((cell) => {
+      const [s, e] = offsets(cell);
+      const content = cellContent(this.text, s, e);
+      return columnMeaning(this.text.slice(content.start, content.end));
+    });
+    const keys = meanings.flatMap((m) => (m?.kind === 'key' ? [m.key] : []));
+    if (!meanings.some((m) => m?.kind === 'diagram') || keys.length === 0) return;
+    const [start] = offsets(table);
+    this.problems.push({
+      severity: 'warning',
+      ruleId: 'table-unfenced',
+      message: `this table has a diagram column and claim columns (${keys.map((k) => `\`${k}\``).join(', ')}), but it is not inside \`:::${TABLE_DIRECTIVE}\`, so none of its values is checked`,
+      location: this.source.location(start, lineEnd(this.text, start)),
+      hints: [`Put a line \`:::${TABLE_DIRECTIVE}\` before the table and a line \`:::\` after it (blank lines around the table), or rename the diagram column if the table is not about the manuscript's diagrams.`],
+    });
   }
 
   private error(ruleId: string, message: string, start: number, end: number, hints?: string[]): void {

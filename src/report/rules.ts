@@ -32,6 +32,7 @@ export const RULES: readonly RuleDescription[] = [
   { id: 'front-matter-invalid', description: 'The manuscript front matter cannot be read.' },
   { id: 'markup-invalid', description: 'The markup around a diagram, claim or fill-in is malformed.' },
   { id: 'manuscript-unmarked', description: 'A manuscript has no skeinproof markup at all, so nothing in it was checked.' },
+  { id: 'table-unfenced', description: 'A Markdown table with a diagram column and claim-key columns is not inside `:::invariants`, so none of its values is checked.' },
   { id: 'math-untypeset', description: 'A formula cannot be typeset.' },
   { id: 'khovanov-over-limit', description: 'Khovanov homology of a diagram is beyond the work budget of the computation; it is reported instead of run.' },
   { id: 'diagram-too-wide', description: 'A diagram is too wide for the bracket engine: every crossing order leaves too many open edge ends.' },

@@ -128,6 +128,20 @@ describe('what a pass checked', () => {
     }
   });
 
+  it('a table of claims written without its :::invariants fence is a warning; an ordinary table is not (the fence is what makes a table checked, README "Tables")', async () => {
+    const claims = `${TREFOIL}| Knot | Jones polynomial | det |\n| --- | --- | --- |\n| t3 | $t + t^3 - t^4$ | 5 |\n`;
+    const r = await processMarkdown(claims);
+    expect(placed(r.diagnostics)).toEqual([`warning table-unfenced ${positionOf(claims, '| Knot')}`]);
+    expect(r.diagnostics[0]!.message).toMatch(/claim columns \(`jones`, `determinant`\), but it is not inside `:::invariants`/);
+    for (const prose of [
+      `${TREFOIL}| Knot | Author | Year |\n| --- | --- | --- |\n| t3 | Someone | 1900 |\n`,
+      `${TREFOIL}| Invariant | Value |\n| --- | --- |\n| det | 3 |\n`,
+      `${TREFOIL}:::invariants\n\n| diagram | det |\n| --- | --- |\n| t3 | 3 |\n\n:::\n`,
+    ]) {
+      expect((await processMarkdown(prose)).diagnostics.filter((d) => d.ruleId === 'table-unfenced')).toEqual([]);
+    }
+  });
+
   it('markup that was refused is markup: no second warning', async () => {
     const r = await processMarkdown('```skein notation=braid\n1 1 1\n```\n');
     expect(r.diagnostics.map((d) => d.ruleId)).toEqual(['markup-invalid']);
