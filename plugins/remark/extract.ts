@@ -162,11 +162,7 @@ class Extractor {
   private unfencedTable(table: Table): void {
     const header = table.children[0];
     if (!header) return;
-    const meanings = header.children.map((cell) => {
-      const [s, e] = offsets(cell);
-      const content = cellContent(this.text, s, e);
-      return columnMeaning(this.text.slice(content.start, content.end));
-    });
+    const meanings = this.headers(header).map((h) => columnMeaning(h.written));
     const keys = meanings.flatMap((m) => (m?.kind === 'key' ? [m.key] : []));
     if (!meanings.some((m) => m?.kind === 'diagram') || keys.length === 0) return;
     const [start] = offsets(table);
@@ -630,17 +626,22 @@ class Extractor {
     this.unwrapFences(node);
   }
 
+  /** Each header cell's text as written, with its extent. */
+  private headers(header: Table['children'][number]): { written: string; start: number; end: number }[] {
+    return header.children.map((cell) => {
+      const [s, e] = offsets(cell);
+      const content = cellContent(this.text, s, e);
+      return { written: this.text.slice(content.start, content.end), start: content.start, end: content.end };
+    });
+  }
+
   /**
    * The meaning of each column: from `columns="…"` on the fence when given (one entry per column, in order),
    * else from the header. Unknown headers and entries are errors; their columns are left alone. Undefined when
    * `columns` has the wrong number of entries.
    */
   private columnMeanings(header: Table['children'][number], mapping: string | undefined, mappingAt: () => readonly [number, number]) {
-    const headers = header.children.map((cell) => {
-      const [s, e] = offsets(cell);
-      const content = cellContent(this.text, s, e);
-      return { written: this.text.slice(content.start, content.end), start: content.start, end: content.end };
-    });
+    const headers = this.headers(header);
     const known = `${DIAGRAM_HEADERS.join(', ')} (the row's diagram), ${ROW_NOTATION_COLUMN}, ${FREE_TEXT_HEADERS.join(', ')} (free text), or a claim key or one of its aliases (the README lists them)`;
     const entries = mapping?.split(',').map((x) => x.trim());
     if (entries && entries.length !== headers.length) {
