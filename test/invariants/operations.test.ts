@@ -141,6 +141,20 @@ describe('crossing order', () => {
       expect(plan.widths[plan.widths.length - 1]).toBe(0);
     }
   });
+  it('plans split diagrams region by region, and gives the same plan whatever was planned before', () => {
+    // A split union empties the walk's frontier once per piece; the planner's arrays are kept from plan to plan.
+    const random = rng(210);
+    const small = randomDiagram(random, 12, 4);
+    const first = planContraction(small);
+    for (let i = 0; i < 20; i++) {
+      const d = disjointUnion(disjointUnion(randomDiagram(random, 25, 5), randomDiagram(random, 40, 6)), randomDiagram(random, 8, 3));
+      const plan = planContraction(d);
+      expect([...plan.order].sort((a, b) => a - b)).toEqual(d.crossings.map((_, k) => k));
+      expect(plan.widths).toEqual(boundaryWidths(d, plan.order));
+      expect(plan.maxWidth).toBe(Math.max(...plan.widths));
+    }
+    expect(planContraction(small)).toEqual(first);
+  });
   it('keeps a shuffled braid closure within 2·strands + 2 open ends (a sweep along the braid needs 2·strands)', () => {
     const random = rng(209);
     for (const strands of [3, 4, 5, 6]) {

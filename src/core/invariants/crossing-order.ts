@@ -11,6 +11,11 @@
  * blob, and newest first, which sweeps), and the order with the smallest
  * widest boundary wins. Wide diagrams, whose contraction is expensive, earn a
  * longer search (up to every starting crossing).
+ *
+ * On small diagrams the contraction takes tens of microseconds, so the walks
+ * are kept allocation-free: typed arrays kept from plan to plan, a heap of
+ * only the crossings that touch the region, widths and costs tracked during
+ * the walk, and one plain array built per plan, for the winner.
  */
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 
@@ -44,54 +49,70 @@ type TieBreak = 'oldest' | 'newest';
 export function planContraction(d: LinkDiagram): ContractionPlan {
   const n = d.crossings.length;
   if (n === 0) return { order: [], widths: [], maxWidth: 0 };
-  const neighbours = neighbourTable(d);
+  const { opposite } = indexDiagram(d);
   const runCost = 2 * n * RUN_COST_PER_CROSSING; // two greedy walks
   const minimumStarts = Math.max(1, Math.min(MIN_STARTS, n, Math.floor(BASE_BUDGET / runCost)));
-  const buffers = new WalkBuffers(n);
-  let best: ContractionPlan | undefined;
+  const buffers = walkBuffers(n);
+  buffers.prepare(opposite, n);
+  let bestWidth = Infinity;
   let bestCost = Infinity;
   let spent = 0;
-  for (const start of startOrder(n, minimumStarts)) {
-    for (const tieBreak of ['oldest', 'newest'] as const) {
-      const order = greedyOrder(neighbours, n, start, tieBreak, buffers);
-      const widths = widthsAlong(neighbours, order);
-      const maxWidth = widths.reduce((m, w) => Math.max(m, w), 0);
-      const cost = orderCost(widths);
-      if (!best || maxWidth < best.maxWidth || (maxWidth === best.maxWidth && cost < bestCost)) {
-        best = { order, widths, maxWidth };
+  for (let tried = 0; tried < n; tried++) {
+    const start = startAt(tried, n, minimumStarts);
+    for (const tieBreak of TIE_BREAKS) {
+      greedyWalk(opposite, n, start, tieBreak, buffers);
+      const { maxWidth, cost } = buffers;
+      if (maxWidth < bestWidth || (maxWidth === bestWidth && cost < bestCost)) {
+        buffers.keepAsBest(n);
+        bestWidth = maxWidth;
         bestCost = cost;
       }
     }
     spent += runCost;
-    const tried = spent / runCost;
     const overBudget = spent + runCost > Math.min(MAX_BUDGET, SEARCH_FRACTION * bestCost);
     // A small diagram contracts in microseconds: one start (two walks) suffices, where more would cost more than the contraction.
-    if (overBudget && (tried >= minimumStarts || (tried >= MIN_STARTS_SMALL && n <= SMALL_DIAGRAM))) break;
+    if (overBudget && (tried + 1 >= minimumStarts || (tried + 1 >= MIN_STARTS_SMALL && n <= SMALL_DIAGRAM))) break;
   }
-  return best!;
+  return { order: plainArray(buffers.bestOrder, n), widths: plainArray(buffers.bestWidths, n), maxWidth: bestWidth };
 }
 
-/** `first` evenly spread starting crossings, then every other crossing. */
-function* startOrder(n: number, first: number): Generator<number> {
-  const spread = new Set<number>();
-  for (let s = 0; s < first; s++) spread.add(Math.floor((s * n) / first));
-  yield* spread;
-  for (let c = 0; c < n; c++) if (!spread.has(c)) yield c;
+const TIE_BREAKS = ['oldest', 'newest'] as const;
+
+/** The first n entries as a plain array (a loop: Array.from over a typed array is several times slower here). */
+function plainArray(values: Int32Array, n: number): number[] {
+  const out: number[] = new Array(n);
+  for (let i = 0; i < n; i++) out[i] = values[i]!;
+  return out;
 }
 
-/** Boundary width after each absorption when the crossings are absorbed in `order`. */
+/**
+ * The k-th starting crossing: first `spread` evenly spaced crossings
+ * ⌊s·n/spread⌋ (distinct, as spread ≤ n), then the others in index order.
+ */
+function startAt(k: number, n: number, spread: number): number {
+  if (k < spread) return Math.floor((k * n) / spread);
+  // Among 0 … n−1 the spread starts are skipped; find the (k − spread)-th of the rest.
+  let rest = k - spread;
+  for (let c = 0, s = 0; c < n; c++) {
+    if (s < spread && Math.floor((s * n) / spread) === c) {
+      s++;
+      continue;
+    }
+    if (rest-- === 0) return c;
+  }
+  throw new RangeError(`crossing order: start ${k} of ${n}`);
+}
+
+/** Boundary width after each absorption when the crossings are absorbed in `order` (the walks track it as they go). */
 export function boundaryWidths(d: LinkDiagram, order: readonly number[]): number[] {
-  return widthsAlong(neighbourTable(d), order);
-}
-
-function widthsAlong(neighbours: Int32Array, order: readonly number[]): number[] {
-  const absorbed = new Uint8Array(neighbours.length >> 2);
+  const { opposite } = indexDiagram(d);
+  const absorbed = new Uint8Array(opposite.length >> 2);
   const widths: number[] = new Array(order.length);
   let width = 0;
   order.forEach((c, k) => {
     absorbed[c] = 1;
     for (let q = 0; q < 4; q++) {
-      const other = neighbours[4 * c + q]!;
+      const other = opposite[4 * c + q]! >> 2;
       if (other === c) continue; // a kink: both ends meet inside this crossing
       width += absorbed[other] ? -1 : 1;
     }
@@ -100,74 +121,93 @@ function widthsAlong(neighbours: Int32Array, order: readonly number[]): number[]
   return widths;
 }
 
-/** For slot 4c+q, the crossing at the other end of its edge. */
-function neighbourTable(d: LinkDiagram): Int32Array {
-  const { opposite } = indexDiagram(d);
-  const neighbours = new Int32Array(opposite.length);
-  for (let s = 0; s < opposite.length; s++) neighbours[s] = opposite[s]! >> 2;
-  return neighbours;
-}
-
-/** Roughly proportional to the contraction work: states grow about like 2^width, polynomials like the step. */
-function orderCost(widths: readonly number[]): number {
-  return widths.reduce((s, w, k) => s + 2 ** Math.min(w, 1000) * (k + 1), 0);
-}
+/** Widths past this cost the same (2^1000 already outweighs any order's other terms). */
+const MAX_COSTED_WIDTH = 1000;
+const POWERS_OF_TWO = Float64Array.from({ length: MAX_COSTED_WIDTH + 1 }, (_, w) => 2 ** w);
 
 /** Priority keys pack (connected?, growth, contact time, index) into one exact double; this bounds n. */
 const KEY_FIELD = 2 ** 21;
 
 /**
- * One greedy walk. The next crossing is the one with the smallest key:
- * touching the region before not touching it, then least growth, then the
- * tie-break on contact time, then the lowest index. A binary heap with lazy
- * deletion keeps each pick logarithmic: a crossing's stale entries are
- * skipped when its key has changed since they were pushed.
+ * One greedy walk, written into `buffers` (order, widths, widest boundary and
+ * cost). The next crossing is the one with the smallest key: touching the
+ * region before not touching it, then least growth, then the tie-break on
+ * contact time, then the lowest index. A binary heap with lazy deletion keeps
+ * each pick logarithmic: a crossing's stale entries are skipped when its key
+ * has changed since they were pushed. A crossing's growth is exactly how much
+ * absorbing it widens the boundary, so the widths come with the walk.
  */
-function greedyOrder(neighbours: Int32Array, n: number, start: number, tieBreak: TieBreak, buffers: WalkBuffers): number[] {
+function greedyWalk(opposite: Int32Array, n: number, start: number, tieBreak: TieBreak, buffers: WalkBuffers): void {
   if (n >= KEY_FIELD) throw new RangeError(`crossing order: ${n} crossings is more than the planner supports (${KEY_FIELD - 1})`);
-  const { absorbed, connections, growth, currentKey, firstTouch } = buffers.cleared();
-  const heap = new KeyHeap();
-  const keyOf = (c: number, touchedAt: number): number => {
-    const connected = connections[c]! > 0;
-    const contact = !connected ? 0 : tieBreak === 'oldest' ? touchedAt : KEY_FIELD - 1 - touchedAt;
-    return (((connected ? 0 : 1) * 16 + growth[c]! + 4) * KEY_FIELD + contact) * KEY_FIELD + c;
-  };
-  for (let c = 0; c < n; c++) {
-    let open = 0;
-    for (let q = 0; q < 4; q++) if (neighbours[4 * c + q] !== c) open++;
-    growth[c] = open;
-    currentKey[c] = keyOf(c, 0);
-    if (c !== start) heap.push(currentKey[c]!);
-  }
-  const order: number[] = [];
+  const { absorbed, connections, growth, currentKey, firstTouch, order, widths, heap } = buffers.cleared(n);
+  const newest = tieBreak === 'newest';
   let next = start;
+  let width = 0;
+  let maxWidth = 0;
+  let cost = 0;
   for (let stepIndex = 0; stepIndex < n; stepIndex++) {
-    if (stepIndex > 0) {
-      for (;;) {
-        const key = heap.pop();
-        const c = key % KEY_FIELD;
-        if (!absorbed[c] && currentKey[c] === key) {
-          next = c;
-          break;
-        }
-      }
-    }
+    if (stepIndex > 0) next = popFrontier(heap, absorbed, currentKey) ?? untouchedMinimum(n, absorbed, currentKey);
     absorbed[next] = 1;
-    order.push(next);
+    order[stepIndex] = next;
+    width += growth[next]!;
+    widths[stepIndex] = width;
+    if (width > maxWidth) maxWidth = width;
+    // Roughly proportional to the contraction work: states grow about like 2^width, polynomials like the step.
+    cost += POWERS_OF_TWO[Math.min(width, MAX_COSTED_WIDTH)]! * (stepIndex + 1);
     for (let q = 0; q < 4; q++) {
-      const other = neighbours[4 * next + q]!;
+      const other = opposite[4 * next + q]! >> 2; // the crossing at the edge's other end
       if (other === next || absorbed[other]) continue;
       connections[other]!++;
       growth[other]! -= 2;
       if (firstTouch[other]! < 0) firstTouch[other] = stepIndex;
-      currentKey[other] = keyOf(other, tieBreak === 'oldest' ? firstTouch[other]! : stepIndex);
+      const contact = newest ? KEY_FIELD - 1 - stepIndex : firstTouch[other]!;
+      currentKey[other] = walkKey(true, growth[other]!, contact, other);
       heap.push(currentKey[other]!);
     }
   }
-  return order;
+  buffers.maxWidth = maxWidth;
+  buffers.cost = cost;
 }
 
-/** The per-crossing arrays of a greedy walk, allocated once per plan and cleared for each walk. */
+/**
+ * The frontier crossing with the smallest key, skipping stale entries; undefined
+ * once no unabsorbed crossing touches the region (the heap holds only crossings
+ * that touch it, so a walk over a connected diagram never pays for the rest).
+ */
+function popFrontier(heap: KeyHeap, absorbed: Uint8Array, currentKey: Float64Array): number | undefined {
+  while (heap.size > 0) {
+    const key = heap.pop();
+    const c = key - Math.floor(key / KEY_FIELD) * KEY_FIELD; // key % KEY_FIELD without a slow floating modulo
+    if (!absorbed[c] && currentKey[c] === key) return c;
+  }
+  return undefined;
+}
+
+/**
+ * The next region's seed once the frontier is empty: the untouched crossing
+ * with the smallest key (every unabsorbed crossing is untouched then, and an
+ * untouched crossing's key never changes), as if all of them were in the heap.
+ */
+function untouchedMinimum(n: number, absorbed: Uint8Array, currentKey: Float64Array): number {
+  let best = -1;
+  for (let c = 0; c < n; c++) if (!absorbed[c] && (best < 0 || currentKey[c]! < currentKey[best]!)) best = c;
+  return best;
+}
+
+/** (connected?, growth, contact time, index) packed into one exact double; smaller is picked first. */
+function walkKey(connected: boolean, growth: number, contact: number, c: number): number {
+  return (((connected ? 0 : 1) * 16 + growth + 4) * KEY_FIELD + contact) * KEY_FIELD + c;
+}
+
+let sharedBuffers: WalkBuffers | undefined;
+
+/** The walk arrays for n crossings, kept from plan to plan (planning a small diagram costs less than allocating them). */
+function walkBuffers(n: number): WalkBuffers {
+  if (!sharedBuffers || sharedBuffers.capacity < n) sharedBuffers = new WalkBuffers(Math.max(n, 64));
+  return sharedBuffers;
+}
+
+/** The per-crossing arrays of a greedy walk and its result, cleared for each walk (only the first n entries are used). */
 class WalkBuffers {
   readonly absorbed: Uint8Array;
   readonly connections: Int32Array;
@@ -175,31 +215,76 @@ class WalkBuffers {
   readonly growth: Int32Array;
   readonly currentKey: Float64Array;
   readonly firstTouch: Int32Array;
+  readonly heap: KeyHeap;
+  readonly order: Int32Array;
+  readonly widths: Int32Array;
+  readonly bestOrder: Int32Array;
+  readonly bestWidths: Int32Array;
+  private readonly initialGrowth: Int32Array;
+  private readonly initialKey: Float64Array;
+  maxWidth = 0;
+  cost = 0;
 
-  constructor(n: number) {
+  constructor(readonly capacity: number) {
+    const n = capacity;
     this.absorbed = new Uint8Array(n);
     this.connections = new Int32Array(n);
     this.growth = new Int32Array(n);
     this.currentKey = new Float64Array(n);
     this.firstTouch = new Int32Array(n);
+    // Each crossing is pushed at most once per slot.
+    this.heap = new KeyHeap(4 * n);
+    this.order = new Int32Array(n);
+    this.widths = new Int32Array(n);
+    this.bestOrder = new Int32Array(n);
+    this.bestWidths = new Int32Array(n);
+    this.initialGrowth = new Int32Array(n);
+    this.initialKey = new Float64Array(n);
   }
 
-  cleared(): this {
-    this.absorbed.fill(0);
-    this.connections.fill(0);
-    this.firstTouch.fill(-1);
+  /** Sets up the untouched state of the diagram with slots `opposite`, which every walk of a plan starts from. */
+  prepare(opposite: Int32Array, n: number): void {
+    for (let c = 0; c < n; c++) {
+      let open = 0;
+      for (let q = 0; q < 4; q++) if (opposite[4 * c + q]! >> 2 !== c) open++;
+      this.initialGrowth[c] = open;
+      this.initialKey[c] = walkKey(false, open, 0, c);
+    }
+  }
+
+  cleared(n: number): this {
+    this.absorbed.fill(0, 0, n);
+    this.connections.fill(0, 0, n);
+    this.firstTouch.fill(-1, 0, n);
+    this.growth.set(this.initialGrowth.subarray(0, n));
+    this.currentKey.set(this.initialKey.subarray(0, n));
+    this.heap.clear();
     return this;
+  }
+
+  /** Keeps the last walk, over n crossings, as the best so far (the next walk overwrites `order` and `widths`). */
+  keepAsBest(n: number): void {
+    this.bestOrder.set(this.order.subarray(0, n));
+    this.bestWidths.set(this.widths.subarray(0, n));
   }
 }
 
-/** A binary min-heap of numbers. */
+/** A binary min-heap of numbers in a fixed array (a walk knows how many pushes it makes). */
 class KeyHeap {
-  private items: number[] = [];
+  private readonly items: Float64Array;
+  size = 0;
+
+  constructor(capacity: number) {
+    this.items = new Float64Array(Math.max(1, capacity));
+  }
+
+  clear(): void {
+    this.size = 0;
+  }
 
   push(key: number): void {
     const items = this.items;
-    let i = items.length;
-    items.push(key);
+    let i = this.size++;
     while (i > 0) {
       const parent = (i - 1) >> 1;
       if (items[parent]! <= key) break;
@@ -212,14 +297,15 @@ class KeyHeap {
   pop(): number {
     const items = this.items;
     const top = items[0]!;
-    const last = items.pop()!;
-    if (items.length > 0) {
+    const size = --this.size;
+    const last = items[size]!;
+    if (size > 0) {
       let i = 0;
       for (;;) {
         const left = 2 * i + 1;
-        if (left >= items.length) break;
+        if (left >= size) break;
         const right = left + 1;
-        const child = right < items.length && items[right]! < items[left]! ? right : left;
+        const child = right < size && items[right]! < items[left]! ? right : left;
         if (items[child]! >= last) break;
         items[i] = items[child]!;
         i = child;
