@@ -77,12 +77,18 @@ export function crossingLimitError(crossings: number, limit: number): LimitError
   );
 }
 
-export function stateMemoryError(crossings: number, width: number, bytes: number, limit: number): LimitError {
+/**
+ * The tangle states of a bracket would outgrow `limit`: the option's limit, or (with `raisable` false)
+ * the engine's own ceiling, which no option raises.
+ */
+export function stateMemoryError(crossings: number, width: number, bytes: number, limit: number, raisable = true): LimitError {
   const mib = Math.ceil(bytes / (1024 * 1024));
+  const remedy = raisable
+    ? `To compute it anyway, raise the limit with ${LIMIT_OPTIONS['state-memory']} ${mib} (MiB), or give`
+    : 'That limit is the most the bracket engine can address, so no option raises it: give';
   return limitError(
     `the bracket of this ${thousands(crossings)}-crossing diagram keeps up to ${width} edge ends open at once, and its tangle states would need about ${formatBytes(bytes)} of memory, ` +
-      `more than the limit of ${formatBytes(limit)}: it is not computed. To compute it anyway, raise the limit with ${LIMIT_OPTIONS['state-memory']} ${mib} (MiB), ` +
-      'or give a diagram of the same link drawn as a braid closure on fewer strands.',
+      `more than the limit of ${formatBytes(limit)}: it is not computed. ${remedy} a diagram of the same link drawn as a braid closure on fewer strands.`,
   );
 }
 

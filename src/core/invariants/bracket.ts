@@ -23,13 +23,17 @@
  * linear map. Before a step could push a limb past 2^52, all digits are carried
  * (and a limb added when the top one overflows), so every double stays an exact
  * integer. Diagrams with small coefficients run with one limb, i.e. plain
- * floating-point adds.
+ * floating-point adds. The digits live in a WebAssembly memory and the passes
+ * over them (accumulating contributions, carrying) are SIMD kernels, see
+ * wasm/digit-kernels.ts; the matchings stay here.
  */
 import { Laurent } from '../poly/laurent.ts';
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 import { InputError } from '../errors.ts';
 import { planContraction } from './crossing-order.ts';
-import { checkTimeBudget, stateMemoryError } from '../limits.ts';
+import { checkTimeBudget, stateMemoryError, type LimitError } from '../limits.ts';
+import { borrowDigitSlabs, DIGIT_MEMORY_MAX_BYTES, returnDigitSlabs, type DigitSlabs, type SlabIndex } from './wasm/digit-slabs.ts';
+import type { DigitKernels } from './wasm/digit-kernels.ts';
 
 export interface BracketResult {
   /** ⟨D⟩ ∈ ℤ[A, A⁻¹] with ⟨O⟩ = 1. */
@@ -65,7 +69,7 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[], limit
   const chosen = order ?? planContraction(d).order;
   checkPermutation(chosen, n);
   const steps = planSteps(d, chosen);
-  const boundaryWidth = steps.reduce((m, s) => Math.max(m, s.newWidth), 0);
+  const boundaryWidth = widestBoundary(steps);
   if (boundaryWidth > MAX_BOUNDARY_WIDTH) {
     throw new InputError(
       'diagram-too-wide',
@@ -81,7 +85,13 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[], limit
   }
   // Planar diagrams keep all exponents of one state in one class mod 4; a
   // virtual (non-planar) input can break that, and is then redone with step 2.
-  const contracted = contract(steps, 4) ?? contract(steps, 2);
+  const slabs = borrowDigitSlabs();
+  let contracted: Laurent | undefined;
+  try {
+    contracted = contract(slabs, steps, 4) ?? contract(slabs, steps, 2);
+  } finally {
+    returnDigitSlabs();
+  }
   if (!contracted) throw new Error('internal: bracket contraction failed with exponent step 2');
   const bracket = d.freeLoops > 0 ? contracted.mul(LOOP_VALUE.pow(d.freeLoops)) : contracted;
   return { bracket, boundaryWidth };
@@ -199,12 +209,15 @@ export function planSteps(d: LinkDiagram, order: readonly number[], cut = -1): S
  * garbage collector has nothing to trace). State s's polynomial has `len[s]`
  * coefficients, coefficient i holding the exponent lo[s] + i·step, stored as
  * `limbs[s]` base-2^32 digits: digit j of coefficient i is
- * slab[offset[s] + j·len[s] + i]. `bound[s]` bounds |digit| over all its
- * digits. With w open ends, state s's matching is partners[s·w … s·w + w − 1]. Two
- * of these take turns (sources and targets of a step), so their arrays are
- * allocated only when a step needs more room than any before it.
+ * digits[start(slab) + offset[s] + j·len[s] + i] of the DigitSlabs. `bound[s]`
+ * bounds |digit| over all its digits. With w open ends, state s's matching is
+ * partners[s·w … s·w + w − 1]. Two of these take turns (sources and targets of
+ * a step), so their arrays are allocated only when a step needs more room than
+ * any before it.
  */
 class States {
+  constructor(public slab: SlabIndex) {}
+
   count = 0;
   lo = new Int32Array(1);
   len = new Int32Array(1);
@@ -213,7 +226,6 @@ class States {
   bound = new Float64Array(1);
   /** Boundary positions are below MAX_BOUNDARY_WIDTH + 4, so a byte holds one. */
   partners = new Uint8Array(0);
-  slab = new Float64Array(1);
 
   /** Room for up to `count` states of `width` ends (contents are not kept). */
   reserve(count: number, width: number): void {
@@ -226,10 +238,6 @@ class States {
       this.bound = new Float64Array(room);
     }
     if (this.partners.length < count * width) this.partners = new Uint8Array(Math.ceil(count * width * 1.25));
-  }
-
-  reserveSlab(size: number): void {
-    if (this.slab.length < size) this.slab = new Float64Array(Math.ceil(size * 1.25));
   }
 }
 
@@ -360,16 +368,17 @@ const A_SLOT_PARTNER = [1, 0, 3, 2];
 const B_SLOT_PARTNER = [3, 2, 1, 0];
 
 /** Runs the contraction with exponents stored at the given step; undefined if a state mixes classes mod `step`. */
-function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined {
+function contract(slabs: DigitSlabs, steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined {
   // The empty tangle: one (empty) matching with value 1.
-  let states = new States();
+  let states = new States(0);
   states.reserve(1, 0);
   states.count = 1;
   states.len[0] = 1;
   states.limbs[0] = 1;
   states.bound[0] = 1;
-  states.slab[0] = 1;
-  let next = new States();
+  if (!slabs.reserve(0, 1)) throw slabMemoryError(steps, 1);
+  slabs.digits[slabs.start(0)] = 1;
+  let next = new States(1);
   const work = new Contributions();
   const table = new TargetTable();
   const dStride = 4 / step; // index distance between the terms A^(2l−4j) of d^l
@@ -434,7 +443,7 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
 
     // Carry every source if some target digit could pass the ceiling.
     if (!boundTargets(states, next, work)) {
-      carry(states, next);
+      carry(slabs, states, next, steps);
       if (!boundTargets(states, next, work)) {
         throw new RangeError('diagram too wide for exact contraction: more than 2^20 matchings merge into one');
       }
@@ -446,18 +455,19 @@ function contract(steps: readonly StepPlan[], step: 2 | 4): Laurent | undefined 
       next.offset[t] = slabSize;
       slabSize += next.len[t]! * next.limbs[t]!;
     }
-    next.reserveSlab(slabSize);
-    accumulate(states, next, slabSize, work, step, dStride);
-    if (digitBoundCheck.enabled) checkDigitBounds(next);
+    if (!slabs.reserve(next.slab, slabSize)) throw slabMemoryError(steps, slabSize);
+    accumulate(slabs, states, next, slabSize, work, step, dStride);
+    if (digitBoundCheck.enabled) checkDigitBounds(slabs, next);
     [states, next] = [next, states];
   }
 
   if (states.count !== 1 || steps[steps.length - 1]!.newWidth !== 0) throw new Error('internal: contraction ended with an open boundary');
   const length = states.len[0]!;
   const dense: bigint[] = new Array(length);
+  const first = slabs.start(states.slab) + states.offset[0]!;
   for (let i = 0; i < length; i++) {
     let value = 0n;
-    for (let j = states.limbs[0]! - 1; j >= 0; j--) value = (value << 32n) + BigInt(states.slab[states.offset[0]! + j * length + i]!);
+    for (let j = states.limbs[0]! - 1; j >= 0; j--) value = (value << 32n) + BigInt(slabs.digits[first + j * length + i]!);
     dense[i] = value;
   }
   return Laurent.fromDense(dense, states.lo[0]!, step);
@@ -486,36 +496,34 @@ function boundTargets(sources: States, targets: States, work: Contributions): bo
  * reads each source once (grouping by target instead read every source twice
  * and was slower on long polynomials).
  */
-function accumulate(sources: States, targets: States, slabSize: number, work: Contributions, step: number, dStride: number): void {
-  const source = sources.slab;
-  const target = targets.slab;
-  target.fill(0, 0, slabSize);
+function accumulate(slabs: DigitSlabs, sources: States, targets: States, slabSize: number, work: Contributions, step: number, dStride: number): void {
+  const { kernels } = slabs;
+  const sourceStart = slabs.start(sources.slab);
+  const targetStart = slabs.start(targets.slab);
+  slabs.digits.fill(0, targetStart, targetStart + slabSize);
   for (let s = 0; s < sources.count; s++) {
     const tA = work.target[2 * s]!;
     const tB = work.target[2 * s + 1]!;
     const loopsA = work.loops[2 * s]!;
     const loopsB = work.loops[2 * s + 1]!;
     const n = sources.len[s]!;
-    const startA = targets.offset[tA]! + (sources.lo[s]! + 1 - 2 * loopsA - targets.lo[tA]!) / step;
-    const startB = targets.offset[tB]! + (sources.lo[s]! - 1 - 2 * loopsB - targets.lo[tB]!) / step;
+    const startA = targetStart + targets.offset[tA]! + (sources.lo[s]! + 1 - 2 * loopsA - targets.lo[tA]!) / step;
+    const startB = targetStart + targets.offset[tB]! + (sources.lo[s]! - 1 - 2 * loopsB - targets.lo[tB]!) / step;
     const strideA = targets.len[tA]!;
     const strideB = targets.len[tB]!;
-    for (let j = 0, from = sources.offset[s]!; j < sources.limbs[s]!; j++, from += n) {
-      if (loopsA <= 1 && loopsB <= 1) {
-        addBothSmoothings(source, from, n, target, startA + j * strideA, loopsA, startB + j * strideB, loopsB, dStride);
-      } else {
-        addTimesLoopPower(target, startA + j * strideA, source, from, n, loopsA, dStride);
-        addTimesLoopPower(target, startB + j * strideB, source, from, n, loopsB, dStride);
-      }
+    for (let j = 0, from = sourceStart + sources.offset[s]!; j < sources.limbs[s]!; j++, from += n) {
+      addSmoothing(kernels, from, n, startA + j * strideA, loopsA, dStride);
+      addSmoothing(kernels, from, n, startB + j * strideB, loopsB, dStride);
     }
   }
 }
 
-function checkDigitBounds(states: States): void {
+function checkDigitBounds(slabs: DigitSlabs, states: States): void {
+  const start = slabs.start(states.slab);
   for (let t = 0; t < states.count; t++) {
-    const end = states.offset[t]! + states.len[t]! * states.limbs[t]!;
-    for (let at = states.offset[t]!; at < end; at++) {
-      const x = states.slab[at]!;
+    const end = start + states.offset[t]! + states.len[t]! * states.limbs[t]!;
+    for (let at = start + states.offset[t]!; at < end; at++) {
+      const x = slabs.digits[at]!;
       if (!Number.isSafeInteger(x) || Math.abs(x) > states.bound[t]!) {
         throw new Error(`internal: digit ${x} of tangle state ${t} is outside its bound ${states.bound[t]}`);
       }
@@ -523,74 +531,35 @@ function checkDigitBounds(states: States): void {
   }
 }
 
-/** target[at + i + m·stride] += (−1)^l C(l, m) · source[from + i] for i < n, m = 0 … l: multiplication by d^l. */
-function addTimesLoopPower(target: Float64Array, at: number, source: Float64Array, from: number, n: number, loops: number, stride: number): void {
-  if (loops === 0) {
-    for (let i = 0; i < n; i++) target[at + i]! += source[from + i]!;
-  } else if (loops === 1) {
-    // One pass over the target: its entry i receives −source[i] − source[i − stride].
+/**
+ * digits[at …] += d^loops · digits[from … from + n − 1], the terms of d^l being
+ * `stride` apart. Each call of a kernel is one pass over the target row, so no
+ * row is read while a store to an overlapping address is still in flight (a
+ * pass per term of d at stride 1 made the loads straddle the stores just made,
+ * and ran at a third of the speed). The two smoothings of one source are added
+ * one after the other: the source row is then still in the first-level cache.
+ */
+function addSmoothing(kernels: DigitKernels, from: number, n: number, at: number, loops: number, stride: number): void {
+  if (loops === 0) kernels.addRow(from, n, at);
+  else if (loops === 1) {
+    // d·p = −p·A² − p·A⁻²: target entry i receives −source[i] − source[i − stride].
     const head = Math.min(stride, n);
-    for (let i = 0; i < head; i++) target[at + i]! -= source[from + i]!;
-    for (let i = stride; i < n; i++) target[at + i]! -= source[from + i]! + source[from + i - stride]!;
-    for (let i = Math.max(n, stride); i < n + stride; i++) target[at + i]! -= source[from + i - stride]!;
-  } else {
-    const row = binomialRow(loops);
-    const sign = loops % 2 === 0 ? 1 : -1;
-    for (let m = 0; m <= loops; m++) {
-      const factor = sign * row[m]!;
-      const o = at + m * stride;
-      for (let i = 0; i < n; i++) target[o + i]! += factor * source[from + i]!;
-    }
-  }
+    kernels.subtractRow(from, head, at);
+    if (n > stride) kernels.subtractRowPair(from + stride, from, n - stride, at + stride);
+    const tail = Math.max(n, stride);
+    kernels.subtractRow(from + tail - stride, n + stride - tail, at + tail);
+  } else addTimesLoopPower(kernels, from, n, at, loops, stride);
 }
 
 /**
- * Both smoothings of one source digit row in a single pass (the common case: at
- * most one loop closes on each side), reading the source once instead of twice.
- * The two target rows may be the same.
+ * digits[at + i + m·stride] += (−1)^l C(l, m) · digits[from + i] for i < n, m = 0 … l:
+ * multiplication by d^l. The products are exact: the target's bound allows for
+ * the factor 2^l ≥ C(l, m).
  */
-function addBothSmoothings(
-  source: Float64Array,
-  from: number,
-  n: number,
-  target: Float64Array,
-  atA: number,
-  loopsA: number,
-  atB: number,
-  loopsB: number,
-  stride: number,
-): void {
-  const a2 = atA + stride;
-  const b2 = atB + stride;
-  if (loopsA === 0 && loopsB === 0) {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! += v;
-      target[atB + i]! += v;
-    }
-  } else if (loopsA === 1 && loopsB === 0) {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! -= v;
-      target[a2 + i]! -= v;
-      target[atB + i]! += v;
-    }
-  } else if (loopsA === 0) {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! += v;
-      target[atB + i]! -= v;
-      target[b2 + i]! -= v;
-    }
-  } else {
-    for (let i = 0; i < n; i++) {
-      const v = source[from + i]!;
-      target[atA + i]! -= v;
-      target[a2 + i]! -= v;
-      target[atB + i]! -= v;
-      target[b2 + i]! -= v;
-    }
-  }
+function addTimesLoopPower(kernels: DigitKernels, from: number, n: number, at: number, loops: number, stride: number): void {
+  const row = binomialRow(loops);
+  const sign = loops % 2 === 0 ? 1 : -1;
+  for (let m = 0; m <= loops; m++) kernels.addMultiple(from, n, at + m * stride, sign * row[m]!);
 }
 
 /**
@@ -598,55 +567,49 @@ function addBothSmoothings(
  * |digit| < 2^32 (the bounds then say so), giving one more digit to the states
  * whose top digit overflows. Digits are below 2^53 beforehand, so the carry out
  * of the top is below 2^21 and one added digit always suffices. A new layout
- * is written into the targets' slab (free until phase 2), which gets the old
- * one in return, so no third slab is ever held.
+ * is written into the targets' slab (free until phase 2), which then becomes
+ * the states' slab, so no third slab is ever held.
  */
-function carry(states: States, targets: States): void {
-  const { count, len, limbs, offset, slab } = states;
+function carry(slabs: DigitSlabs, states: States, targets: States, steps: readonly StepPlan[]): void {
+  const { count, len, limbs, offset } = states;
   const overflows = new Uint8Array(count);
   let anyOverflow = false;
+  const start = slabs.start(states.slab);
   for (let s = 0; s < count; s++) {
-    const n = len[s]!;
-    const topRow = offset[s]! + (limbs[s]! - 1) * n;
-    for (let i = 0; i < n; i++) {
-      let carried = 0;
-      for (let at = offset[s]! + i; at < topRow; at += n) {
-        const x = slab[at]! + carried;
-        carried = Math.floor(x / LIMB_BASE);
-        slab[at] = x - carried * LIMB_BASE;
-      }
-      const top = slab[topRow + i]! + carried;
-      slab[topRow + i] = top;
-      if (Math.abs(top) >= LIMB_BASE) overflows[s] = 1;
-    }
+    overflows[s] = slabs.kernels.carryRows(start + offset[s]!, len[s]!, limbs[s]!);
     anyOverflow ||= overflows[s] === 1;
   }
   states.bound.fill(LIMB_BASE, 0, count);
   if (!anyOverflow) return;
-  // Some states need one more digit: lay the slab out again.
+  // Some states need one more digit: lay the digits out again, with a zero row on top of those, and carry into it.
   const newOffset = new Int32Array(count);
   let size = 0;
   for (let s = 0; s < count; s++) {
     newOffset[s] = size;
     size += len[s]! * (limbs[s]! + overflows[s]!);
   }
-  targets.reserveSlab(size);
-  const grown = targets.slab;
+  if (!slabs.reserve(targets.slab, size)) throw slabMemoryError(steps, size);
+  const from = slabs.start(states.slab);
+  const to = slabs.start(targets.slab);
   for (let s = 0; s < count; s++) {
-    const n = len[s]!;
-    const digits = limbs[s]! * n;
-    grown.set(slab.subarray(offset[s]!, offset[s]! + digits), newOffset[s]!);
+    const digits = limbs[s]! * len[s]!;
+    slabs.digits.copyWithin(to + newOffset[s]!, from + offset[s]!, from + offset[s]! + digits);
     if (overflows[s]) {
-      const topRow = newOffset[s]! + digits - n;
-      for (let i = 0; i < n; i++) {
-        const quotient = Math.floor(grown[topRow + i]! / LIMB_BASE);
-        grown[topRow + i]! -= quotient * LIMB_BASE;
-        grown[topRow + n + i] = quotient;
-      }
+      slabs.digits.fill(0, to + newOffset[s]! + digits, to + newOffset[s]! + digits + len[s]!);
       limbs[s]!++;
+      slabs.kernels.carryRows(to + newOffset[s]!, len[s]!, limbs[s]!);
     }
     offset[s] = newOffset[s]!;
   }
-  targets.slab = slab;
-  states.slab = grown;
+  [states.slab, targets.slab] = [targets.slab, states.slab];
 }
+
+/** Two slabs of `digits` doubles do not fit into the WebAssembly memory (at most 4 GiB). */
+function slabMemoryError(steps: readonly StepPlan[], digits: number): LimitError {
+  return stateMemoryError(steps.length, widestBoundary(steps), 2 * 8 * digits, DIGIT_MEMORY_MAX_BYTES, false);
+}
+
+function widestBoundary(steps: readonly StepPlan[]): number {
+  return steps.reduce((m, s) => Math.max(m, s.newWidth), 0);
+}
+
