@@ -13,6 +13,7 @@ import { unified } from 'unified';
 import { VFile } from 'vfile';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
 import remarkSkeinproof, { applySplices, sourceOffsetOf, SourceText, type SkeinproofData } from '../../../plugins/remark/index.ts';
+import { parseInSections } from '../../../plugins/remark/sections.ts';
 import type { Splice } from '../../../plugins/remark/splice.ts';
 import type { ContradictedSpan } from '../html/page.ts';
 import { decodeManuscript } from '../utf8.ts';
@@ -64,7 +65,9 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
       ...(options.resultStore ? { resultStore: options.resultStore } : {}),
       ...(options.precompute ? { precompute: options.precompute } : {}),
     });
-  await processor.run(processor.parse(file), file);
+  // Read in sections, so that the parser's events for only one section are alive at a time (plugins/remark/sections.ts).
+  const tree = parseInSections(text, (section) => processor.parse(section));
+  await processor.run(tree, file);
   const data = file.data.skeinproof!;
   const filled = applySplices(text, data.splices);
   const untypeset = await untypesetMath(text, filled, data.splices, path, data.diagnostics, draw, options.resultStore);

@@ -11,6 +11,7 @@ import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { visit } from 'unist-util-visit';
+import { parseInSections } from '../../../plugins/remark/sections.ts';
 
 /** The options the page passes to rehype-katex (see page.ts). */
 export const KATEX_OPTIONS = { strict: 'ignore', trust: false } as const;
@@ -39,7 +40,9 @@ export function formulaKey(tex: string, displayMode: boolean): string {
 
 /** The formulas of `markdown` KaTeX cannot typeset; a formula with a verdict in `known` is not typeset again. */
 export function readMath(markdown: string, known: MathVerdicts = new Map()): MathReading {
-  const tree = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath).parse(markdown);
+  const parser = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath);
+  // Only sections with a dollar sign can hold math; the rest is not parsed at all (plugins/remark/sections.ts).
+  const tree = parseInSections(markdown, (section) => parser.parse(section), (section) => section.includes('$'));
   const problems: MathProblem[] = [];
   const verdicts = new Map<string, string | null>();
   visit(tree, (node) => {

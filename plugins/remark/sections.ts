@@ -1,0 +1,205 @@
+/**
+ * Reading a big Markdown text in sections. micromark keeps the events of the
+ * whole document until it builds the tree, which is most of the peak memory
+ * of a 5 MB manuscript; parsed section by section, only one section's events
+ * are alive at a time. And a reader that wants only the math (the formulas
+ * KaTeX must typeset) can skip every section without a `$`.
+ *
+ * A section starts at a line where the parser is provably back at the top
+ * level with nothing open: a line beginning with an ASCII letter in column 1,
+ * right after a blank line, outside any fenced code, math or directive
+ * container and outside the front matter. By CommonMark's block rules
+ * (micromark, with the GFM, math, front-matter and directive extensions):
+ * - a blank line closes paragraphs, block quotes, tables and HTML blocks of
+ *   kinds 6 and 7, and only a paragraph takes lazy continuation lines;
+ * - a line in column 1 is not indented enough to continue a list item, a
+ *   footnote definition or indented code, and a letter starts no block
+ *   marker, so every container that could hold that line has closed;
+ * - what survives a blank line is fenced code (``` or ~~~), math (`$$`),
+ *   a directive container (`:::name`), the front matter and HTML blocks of
+ *   kinds 1–5: the first four are tracked line by line below, with the
+ *   extensions' exact fence rules; a line that could open HTML (`<`) ends
+ *   the sectioning.
+ * The rest of the text parses as a document of its own from there. The one
+ * thing a section cannot know is a definition elsewhere (a reference link or
+ * a footnote call is a link only if its label is defined): a text with `]:`
+ * anywhere, which every definition contains, is read in one piece.
+ *
+ * The tracking is conservative: wherever the fence rules leave a doubt (a
+ * fence or container line indented by one to three columns, which may sit in
+ * a list item or at the top level; a tab before a fence; nested containers;
+ * a container closed while a fence inside it is open), no later line starts
+ * a section. test/markdown/sections.test.ts checks on generated documents
+ * that the sections' trees, put together, are the whole text's tree.
+ */
+import type { Nodes, Root, RootContent } from 'mdast';
+
+/** Above this size, sections are read in groups of about this many characters (fewer parser runs, bounded events). */
+const GROUP_SIZE = 1 << 16;
+
+/** An open fenced code or math block: its character and how many of them opened it. */
+type Open = { readonly marker: string; readonly size: number } | undefined;
+
+const LINE_END = /\r\n|\r|\n/g;
+const BACKTICK_OPEN = /^(`{3,})[^`]*$/;
+const TILDE_OPEN = /^(~{3,})/;
+const MATH_OPEN = /^(\${2,})[^$]*$/;
+const CONTAINER_OPEN = /^(:{3,})[A-Za-z]/;
+/** A line that may open or close something tracked here or HTML, after 1–3 spaces or any tab: its level is in doubt. */
+const DOUBTFUL = /^(?: {1,3}|[ \t]*\t[ \t]*)(?:```|~~~|\$\$|:::|<)/;
+const FRONT_MATTER_FENCE = /^---[ \t]*$/;
+
+/** A closing fence of `size` or more `marker` characters (CommonMark's closer: at most three spaces before it). */
+function closes(line: string, marker: string, size: number): boolean {
+  let at = 0;
+  while (at < 3 && line.charCodeAt(at) === 32) at++;
+  let run = 0;
+  while (line[at + run] === marker) run++;
+  if (run < size) return false;
+  for (let i = at + run; i < line.length; i++) if (line[i] !== ' ' && line[i] !== '\t') return false;
+  return true;
+}
+
+function isBlank(line: string): boolean {
+  for (let i = 0; i < line.length; i++) if (line[i] !== ' ' && line[i] !== '\t') return false;
+  return true;
+}
+
+function isLetter(c: number): boolean {
+  return (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
+}
+
+/**
+ * The offsets where sections of `text` start (0 first). One offset: the text is read in one piece.
+ * A byte order mark at the start is part of the first section.
+ */
+export function sectionStarts(text: string): number[] {
+  const starts = [0];
+  if (text.includes(']:')) return starts;
+  let open: Open;
+  /** The colons of the open directive container (0: none). */
+  let container = 0;
+  let blankBefore = false;
+  let at = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let first = true;
+  let frontMatter = false;
+  LINE_END.lastIndex = at;
+  while (at <= text.length) {
+    const m = LINE_END.exec(text);
+    const end = m ? m.index : text.length;
+    const line = text.slice(at, end);
+    if (first && FRONT_MATTER_FENCE.test(line)) frontMatter = true;
+    else if (frontMatter) {
+      if (FRONT_MATTER_FENCE.test(line)) frontMatter = false;
+    } else if (open) {
+      if (DOUBTFUL.test(line) && line.includes('\t')) return starts;
+      if (container > 0 && closes(line, ':', container)) return starts; // the container closes, and the fence in it with it
+      if (closes(line, open.marker, open.size)) open = undefined;
+    } else {
+      const c = line.charCodeAt(0);
+      if (DOUBTFUL.test(line)) return starts;
+      if (c === 60) return starts; // `<`: an HTML block, perhaps of a kind a blank line does not end
+      if (blankBefore && isLetter(c) && container === 0 && at > starts[starts.length - 1]!) starts.push(at);
+      const fence = BACKTICK_OPEN.exec(line) ?? TILDE_OPEN.exec(line) ?? MATH_OPEN.exec(line);
+      const colons = CONTAINER_OPEN.exec(line)?.[1]?.length ?? 0;
+      if (fence) open = { marker: fence[1]![0]!, size: fence[1]!.length };
+      else if (colons > 0) {
+        if (container > 0) return starts; // nested containers: the closing rules of nesting are not tracked
+        container = colons;
+      } else if (container > 0 && closes(line, ':', container)) container = 0;
+    }
+    first = false;
+    blankBefore = open === undefined && isBlank(line);
+    if (!m) break;
+    at = m.index + m[0].length;
+  }
+  return starts;
+}
+
+/** A section to parse: where it starts in the text, its text, and the line it starts on (0-based). */
+interface Section {
+  readonly from: number;
+  readonly text: string;
+  readonly line: number;
+}
+
+/**
+ * Parses `text` section by section with `parse` (a whole-document Markdown parser) and joins the trees,
+ * positions counted in the whole text, as `parse(text)` would have made it. Sections for which `wanted`
+ * is false (given their text) are not parsed at all, so their blocks are missing from the tree.
+ *
+ * Sections are parsed in groups of about GROUP_SIZE characters, a group being its sections' texts one
+ * after the other, whether or not they were neighbours: a section starts where the parser is back at the
+ * top level with nothing open, and every section but the last ends with a blank line, so what comes
+ * before a section never changes how it is read. Each block of a group's tree belongs to the section it
+ * starts in, and is moved to that section's place in the whole text.
+ */
+export function parseInSections(text: string, parse: (markdown: string) => Root, wanted: (section: string) => boolean = () => true): Root {
+  const starts = sectionStarts(text);
+  const bom = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  const root: Root = { type: 'root', children: [] };
+  let group: Section[] = [];
+  let size = 0;
+  const flush = (): void => {
+    if (group.length === 0) return;
+    const tree = parse(group.map((s) => s.text).join(''));
+    // Where each section starts in the group's text (offsets after a byte order mark, as the parser counts them) and on which line.
+    let k = 0;
+    let groupOffset = -(group[0]!.from === 0 ? bom : 0);
+    let groupLine = 0;
+    const bounds = group.map((s) => {
+      const here = { offset: groupOffset, line: groupLine, section: s };
+      groupOffset += s.text.length;
+      groupLine += lineEndings(s.text, 0, s.text.length);
+      return here;
+    });
+    for (const child of tree.children) {
+      const at = child.position?.start.offset ?? 0;
+      while (k + 1 < bounds.length && bounds[k + 1]!.offset <= at) k++;
+      const b = bounds[k]!;
+      shiftPositions(child, { lines: b.section.line - b.line, offset: b.section.from - bom - b.offset });
+      root.children.push(child);
+    }
+    group = [];
+    size = 0;
+  };
+  let line = 0;
+  starts.forEach((from, k) => {
+    const to = starts[k + 1] ?? text.length;
+    const section = text.slice(from, to);
+    if (wanted(section)) {
+      if (size + section.length > GROUP_SIZE) flush();
+      group.push({ from, text: section, line });
+      size += section.length;
+    }
+    line += lineEndings(text, from, to);
+  });
+  flush();
+  root.position = { start: { line: 1, column: 1, offset: 0 }, end: endPoint(text, bom) };
+  return root;
+}
+
+/** The point after the last character, as micromark counts it (offsets after a byte order mark). */
+function endPoint(text: string, bom: number): { line: number; column: number; offset: number } {
+  const lastBreak = Math.max(text.lastIndexOf('\n'), text.lastIndexOf('\r'));
+  return { line: lineEndings(text, 0, text.length) + 1, column: text.length - Math.max(lastBreak + 1, bom) + 1, offset: text.length - bom };
+}
+
+function lineEndings(text: string, from: number, to: number): number {
+  let n = 0;
+  for (let i = from; i < to; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10 || (c === 13 && text.charCodeAt(i + 1) !== 10)) n++;
+  }
+  return n;
+}
+
+function shiftPositions(node: Nodes | RootContent, shift: { readonly lines: number; readonly offset: number }): void {
+  if (shift.lines === 0 && shift.offset === 0) return;
+  const p = node.position;
+  if (p) {
+    p.start = { line: p.start.line + shift.lines, column: p.start.column, offset: (p.start.offset ?? 0) + shift.offset };
+    p.end = { line: p.end.line + shift.lines, column: p.end.column, offset: (p.end.offset ?? 0) + shift.offset };
+  }
+  if ('children' in node) for (const child of node.children) shiftPositions(child, shift);
+}
