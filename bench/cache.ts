@@ -3,7 +3,8 @@
  * (random braid closures on 3–6 strands), each with its Jones polynomial,
  * Alexander polynomial, determinant, signature and crossing number filled in (and once more
  * with the HOMFLY-PT and Kauffman polynomials too), in Markdown and in LaTeX: `build` with an empty cache (cold), with the cache the cold run
- * filled (warm, median of 3), and after one diagram's code is edited. Each run
+ * filled (warm, median of 3: a replay of the remembered run, src/cli/run-memo.ts), and after one
+ * diagram's code is edited (a full run that reads the unchanged diagrams' values from the cache). Each run
  * is the command line as a user runs it, start-up included. The outputs of
  * the three runs are compared with an uncached build byte for byte. Each time
  * is given as wall time and, in brackets, CPU time of the process (user +

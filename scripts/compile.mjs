@@ -6,9 +6,9 @@
 // command loads only the stacks it uses.
 import { build } from 'esbuild';
 import { createHash } from 'node:crypto';
-import { cpSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
@@ -32,7 +32,12 @@ const result = await build({
   metafile: true,
   // The disk cache keys values by the engine's version (src/cli/engine-version.ts): a digest of the core's sources.
   // A Markdown build remembers KaTeX's verdicts by the versions of KaTeX and the packages (src/cli/formats/remembered-math.ts).
-  define: { SKEINPROOF_ENGINE_DIGEST: JSON.stringify(digestOfSources(join(root, 'src', 'core'))), SKEINPROOF_MATH_READER: JSON.stringify(mathReaderVersion()) },
+  // A remembered run is keyed by the tool's version: a digest of every source and the package lock (src/cli/run-memo.ts).
+  define: {
+    SKEINPROOF_ENGINE_DIGEST: JSON.stringify(digestOfSources([join(root, 'src', 'core')])),
+    SKEINPROOF_TOOL_DIGEST: JSON.stringify(digestOfSources(['src', 'plugins', 'scripts', 'package.json', 'package-lock.json'].map((p) => join(root, p)))),
+    SKEINPROOF_MATH_READER: JSON.stringify(mathReaderVersion()),
+  },
 });
 writeFileSync(join(outdir, 'build-graph.json'), `${JSON.stringify(buildGraph(result.metafile), null, 1)}\n`);
 
@@ -82,13 +87,22 @@ function mathReaderVersion() {
   return `katex ${katex.version}, packages ${lock.slice(0, 16)}`;
 }
 
-/** SHA-256 over the relative path and text of every file under `dir`, in sorted order (as src/cli/engine-version.ts computes it). */
-function digestOfSources(dir) {
+/**
+ * SHA-256 over the path (relative to its root; a root that is a file: its name) and text of every file under
+ * each root, in sorted order (as src/cli/engine-version.ts computes it).
+ */
+function digestOfSources(roots) {
   const hash = createHash('sha256');
-  const paths = readdirSync(dir, { recursive: true, withFileTypes: true })
-    .filter((entry) => entry.isFile())
-    .map((entry) => join(entry.parentPath, entry.name))
-    .sort();
-  for (const path of paths) hash.update(`${path.slice(dir.length)}\u0000`).update(readFileSync(path)).update('\u0000');
+  for (const dir of roots) {
+    if (statSync(dir).isFile()) {
+      hash.update(`${basename(dir)}\u0000`).update(readFileSync(dir)).update('\u0000');
+      continue;
+    }
+    const paths = readdirSync(dir, { recursive: true, withFileTypes: true })
+      .filter((entry) => entry.isFile())
+      .map((entry) => join(entry.parentPath, entry.name))
+      .sort();
+    for (const path of paths) hash.update(`${path.slice(dir.length)}\u0000`).update(readFileSync(path)).update('\u0000');
+  }
   return hash.digest('hex').slice(0, 16);
 }

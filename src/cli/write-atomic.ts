@@ -9,7 +9,9 @@
  * symbolic link is followed: its target is written, atomically in the target's
  * own directory, and the link stays a link. Named pipes, sockets, devices and
  * the descriptor files under /dev and /proc are refused (`-o -` writes to
- * standard output). A file that is replaced keeps its permission bits.
+ * standard output). A file that is replaced keeps its permission bits. A file
+ * that already holds exactly the bytes to write is left alone (a warm build
+ * changes neither its time nor its inode, so nothing downstream re-runs for it).
  */
 import { randomBytes } from 'node:crypto';
 import { constants, unlinkSync } from 'node:fs';
@@ -34,6 +36,7 @@ export async function writeFileAtomic(target: string, content: string | Uint8Arr
   await refuseProtected(target, destination, options.protect ?? []);
   const previous = await stat(destination).catch(() => undefined);
   const bytes = typeof content === 'string' ? Buffer.from(content, 'utf8') : content;
+  if (previous?.isFile() && previous.size === bytes.length && (await holdsExactly(destination, bytes))) return;
   const dir = dirname(destination);
   const temporary = join(dir, `.${basename(destination)}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`);
   const writeChunk = options.writeChunk ?? (async (h: FileHandle, chunk: Uint8Array) => void (await h.write(chunk)));
@@ -59,6 +62,20 @@ export async function writeFileAtomic(target: string, content: string | Uint8Arr
     forgetOnSignal(temporary);
   }
   await syncDirectory(dir);
+}
+
+/** True when `path` is a regular file whose bytes are `bytes` (opened without blocking: it may have become a pipe meanwhile). */
+async function holdsExactly(path: string, bytes: Uint8Array): Promise<boolean> {
+  let handle: FileHandle | undefined;
+  try {
+    handle = await open(path, constants.O_RDONLY | constants.O_NONBLOCK);
+    const entry = await handle.stat();
+    return entry.isFile() && entry.size === bytes.length && Buffer.from(await handle.readFile()).equals(bytes);
+  } catch {
+    return false;
+  } finally {
+    await handle?.close().catch(() => undefined);
+  }
 }
 
 /**

@@ -112,6 +112,16 @@ export function once<T>(compute: () => T): () => T {
 // checked by the long loops of the engines between steps.
 let deadline = Infinity;
 let running: { readonly task: string; readonly budgetMs: number } | undefined;
+/** How many budgets ran out in this thread: the only limit whose outcome depends on the clock, not the input. */
+let budgetsSpent = 0;
+
+/**
+ * How many time budgets have run out in this thread so far. A front end that remembers a whole run's outcome
+ * keeps none during which this grew: such an outcome depends on the machine's speed, not only on the input.
+ */
+export function timeBudgetsSpent(): number {
+  return budgetsSpent;
+}
 
 /**
  * Runs `compute` with a deadline `budgetMs` from now (none when undefined). Nested
@@ -134,6 +144,7 @@ export function withTimeBudget<T>(budgetMs: number | undefined, task: string, co
 export function checkTimeBudget(): void {
   if (deadline === Infinity || performance.now() <= deadline) return;
   const { task, budgetMs } = running!;
+  budgetsSpent++;
   const seconds = budgetMs / 1000;
   throw limitError(
     `computing ${task} took longer than the time budget of ${seconds} s and was stopped; the rest of the document is still checked. ` +

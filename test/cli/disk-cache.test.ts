@@ -9,22 +9,14 @@
  * t + t³ − t⁴, is from memory (Jones 1985).
  */
 import { spawnSync } from 'node:child_process';
-import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { cpSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { temporaryDirs } from '../support/temporary-dirs.ts';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
-const dirs: string[] = [];
-const freshDir = (): string => {
-  const dir = mkdtempSync(join(tmpdir(), 'skein-cache-cli-'));
-  dirs.push(dir);
-  return dir;
-};
-afterEach(() => {
-  for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
-});
+const freshDir = temporaryDirs('skein-cache-cli-');
 
 function skeinproof(cwd: string, ...args: string[]): { status: number | null; stdout: string; stderr: string } {
   const result = spawnSync(process.execPath, [join(root, 'bin/skeinproof.js'), ...args], { cwd, encoding: 'utf8', timeout: 60_000 });

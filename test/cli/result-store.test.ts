@@ -7,21 +7,13 @@
  * and the least recently used entries go first when the cache is over its cap.
  */
 import { spawn } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readdirSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { cacheDirectory, FileResultStore } from '../../src/cli/result-store.ts';
+import { temporaryDirs } from '../support/temporary-dirs.ts';
 
-const dirs: string[] = [];
-const freshDir = (): string => {
-  const dir = mkdtempSync(join(tmpdir(), 'skein-store-'));
-  dirs.push(dir);
-  return dir;
-};
-afterEach(() => {
-  for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
-});
+const freshDir = temporaryDirs('skein-store-');
 
 /** A key of the core's form: quantity, line break, diagram. */
 const k = (diagram: string, quantity: string): string => `${quantity}\n${diagram}`;

@@ -99,11 +99,37 @@ describe('each command loads only what it needs', () => {
     try {
       const args = ['check', 'samples/twists-and-weaves.md', '--cache-dir', cache];
       expect(matching(loadedBy(args).packages, HTML_STACK)).toEqual(['katex']);
-      const warm = loadedBy(args);
+      // --strict is another remembered run (its outcome may differ), so the Markdown is read again, but its math is not.
+      const warm = loadedBy([...args, '--strict']);
       expect(warm.status).toBe(0);
+      expect(matching(warm.packages, MARKDOWN_STACK).length).toBeGreaterThan(0);
       expect(matching(warm.packages, HTML_STACK)).toEqual([]);
     } finally {
       rmSync(cache, { recursive: true, force: true });
+    }
+  });
+
+  it('a check or build of an unchanged manuscript with the disk cache replays the remembered run: no parser loads', () => {
+    const cache = mkdtempSync(join(tmpdir(), 'skeinproof-loads-cache-'));
+    const out = mkdtempSync(join(tmpdir(), 'skeinproof-loads-out-'));
+    try {
+      for (const args of [
+        ['check', 'samples/twists-and-weaves.md', '--cache-dir', cache],
+        ['build', 'samples/twists-and-weaves.md', '-o', join(out, 'filled.md'), '--cache-dir', cache],
+        ['check', 'samples/latex/rope-atlas.tex', '--cache-dir', cache],
+      ]) {
+        const cold = loadedBy(args);
+        expect(cold.sources.has('src/cli/formats/registry.ts')).toBe(true);
+        const warm = loadedBy(args);
+        expect(warm.status).toBe(cold.status);
+        expect(matching(warm.packages, MARKDOWN_STACK)).toEqual([]);
+        expect(matching(warm.packages, HTML_STACK)).toEqual([]);
+        // Neither format's module nor its reader is loaded.
+        expect([...warm.sources].filter((s) => /formats\/(markdown|latex)\.ts$|^plugins\//.test(s))).toEqual([]);
+      }
+    } finally {
+      rmSync(cache, { recursive: true, force: true });
+      rmSync(out, { recursive: true, force: true });
     }
   });
 });

@@ -11,6 +11,7 @@ import { describeWriteFailure, writeFileAtomic, writeStandardOutput } from '../w
 import type { FormatOptions, OutputFile } from '../formats/types.ts';
 import { EXIT_USAGE, exitStatusFor, formatOf, manuscriptOptions, readManuscriptArgs, reportDiagnostics, resultFailed, usage, type ManuscriptArgs } from './check.ts';
 import type { CliCommand } from './index.ts';
+import { throughRunMemo } from '../run-memo.ts';
 
 /** `-o -` writes the output to standard output (the report stays on stderr). */
 export const STANDARD_OUTPUT = '-';
@@ -57,7 +58,7 @@ export interface BuildOutcome {
 export async function buildOnce(path: string, args: BuildArgs): Promise<BuildOutcome> {
   const format = formatOf(path);
   if (typeof format === 'string') return { status: usage(format), inputs: [path] };
-  const result = await format.build(path, args.options);
+  const result = await throughRunMemo('build', format, path, args.options);
   args.options.resultStore?.finish();
   const strict = args.options.strict === true;
   const failed = resultFailed(result, strict);

@@ -23,6 +23,7 @@ import { jobsOptions, readJobs } from '../jobs-option.ts';
 import { ManuscriptValues } from '../manuscript-pool.ts';
 import { progressDisplay, wantsProgress } from '../progress.ts';
 import { cacheOptions, openCache } from '../cache-options.ts';
+import { throughRunMemo } from '../run-memo.ts';
 
 export const EXIT_USAGE = EXIT_BAD_INPUT;
 
@@ -176,7 +177,7 @@ export const checkCommand: CliCommand = {
         failed = true;
         continue;
       }
-      const result = await format.check(path, args.options);
+      const result = await throughRunMemo('check', format, path, args.options);
       diagnostics.push(...result.diagnostics);
       for (const input of result.inputs) read.add(input); // included files, so their lines can be quoted
       failed ||= resultFailed(result, args.options.strict === true);

@@ -4,7 +4,7 @@
  * sidecar `paper.skein.tex` that \usepackage{skeinproof} reads, or with -o a
  * flat copy that needs no package.
  */
-import { closeSync, constants, fstatSync, openSync, readFileSync, realpathSync, type Stats } from 'node:fs';
+import { closeSync, constants, fstatSync, openSync, readFileSync, type Stats } from 'node:fs';
 import { basename, extname } from 'node:path';
 import { DEFAULT_CONVENTION } from '../../core/convention/convention.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
@@ -15,6 +15,7 @@ import { readLatexManuscript, type LatexDocument, type LatexFileSystem } from '.
 import { flatText } from '../../../plugins/latex/flat.ts';
 import { SIDECAR_MARK, sidecarPath, sidecarText } from '../../../plugins/latex/sidecar.ts';
 import { decodeManuscript } from '../utf8.ts';
+import { currentRealpath, type ReadLog } from '../read-log.ts';
 import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type ManuscriptFormat } from './types.ts';
 
 /**
@@ -22,36 +23,39 @@ import { FORMAT_EXTENSIONS, type FormatOptions, type FormatResult, type Manuscri
  * named pipe for reading would wait for a writer forever, and a device file never ends.
  * A file that is not UTF-8 is read with replacement characters, so the reader still follows it, and its
  * first bad byte is recorded: the check then fails with that error and nothing is built.
+ * Every read and real path goes into `log` (src/cli/read-log.ts) when one is given.
  */
-const diskFiles = (encodingProblems: Map<string, Diagnostic>): LatexFileSystem => ({
+const diskFiles = (encodingProblems: Map<string, Diagnostic>, log?: ReadLog): LatexFileSystem => ({
   read(path) {
     let fd: number;
     try {
       fd = openSync(path, constants.O_RDONLY | constants.O_NONBLOCK);
-    } catch {
+    } catch (e) {
+      log?.failed(path, e);
       return undefined;
     }
     try {
       const stats = fstatSync(fd);
+      if (!stats.isFile()) log?.notAFile();
       if (stats.isDirectory()) return undefined; // TeX does not read a directory either: try the next name
       if (!stats.isFile()) return { notRegular: specialFileKind(stats) };
       const bytes = readFileSync(fd);
+      log?.read(path, bytes);
       const decoded = decodeManuscript(bytes, path);
       if (decoded.ok) return decoded.text;
       encodingProblems.set(path, decoded.problem);
       return bytes.toString('utf8');
-    } catch {
+    } catch (e) {
+      log?.failed(path, e);
       return undefined;
     } finally {
       closeSync(fd);
     }
   },
   realpath(path) {
-    try {
-      return realpathSync(path);
-    } catch {
-      return path;
-    }
+    const real = currentRealpath(path);
+    log?.realpath(path, real);
+    return real;
   },
 });
 
@@ -71,7 +75,7 @@ interface Checked {
 
 async function checkManuscript(path: string, options: FormatOptions): Promise<Checked> {
   const encodingProblems = new Map<string, Diagnostic>();
-  const doc = readLatexManuscript(path, diskFiles(encodingProblems));
+  const doc = readLatexManuscript(path, diskFiles(encodingProblems, options.readLog));
   // Named as the reader names the file (its display path); a file with such an error is not checked further.
   const undecodable = doc.files.flatMap((f) => {
     const problem = encodingProblems.get(f.absolutePath);

@@ -42,8 +42,10 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
   try {
     bytes = await readFile(path);
   } catch (e) {
+    options.readLog?.failed(path, e);
     return { ok: false, unreadable: unreadable(path, e) };
   }
+  options.readLog?.read(path, bytes);
   const decoded = decodeManuscript(bytes, path);
   if (!decoded.ok) return { ok: false, unreadable: decoded.problem };
   const text = decoded.text;

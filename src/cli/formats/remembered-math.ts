@@ -18,7 +18,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { ResultStore } from '../../core/cache/store.ts';
+import { storedJson, type ResultStore } from '../../core/cache/store.ts';
 import type { MathProblem, MathVerdicts } from '../html/math-problems.ts';
 
 declare const SKEINPROOF_MATH_READER: string | undefined;
@@ -75,13 +75,7 @@ export async function rememberedMathProblems(filled: string, options: RememberOp
 
 /** A stored entry, or undefined when there is none or it is not of the expected shape. */
 function storedMath(text: string | undefined): StoredMath | undefined {
-  if (text === undefined) return undefined;
-  let value: unknown;
-  try {
-    value = JSON.parse(text);
-  } catch {
-    return undefined;
-  }
+  const value = storedJson(text);
   if (typeof value !== 'object' || value === null) return undefined;
   const { filled, problems, verdicts } = value as Record<string, unknown>;
   if (typeof filled !== 'string' || !Array.isArray(problems) || !problems.every(isProblem)) return undefined;

@@ -8,6 +8,7 @@ import type { Convention } from '../../core/convention/convention.ts';
 import type { PrecomputeHook, SessionCounts } from '../../core/manuscript/api.ts';
 import type { ComputeLimits } from '../../core/limits.ts';
 import type { FileResultStore } from '../result-store.ts';
+import type { ReadLog } from '../read-log.ts';
 
 export interface FormatOptions {
   /** Convention given on the command line; overrides what the document declares. */
@@ -23,6 +24,8 @@ export interface FormatOptions {
   readonly resultStore?: FileResultStore;
   /** Computes the diagrams' values in a pool of threads before the session (src/cli/manuscript-pool.ts); absent: the session computes them. */
   readonly precompute?: PrecomputeHook;
+  /** Where the format records every file it reads (src/cli/read-log.ts), so a remembered run knows what it depends on. */
+  readonly readLog?: ReadLog;
 }
 
 export interface OutputFile {

@@ -57,6 +57,16 @@ export function throughStore<T>(store: ResultStore | undefined, codec: Codec<T>,
   return value;
 }
 
+/** A stored text read as JSON: undefined when there is none or it is not JSON (a damaged or foreign text is never trusted). */
+export function storedJson(text: string | undefined): unknown {
+  if (text === undefined) return undefined;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+}
+
 const reportStores = new WeakMap<object, ResultStore>();
 
 /** Lets quantities computed later from `report` (registered invariants) use `store`. */
