@@ -78,6 +78,17 @@ export interface ExtractOptions {
   readonly notation?: Notation;
 }
 
+/**
+ * Whether a stretch of Markdown can hold anything the extraction reads, so that a caller that only
+ * checks may leave the rest unparsed (plugins/remark/sections.ts). The visitor below reacts to the
+ * front matter (in a text's first section), fenced code (``` or ~~~), directives and text that looks
+ * like one (all with a colon) and tables (GFM needs a pipe): a stretch with none of `:`, `|`, `` ` ``
+ * and `~` gives it nothing.
+ */
+export function mayHoldCarriers(markdown: string): boolean {
+  return /[:|`~]/.test(markdown);
+}
+
 export function extractManuscript(tree: Root, source: SourceText, options: ExtractOptions = {}): ExtractedManuscript {
   return new Extractor(tree, source, options).run();
 }

@@ -153,6 +153,6 @@ function byPosition(a: Diagnostic, b: Diagnostic): number {
   return pa.line - pb.line || pa.column - pb.column;
 }
 
-export { extractManuscript } from './extract.ts';
+export { extractManuscript, mayHoldCarriers } from './extract.ts';
 export { applySplices, sourceOffsetOf } from './splice.ts';
 export { SourceText } from './source-text.ts';

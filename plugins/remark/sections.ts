@@ -126,7 +126,7 @@ interface Section {
 /**
  * Parses `text` section by section with `parse` (a whole-document Markdown parser) and joins the trees,
  * positions counted in the whole text, as `parse(text)` would have made it. Sections for which `wanted`
- * is false (given their text) are not parsed at all, so their blocks are missing from the tree.
+ * is false (given their text and start) are not parsed at all, so their blocks are missing from the tree.
  *
  * Sections are parsed in groups of about GROUP_SIZE characters, a group being its sections' texts one
  * after the other, whether or not they were neighbours: a section starts where the parser is back at the
@@ -134,7 +134,7 @@ interface Section {
  * before a section never changes how it is read. Each block of a group's tree belongs to the section it
  * starts in, and is moved to that section's place in the whole text.
  */
-export function parseInSections(text: string, parse: (markdown: string) => Root, wanted: (section: string) => boolean = () => true): Root {
+export function parseInSections(text: string, parse: (markdown: string) => Root, wanted: (section: string, from: number) => boolean = () => true): Root {
   const starts = sectionStarts(text);
   const bom = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   const root: Root = { type: 'root', children: [] };
@@ -167,7 +167,7 @@ export function parseInSections(text: string, parse: (markdown: string) => Root,
   starts.forEach((from, k) => {
     const to = starts[k + 1] ?? text.length;
     const section = text.slice(from, to);
-    if (wanted(section)) {
+    if (wanted(section, from)) {
       if (size + section.length > GROUP_SIZE) flush();
       group.push({ from, text: section, line });
       size += section.length;

@@ -19,6 +19,8 @@ import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { visit } from 'unist-util-visit';
 import { describe, expect, it } from 'vitest';
+import { VFile } from 'vfile';
+import remarkSkeinproof, { mayHoldCarriers } from '../../plugins/remark/index.ts';
 import { parseInSections, sectionStarts } from '../../plugins/remark/sections.ts';
 
 const withDirectives = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath).use(remarkDirective);
@@ -126,5 +128,52 @@ describe('parsing in sections', () => {
     expect(parseInSections(referred, parsers['math reader'])).toEqual(mathReader.parse(referred));
     const front = `---\na: 1\n\nb: 2\n---\n\n${text}`;
     expect(sectionStarts(front).map((at) => front.slice(at, at + 8))).toEqual(['---\na: 1', 'Intro wi', 'Prose $y', 'After th']);
+  });
+});
+
+/**
+ * `check` parses only the sections that can hold skeinproof's markup (mayHoldCarriers): the check must
+ * come out the same as with the whole tree. Values: the positive trefoil σ₁³ has V = t + t³ − t⁴
+ * (from memory, standard tables); the other stated values are slips on purpose.
+ */
+describe('checking only the sections that can hold markup', () => {
+  const checker = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath).use(remarkDirective).use(remarkSkeinproof, { fill: false, draw: false });
+  async function checked(text: string, tree: Root): Promise<unknown> {
+    const file = new VFile({ value: text, path: 'doc.md' });
+    await checker.run(tree, file);
+    const data = file.data.skeinproof!;
+    return JSON.parse(JSON.stringify({ diagnostics: data.diagnostics, splices: data.splices, counts: data.session.counts, settings: data.settings }));
+  }
+  const carrier = fc.constantFrom(
+    '```skein id=t3 notation=braid\n1 1 1\n```',
+    '~~~skein id=u notation=braid\n1 1\n\nV\n~~~',
+    '```skien id=x\n1\n```',
+    'V is :jones{of=t3} and :jones[$t + t^3 - t^4$]{of=t3}.',
+    'Then :jones[$t + t^3$]{of=t3} and :determinant[4]{of=t3}.',
+    'A slip :jones[$t$]\n{of=t3} and :writhe{of=nobody}.',
+    ':::invariants{notation=braid}\n| diagram | jones |\n| --- | --- |\n| t3 | $t + t^3 - t^4$ |\n:::',
+    'knot | jones\n--- | ---\nt3 | $t$',
+    '<div>:jones{of=t3}</div>',
+    '::drawing{of=t3}',
+    '::jones{of=t3}',
+    'Time 10:30 in text, and a:b.',
+  );
+  const checkedDocument = fc
+    .tuple(
+      fc.constantFrom('', '---\nskeinproof:\n  strict: true\n---\n', '---\ntitle: x\n\nskeinproof:\n  notation: braid\n---\n'),
+      fc.array(fc.tuple(fc.oneof({ weight: 2, arbitrary: carrier }, block), separator), { minLength: 1, maxLength: 10 }),
+      fc.constantFrom('\n', '\r\n'),
+    )
+    .map(([head, blocks, eol]) => (head + blocks.map(([b, s]) => b + s).join('')).replace(/\n/g, eol));
+
+  it('finds the same diagrams, claims, fill-ins, problems and splices as with the whole tree', async () => {
+    await fc.assert(
+      fc.asyncProperty(checkedDocument, async (text) => {
+        const parse = (t: string) => checker.parse(t);
+        const partial = parseInSections(text, parse, (section, from) => from === 0 || mayHoldCarriers(section));
+        expect(await checked(text, partial)).toEqual(await checked(text, parse(text)));
+      }),
+      { numRuns: 300 },
+    );
   });
 });

@@ -12,7 +12,7 @@ import remarkParse from 'remark-parse';
 import { unified } from 'unified';
 import { VFile } from 'vfile';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
-import remarkSkeinproof, { applySplices, sourceOffsetOf, SourceText, type SkeinproofData } from '../../../plugins/remark/index.ts';
+import remarkSkeinproof, { applySplices, mayHoldCarriers, sourceOffsetOf, SourceText, type SkeinproofData } from '../../../plugins/remark/index.ts';
 import { parseInSections } from '../../../plugins/remark/sections.ts';
 import type { Splice } from '../../../plugins/remark/splice.ts';
 import type { ContradictedSpan } from '../html/page.ts';
@@ -67,8 +67,9 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
       ...(options.resultStore ? { resultStore: options.resultStore } : {}),
       ...(options.precompute ? { precompute: options.precompute } : {}),
     });
-  // Read in sections, so that the parser's events for only one section are alive at a time (plugins/remark/sections.ts).
-  const tree = parseInSections(text, (section) => processor.parse(section));
+  // Read in sections, so that the parser's events for only one group of sections are alive at a time, and only
+  // the sections that can hold skeinproof's markup: nothing here reads the tree but the extraction (plugins/remark/sections.ts).
+  const tree = parseInSections(text, (section) => processor.parse(section), (section, from) => from === 0 || mayHoldCarriers(section));
   await processor.run(tree, file);
   const data = file.data.skeinproof!;
   const filled = applySplices(text, data.splices);
