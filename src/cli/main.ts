@@ -8,8 +8,8 @@
  */
 import yargs from 'yargs';
 import type { Argv } from 'yargs';
-import { commands } from './commands/index.ts';
-import { STANDARD_INPUT_ARGUMENT } from './commands/check.ts';
+import { commands, commandsFor } from './commands/index.ts';
+import { STANDARD_INPUT_ARGUMENT } from './standard-input.ts';
 import { SKEINPROOF_VERSION } from './version.ts';
 
 export const EXIT_OK = 0;
@@ -31,7 +31,7 @@ export async function main(argv: readonly string[]): Promise<number> {
   let status = EXIT_OK;
   let usageError: string | undefined;
   const named = argv[0];
-  const names = commands.map((c) => c.command.split(' ')[0]!);
+  const names = commands.map((c) => c.name);
   if (named !== undefined && !named.startsWith('-') && !names.includes(named)) {
     process.stderr.write(`skeinproof: unknown command \`${named}\`; the commands are ${names.join(', ')}\nRun 'skeinproof --help' for the commands and options.\n`);
     return EXIT_USAGE;
@@ -46,12 +46,12 @@ export async function main(argv: readonly string[]): Promise<number> {
     .alias('h', 'help')
     .version(SKEINPROOF_VERSION)
     .alias('V', 'version')
-    .wrap(Math.min(100, process.stdout.columns || 100))
+    .wrap(asksForHelp(argv) ? Math.min(100, process.stdout.columns || 100) : null)
     .fail((message, error) => {
       if (error && !(error as { isUsage?: boolean }).isUsage) throw error;
       usageError = message ?? error?.message ?? 'invalid usage';
     });
-  for (const command of commands) {
+  for (const command of await commandsFor(argv)) {
     parser = parser.command(command.command, command.describe, command.builder, async (args) => {
       // yargs still calls the handler after .fail() has reported a usage error (e.g. a value not among the choices): do not run then.
       if (usageError !== undefined) return;
@@ -90,4 +90,12 @@ export function tidyHelp(text: string): string {
   return text
     .replace(/([^\s[])\[(choices|default|boolean|string|number|array|required|count|deprecated)\b/g, '$1 [$2')
     .replace(/ \[required\] \[default: \[\]\]/g, ' [required]');
+}
+
+/**
+ * Whether the help text will be shown. yargs lays out a command's help on every run (to have it ready), which
+ * with line wrapping is a good part of a short run's time; without a help request it is laid out unwrapped.
+ */
+function asksForHelp(argv: readonly string[]): boolean {
+  return argv.some((a) => a === '--help' || a.startsWith('--help=') || /^-[A-Za-z]*h/.test(a));
 }

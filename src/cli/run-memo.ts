@@ -6,7 +6,8 @@
  * What a format's check or build returns (its diagnostics as data, the output
  * texts, the files read, whether it failed, the counts) is a function of
  *   - the tool: its version and a digest of all its sources and its package
- *     lock (./engine-version.ts, toolVersion), and the Node.js version;
+ *     lock (./engine-version.ts, toolVersion), and the Node.js version with
+ *     its ICU version;
  *   - the command kind (check or build), the manuscript path as given and the
  *     working directory it is resolved against;
  *   - the format options that shape the outcome (KEYED below: convention,
@@ -60,7 +61,8 @@ export interface RunSetting {
   readonly cwd: string;
 }
 
-export const currentSetting = (): RunSetting => ({ tool: toolVersion(), node: process.version, cwd: process.cwd() });
+/** This process's setting. The Node version names its ICU too: messages format numbers with `toLocaleString`. */
+export const currentSetting = (): RunSetting => ({ tool: toolVersion(), node: `${process.version} icu ${process.versions.icu ?? 'none'}`, cwd: process.cwd() });
 
 /** The store key of a run. */
 export function runKey(kind: RunKind, path: string, options: FormatOptions, setting: RunSetting): string {
@@ -72,10 +74,10 @@ export function runKey(kind: RunKind, path: string, options: FormatOptions, sett
  * The format's check or build of `path`: replayed from the store when a remembered run's files are all as it
  * read them, else run (and remembered when its outcome depends on nothing but the key and the files read).
  */
-export async function throughRunMemo(kind: RunKind, format: ManuscriptFormat, path: string, options: FormatOptions, setting: RunSetting = currentSetting()): Promise<FormatResult> {
+export async function throughRunMemo(kind: RunKind, format: ManuscriptFormat, path: string, options: FormatOptions, setting?: RunSetting): Promise<FormatResult> {
   const store = options.resultStore;
   if (!store) return format[kind](path, options);
-  const key = runKey(kind, path, options, setting);
+  const key = runKey(kind, path, options, setting ?? currentSetting());
   const stored = decodeRun(store.get(key));
   if (stored && stillAsRead(stored.reads)) return stored.result;
   const log = new ReadLog();

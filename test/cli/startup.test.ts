@@ -124,8 +124,8 @@ describe('each command loads only what it needs', () => {
         expect(warm.status).toBe(cold.status);
         expect(matching(warm.packages, MARKDOWN_STACK)).toEqual([]);
         expect(matching(warm.packages, HTML_STACK)).toEqual([]);
-        // Neither format's module nor its reader is loaded.
-        expect([...warm.sources].filter((s) => /formats\/(markdown|latex)\.ts$|^plugins\//.test(s))).toEqual([]);
+        // Neither format's module nor its reader is loaded, nor the manuscript pass, the notations or the engines.
+        expect([...warm.sources].filter((s) => /formats\/(markdown|latex)\.ts$|^plugins\/|^src\/core\/(manuscript|notation|invariants|analyze)\//.test(s))).toEqual([]);
       }
     } finally {
       rmSync(cache, { recursive: true, force: true });

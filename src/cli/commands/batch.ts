@@ -18,7 +18,7 @@ import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.
 import { jobsOptions, readJobs } from '../jobs-option.ts';
 import { progressDisplay } from '../progress.ts';
 import type { CliCommand } from './index.ts';
-import { STANDARD_INPUT_ARGUMENT } from './check.ts';
+import { STANDARD_INPUT_ARGUMENT } from '../standard-input.ts';
 
 const EXIT_OK = 0;
 const EXIT_BAD_INPUT = 2;

@@ -12,7 +12,7 @@ import type { Argv } from 'yargs';
 import type { Convention } from '../../core/convention/convention.ts';
 import { parseConventionText } from '../../core/convention/settings.ts';
 import type { Diagnostic } from '../../core/diagnostics/diagnostic.ts';
-import type { SessionCounts } from '../../core/manuscript/api.ts';
+import type { PrecomputeHook, SessionCounts } from '../../core/manuscript/api.ts';
 import { EXIT_BAD_INPUT, EXIT_FAILED_CHECK, countDiagnostics, exitStatus, formatHumanReport, formatJsonReport, formatSarif } from '../../report/index.ts';
 import { formatFor, knownExtensions } from '../formats/registry.ts';
 import type { FormatOptions, FormatResult, ManuscriptFormat } from '../formats/types.ts';
@@ -20,10 +20,11 @@ import type { CliCommand } from './index.ts';
 import { conventionOptionText } from '../repeated-option.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { jobsOptions, readJobs } from '../jobs-option.ts';
-import { ManuscriptValues } from '../manuscript-pool.ts';
+import type { ManuscriptValuesOptions } from '../manuscript-pool.ts';
 import { progressDisplay, wantsProgress } from '../progress.ts';
 import { cacheOptions, openCache } from '../cache-options.ts';
 import { throughRunMemo } from '../run-memo.ts';
+import { STANDARD_INPUT_ARGUMENT } from '../standard-input.ts';
 
 export const EXIT_USAGE = EXIT_BAD_INPUT;
 
@@ -67,7 +68,7 @@ export function readManuscriptArgs(args: Record<string, unknown>, keepValues = f
   if (typeof jobs === 'string') return jobs;
   const quiet = args['quiet'] === true;
   const pooled = jobs > 1 || keepValues || wantsProgress(quiet);
-  const values = pooled ? new ManuscriptValues({ jobs, ...(resultStore ? { disk: resultStore } : {}), progress: () => progressDisplay('diagrams', quiet) }) : undefined;
+  const values = pooled ? lazyValues({ jobs, ...(resultStore ? { disk: resultStore } : {}), progress: () => progressDisplay('diagrams', quiet) }) : undefined;
   return {
     report: args['format'] as ReportFormat,
     options: {
@@ -80,8 +81,20 @@ export function readManuscriptArgs(args: Record<string, unknown>, keepValues = f
   };
 }
 
-/** How the command line passes on a manuscript named `-` (yargs itself drops a bare `-`). */
-export const STANDARD_INPUT_ARGUMENT = '<standard input>';
+/**
+ * The pool's values, with the pool and the engines behind it loaded on the first session that needs them: a
+ * replayed run (../run-memo.ts) needs none. One instance for the life of the hook, as watch keeps it.
+ */
+function lazyValues(options: ManuscriptValuesOptions): { readonly precompute: PrecomputeHook } {
+  let values: Promise<import('../manuscript-pool.ts').ManuscriptValues> | undefined;
+  return {
+    precompute: async (input) => {
+      values ??= import('../manuscript-pool.ts').then(({ ManuscriptValues }) => new ManuscriptValues(options));
+      return (await values).precompute(input);
+    },
+  };
+}
+
 
 /** The format that reads `path`, or a message saying why no format can (standard input, a directory, a missing file, an unknown extension). */
 export function formatOf(path: string): ManuscriptFormat | string {
