@@ -4,9 +4,9 @@
  * (Jones polynomial, determinant) and 10,000 paragraphs of prose, some with
  * a formula of their own. `check --jobs 1 --no-cache` is timed as a user runs
  * it (start-up included), with the peak resident size of the process (from
- * /usr/bin/time), and so is a check of its first half, to show how memory
- * grows. `npm run bench` runs it; SKEINPROOF_BENCH_BIG=0 skips it (it takes
- * about 10 s on the shared 2-core machine).
+ * /usr/bin/time), and so are checks of a survey half and twice its size, to
+ * show how time and memory grow. `npm run bench` runs it; SKEINPROOF_BENCH_BIG=0
+ * skips it (it takes about 40 s on the shared 2-core machine).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -64,6 +64,7 @@ export function runBigMarkdownBench(): void {
     for (const [name, codes, paragraphs] of [
       ['half: 440 codes, 5,000 paragraphs', Math.ceil(CODES / 2), PARAGRAPHS / 2],
       [`${CODES} codes, two fill-ins each, ${PARAGRAPHS.toLocaleString('en')} paragraphs`, CODES, PARAGRAPHS],
+      [`double: ${(2 * CODES).toLocaleString('en')} codes, ${(2 * PARAGRAPHS).toLocaleString('en')} paragraphs`, 2 * CODES, 2 * PARAGRAPHS],
     ] as const) {
       const path = join(work, `survey-${codes}.md`);
       writeFileSync(path, survey(codes, paragraphs));

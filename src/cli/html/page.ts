@@ -20,6 +20,7 @@ import remarkFrontmatter from 'remark-frontmatter';
 import remarkGfm from 'remark-gfm';
 import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
+import { parseInSections } from '../../../plugins/remark/sections.ts';
 import remarkRehype, { defaultHandlers } from 'remark-rehype';
 import type { Code } from 'mdast';
 import { DIAGRAM_FENCE_LANGUAGE, splitInfoSettings } from '../../../plugins/remark/syntax.ts';
@@ -119,7 +120,9 @@ export async function renderHtmlPage(markdown: string, options: PageOptions): Pr
       tree.children.unshift(...forceWrittenBanner(options.contradicted?.length ?? 0));
     })
     .use(rehypeStringify);
-  const body = String(await processor.process(file));
+  // Parsed in sections, the same tree with the parser's events for one group of sections alive at a time (plugins/remark/sections.ts).
+  const tree = parseInSections(markdown, (section) => processor.parse(section));
+  const body = processor.stringify(await processor.run(tree, file), file);
   const page = `<!doctype html>
 <html lang="en">
 <head>
