@@ -171,6 +171,7 @@ async function main(): Promise<void> {
 
 await main();
 await import('./engine-constants.ts').then((engine) => engine.runEngineConstantsBench());
+await import('./digit-kernels.ts').then((kernels) => kernels.runDigitKernelBench());
 await import('./classical.ts').then((classical) => classical.runClassicalBench());
 await import('./khovanov.ts').then((khovanov) => khovanov.runKhovanovBench());
 await import('./speed.ts').then((speed) => speed.runSpeedBench());
