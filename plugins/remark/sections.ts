@@ -17,13 +17,15 @@
  *   marker, so every container that could hold that line has closed;
  * - what survives a blank line is fenced code (``` or ~~~), math (`$$`),
  *   a directive container (`:::name`), the front matter and HTML blocks of
- *   kinds 1–5: the first four are tracked line by line below, with the
- *   extensions' exact fence rules; a line that could open HTML (`<`) ends
- *   the sectioning.
- * The rest of the text parses as a document of its own from there. The one
- * thing a section cannot know is a definition elsewhere (a reference link or
- * a footnote call is a link only if its label is defined): a text with `]:`
- * anywhere, which every definition contains, is read in one piece.
+ *   kinds 1–5 (`<script`, `<pre`, `<style`, `<textarea`, `<!--`, `<?`,
+ *   `<!X`, `<![CDATA[`, each up to the line with its end marker): all are
+ *   tracked line by line below, with the parser's exact rules. Any other
+ *   line starting with `<` is an HTML block of kind 6 or 7 or a paragraph,
+ *   which both end at the next blank line; in between, only a line that
+ *   would open something after a paragraph (a fence, `$$`, `:::`, `<`)
+ *   reads differently in the two, and ends the sectioning.
+ * The rest of the text parses as a document of its own from there, but for
+ * the definitions a reference needs (see parseInSections).
  *
  * The tracking is conservative: wherever the fence rules leave a doubt (a
  * fence or container line indented by one to three columns, which may sit in
@@ -45,6 +47,16 @@ const BACKTICK_OPEN = /^(`{3,})[^`]*$/;
 const TILDE_OPEN = /^(~{3,})/;
 const MATH_OPEN = /^(\${2,})[^$]*$/;
 const CONTAINER_OPEN = /^(:{3,})[A-Za-z]/;
+/** HTML blocks of kinds 1–5 (CommonMark; micromark's html-flow): the opener at the line start, and what ends them. */
+const HTML_RAW: readonly { readonly open: RegExp; readonly end: RegExp }[] = [
+  { open: /^<(?:script|pre|style|textarea)(?=[ \t>]|$)/i, end: /<\/(?:script|pre|style|textarea)>/i },
+  { open: /^<!--/, end: /-->/ },
+  { open: /^<\?/, end: /\?>/ },
+  { open: /^<![A-Za-z]/, end: />/ },
+  { open: /^<!\[CDATA\[/, end: /\]\]>/ },
+];
+/** A line that would open a block after a paragraph line but is raw text inside an HTML block of kind 6 or 7. */
+const OPENS_AFTER_PARAGRAPH = /^[ \t]*(?:```|~~~|\$\$|:::|<)/;
 /** A line that may open or close something tracked here or HTML, after 1–3 spaces or any tab: its level is in doubt. */
 const DOUBTFUL = /^(?: {1,3}|[ \t]*\t[ \t]*)(?:```|~~~|\$\$|:::|<)/;
 const FRONT_MATTER_FENCE = /^---[ \t]*$/;
@@ -75,7 +87,6 @@ function isLetter(c: number): boolean {
  */
 export function sectionStarts(text: string): number[] {
   const starts = [0];
-  if (text.includes(']:')) return starts;
   let open: Open;
   /** The colons of the open directive container (0: none). */
   let container = 0;
@@ -83,6 +94,8 @@ export function sectionStarts(text: string): number[] {
   let at = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   let first = true;
   let frontMatter = false;
+  /** An open HTML block: of kinds 1–5, what ends it; 'blank': of kind 6 or 7, or a paragraph begun with `<`. */
+  let html: RegExp | 'blank' | undefined;
   LINE_END.lastIndex = at;
   while (at <= text.length) {
     const m = LINE_END.exec(text);
@@ -95,10 +108,25 @@ export function sectionStarts(text: string): number[] {
       if (DOUBTFUL.test(line) && line.includes('\t')) return starts;
       if (container > 0 && closes(line, ':', container)) return starts; // the container closes, and the fence in it with it
       if (closes(line, open.marker, open.size)) open = undefined;
+    } else if (html instanceof RegExp) {
+      if (container > 0 && closes(line, ':', container)) return starts;
+      if (html.test(line)) html = undefined;
+    } else if (html === 'blank') {
+      if (isBlank(line)) html = undefined;
+      else if (OPENS_AFTER_PARAGRAPH.test(line)) return starts;
     } else {
       const c = line.charCodeAt(0);
       if (DOUBTFUL.test(line)) return starts;
-      if (c === 60) return starts; // `<`: an HTML block, perhaps of a kind a blank line does not end
+      if (c === 60) {
+        const raw = HTML_RAW.find((kind) => kind.open.test(line));
+        if (!raw) html = 'blank';
+        else {
+          const opener = raw.open.exec(line)![0].length;
+          // An end marker that overlaps the opener (`<!-->`, `<?>`): whether it ends the block is left in doubt.
+          if (raw.end.test(line) && !raw.end.test(line.slice(opener))) return starts;
+          if (!raw.end.test(line.slice(opener))) html = raw.end;
+        }
+      }
       if (blankBefore && isLetter(c) && container === 0 && at > starts[starts.length - 1]!) starts.push(at);
       const fence = BACKTICK_OPEN.exec(line) ?? TILDE_OPEN.exec(line) ?? MATH_OPEN.exec(line);
       const colons = CONTAINER_OPEN.exec(line)?.[1]?.length ?? 0;
@@ -109,7 +137,7 @@ export function sectionStarts(text: string): number[] {
       } else if (container > 0 && closes(line, ':', container)) container = 0;
     }
     first = false;
-    blankBefore = open === undefined && isBlank(line);
+    blankBefore = open === undefined && html === undefined && isBlank(line);
     if (!m) break;
     at = m.index + m[0].length;
   }
@@ -133,14 +161,18 @@ interface Section {
  * top level with nothing open, and every section but the last ends with a blank line, so what comes
  * before a section never changes how it is read. Each block of a group's tree belongs to the section it
  * starts in, and is moved to that section's place in the whole text.
+ *
+ * The one thing read across sections is a definition: `[label]` (or a footnote call `[^label]`) is a
+ * reference only if the label is defined anywhere, by a line with `[label]:`. When the text has `]:`, every
+ * section with a `[` goes into one group (whatever its size), together with every section that has a `]:`
+ * (wanted or not), so that each reference meets all the definitions; a section without `[` has neither.
  */
 export function parseInSections(text: string, parse: (markdown: string) => Root, wanted: (section: string, from: number) => boolean = () => true): Root {
   const starts = sectionStarts(text);
   const bom = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  const defines = text.includes(']:');
   const root: Root = { type: 'root', children: [] };
-  let group: Section[] = [];
-  let size = 0;
-  const flush = (): void => {
+  const read = (group: readonly Section[]): void => {
     if (group.length === 0) return;
     const tree = parse(group.map((s) => s.text).join(''));
     // Where each section starts in the group's text (offsets after a byte order mark, as the parser counts them) and on which line.
@@ -160,21 +192,32 @@ export function parseInSections(text: string, parse: (markdown: string) => Root,
       shiftPositions(child, { lines: b.section.line - b.line, offset: b.section.from - bom - b.offset });
       root.children.push(child);
     }
-    group = [];
-    size = 0;
   };
+  let group: Section[] = [];
+  let size = 0;
+  const linked: Section[] = [];
   let line = 0;
   starts.forEach((from, k) => {
     const to = starts[k + 1] ?? text.length;
     const section = text.slice(from, to);
-    if (wanted(section, from)) {
-      if (size + section.length > GROUP_SIZE) flush();
+    const refers = defines && section.includes('[');
+    if (refers && (section.includes(']:') || wanted(section, from))) linked.push({ from, text: section, line });
+    else if (wanted(section, from)) {
+      if (size + section.length > GROUP_SIZE) {
+        read(group);
+        group = [];
+        size = 0;
+      }
       group.push({ from, text: section, line });
       size += section.length;
     }
     line += lineEndings(text, from, to);
   });
-  flush();
+  read(group);
+  if (linked.length > 0) {
+    read(linked);
+    root.children.sort((a, b) => a.position!.start.offset! - b.position!.start.offset!);
+  }
   root.position = { start: { line: 1, column: 1, offset: 0 }, end: endPoint(text, bom) };
   return root;
 }

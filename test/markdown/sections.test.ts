@@ -48,7 +48,7 @@ const indent = fc.oneof({ weight: 12, arbitrary: fc.constant('') }, fc.constantF
 const lines = (n: number) => fc.array(fc.oneof(prose, fc.constant(''), fc.tuple(indent, prose).map(([i, p]) => i + p)), { minLength: 0, maxLength: n });
 
 const fenceChar = fc.constantFrom('`', '~', '$');
-/** Blocks after which no section can start (HTML, nested containers): rarer, so that most documents are cut. */
+/** Blocks after which no section can start (nested containers): rarer, so that most documents are cut. */
 const rare = (a: fc.Arbitrary<string>) => ({ weight: 1, arbitrary: a });
 const common = (a: fc.Arbitrary<string>) => ({ weight: 6, arbitrary: a });
 /** Paragraphs: most of a manuscript, and where sections start. */
@@ -86,7 +86,15 @@ const block = fc.oneof(
   common(fc.tuple(prose, lines(2)).map(([a, b]) => `> ${a}\n${b.join('\n')}`)),
   // Tables, HTML, definitions, indented code, breaks.
   common(fc.tuple(word, prose, prose).map(([h, a, b]) => `${h} | b\n--- | ---\n${a} | $c$\n${b}`)),
-  rare(fc.constantFrom('<div>\n\n$x$ text\n</div>', '<!--\n\nnote $y$\n-->', '<script>\n\nvar a = "$z$"\n</script>', '<pre>\n```\n</pre>')),
+  // HTML blocks of every kind, ended on their first line or later or never, with fences, blank lines and prose inside or after.
+  common(
+    fc.tuple(
+      fc.constantFrom('<div>', '<DIV class="x">', '<span>$s$</span> text', '<!--', '<!-- c -->', '<!-->', '<!--->', '<?x', '<?>', '<!DOCTYPE x', '<![CDATA[', '<script>', '<SCRIPT type="t">', '<pre>', '<style>a</style>', '<textarea', '<a href="u">', '</p>', '<x-y>', '<'),
+      lines(4),
+      fc.constantFrom('</div>', '-->', '?>', '>', ']]>', '</script>', '</PRE>', '', '```', '$$'),
+    ).map(([open, body, end]) => `${open}\n${body.join('\n')}\n${end}`),
+  ),
+  common(fc.tuple(fc.constantFrom('<div>', '<span>x</span>', '<!-- a -->'), fenceChar, prose).map(([h, c, p]) => `${h}\n${c.repeat(3)}\n\n${p}\n${c.repeat(3)}`)),
   common(fc.constantFrom('[ref]: https://knots.example "t$"', '[^1]: a note $n$\n\n    more $m$', '[ref $x]: /u')),
   common(fc.tuple(indent, prose).map(([i, p]) => `    ${i}${p}`)),
   common(fc.constantFrom('***', '---', '- - -', '')),
@@ -105,10 +113,13 @@ describe('parsing in sections', () => {
           const whole = parse(text);
           expect(parseInSections(text, parse)).toEqual(whole);
           expect(formulas(parseInSections(text, parse, (s) => s.includes('$')))).toEqual(formulas(whole));
-          // Any choice of sections, read together though they were not neighbours, gives exactly their blocks.
+          // Any choice of sections, read together though they were not neighbours, gives exactly their blocks (and those of the definitions they may need).
           const chosen = (s: string) => s.length % 3 !== 0;
           const starts = sectionStarts(text);
-          const kept = starts.filter((from, k) => chosen(text.slice(from, starts[k + 1] ?? text.length)));
+          const kept = starts.filter((from, k) => {
+            const section = text.slice(from, starts[k + 1] ?? text.length);
+            return chosen(section) || section.includes(']:');
+          });
           const inKept = (offset: number) => kept.some((from) => from - bom(text) <= offset && offset < (starts[starts.indexOf(from) + 1] ?? Infinity) - bom(text));
           expect(parseInSections(text, parse, chosen).children).toEqual(whole.children.filter((c) => inKept(c.position!.start.offset!)));
           if (sectionStarts(text).length > 2) cut++;
@@ -120,12 +131,18 @@ describe('parsing in sections', () => {
     });
   }
 
-  it('cuts a survey-like text at its paragraphs and code blocks, and declines on a definition anywhere', () => {
+  it('cuts a survey-like text at its paragraphs and code blocks, and reads references with the definitions of other sections', () => {
     const text = 'Intro with $x$.\n\n```skein id=a\n1 1 1\n\nnot a section\n```\n\nProse $y$\nmore.\n\n- item\n\nAfter the list.\n';
     expect(sectionStarts(text).map((at) => text.slice(at, at + 8))).toEqual(['Intro wi', 'Prose $y', 'After th']);
     const referred = `See [the table] for $x$.\n\n${text}\n[the table]: https://knots.example\n`;
-    expect(sectionStarts(referred)).toEqual([0]);
-    expect(parseInSections(referred, parsers['math reader'])).toEqual(mathReader.parse(referred));
+    expect(sectionStarts(referred).length).toBe(4);
+    const whole = mathReader.parse(referred);
+    expect(whole.children[0]).toMatchObject({ type: 'paragraph', children: [{ type: 'text' }, { type: 'linkReference' }, { type: 'text' }, { type: 'inlineMath' }, { type: 'text' }] });
+    expect(parseInSections(referred, parsers['math reader'])).toEqual(whole);
+    // Only the first section is wanted: the last, which holds the definition, is read with it all the same.
+    const partial = parseInSections(referred, parsers['math reader'], (_, from) => from === 0);
+    expect(partial.children.map((c) => c.type)).toEqual(['paragraph', 'paragraph', 'definition']);
+    expect(partial.children[0]).toEqual(whole.children[0]);
     const front = `---\na: 1\n\nb: 2\n---\n\n${text}`;
     expect(sectionStarts(front).map((at) => front.slice(at, at + 8))).toEqual(['---\na: 1', 'Intro wi', 'Prose $y', 'After th']);
   });
