@@ -155,6 +155,14 @@ describe('crossing order', () => {
     }
     expect(planContraction(small)).toEqual(first);
   });
+  it('packs walk keys coarser past 8,192 crossings and still plans a narrow order', () => {
+    // Above 2^13 crossings a walk's contact times share their key bits with the crossing index (see KeyLayout).
+    const d = randomReducedAlternating(rng(211), 9000, 4);
+    const plan = planContraction(d);
+    expect([...plan.order].sort((a, b) => a - b)).toEqual(d.crossings.map((_, k) => k));
+    expect(plan.widths).toEqual(boundaryWidths(d, plan.order));
+    expect(plan.maxWidth).toBeLessThanOrEqual(2 * 4 + 2);
+  });
   it('keeps a shuffled braid closure within 2·strands + 2 open ends (a sweep along the braid needs 2·strands)', () => {
     const random = rng(209);
     for (const strands of [3, 4, 5, 6]) {

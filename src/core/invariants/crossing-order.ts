@@ -14,8 +14,9 @@
  *
  * On small diagrams the contraction takes tens of microseconds, so the walks
  * are kept allocation-free: typed arrays kept from plan to plan, a heap of
- * only the crossings that touch the region, widths and costs tracked during
- * the walk, and one plain array built per plan, for the winner.
+ * only the crossings that touch the region with integer keys, widths and
+ * costs tracked during the walk, and one plain array built per plan, for the
+ * winner.
  */
 import { indexDiagram, type LinkDiagram } from '../diagram/model.ts';
 
@@ -125,8 +126,36 @@ export function boundaryWidths(d: LinkDiagram, order: readonly number[]): number
 const MAX_COSTED_WIDTH = 1000;
 const POWERS_OF_TWO = Float64Array.from({ length: MAX_COSTED_WIDTH + 1 }, (_, w) => 2 ** w);
 
-/** Priority keys pack (connected?, growth, contact time, index) into one exact double; this bounds n. */
-const KEY_FIELD = 2 ** 21;
+/** The most crossings the planner takes: a crossing's index needs this many bits of a 31-bit key. */
+const MAX_INDEX_BITS = 21;
+/** Bits of a key above contact time and index: (connected?, growth + 4) is below 32. */
+const PRIORITY_BITS = 5;
+
+/**
+ * How a walk packs (connected?, growth, contact time, index) into one
+ * non-negative 31-bit integer, smaller keys picked first. The index takes
+ * ⌈log₂ n⌉ bits and contact time the rest, shifted right when it does not fit
+ * (only beyond 8,192 crossings, where nearby contact times then tie and the
+ * index decides).
+ */
+class KeyLayout {
+  readonly indexBits: number;
+  readonly indexMask: number;
+  readonly contactShift: number;
+  private readonly priorityShift: number;
+
+  constructor(n: number) {
+    this.indexBits = Math.max(1, Math.ceil(Math.log2(n)));
+    this.indexMask = (1 << this.indexBits) - 1;
+    const contactBits = Math.min(this.indexBits, 31 - PRIORITY_BITS - this.indexBits);
+    this.contactShift = this.indexBits - contactBits;
+    this.priorityShift = contactBits + this.indexBits;
+  }
+
+  key(connected: boolean, growth: number, contact: number, c: number): number {
+    return ((((connected ? 0 : 1) * 16 + growth + 4) << this.priorityShift) | ((contact >> this.contactShift) << this.indexBits) | c);
+  }
+}
 
 /**
  * One greedy walk, written into `buffers` (order, widths, widest boundary and
@@ -138,15 +167,14 @@ const KEY_FIELD = 2 ** 21;
  * absorbing it widens the boundary, so the widths come with the walk.
  */
 function greedyWalk(opposite: Int32Array, n: number, start: number, tieBreak: TieBreak, buffers: WalkBuffers): void {
-  if (n >= KEY_FIELD) throw new RangeError(`crossing order: ${n} crossings is more than the planner supports (${KEY_FIELD - 1})`);
-  const { absorbed, connections, growth, currentKey, firstTouch, order, widths, heap } = buffers.cleared(n);
+  const { absorbed, connections, growth, currentKey, firstTouch, order, widths, heap, layout } = buffers.cleared(n);
   const newest = tieBreak === 'newest';
   let next = start;
   let width = 0;
   let maxWidth = 0;
   let cost = 0;
   for (let stepIndex = 0; stepIndex < n; stepIndex++) {
-    if (stepIndex > 0) next = popFrontier(heap, absorbed, currentKey) ?? untouchedMinimum(n, absorbed, currentKey);
+    if (stepIndex > 0) next = popFrontier(heap, absorbed, currentKey, layout.indexMask) ?? untouchedMinimum(n, absorbed, currentKey);
     absorbed[next] = 1;
     order[stepIndex] = next;
     width += growth[next]!;
@@ -160,8 +188,8 @@ function greedyWalk(opposite: Int32Array, n: number, start: number, tieBreak: Ti
       connections[other]!++;
       growth[other]! -= 2;
       if (firstTouch[other]! < 0) firstTouch[other] = stepIndex;
-      const contact = newest ? KEY_FIELD - 1 - stepIndex : firstTouch[other]!;
-      currentKey[other] = walkKey(true, growth[other]!, contact, other);
+      const contact = newest ? n - 1 - stepIndex : firstTouch[other]!;
+      currentKey[other] = layout.key(true, growth[other]!, contact, other);
       heap.push(currentKey[other]!);
     }
   }
@@ -174,10 +202,10 @@ function greedyWalk(opposite: Int32Array, n: number, start: number, tieBreak: Ti
  * once no unabsorbed crossing touches the region (the heap holds only crossings
  * that touch it, so a walk over a connected diagram never pays for the rest).
  */
-function popFrontier(heap: KeyHeap, absorbed: Uint8Array, currentKey: Float64Array): number | undefined {
+function popFrontier(heap: KeyHeap, absorbed: Uint8Array, currentKey: Int32Array, indexMask: number): number | undefined {
   while (heap.size > 0) {
     const key = heap.pop();
-    const c = key - Math.floor(key / KEY_FIELD) * KEY_FIELD; // key % KEY_FIELD without a slow floating modulo
+    const c = key & indexMask;
     if (!absorbed[c] && currentKey[c] === key) return c;
   }
   return undefined;
@@ -188,15 +216,10 @@ function popFrontier(heap: KeyHeap, absorbed: Uint8Array, currentKey: Float64Arr
  * with the smallest key (every unabsorbed crossing is untouched then, and an
  * untouched crossing's key never changes), as if all of them were in the heap.
  */
-function untouchedMinimum(n: number, absorbed: Uint8Array, currentKey: Float64Array): number {
+function untouchedMinimum(n: number, absorbed: Uint8Array, currentKey: Int32Array): number {
   let best = -1;
   for (let c = 0; c < n; c++) if (!absorbed[c] && (best < 0 || currentKey[c]! < currentKey[best]!)) best = c;
   return best;
-}
-
-/** (connected?, growth, contact time, index) packed into one exact double; smaller is picked first. */
-function walkKey(connected: boolean, growth: number, contact: number, c: number): number {
-  return (((connected ? 0 : 1) * 16 + growth + 4) * KEY_FIELD + contact) * KEY_FIELD + c;
 }
 
 let sharedBuffers: WalkBuffers | undefined;
@@ -213,15 +236,17 @@ class WalkBuffers {
   readonly connections: Int32Array;
   /** growth[c]: how much absorbing c would widen the boundary (4 − kink slots − 2·connections). */
   readonly growth: Int32Array;
-  readonly currentKey: Float64Array;
+  readonly currentKey: Int32Array;
   readonly firstTouch: Int32Array;
   readonly heap: KeyHeap;
+  /** How this plan's keys are packed (set by prepare). */
+  layout = new KeyLayout(1);
   readonly order: Int32Array;
   readonly widths: Int32Array;
   readonly bestOrder: Int32Array;
   readonly bestWidths: Int32Array;
   private readonly initialGrowth: Int32Array;
-  private readonly initialKey: Float64Array;
+  private readonly initialKey: Int32Array;
   maxWidth = 0;
   cost = 0;
 
@@ -230,7 +255,7 @@ class WalkBuffers {
     this.absorbed = new Uint8Array(n);
     this.connections = new Int32Array(n);
     this.growth = new Int32Array(n);
-    this.currentKey = new Float64Array(n);
+    this.currentKey = new Int32Array(n);
     this.firstTouch = new Int32Array(n);
     // Each crossing is pushed at most once per slot.
     this.heap = new KeyHeap(4 * n);
@@ -239,16 +264,18 @@ class WalkBuffers {
     this.bestOrder = new Int32Array(n);
     this.bestWidths = new Int32Array(n);
     this.initialGrowth = new Int32Array(n);
-    this.initialKey = new Float64Array(n);
+    this.initialKey = new Int32Array(n);
   }
 
   /** Sets up the untouched state of the diagram with slots `opposite`, which every walk of a plan starts from. */
   prepare(opposite: Int32Array, n: number): void {
+    if (n > 2 ** MAX_INDEX_BITS) throw new RangeError(`crossing order: ${n} crossings is more than the planner supports (${2 ** MAX_INDEX_BITS})`);
+    this.layout = new KeyLayout(n);
     for (let c = 0; c < n; c++) {
       let open = 0;
       for (let q = 0; q < 4; q++) if (opposite[4 * c + q]! >> 2 !== c) open++;
       this.initialGrowth[c] = open;
-      this.initialKey[c] = walkKey(false, open, 0, c);
+      this.initialKey[c] = this.layout.key(false, open, 0, c);
     }
   }
 
@@ -271,11 +298,11 @@ class WalkBuffers {
 
 /** A binary min-heap of numbers in a fixed array (a walk knows how many pushes it makes). */
 class KeyHeap {
-  private readonly items: Float64Array;
+  private readonly items: Int32Array;
   size = 0;
 
   constructor(capacity: number) {
-    this.items = new Float64Array(Math.max(1, capacity));
+    this.items = new Int32Array(Math.max(1, capacity));
   }
 
   clear(): void {
