@@ -34,6 +34,9 @@ import { planContraction } from './crossing-order.ts';
 import { checkTimeBudget, stateMemoryError, type LimitError } from '../limits.ts';
 import { borrowDigitSlabs, DIGIT_MEMORY_MAX_BYTES, returnDigitSlabs, type DigitSlabs, type SlabIndex } from './wasm/digit-slabs.ts';
 import type { DigitKernels } from './wasm/digit-kernels.ts';
+import { bracketByModuli, recordContraction } from './bracket-modular.ts';
+import { bracketNormBound } from './bracket-norm-bound.ts';
+import { isAlternatingDiagram } from '../diagram/properties.ts';
 
 export interface BracketResult {
   /** ⟨D⟩ ∈ ℤ[A, A⁻¹] with ⟨O⟩ = 1. */
@@ -60,7 +63,12 @@ export const MAX_BOUNDARY_WIDTH = 28;
  * overrides the planned absorption order; the value does not depend on it,
  * only the work does.
  */
-export function kauffmanBracket(d: LinkDiagram, order?: readonly number[], limits: { readonly maxStateBytes?: number } = {}): BracketResult {
+export function kauffmanBracket(
+  d: LinkDiagram,
+  order?: readonly number[],
+  limits: { readonly maxStateBytes?: number } = {},
+  arithmetic: BracketArithmetic = 'auto',
+): BracketResult {
   const n = d.crossings.length;
   if (n === 0) {
     if (d.freeLoops === 0) throw new RangeError('the empty diagram (no crossings, no loops) has no Kauffman bracket');
@@ -79,6 +87,8 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[], limit
         'or one drawn as a braid closure on fewer strands.',
     );
   }
+  const byModuli = arithmetic === 'digits' ? undefined : bracketModuloMany(d, steps, arithmetic === 'moduli', limits.maxStateBytes);
+  if (byModuli) return { bracket: withFreeLoops(d, byModuli), boundaryWidth };
   if (limits.maxStateBytes !== undefined) {
     const bytes = estimateStateBytes(steps);
     if (bytes > limits.maxStateBytes) throw stateMemoryError(n, boundaryWidth, bytes, limits.maxStateBytes);
@@ -93,8 +103,52 @@ export function kauffmanBracket(d: LinkDiagram, order?: readonly number[], limit
     returnDigitSlabs();
   }
   if (!contracted) throw new Error('internal: bracket contraction failed with exponent step 2');
-  const bracket = d.freeLoops > 0 ? contracted.mul(LOOP_VALUE.pow(d.freeLoops)) : contracted;
-  return { bracket, boundaryWidth };
+  return { bracket: withFreeLoops(d, contracted), boundaryWidth };
+}
+
+function withFreeLoops(d: LinkDiagram, contracted: Laurent): Laurent {
+  return d.freeLoops > 0 ? contracted.mul(LOOP_VALUE.pow(d.freeLoops)) : contracted;
+}
+
+/**
+ * Which arithmetic contracts a diagram: 'digits' keeps every coefficient's
+ * digits in the states (bracket.ts), 'moduli' replays the contraction modulo
+ * several numbers (bracket-modular.ts); 'auto' picks moduli where they pay.
+ */
+export type BracketArithmetic = 'auto' | 'digits' | 'moduli';
+
+/**
+ * Below this many crossings the digit engine's states are small and its
+ * coefficients a few digits: the modular replays would only repeat its work.
+ */
+export const MODULI_FROM_CROSSINGS = 300;
+/** Moduli pay once the coefficients need about this many 32-bit digits (the coefficient bound's bits / 32). */
+export const MODULI_FROM_DIGITS = 8;
+
+/**
+ * Whether 'auto' contracts by moduli. The replays cost as many passes as the
+ * coefficient bound has bits, and the bound is tight only where few terms
+ * cancel: on alternating diagrams (where it equals the sum of the |coefficients|
+ * in every case measured). On others the coefficients stay far below it (a
+ * 640-crossing torus closure: bound 434 bits, coefficients 4 bits) and the
+ * digit engine, which grows with the coefficients themselves, is faster.
+ */
+function moduliPay(d: LinkDiagram, bound: bigint): boolean {
+  return d.crossings.length >= MODULI_FROM_CROSSINGS && bound.toString(2).length >= 32 * MODULI_FROM_DIGITS && isAlternatingDiagram(d);
+}
+/** The recording of the contraction is not allowed to hold more than this. */
+const MAX_RECORD_BYTES = 512 * 1024 * 1024;
+
+/** ⟨D⟩ without free loops by the modular engine, or undefined where the digit engine is the one to use. */
+function bracketModuloMany(d: LinkDiagram, steps: readonly StepPlan[], forced: boolean, maxStateBytes = Infinity): Laurent | undefined {
+  if (!forced && d.crossings.length < MODULI_FROM_CROSSINGS) return undefined;
+  const bound = bracketNormBound(d);
+  if (bound === undefined || (!forced && !moduliPay(d, bound))) return undefined;
+  const budget = Math.min(MAX_RECORD_BYTES, maxStateBytes);
+  const record = recordContraction(steps, 4, budget) ?? recordContraction(steps, 2, budget);
+  if (record === undefined) throw new Error('internal: bracket contraction failed with exponent step 2');
+  if (record === 'too-large') return undefined;
+  return bracketByModuli(record, bound).bracket;
 }
 
 /** Catalan numbers as doubles: the number of non-crossing matchings of 2m boundary ends. */
@@ -215,7 +269,7 @@ export function planSteps(d: LinkDiagram, order: readonly number[], cut = -1): S
  * a step), so their arrays are allocated only when a step needs more room than
  * any before it.
  */
-class States {
+export class States {
   constructor(public slab: SlabIndex) {}
 
   count = 0;
@@ -242,7 +296,7 @@ class States {
 }
 
 /** Per-contribution scratch of one step (contribution 2s + smoothing comes from state s), reused across steps. */
-class Contributions {
+export class Contributions {
   target = new Int32Array(0);
   loops = new Int32Array(0);
   /** Per target: the highest exponent any contribution reaches. */
@@ -267,17 +321,17 @@ export const digitBoundCheck = { enabled: false };
 
 const LIMB_BASE = 2 ** 32;
 /** Limbs may grow to this before a carry; leaves room for the carry itself below 2^53. */
-const LIMB_CEILING = 2 ** 52;
+export const LIMB_CEILING = 2 ** 52;
 
 /**
  * How much multiplying by d^l can grow the largest |digit|: an entry of d^l·p
  * sums C(l, m)·|p_i| over m = 0 … l, so the factor is Σ C(l, m) = 2^l.
  */
-function loopGrowth(l: number): number {
+export function loopGrowth(l: number): number {
   return 2 ** l;
 }
 
-function binomialRow(l: number): number[] {
+export function binomialRow(l: number): number[] {
   const row = [1];
   for (let i = 1; i <= l; i++) row.push((row[i - 1]! * (l - i + 1)) / i);
   return row;
@@ -325,7 +379,7 @@ function bitCount(x: number): number {
 }
 
 /** Matching number → target index for one step: open addressing over the numbers plus one (0 marks an empty slot). */
-class TargetTable {
+export class TargetTable {
   private keys = new Float64Array(0);
   private values = new Int32Array(0);
   private mask = 0;
@@ -387,59 +441,8 @@ function contract(slabs: DigitSlabs, steps: readonly StepPlan[], step: 2 | 4): L
     checkTimeBudget();
     const plan = steps[k]!;
     const isLast = k === steps.length - 1;
-    const w = plan.oldWidth;
-    const w2 = plan.newWidth;
-    const { joins, layout, compact } = plan;
-    const scratch = new Int32Array(w + 4);
-    const { count, lo, len } = states;
-    const partners = states.partners;
-
     // Phase 1: the target matching and loop count of every (state, smoothing), and each target's exponent range.
-    next.reserve(2 * count, w2);
-    work.reserve(count);
-    table.reset(2 * count);
-    let targets = 0;
-    const tLo = next.lo;
-    const tHi = work.hi;
-    for (let s = 0; s < count; s++) {
-      const sourceLo = lo[s]!;
-      const sourceHi = sourceLo + step * (len[s]! - 1);
-      for (let smoothing = 0; smoothing < 2; smoothing++) {
-        for (let p = 0; p < w; p++) scratch[p] = partners[s * w + p]!;
-        const slotPartner = smoothing === 0 ? A_SLOT_PARTNER : B_SLOT_PARTNER;
-        for (let q = 0; q < 4; q++) scratch[w + q] = w + slotPartner[q]!;
-        let loops = 0;
-        for (let j = 0; j < joins.length; j += 2) {
-          const x = joins[j]!;
-          const y = joins[j + 1]!;
-          const px = scratch[x]!;
-          if (px === y) loops++;
-          else {
-            const py = scratch[y]!;
-            scratch[px] = py;
-            scratch[py] = px;
-          }
-        }
-        if (isLast) loops--; // ⟨O⟩ = 1: the final picture's first circle is free
-        const t = table.lookup(matchingNumberThrough(scratch, layout, compact, w2), targets);
-        const base = sourceLo + (smoothing === 0 ? 1 : -1) - 2 * loops;
-        const top = sourceHi + (smoothing === 0 ? 1 : -1) + 2 * loops;
-        if (t === targets) {
-          targets++;
-          for (let i = 0; i < w2; i++) next.partners[t * w2 + i] = compact[scratch[layout[i]!]!]!;
-          tLo[t] = base;
-          tHi[t] = top;
-        } else {
-          if ((base - tLo[t]!) % step !== 0) return undefined;
-          if (base < tLo[t]!) tLo[t] = base;
-          if (top > tHi[t]!) tHi[t] = top;
-        }
-        work.target[2 * s + smoothing] = t;
-        work.loops[2 * s + smoothing] = loops;
-      }
-    }
-    next.count = targets;
-    for (let t = 0; t < targets; t++) next.len[t] = (tHi[t]! - tLo[t]!) / step + 1;
+    if (!matchSmoothings(states, next, plan, isLast, step, work, table)) return undefined;
 
     // Carry every source if some target digit could pass the ceiling.
     if (!boundTargets(states, next, work)) {
@@ -451,7 +454,7 @@ function contract(slabs: DigitSlabs, steps: readonly StepPlan[], step: 2 | 4): L
 
     // Phase 2: accumulate every contribution into its target.
     let slabSize = 0;
-    for (let t = 0; t < targets; t++) {
+    for (let t = 0; t < next.count; t++) {
       next.offset[t] = slabSize;
       slabSize += next.len[t]! * next.limbs[t]!;
     }
@@ -471,6 +474,67 @@ function contract(slabs: DigitSlabs, steps: readonly StepPlan[], step: 2 | 4): L
     dense[i] = value;
   }
   return Laurent.fromDense(dense, states.lo[0]!, step);
+}
+
+/**
+ * Phase 1 of a step, the part that does not look at coefficients: the target
+ * matching and loop count of every (state, smoothing), the targets' matchings,
+ * and each target's exponent range and length. False if a target would mix
+ * exponent classes mod `step` (a non-planar code; redo with step 2).
+ */
+export function matchSmoothings(states: States, next: States, plan: StepPlan, isLast: boolean, step: number, work: Contributions, table: TargetTable): boolean {
+  const w = plan.oldWidth;
+  const w2 = plan.newWidth;
+  const { joins, layout, compact } = plan;
+  const scratch = new Int32Array(w + 4);
+  const { count, lo, len } = states;
+  const partners = states.partners;
+  next.reserve(2 * count, w2);
+  work.reserve(count);
+  table.reset(2 * count);
+  let targets = 0;
+  const tLo = next.lo;
+  const tHi = work.hi;
+  for (let s = 0; s < count; s++) {
+    const sourceLo = lo[s]!;
+    const sourceHi = sourceLo + step * (len[s]! - 1);
+    for (let smoothing = 0; smoothing < 2; smoothing++) {
+      for (let p = 0; p < w; p++) scratch[p] = partners[s * w + p]!;
+      const slotPartner = smoothing === 0 ? A_SLOT_PARTNER : B_SLOT_PARTNER;
+      for (let q = 0; q < 4; q++) scratch[w + q] = w + slotPartner[q]!;
+      let loops = 0;
+      for (let j = 0; j < joins.length; j += 2) {
+        const x = joins[j]!;
+        const y = joins[j + 1]!;
+        const px = scratch[x]!;
+        if (px === y) loops++;
+        else {
+          const py = scratch[y]!;
+          scratch[px] = py;
+          scratch[py] = px;
+        }
+      }
+      if (isLast) loops--; // ⟨O⟩ = 1: the final picture's first circle is free
+      const t = table.lookup(matchingNumberThrough(scratch, layout, compact, w2), targets);
+      const base = sourceLo + (smoothing === 0 ? 1 : -1) - 2 * loops;
+      const top = sourceHi + (smoothing === 0 ? 1 : -1) + 2 * loops;
+      if (t === targets) {
+        targets++;
+        for (let i = 0; i < w2; i++) next.partners[t * w2 + i] = compact[scratch[layout[i]!]!]!;
+        tLo[t] = base;
+        tHi[t] = top;
+      } else {
+        if ((base - tLo[t]!) % step !== 0) return false;
+        if (base < tLo[t]!) tLo[t] = base;
+        if (top > tHi[t]!) tHi[t] = top;
+      }
+      work.target[2 * s + smoothing] = t;
+      work.loops[2 * s + smoothing] = loops;
+    }
+  }
+  next.count = targets;
+  for (let t = 0; t < targets; t++) next.len[t] = (tHi[t]! - tLo[t]!) / step + 1;
+  return true;
 }
 
 /**
@@ -539,7 +603,7 @@ function checkDigitBounds(slabs: DigitSlabs, states: States): void {
  * and ran at a third of the speed). The two smoothings of one source are added
  * one after the other: the source row is then still in the first-level cache.
  */
-function addSmoothing(kernels: DigitKernels, from: number, n: number, at: number, loops: number, stride: number): void {
+export function addSmoothing(kernels: DigitKernels, from: number, n: number, at: number, loops: number, stride: number): void {
   if (loops === 0) kernels.addRow(from, n, at);
   else if (loops === 1) {
     // d·p = −p·A² − p·A⁻²: target entry i receives −source[i] − source[i − stride].
@@ -609,7 +673,7 @@ function slabMemoryError(steps: readonly StepPlan[], digits: number): LimitError
   return stateMemoryError(steps.length, widestBoundary(steps), 2 * 8 * digits, DIGIT_MEMORY_MAX_BYTES, false);
 }
 
-function widestBoundary(steps: readonly StepPlan[]): number {
+export function widestBoundary(steps: readonly StepPlan[]): number {
   return steps.reduce((m, s) => Math.max(m, s.newWidth), 0);
 }
 

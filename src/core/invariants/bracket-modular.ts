@@ -1,0 +1,216 @@
+/**
+ * The Kauffman bracket modulo several word-sized numbers, lifted by the
+ * Chinese remainder theorem: the tangle contraction of bracket.ts with one
+ * double per coefficient instead of all of its digits.
+ *
+ * Why: on long diagrams (hundreds of crossings) the coefficients reach
+ * hundreds of digits, the digit engine's states hold all of them at once
+ * (hundreds of MB), and its passes wait on memory. Here the shape of the
+ * contraction (which state feeds which target, shifted where, through how
+ * many closed loops) is worked out once and recorded; the arithmetic is then
+ * replayed once per modulus on states a coefficient-digit wide, which stay
+ * small enough to keep close to the processor.
+ *
+ * Exactness: residues modulo odd, pairwise coprime m < 2^31 are kept reduced
+ * in [0, m) as 32-bit integers (wasm/residue-kernels.ts), so no step can
+ * overflow. The moduli's product exceeds twice the bound of
+ * bracket-norm-bound.ts on every coefficient, so the lift with symmetric
+ * residues is the coefficient itself. As a guard against any slip, the lifted
+ * bracket is compared with one more pass modulo a further modulus; a mismatch
+ * is an internal error, never a value.
+ */
+import { checkTimeBudget, stateMemoryError } from '../limits.ts';
+import { Laurent } from '../poly/laurent.ts';
+import { binomialRow, Contributions, matchSmoothings, States, TargetTable, widestBoundary, type StepPlan } from './bracket.ts';
+import type { ResidueKernels } from './wasm/residue-kernels.ts';
+import { RESIDUE_MEMORY_MAX_BYTES, ResidueSlabs, type SlabIndex } from './wasm/residue-slabs.ts';
+
+/** One step of a recorded contraction. The states of a slab lie one after another in state order. */
+interface RecordedStep {
+  /** Coefficients of each source state. */
+  readonly sourceLength: Int32Array;
+  /** Where in the target slab contribution 2s + smoothing (0: A, 1: B) of source s puts its first coefficient. */
+  readonly targetStart: Int32Array;
+  /** Loops closed by each contribution (0 … 4). */
+  readonly loops: Int8Array;
+  /** Coefficients in the target slab. */
+  readonly targetSize: number;
+}
+
+export interface ContractionRecord {
+  /** Exponents of a state step this far apart (4 for planar diagrams, 2 otherwise). */
+  readonly step: 2 | 4;
+  readonly steps: readonly RecordedStep[];
+  /** Exponent of the final polynomial's first coefficient, and its number of coefficients. */
+  readonly lo: number;
+  readonly length: number;
+  /** Bytes the recording holds. */
+  readonly bytes: number;
+  /** For limit messages: the diagram's crossings and the widest boundary. */
+  readonly crossings: number;
+  readonly width: number;
+}
+
+/**
+ * Records the contraction `steps` with exponents `step` apart; undefined if a
+ * state mixes exponent classes (retry with 2), 'too-large' once the recording
+ * would pass `maxBytes`.
+ */
+export function recordContraction(steps: readonly StepPlan[], step: 2 | 4, maxBytes: number): ContractionRecord | undefined | 'too-large' {
+  let states = new States(0);
+  states.reserve(1, 0);
+  states.count = 1;
+  states.len[0] = 1;
+  let next = new States(1);
+  const work = new Contributions();
+  const table = new TargetTable();
+  const recorded: RecordedStep[] = [];
+  let bytes = 0;
+  for (let k = 0; k < steps.length; k++) {
+    checkTimeBudget();
+    if (!matchSmoothings(states, next, steps[k]!, k === steps.length - 1, step, work, table)) return undefined;
+    const count = states.count;
+    bytes += count * (4 + 2 * (4 + 1));
+    if (bytes > maxBytes) return 'too-large';
+    const offset = new Int32Array(next.count);
+    let size = 0;
+    for (let t = 0; t < next.count; t++) {
+      offset[t] = size;
+      size += next.len[t]!;
+    }
+    const targetStart = new Int32Array(2 * count);
+    for (let s = 0; s < count; s++) {
+      for (let smoothing = 0; smoothing < 2; smoothing++) {
+        const c = 2 * s + smoothing;
+        const t = work.target[c]!;
+        targetStart[c] = offset[t]! + (states.lo[s]! + (smoothing === 0 ? 1 : -1) - 2 * work.loops[c]! - next.lo[t]!) / step;
+      }
+    }
+    recorded.push({
+      sourceLength: states.len.slice(0, count),
+      targetStart,
+      loops: Int8Array.from(work.loops.subarray(0, 2 * count)),
+      targetSize: size,
+    });
+    [states, next] = [next, states];
+  }
+  if (states.count !== 1) throw new Error('internal: contraction ended with an open boundary');
+  return { step, steps: recorded, lo: states.lo[0]!, length: states.len[0]!, bytes, crossings: steps.length, width: widestBoundary(steps) };
+}
+
+/** The bracket's coefficients modulo `m` (odd, below 2^31), each in [0, m). */
+export function replayModulo(record: ContractionRecord, m: number, slabs: ResidueSlabs): Int32Array {
+  const { kernels } = slabs;
+  const dStride = 4 / record.step;
+  let source: SlabIndex = 0;
+  slabs.reserve(0, 1);
+  slabs.words[slabs.start(0)] = 1;
+  for (const rec of record.steps) {
+    checkTimeBudget();
+    const target: SlabIndex = source === 0 ? 1 : 0;
+    if (!slabs.reserve(target, rec.targetSize)) {
+      throw stateMemoryError(record.crossings, record.width, 8 * rec.targetSize, RESIDUE_MEMORY_MAX_BYTES, false);
+    }
+    const base = slabs.start(target);
+    slabs.words.fill(0, base, base + rec.targetSize);
+    let from = slabs.start(source);
+    const { sourceLength, targetStart, loops } = rec;
+    for (let s = 0; s < sourceLength.length; s++) {
+      const n = sourceLength[s]!;
+      addSmoothing(kernels, m, from, n, base + targetStart[2 * s]!, loops[2 * s]!, dStride);
+      addSmoothing(kernels, m, from, n, base + targetStart[2 * s + 1]!, loops[2 * s + 1]!, dStride);
+      from += n;
+    }
+    source = target;
+  }
+  const first = slabs.start(source);
+  return slabs.words.slice(first, first + record.length);
+}
+
+/**
+ * row[at …] += d^loops · row[from … from + n − 1] modulo m, the terms of d^l
+ * being `stride` apart (the modular twin of the digit engine's addSmoothing).
+ */
+function addSmoothing(kernels: ResidueKernels, m: number, from: number, n: number, at: number, loops: number, stride: number): void {
+  if (loops === 0) kernels.addRow(from, n, at, m);
+  else if (loops === 1) {
+    // d·p = −p·A² − p·A⁻²: target entry i receives −source[i] − source[i − stride].
+    const head = Math.min(stride, n);
+    kernels.subtractRow(from, head, at, m);
+    if (n > stride) kernels.subtractRowPair(from + stride, from, n - stride, at + stride, m);
+    const tail = Math.max(n, stride);
+    kernels.subtractRow(from + tail - stride, n + stride - tail, at + tail, m);
+  } else {
+    // d^l = (−1)^l Σ C(l, j) A^(2l − 4j): at most four loops close at once, so C(l, j) ≤ 6 passes each.
+    const row = binomialRow(loops);
+    for (let j = 0; j <= loops; j++) {
+      for (let times = 0; times < row[j]!; times++) {
+        if (loops % 2 === 0) kernels.addRow(from, n, at + j * stride, m);
+        else kernels.subtractRow(from, n, at + j * stride, m);
+      }
+    }
+  }
+}
+
+const moduliFound: number[] = [];
+
+/** The k-th modulus: odd numbers below 2^31 counting down, each kept when coprime to all kept before it. */
+export function modulus(k: number): number {
+  let candidate = moduliFound.length === 0 ? 2 ** 31 + 1 : moduliFound[moduliFound.length - 1]!;
+  while (moduliFound.length <= k) {
+    candidate -= 2;
+    if (moduliFound.every((m) => gcd(m, candidate) === 1)) moduliFound.push(candidate);
+  }
+  return moduliFound[k]!;
+}
+
+function gcd(a: number, b: number): number {
+  while (b !== 0) [a, b] = [b, a % b];
+  return a;
+}
+
+/** The bracket of the recorded contraction, given a bound on the absolute values of its coefficients. */
+export function bracketByModuli(record: ContractionRecord, coefficientBound: bigint): { bracket: Laurent; moduli: number } {
+  const slabs = new ResidueSlabs();
+  // Garner's incremental lift: lifted ≡ residues modulo the product so far, 0 ≤ lifted < product.
+  let product = 1n;
+  let lifted = new Array<bigint>(record.length).fill(0n);
+  let k = 0;
+  while (product <= 2n * coefficientBound) {
+    const m = modulus(k++);
+    const residues = replayModulo(record, m, slabs);
+    const mBig = BigInt(m);
+    const inverse = inverseModulo(product % mBig, mBig);
+    const previous = product;
+    lifted = lifted.map((x, i) => {
+      let lift = ((BigInt(residues[i]!) - (x % mBig)) * inverse) % mBig;
+      if (lift < 0n) lift += mBig;
+      return x + previous * lift;
+    });
+    product *= mBig;
+  }
+  const half = product / 2n;
+  const coefficients = lifted.map((x) => (x > half ? x - product : x));
+  const check = modulus(k);
+  const residues = replayModulo(record, check, slabs);
+  const checkBig = BigInt(check);
+  coefficients.forEach((c, i) => {
+    let r = c % checkBig;
+    if (r < 0n) r += checkBig;
+    if (Number(r) !== residues[i]) throw new Error('internal: the bracket lifted from its residues failed the check modulo a further number');
+  });
+  return { bracket: Laurent.fromDense(coefficients, record.lo, record.step), moduli: k + 1 };
+}
+
+/** 1/a modulo m for coprime a, m (extended Euclid on BigInts). */
+function inverseModulo(a: bigint, m: bigint): bigint {
+  let [r0, r1] = [m, ((a % m) + m) % m];
+  let [s0, s1] = [0n, 1n];
+  while (r1 !== 0n) {
+    const q = r0 / r1;
+    [r0, r1] = [r1, r0 - q * r1];
+    [s0, s1] = [s1, s0 - q * s1];
+  }
+  if (r0 !== 1n) throw new Error('internal: moduli are not coprime');
+  return ((s0 % m) + m) % m;
+}
