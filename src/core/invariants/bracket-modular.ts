@@ -27,12 +27,15 @@ import { RESIDUE_MEMORY_MAX_BYTES, ResidueSlabs, type SlabIndex } from './wasm/r
 
 /** One step of a recorded contraction. The states of a slab lie one after another in state order. */
 interface RecordedStep {
-  /** Coefficients of each source state. */
-  readonly sourceLength: Int32Array;
-  /** Where in the target slab contribution 2s + smoothing (0: A, 1: B) of source s puts its first coefficient. */
-  readonly targetStart: Int32Array;
-  /** Loops closed by each contribution (0 … 4). */
-  readonly loops: Int8Array;
+  /**
+   * Four words per source state, as accumulateStep (wasm/residue-kernels.ts)
+   * reads them: its number of coefficients; where in the target slab its A-
+   * and its B-smoothing put their first coefficient; the loops each closes
+   * (A | B << 4).
+   */
+  readonly program: Int32Array;
+  /** The smoothings closing two or more loops, which the kernel leaves out: [from (in the source slab), n, start, loops] each. */
+  readonly heavy: Int32Array;
   /** Coefficients in the target slab. */
   readonly targetSize: number;
 }
@@ -70,7 +73,7 @@ export function recordContraction(steps: readonly StepPlan[], step: 2 | 4, maxBy
     checkTimeBudget();
     if (!matchSmoothings(states, next, steps[k]!, k === steps.length - 1, step, work, table)) return undefined;
     const count = states.count;
-    bytes += count * (4 + 2 * (4 + 1));
+    bytes += 16 * count;
     if (bytes > maxBytes) return 'too-large';
     const offset = new Int32Array(next.count);
     let size = 0;
@@ -78,20 +81,24 @@ export function recordContraction(steps: readonly StepPlan[], step: 2 | 4, maxBy
       offset[t] = size;
       size += next.len[t]!;
     }
-    const targetStart = new Int32Array(2 * count);
+    const program = new Int32Array(4 * count);
+    const heavy: number[] = [];
+    let from = 0;
     for (let s = 0; s < count; s++) {
+      const n = states.len[s]!;
+      program[4 * s] = n;
       for (let smoothing = 0; smoothing < 2; smoothing++) {
         const c = 2 * s + smoothing;
         const t = work.target[c]!;
-        targetStart[c] = offset[t]! + (states.lo[s]! + (smoothing === 0 ? 1 : -1) - 2 * work.loops[c]! - next.lo[t]!) / step;
+        const loops = work.loops[c]!;
+        const start = offset[t]! + (states.lo[s]! + (smoothing === 0 ? 1 : -1) - 2 * loops - next.lo[t]!) / step;
+        program[4 * s + 1 + smoothing] = start;
+        program[4 * s + 3]! |= loops << (4 * smoothing);
+        if (loops >= 2) heavy.push(from, n, start, loops);
       }
+      from += n;
     }
-    recorded.push({
-      sourceLength: states.len.slice(0, count),
-      targetStart,
-      loops: Int8Array.from(work.loops.subarray(0, 2 * count)),
-      targetSize: size,
-    });
+    recorded.push({ program, heavy: Int32Array.from(heavy), targetSize: size });
     [states, next] = [next, states];
   }
   if (states.count !== 1) throw new Error('internal: contraction ended with an open boundary');
@@ -105,22 +112,18 @@ export function replayModulo(record: ContractionRecord, m: number, slabs: Residu
   let source: SlabIndex = 0;
   slabs.reserve(0, 1);
   slabs.words[slabs.start(0)] = 1;
-  for (const rec of record.steps) {
+  for (const { program, heavy, targetSize } of record.steps) {
     checkTimeBudget();
     const target: SlabIndex = source === 0 ? 1 : 0;
-    if (!slabs.reserve(target, rec.targetSize)) {
-      throw stateMemoryError(record.crossings, record.width, 8 * rec.targetSize, RESIDUE_MEMORY_MAX_BYTES, false);
+    if (!slabs.reserve(target, targetSize)) {
+      throw stateMemoryError(record.crossings, record.width, 8 * targetSize, RESIDUE_MEMORY_MAX_BYTES, false);
     }
     const base = slabs.start(target);
-    slabs.words.fill(0, base, base + rec.targetSize);
-    let from = slabs.start(source);
-    const { sourceLength, targetStart, loops } = rec;
-    for (let s = 0; s < sourceLength.length; s++) {
-      const n = sourceLength[s]!;
-      addSmoothing(kernels, m, from, n, base + targetStart[2 * s]!, loops[2 * s]!, dStride);
-      addSmoothing(kernels, m, from, n, base + targetStart[2 * s + 1]!, loops[2 * s + 1]!, dStride);
-      from += n;
-    }
+    const from = slabs.start(source);
+    slabs.words.fill(0, base, base + targetSize);
+    slabs.words.set(program, 0);
+    kernels.accumulateStep(program.length >> 2, from, base, dStride, m);
+    for (let h = 0; h < heavy.length; h += 4) addLoopPower(kernels, m, from + heavy[h]!, heavy[h + 1]!, base + heavy[h + 2]!, heavy[h + 3]!, dStride);
     source = target;
   }
   const first = slabs.start(source);
@@ -128,26 +131,16 @@ export function replayModulo(record: ContractionRecord, m: number, slabs: Residu
 }
 
 /**
- * row[at …] += d^loops · row[from … from + n − 1] modulo m, the terms of d^l
- * being `stride` apart (the modular twin of the digit engine's addSmoothing).
+ * row[at + i + j·stride] += (−1)^l C(l, j) · row[from + i] modulo m: adding d^l
+ * times a row, d^l = (−1)^l Σ C(l, j) A^(2l − 4j). At most four loops close at
+ * once, so C(l, j) ≤ 6 passes each.
  */
-function addSmoothing(kernels: ResidueKernels, m: number, from: number, n: number, at: number, loops: number, stride: number): void {
-  if (loops === 0) kernels.addRow(from, n, at, m);
-  else if (loops === 1) {
-    // d·p = −p·A² − p·A⁻²: target entry i receives −source[i] − source[i − stride].
-    const head = Math.min(stride, n);
-    kernels.subtractRow(from, head, at, m);
-    if (n > stride) kernels.subtractRowPair(from + stride, from, n - stride, at + stride, m);
-    const tail = Math.max(n, stride);
-    kernels.subtractRow(from + tail - stride, n + stride - tail, at + tail, m);
-  } else {
-    // d^l = (−1)^l Σ C(l, j) A^(2l − 4j): at most four loops close at once, so C(l, j) ≤ 6 passes each.
-    const row = binomialRow(loops);
-    for (let j = 0; j <= loops; j++) {
-      for (let times = 0; times < row[j]!; times++) {
-        if (loops % 2 === 0) kernels.addRow(from, n, at + j * stride, m);
-        else kernels.subtractRow(from, n, at + j * stride, m);
-      }
+function addLoopPower(kernels: ResidueKernels, m: number, from: number, n: number, at: number, loops: number, stride: number): void {
+  const row = binomialRow(loops);
+  for (let j = 0; j <= loops; j++) {
+    for (let times = 0; times < row[j]!; times++) {
+      if (loops % 2 === 0) kernels.addRow(from, n, at + j * stride, m);
+      else kernels.subtractRow(from, n, at + j * stride, m);
     }
   }
 }
@@ -171,7 +164,7 @@ function gcd(a: number, b: number): number {
 
 /** The bracket of the recorded contraction, given a bound on the absolute values of its coefficients. */
 export function bracketByModuli(record: ContractionRecord, coefficientBound: bigint): { bracket: Laurent; moduli: number } {
-  const slabs = new ResidueSlabs();
+  const slabs = new ResidueSlabs(record.steps.reduce((most, step) => Math.max(most, step.program.length), 0));
   // Garner's incremental lift: lifted ≡ residues modulo the product so far, 0 ≤ lifted < product.
   let product = 1n;
   let lifted = new Array<bigint>(record.length).fill(0n);

@@ -34,12 +34,12 @@
  * So every coefficient of ⟨D⟩, and of the Jones polynomial (−A³)^(−w)⟨D⟩, is
  * at most τ(G) in absolute value. τ(G) is computed exactly as the determinant
  * of G's Laplacian with one row and column removed (Kirchhoff's matrix-tree
- * theorem), by the same exact symmetric elimination as the link determinant.
+ * theorem), by banded elimination modulo primes (classical/modular.ts).
  */
 import { connectedPieces, faceStructure, nonPlanarPieces } from '../diagram/faces.ts';
 import type { LinkDiagram } from '../diagram/model.ts';
 import { checkerboardColouring } from './classical/goeritz.ts';
-import { symmetricInertia } from './classical/inertia.ts';
+import { integerDeterminant } from './classical/modular.ts';
 import { SparseMatrixBuilder } from './classical/sparse-matrix.ts';
 
 /**
@@ -71,5 +71,7 @@ export function bracketNormBound(d: LinkDiagram): bigint | undefined {
       laplacian.add(v, u, -1n);
     }
   }
-  return vertices === 1 ? 1n : symmetricInertia(laplacian.build()).absDeterminant;
+  const spanningTrees = integerDeterminant(laplacian.build());
+  if (spanningTrees < 1n) throw new Error('internal: a connected checkerboard graph counted no spanning trees');
+  return spanningTrees;
 }

@@ -133,17 +133,17 @@ export const MODULI_FROM_DIGITS = 8;
  * 640-crossing torus closure: bound 434 bits, coefficients 4 bits) and the
  * digit engine, which grows with the coefficients themselves, is faster.
  */
-function moduliPay(d: LinkDiagram, bound: bigint): boolean {
-  return d.crossings.length >= MODULI_FROM_CROSSINGS && bound.toString(2).length >= 32 * MODULI_FROM_DIGITS && isAlternatingDiagram(d);
+function moduliMayPay(d: LinkDiagram): boolean {
+  return d.crossings.length >= MODULI_FROM_CROSSINGS && isAlternatingDiagram(d);
 }
 /** The recording of the contraction is not allowed to hold more than this. */
 const MAX_RECORD_BYTES = 512 * 1024 * 1024;
 
 /** ⟨D⟩ without free loops by the modular engine, or undefined where the digit engine is the one to use. */
 function bracketModuloMany(d: LinkDiagram, steps: readonly StepPlan[], forced: boolean, maxStateBytes = Infinity): Laurent | undefined {
-  if (!forced && d.crossings.length < MODULI_FROM_CROSSINGS) return undefined;
+  if (!forced && !moduliMayPay(d)) return undefined;
   const bound = bracketNormBound(d);
-  if (bound === undefined || (!forced && !moduliPay(d, bound))) return undefined;
+  if (bound === undefined || (!forced && bound.toString(2).length < 32 * MODULI_FROM_DIGITS)) return undefined;
   const budget = Math.min(MAX_RECORD_BYTES, maxStateBytes);
   const record = recordContraction(steps, 4, budget) ?? recordContraction(steps, 2, budget);
   if (record === undefined) throw new Error('internal: bracket contraction failed with exponent step 2');

@@ -7,7 +7,7 @@
  * Primes stay below 2^26 so that a product of two residues is below 2^52 and
  * exact in a double; no coefficient ever passes through a float.
  */
-import type { SparseMatrix } from './sparse-matrix.ts';
+import { bandOrder, permute, SparseMatrixBuilder, type SparseMatrix } from './sparse-matrix.ts';
 import { checkTimeBudget } from '../../limits.ts';
 
 const PRIME_CEILING = 1 << 26;
@@ -297,4 +297,41 @@ function coefficientsModPrime(a: SparseMatrix, b: SparseMatrix, p: number, recip
     }
   }
   return interpolate(xs, ys, p);
+}
+
+/**
+ * det M for a square integer matrix, exactly: the banded elimination modulo
+ * word-sized primes (in band order), lifted by the Chinese remainder theorem
+ * past Hadamard's bound and verified at one more prime. Near-linear for the
+ * narrow bands of planar diagrams, where the fraction-free elimination of
+ * inertia.ts multiplies integers that grow to the size of the determinant.
+ */
+export function integerDeterminant(m: SparseMatrix): bigint {
+  if (m.size === 0) return 1n;
+  const ordered = permute(m, bandOrder(m));
+  const zero = new SparseMatrixBuilder(m.size).build();
+  // det(t·0 − B) = det(−B): the pencil with B = −M evaluates det M at any t.
+  const negated = new SparseMatrixBuilder(m.size);
+  ordered.rows.forEach((row, i) => row.forEach((v, j) => negated.add(i, j, -v)));
+  const b = negated.build();
+  const limit = 4n * squaredCoefficientBound(zero, b); // need product² > 4·bound²
+  let product = 1n;
+  let lifted = 0n;
+  let k = 0;
+  while (product * product <= limit) {
+    checkTimeBudget();
+    const p = prime(k++);
+    const pBig = BigInt(p);
+    const r = BigInt(new BandedPencil(zero, b, p).determinantAt(0));
+    let step = ((r - (lifted % pBig)) * BigInt(invMod(Number(product % pBig), p))) % pBig;
+    if (step < 0n) step += pBig;
+    lifted += product * step;
+    product *= pBig;
+  }
+  const determinant = lifted > product / 2n ? lifted - product : lifted;
+  const check = prime(k);
+  if (reduce(determinant, check) !== new BandedPencil(zero, b, check).determinantAt(0)) {
+    throw new Error('internal: modular determinant failed its verification');
+  }
+  return determinant;
 }
