@@ -18,7 +18,7 @@ const outdir = join(root, `dist.building-${process.pid}`);
 rmSync(outdir, { recursive: true, force: true });
 const result = await build({
   absWorkingDir: root,
-  entryPoints: { main: 'src/cli/main.ts', 'pool-worker': 'src/cli/pool/worker.ts' },
+  entryPoints: { main: 'src/cli/main.ts', 'pool-worker': 'src/cli/pool/worker.ts', 'replay-worker': 'src/cli/replay-worker.ts' },
   outdir,
   bundle: true,
   splitting: true,

@@ -16,6 +16,7 @@ import { cacheOptions, cacheSettings } from '../cache-options.ts';
 import { FileResultStore } from '../result-store.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 import { jobsOptions, readJobs } from '../jobs-option.ts';
+import { lendHelperThreads } from '../replay-helper.ts';
 import { progressDisplay } from '../progress.ts';
 import type { CliCommand } from './index.ts';
 import { STANDARD_INPUT_ARGUMENT } from '../standard-input.ts';
@@ -136,6 +137,7 @@ export const batchCommand: CliCommand = {
     if (repeated !== undefined) return usage(repeated);
     const jobs = readJobs(args);
     if (typeof jobs === 'string') return usage(jobs);
+    lendHelperThreads(jobs);
     let convention: Convention = DEFAULT_CONVENTION;
     const conventionText = conventionOptionText(args['convention']);
     if (conventionText !== undefined) {

@@ -20,6 +20,7 @@ import type { CliCommand } from './index.ts';
 import { conventionOptionText } from '../repeated-option.ts';
 import { limitOptions, readLimits } from '../limit-options.ts';
 import { jobsOptions, readJobs } from '../jobs-option.ts';
+import { lendHelperThreads } from '../replay-helper.ts';
 import type { ManuscriptValuesOptions } from '../manuscript-pool.ts';
 import { progressDisplay, wantsProgress } from '../progress.ts';
 import { cacheOptions, openCache } from '../cache-options.ts';
@@ -66,6 +67,7 @@ export function readManuscriptArgs(args: Record<string, unknown>, keepValues = f
   if (typeof resultStore === 'string') return resultStore;
   const jobs = readJobs(args);
   if (typeof jobs === 'string') return jobs;
+  lendHelperThreads(jobs);
   const quiet = args['quiet'] === true;
   const pooled = jobs > 1 || keepValues || wantsProgress(quiet);
   const values = pooled ? lazyValues({ jobs, ...(resultStore ? { disk: resultStore } : {}), progress: () => progressDisplay('diagrams', quiet) }) : undefined;

@@ -42,6 +42,8 @@ import type { CliCommand } from './index.ts';
 import { wantsColor } from '../terminal.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 import { figureOptions, readFigureArgs, runFigure } from '../figure-output.ts';
+import { lendHelperThreads } from '../replay-helper.ts';
+import { availableParallelism } from 'node:os';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
 
@@ -354,6 +356,7 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   }
   const limits = readLimits(args);
   if (typeof limits === 'string') return limits;
+  lendHelperThreads(availableParallelism());
   const keys = readKeys(args);
   if (typeof keys === 'string') return keys;
   const resultStore = openCache(args);

@@ -21,6 +21,7 @@
  */
 import { checkTimeBudget, stateMemoryError } from '../limits.ts';
 import { Laurent } from '../poly/laurent.ts';
+import { liftOneModulus, symmetricResidues } from './chinese-remainder.ts';
 import { binomialRow, Contributions, matchSmoothings, States, TargetTable, widestBoundary, type StepPlan } from './bracket.ts';
 import type { ResidueKernels } from './wasm/residue-kernels.ts';
 import { RESIDUE_MEMORY_MAX_BYTES, ResidueSlabs, type SlabIndex } from './wasm/residue-slabs.ts';
@@ -105,8 +106,8 @@ export function recordContraction(steps: readonly StepPlan[], step: 2 | 4, maxBy
   return { step, steps: recorded, lo: states.lo[0]!, length: states.len[0]!, bytes, crossings: steps.length, width: widestBoundary(steps) };
 }
 
-/** The bracket's coefficients modulo `m` (odd, below 2^31), each in [0, m). */
-export function replayModulo(record: ContractionRecord, m: number, slabs: ResidueSlabs): Int32Array {
+/** The bracket's coefficients modulo `m` (odd, below 2^31), each in [0, m); `onStep` is called after every step. */
+export function replayModulo(record: ContractionRecord, m: number, slabs: ResidueSlabs, onStep?: () => void): Int32Array {
   const { kernels } = slabs;
   const dStride = 4 / record.step;
   let source: SlabIndex = 0;
@@ -120,11 +121,11 @@ export function replayModulo(record: ContractionRecord, m: number, slabs: Residu
     }
     const base = slabs.start(target);
     const from = slabs.start(source);
-    slabs.words.fill(0, base, base + targetSize);
     slabs.words.set(program, 0);
-    kernels.accumulateStep(program.length >> 2, from, base, dStride, m);
+    kernels.accumulateStep(program.length >> 2, from, base, targetSize, dStride, m);
     for (let h = 0; h < heavy.length; h += 4) addLoopPower(kernels, m, from + heavy[h]!, heavy[h + 1]!, base + heavy[h + 2]!, heavy[h + 3]!, dStride);
     source = target;
+    onStep?.();
   }
   const first = slabs.start(source);
   return slabs.words.slice(first, first + record.length);
@@ -162,48 +163,80 @@ function gcd(a: number, b: number): number {
   return a;
 }
 
+/**
+ * Replays of a recording run in another thread at the same time as this
+ * one's: a front end that may start threads lends one (the core starts none).
+ * `begin` returns at once. Both threads then take the moduli one at a time,
+ * whichever is free first: `claim` gives this thread the index of the next
+ * modulus nobody has taken (undefined when all are taken). `wait` blocks until
+ * the helper has finished and returns what it replayed (by index; missing
+ * entries, or undefined if it failed, are replayed here). `abandon` is called
+ * instead of `wait` when this thread gives up (a time budget ran out).
+ */
+export interface ReplayHelper {
+  begin(record: ContractionRecord, moduli: readonly number[]): HelperShare;
+}
+
+export interface HelperShare {
+  claim(): number | undefined;
+  wait(): readonly (Int32Array | undefined)[] | undefined;
+  abandon(): void;
+}
+
+let lentHelper: ReplayHelper | undefined;
+
+/** Lends the modular engine a helper for the rest of the process (undefined takes it back). */
+export function lendReplayHelper(helper: ReplayHelper | undefined): void {
+  lentHelper = helper;
+}
+
 /** The bracket of the recorded contraction, given a bound on the absolute values of its coefficients. */
 export function bracketByModuli(record: ContractionRecord, coefficientBound: bigint): { bracket: Laurent; moduli: number } {
-  const slabs = new ResidueSlabs(record.steps.reduce((most, step) => Math.max(most, step.program.length), 0));
-  // Garner's incremental lift: lifted ≡ residues modulo the product so far, 0 ≤ lifted < product.
+  // Enough moduli for a product above twice the bound, then one more for the check.
+  const moduli: number[] = [];
   let product = 1n;
-  let lifted = new Array<bigint>(record.length).fill(0n);
-  let k = 0;
   while (product <= 2n * coefficientBound) {
-    const m = modulus(k++);
-    const residues = replayModulo(record, m, slabs);
-    const mBig = BigInt(m);
-    const inverse = inverseModulo(product % mBig, mBig);
-    const previous = product;
-    lifted = lifted.map((x, i) => {
-      let lift = ((BigInt(residues[i]!) - (x % mBig)) * inverse) % mBig;
-      if (lift < 0n) lift += mBig;
-      return x + previous * lift;
-    });
-    product *= mBig;
+    moduli.push(modulus(moduli.length));
+    product *= BigInt(moduli[moduli.length - 1]!);
   }
-  const half = product / 2n;
-  const coefficients = lifted.map((x) => (x > half ? x - product : x));
-  const check = modulus(k);
-  const residues = replayModulo(record, check, slabs);
+  const check = modulus(moduli.length);
+  const residues = residuesModulo(record, [...moduli, check]);
+  let lifted = new Array<bigint>(record.length).fill(0n);
+  let liftedModulus = 1n;
+  moduli.forEach((m, k) => {
+    lifted = liftOneModulus(lifted, liftedModulus, residues[k]!, m);
+    liftedModulus *= BigInt(m);
+  });
+  const coefficients = symmetricResidues(lifted, product);
   const checkBig = BigInt(check);
+  const checkResidues = residues[moduli.length]!;
   coefficients.forEach((c, i) => {
     let r = c % checkBig;
     if (r < 0n) r += checkBig;
-    if (Number(r) !== residues[i]) throw new Error('internal: the bracket lifted from its residues failed the check modulo a further number');
+    if (Number(r) !== checkResidues[i]) throw new Error('internal: the bracket lifted from its residues failed the check modulo a further number');
   });
-  return { bracket: Laurent.fromDense(coefficients, record.lo, record.step), moduli: k + 1 };
+  return { bracket: Laurent.fromDense(coefficients, record.lo, record.step), moduli: moduli.length + 1 };
 }
 
-/** 1/a modulo m for coprime a, m (extended Euclid on BigInts). */
-function inverseModulo(a: bigint, m: bigint): bigint {
-  let [r0, r1] = [m, ((a % m) + m) % m];
-  let [s0, s1] = [0n, 1n];
-  while (r1 !== 0n) {
-    const q = r0 / r1;
-    [r0, r1] = [r1, r0 - q * r1];
-    [s0, s1] = [s1, s0 - q * s1];
+/** Memory for replaying `record`: room for its longest step program, slabs grown on demand. */
+export function slabsFor(record: ContractionRecord): ResidueSlabs {
+  return new ResidueSlabs(record.steps.reduce((most, step) => Math.max(most, step.program.length), 0));
+}
+
+/** The residues modulo each of `moduli`, a lent helper replaying some of them meanwhile. */
+function residuesModulo(record: ContractionRecord, moduli: readonly number[]): Int32Array[] {
+  const slabs = slabsFor(record);
+  const results: Int32Array[] = new Array(moduli.length);
+  const helper = lentHelper && moduli.length >= 2 ? lentHelper.begin(record, moduli) : undefined;
+  if (!helper) return moduli.map((m) => replayModulo(record, m, slabs));
+  let waited = false;
+  try {
+    for (let k = helper.claim(); k !== undefined; k = helper.claim()) results[k] = replayModulo(record, moduli[k]!, slabs);
+    const fromHelper = helper.wait();
+    waited = true;
+    moduli.forEach((m, k) => (results[k] ??= fromHelper?.[k] ?? replayModulo(record, m, slabs)));
+  } finally {
+    if (!waited) helper.abandon();
   }
-  if (r0 !== 1n) throw new Error('internal: moduli are not coprime');
-  return ((s0 % m) + m) % m;
+  return results;
 }

@@ -8,6 +8,7 @@
  * exact in a double; no coefficient ever passes through a float.
  */
 import { bandOrder, permute, SparseMatrixBuilder, type SparseMatrix } from './sparse-matrix.ts';
+import { liftOneModulus, symmetricResidues } from '../chinese-remainder.ts';
 import { checkTimeBudget } from '../../limits.ts';
 
 const PRIME_CEILING = 1 << 26;
@@ -248,20 +249,10 @@ export function pencilDeterminant(a: SparseMatrix, b: SparseMatrix, reciprocal?:
   let k = 0;
   while (modulus * modulus <= limit) {
     const p = prime(k++);
-    const residues = coefficientsModPrime(a, b, p, reciprocal);
-    // Incremental CRT: x ≡ lifted (mod modulus), x ≡ r (mod p).
-    const pBig = BigInt(p);
-    const inverse = BigInt(invMod(Number(modulus % pBig), p));
-    lifted = lifted.map((x, i) => {
-      const r = BigInt(residues[i]!);
-      let step = ((r - (x % pBig)) * inverse) % pBig;
-      if (step < 0n) step += pBig;
-      return x + modulus * step;
-    });
-    modulus *= pBig;
+    lifted = liftOneModulus(lifted, modulus, coefficientsModPrime(a, b, p, reciprocal), p);
+    modulus *= BigInt(p);
   }
-  const half = modulus / 2n;
-  const coefficients = lifted.map((x) => (x > half ? x - modulus : x));
+  const coefficients = symmetricResidues(lifted, modulus);
   // Verification at a fresh prime and a point not used for interpolation.
   const p = prime(k);
   const t = 7919 % p;
@@ -316,19 +307,15 @@ export function integerDeterminant(m: SparseMatrix): bigint {
   const b = negated.build();
   const limit = 4n * squaredCoefficientBound(zero, b); // need product² > 4·bound²
   let product = 1n;
-  let lifted = 0n;
+  let lifted: bigint = 0n;
   let k = 0;
   while (product * product <= limit) {
     checkTimeBudget();
     const p = prime(k++);
-    const pBig = BigInt(p);
-    const r = BigInt(new BandedPencil(zero, b, p).determinantAt(0));
-    let step = ((r - (lifted % pBig)) * BigInt(invMod(Number(product % pBig), p))) % pBig;
-    if (step < 0n) step += pBig;
-    lifted += product * step;
-    product *= pBig;
+    [lifted] = liftOneModulus([lifted], product, [new BandedPencil(zero, b, p).determinantAt(0)], p);
+    product *= BigInt(p);
   }
-  const determinant = lifted > product / 2n ? lifted - product : lifted;
+  const [determinant] = symmetricResidues([lifted], product) as [bigint];
   const check = prime(k);
   if (reduce(determinant, check) !== new BandedPencil(zero, b, check).determinantAt(0)) {
     throw new Error('internal: modular determinant failed its verification');

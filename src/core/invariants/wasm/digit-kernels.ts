@@ -16,16 +16,19 @@
  */
 import {
   DIGIT_ALIGNED,
-  EMPTY,
   F64,
   f64Const,
+  get,
   I32,
   i32Const,
+  increase,
   moduleBytes,
   op,
   simd,
+  set,
   simdOp,
   V128,
+  whileAtLeast,
   type FunctionSpec,
   type ValueType,
 } from './encoding.ts';
@@ -76,32 +79,11 @@ const SINGLES: Lane = {
   atLeastSomewhere: [op.f64Ge],
 };
 
-const get = (local: number): number[] => [op.localGet, local];
-const set = (local: number): number[] => [op.localSet, local];
 const constant = (lane: Lane, value: number): number[] => [...f64Const(value), ...lane.fromDouble];
-
-/** local += amount (i32). */
-function increase(local: number, amount: number | readonly number[]): number[] {
-  return [...get(local), ...(typeof amount === 'number' ? i32Const(amount) : amount), op.i32Add, ...set(local)];
-}
 
 /** Turns an element index held in `local` into a byte address. */
 function toByteAddress(local: number): number[] {
   return [...get(local), ...i32Const(3), op.i32Shl, ...set(local)];
-}
-
-/** `body` repeated while the unsigned count in `counter` is at least `step`, taking `step` off it each time. */
-function whileAtLeast(counter: number, step: number, body: readonly number[]): number[] {
-  return [
-    op.block, EMPTY,
-    op.loop, EMPTY,
-    ...get(counter), ...i32Const(step), op.i32LtU, op.brIf, 1,
-    ...body,
-    ...get(counter), ...i32Const(step), op.i32Sub, ...set(counter),
-    op.br, 0,
-    op.end,
-    op.end,
-  ]; // prettier-ignore
 }
 
 /** Numbers the parameters 0 … k−1 and hands out further locals by type. */

@@ -141,3 +141,27 @@ export function moduleBytes(functions: readonly FunctionSpec[]): Uint8Array<Arra
     ...section(10, vector(bodies)),
   ]);
 }
+
+/** Pushes a local's value. */
+export const get = (local: number): number[] => [op.localGet, local];
+/** Pops into a local. */
+export const set = (local: number): number[] => [op.localSet, local];
+
+/** local += amount (i32; a constant, or instructions that push it). */
+export function increase(local: number, amount: number | readonly number[]): number[] {
+  return [...get(local), ...(typeof amount === 'number' ? i32Const(amount) : amount), op.i32Add, ...set(local)];
+}
+
+/** `body` repeated while the unsigned count in `counter` is at least `step`, taking `step` off it each time. */
+export function whileAtLeast(counter: number, step: number, body: readonly number[]): number[] {
+  return [
+    op.block, EMPTY,
+    op.loop, EMPTY,
+    ...get(counter), ...i32Const(step), op.i32LtU, op.brIf, 1,
+    ...body,
+    ...get(counter), ...i32Const(step), op.i32Sub, ...set(counter),
+    op.br, 0,
+    op.end,
+    op.end,
+  ]; // prettier-ignore
+}

@@ -14,7 +14,7 @@
  * over it would index them); a call's source rows must not overlap its target
  * row.
  */
-import { EMPTY, I32, i32Const, moduleBytes, op, simdOp, unsignedLeb, V128, type FunctionSpec, type ValueType } from './encoding.ts';
+import { EMPTY, get, I32, i32Const, increase, moduleBytes, op, set, simdOp, unsignedLeb, V128, whileAtLeast, type FunctionSpec, type ValueType } from './encoding.ts';
 
 /** Opcodes beyond those the digit kernels use (WebAssembly 2.0 core and fixed-width SIMD). */
 const i32Load = 0x28;
@@ -26,6 +26,8 @@ const i32And = 0x71;
 const i32ShrU = 0x76;
 const select = 0x1b;
 const call = 0x10;
+/** memory.fill on memory 0 (bulk memory, WebAssembly 2.0): pops address, byte value, length. */
+const memoryFill = [0xfc, 0x0b, 0x00];
 const opElse = 0x05;
 const simdI32 = { splat: 0x11, add: 0xae, sub: 0xb1, minU: 0xb7 } as const;
 /** The alignment a memory immediate promises: 4 bytes (log2), a word's. */
@@ -44,8 +46,6 @@ interface Lane {
   reduce(value: number, modulus: number): number[];
 }
 
-const get = (local: number): number[] => [op.localGet, local];
-const set = (local: number): number[] => [op.localSet, local];
 
 const VECTORS: Lane = {
   residues: 4,
@@ -72,25 +72,6 @@ const SINGLES: Lane = {
     select,
   ], // prettier-ignore
 };
-
-/** local += amount (i32). */
-function increase(local: number, amount: number): number[] {
-  return [...get(local), ...i32Const(amount), op.i32Add, ...set(local)];
-}
-
-/** `body` repeated while the unsigned count in `counter` is at least `step`, taking `step` off it each time. */
-function whileAtLeast(counter: number, step: number, body: readonly number[]): number[] {
-  return [
-    op.block, EMPTY,
-    op.loop, EMPTY,
-    ...get(counter), ...i32Const(step), op.i32LtU, op.brIf, 1,
-    ...body,
-    ...get(counter), ...i32Const(step), op.i32Sub, ...set(counter),
-    op.br, 0,
-    op.end,
-    op.end,
-  ]; // prettier-ignore
-}
 
 type Kind = 'add' | 'subtract' | 'subtractPair';
 
@@ -179,13 +160,14 @@ function addOneLoop(): FunctionSpec {
  * memory: four words per source state, [n, start of the A-smoothing, start of
  * the B-smoothing, loops of A | loops of B << 4]. Source states lie one after
  * another from element `from`; each smoothing adds the source times
- * A^(±1)·d^loops into the target slab at `base` + start. Smoothings closing
- * two or more loops are rare and left to the caller. Parameters: count, from,
- * base, stride, m.
+ * A^(±1)·d^loops into the target slab at `base` + start, after zeroing its
+ * `size` words (memory.fill, a memset, several times faster than filling a
+ * typed array from JavaScript). Smoothings closing two or more loops are rare
+ * and left to the caller. Parameters: count, from, base, size, stride, m.
  */
 function accumulateStep(): FunctionSpec {
-  const [count, from, base, stride, m] = [0, 1, 2, 3, 4];
-  const [pointer, n, packed, loops] = [5, 6, 7, 8];
+  const [count, from, base, size, stride, m] = [0, 1, 2, 3, 4, 5];
+  const [pointer, n, packed, loops] = [6, 7, 8, 9];
   const loadWord = (offset: number): number[] => [...get(pointer), i32Load, 2, offset];
   const smoothing = (loopsOf: readonly number[], startOffset: number): number[] => [
     ...loopsOf, ...set(loops),
@@ -198,6 +180,7 @@ function accumulateStep(): FunctionSpec {
     op.end,
   ]; // prettier-ignore
   const body = [
+    ...get(base), ...i32Const(2), op.i32Shl, ...i32Const(0), ...get(size), ...i32Const(2), op.i32Shl, ...memoryFill,
     ...i32Const(0), ...set(pointer),
     op.block, EMPTY,
     op.loop, EMPTY,
@@ -213,7 +196,7 @@ function accumulateStep(): FunctionSpec {
     op.end,
     op.end,
   ]; // prettier-ignore
-  return { name: 'accumulateStep', params: [I32, I32, I32, I32, I32], results: [], locals: [I32, I32, I32, I32], body };
+  return { name: 'accumulateStep', params: [I32, I32, I32, I32, I32, I32], results: [], locals: [I32, I32, I32, I32], body };
 }
 
 /** The kernels; every row argument is an element index into the memory's 32-bit words, every residue in [0, m). */
@@ -226,8 +209,8 @@ export interface ResidueKernels {
   subtractRowPair(source: number, other: number, n: number, row: number, m: number): void;
   /** row[at + i] −= source[from + i] + source[from + i − stride]: adding d times a row (see addOneLoop). */
   addOneLoop(from: number, n: number, at: number, stride: number, m: number): void;
-  /** One step of the contraction from the program at word 0 (see accumulateStep). */
-  accumulateStep(count: number, from: number, base: number, stride: number, m: number): void;
+  /** One step of the contraction from the program at word 0 (see accumulateStep); zeroes the target's `size` words first. */
+  accumulateStep(count: number, from: number, base: number, size: number, stride: number, m: number): void;
 }
 
 const KERNEL_SOURCES: readonly FunctionSpec[] = [
