@@ -83,7 +83,12 @@ class ThreadHelper implements ReplayHelper {
   }
 }
 
+/** A helper backed by one worker thread, started on first use. */
+export function threadReplayHelper(): ReplayHelper {
+  return new ThreadHelper();
+}
+
 /** With more than one thread allowed, lends the engine a helper thread; with one, takes it back. */
 export function lendHelperThreads(jobs: number): void {
-  lendReplayHelper(jobs >= 2 ? new ThreadHelper() : undefined);
+  lendReplayHelper(jobs >= 2 ? threadReplayHelper() : undefined);
 }
