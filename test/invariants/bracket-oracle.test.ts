@@ -1,15 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
-import { assembleDiagram } from '../../src/core/diagram/assemble.ts';
 import { nonPlanarPieces } from '../../src/core/diagram/faces.ts';
-import { slotIsIncoming, structuralProblem, type LinkDiagram } from '../../src/core/diagram/model.ts';
+import type { LinkDiagram } from '../../src/core/diagram/model.ts';
 import { addCurl, disjointUnion, withFreeLoops } from '../../src/core/diagram/operations.ts';
 import { kauffmanBracket, LOOP_VALUE } from '../../src/core/invariants/bracket.ts';
 import { planContraction } from '../../src/core/invariants/crossing-order.ts';
 import { bracketByStateSum } from '../../src/core/invariants/state-sum.ts';
 import { Laurent } from '../../src/core/poly/laurent.ts';
 import { InputError } from '../../src/core/errors.ts';
-import { randomDiagram, randomInt, randomReducedAlternating, rng } from '../support/random-diagrams.ts';
+import { randomDiagram, randomInt, randomReducedAlternating, rewired, rng } from '../support/random-diagrams.ts';
 
 // The state sum over all 2^n states is the definition of the bracket
 // (Kauffman 1987, Topology 26); the tangle engine must agree with it exactly.
@@ -111,25 +110,3 @@ describe('tangle contraction against the state-sum definition (Kauffman 1987)', 
     expect(kauffmanBracket(d).boundaryWidth).toBe(planContraction(d).maxWidth);
   });
 });
-
-/**
- * Exchanges the edges at two incoming slots of different crossings. Each edge
- * still enters once and leaves once, but the rotation system usually stops
- * being planar. Returns undefined when the result is not a valid diagram.
- */
-function rewired(d: LinkDiagram, random: () => number): LinkDiagram | undefined {
-  if (d.crossings.length < 2) return undefined;
-  const incoming: [number, number][] = [];
-  d.crossings.forEach((c, ci) => c.edges.forEach((_, q) => slotIsIncoming(q, c.sign) && incoming.push([ci, q])));
-  const [c1, q1] = incoming[randomInt(random, 0, incoming.length - 1)]!;
-  const [c2, q2] = incoming[randomInt(random, 0, incoming.length - 1)]!;
-  if (c1 === c2) return undefined;
-  const raw = d.crossings.map((c) => ({ sign: c.sign, edges: [...c.edges] as [number, number, number, number] }));
-  [raw[c1]!.edges[q1], raw[c2]!.edges[q2]] = [raw[c2]!.edges[q2]!, raw[c1]!.edges[q1]!];
-  try {
-    const result = assembleDiagram(raw, { notation: 'pd', freeLoops: d.freeLoops });
-    return structuralProblem(result) ? undefined : result;
-  } catch {
-    return undefined;
-  }
-}

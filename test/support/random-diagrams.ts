@@ -3,8 +3,9 @@
  * every link type; relabelling and shuffling the crossings makes sure no
  * engine relies on the order a notation happened to produce.
  */
+import { assembleDiagram } from '../../src/core/diagram/assemble.ts';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
-import type { Crossing, LinkDiagram } from '../../src/core/diagram/model.ts';
+import { slotIsIncoming, structuralProblem, type Crossing, type LinkDiagram } from '../../src/core/diagram/model.ts';
 
 /** A small deterministic PRNG (mulberry32), so failures reproduce from the seed. */
 export function rng(seed: number): () => number {
@@ -71,4 +72,26 @@ export function randomDiagram(random: () => number, maxCrossings: number, maxStr
 export function randomReducedAlternating(random: () => number, crossings: number, maxStrands = 5): LinkDiagram {
   const strands = Math.min(maxStrands, Math.max(2, Math.floor(crossings / 2) + 1), randomInt(random, 2, maxStrands));
   return shuffleDiagram(closeBraid(randomAlternatingBraidWord(random, strands, crossings), strands), random);
+}
+
+/**
+ * Exchanges the edges at two incoming slots of different crossings. Each edge
+ * still enters once and leaves once, but the rotation system usually stops
+ * being planar. Returns undefined when the result is not a valid diagram.
+ */
+export function rewired(d: LinkDiagram, random: () => number): LinkDiagram | undefined {
+  if (d.crossings.length < 2) return undefined;
+  const incoming: [number, number][] = [];
+  d.crossings.forEach((c, ci) => c.edges.forEach((_, q) => slotIsIncoming(q, c.sign) && incoming.push([ci, q])));
+  const [c1, q1] = incoming[randomInt(random, 0, incoming.length - 1)]!;
+  const [c2, q2] = incoming[randomInt(random, 0, incoming.length - 1)]!;
+  if (c1 === c2) return undefined;
+  const raw = d.crossings.map((c) => ({ sign: c.sign, edges: [...c.edges] as [number, number, number, number] }));
+  [raw[c1]!.edges[q1], raw[c2]!.edges[q2]] = [raw[c2]!.edges[q2]!, raw[c1]!.edges[q1]!];
+  try {
+    const result = assembleDiagram(raw, { notation: 'pd', freeLoops: d.freeLoops });
+    return structuralProblem(result) ? undefined : result;
+  } catch {
+    return undefined;
+  }
 }
