@@ -15,7 +15,7 @@ import { pathToFileURL } from 'node:url';
 import { closeBraid } from '../src/core/diagram/braid-closure.ts';
 import { writhe, type LinkDiagram } from '../src/core/diagram/model.ts';
 import { kauffmanBracket } from '../src/core/invariants/bracket.ts';
-import { lendReplayHelper } from '../src/core/invariants/bracket-modular.ts';
+import { lendReplayHelper } from '../src/core/helper-threads.ts';
 import { threadReplayHelper } from '../src/cli/replay-helper.ts';
 import { planContraction } from '../src/core/invariants/crossing-order.ts';
 import { jonesFromBracket } from '../src/core/invariants/jones.ts';

@@ -10,7 +10,8 @@
  * costs time, never a value; the next long diagram starts a new one.
  */
 import { Worker } from 'node:worker_threads';
-import { lendReplayHelper, type ContractionRecord, type HelperShare, type ReplayHelper } from '../core/invariants/bracket-modular.ts';
+import type { ContractionRecord } from '../core/invariants/bracket-modular.ts';
+import { lendReplayHelper, type HelperShare, type ReplayHelper } from '../core/helper-threads.ts';
 import { checkTimeBudget } from '../core/limits.ts';
 import { DONE, HEARTBEAT, NEXT, STATUS, type ReplayRequest } from './replay-protocol.ts';
 

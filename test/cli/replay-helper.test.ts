@@ -11,14 +11,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { closeBraid } from '../../src/core/diagram/braid-closure.ts';
 import { componentCount, writhe, type LinkDiagram } from '../../src/core/diagram/model.ts';
-import {
-  lendReplayHelper,
-  modulus,
-  recordContraction,
-  replayModulo,
-  slabsFor,
-  type ReplayHelper,
-} from '../../src/core/invariants/bracket-modular.ts';
+import { modulus, recordContraction, replayModulo, slabsFor } from '../../src/core/invariants/bracket-modular.ts';
+import { lendReplayHelper, type ReplayHelper } from '../../src/core/helper-threads.ts';
 import { kauffmanBracket, planSteps } from '../../src/core/invariants/bracket.ts';
 import { planContraction } from '../../src/core/invariants/crossing-order.ts';
 import { jonesFromBracket } from '../../src/core/invariants/jones.ts';

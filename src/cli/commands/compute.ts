@@ -43,7 +43,7 @@ import { wantsColor } from '../terminal.ts';
 import { conventionOptionText, repeatedOptionMessage } from '../repeated-option.ts';
 import { figureOptions, readFigureArgs, runFigure } from '../figure-output.ts';
 import { lendHelperThreads } from '../replay-helper.ts';
-import { availableParallelism } from 'node:os';
+import { jobsOption, readJobs } from '../jobs-option.ts';
 
 export const DEFAULT_NOTATION: Notation = 'pd';
 
@@ -356,7 +356,9 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   }
   const limits = readLimits(args);
   if (typeof limits === 'string') return limits;
-  lendHelperThreads(availableParallelism());
+  const jobs = readJobs(args);
+  if (typeof jobs === 'string') return jobs;
+  lendHelperThreads(jobs);
   const keys = readKeys(args);
   if (typeof keys === 'string') return keys;
   const resultStore = openCache(args);
@@ -397,7 +399,7 @@ export const computeCommand: CliCommand = {
   command: 'compute [codes..]',
   describe: 'Compute the invariants and diagram properties of each diagram code given',
   builder: (y: Argv) =>
-    figureOptions(cacheOptions(limitOptions(y)))
+    jobsOption(figureOptions(cacheOptions(limitOptions(y))))
       // Codes may begin with a minus sign (braid words, Gauss codes): let them through as positionals.
       .parserConfiguration({ 'unknown-options-as-args': true, 'populate--': true, 'parse-numbers': false, 'parse-positional-numbers': false })
       .positional('codes', { type: 'string', array: true, describe: 'One diagram code per argument (quote codes that contain spaces)' })

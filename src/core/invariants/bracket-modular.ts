@@ -22,6 +22,7 @@
 import { checkTimeBudget, stateMemoryError } from '../limits.ts';
 import { Laurent } from '../poly/laurent.ts';
 import { liftOneModulus, symmetricResidues } from './chinese-remainder.ts';
+import { lentReplayHelper } from '../helper-threads.ts';
 import { binomialRow, Contributions, matchSmoothings, States, TargetTable, widestBoundary, type StepPlan } from './bracket.ts';
 import type { ResidueKernels } from './wasm/residue-kernels.ts';
 import { RESIDUE_MEMORY_MAX_BYTES, ResidueSlabs, type SlabIndex } from './wasm/residue-slabs.ts';
@@ -163,33 +164,6 @@ function gcd(a: number, b: number): number {
   return a;
 }
 
-/**
- * Replays of a recording run in another thread at the same time as this
- * one's: a front end that may start threads lends one (the core starts none).
- * `begin` returns at once. Both threads then take the moduli one at a time,
- * whichever is free first: `claim` gives this thread the index of the next
- * modulus nobody has taken (undefined when all are taken). `wait` blocks until
- * the helper has finished and returns what it replayed (by index; missing
- * entries, or undefined if it failed, are replayed here). `abandon` is called
- * instead of `wait` when this thread gives up (a time budget ran out).
- */
-export interface ReplayHelper {
-  begin(record: ContractionRecord, moduli: readonly number[]): HelperShare;
-}
-
-export interface HelperShare {
-  claim(): number | undefined;
-  wait(): readonly (Int32Array | undefined)[] | undefined;
-  abandon(): void;
-}
-
-let lentHelper: ReplayHelper | undefined;
-
-/** Lends the modular engine a helper for the rest of the process (undefined takes it back). */
-export function lendReplayHelper(helper: ReplayHelper | undefined): void {
-  lentHelper = helper;
-}
-
 /** The bracket of the recorded contraction, given a bound on the absolute values of its coefficients. */
 export function bracketByModuli(record: ContractionRecord, coefficientBound: bigint): { bracket: Laurent; moduli: number } {
   // Enough moduli for a product above twice the bound, then one more for the check.
@@ -227,7 +201,8 @@ export function slabsFor(record: ContractionRecord): ResidueSlabs {
 function residuesModulo(record: ContractionRecord, moduli: readonly number[]): Int32Array[] {
   const slabs = slabsFor(record);
   const results: Int32Array[] = new Array(moduli.length);
-  const helper = lentHelper && moduli.length >= 2 ? lentHelper.begin(record, moduli) : undefined;
+  const lent = lentReplayHelper();
+  const helper = lent && moduli.length >= 2 ? lent.begin(record, moduli) : undefined;
   if (!helper) return moduli.map((m) => replayModulo(record, m, slabs));
   let waited = false;
   try {
