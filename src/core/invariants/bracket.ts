@@ -118,32 +118,43 @@ function withFreeLoops(d: LinkDiagram, contracted: Laurent): Laurent {
 export type BracketArithmetic = 'auto' | 'digits' | 'moduli';
 
 /**
- * Below this many crossings the digit engine's states are small and its
- * coefficients a few digits: the modular replays would only repeat its work.
+ * Where 'auto' contracts by moduli, measured side by side with the digit
+ * engine on alternating braid closures (one thread, best of two, load ≈ 1):
+ * moduli pay once the digit engine's states outgrow the processor's caches and
+ * there are many of them (9 strands, 300 crossings: 0.80 s against 1.46 s;
+ * 10 strands, 400: 6.9 s against 10.7 s; 8 strands, 400: 0.49 s against
+ * 0.65 s), and lose on narrow diagrams, whose few long states the digit engine
+ * streams well (4 strands, 3,000 crossings: 2.0 s against 1.6 s; 5 strands,
+ * 1,500: 0.96 s against 0.65 s), or small ones (8 strands, 300: even).
  */
 export const MODULI_FROM_CROSSINGS = 300;
-/** Moduli pay once the coefficients need about this many 32-bit digits (the coefficient bound's bits / 32). */
-export const MODULI_FROM_DIGITS = 8;
+export const MODULI_FROM_WIDTH = 12;
+export const MODULI_FROM_STATE_BYTES = 64 * 1024 * 1024;
 
 /**
- * Whether 'auto' contracts by moduli. The replays cost as many passes as the
- * coefficient bound has bits, and the bound is tight only where few terms
- * cancel: on alternating diagrams (where it equals the sum of the |coefficients|
- * in every case measured). On others the coefficients stay far below it (a
- * 640-crossing torus closure: bound 434 bits, coefficients 4 bits) and the
- * digit engine, which grows with the coefficients themselves, is faster.
+ * Whether 'auto' contracts `d` by moduli. Also only on alternating diagrams:
+ * the replays cost as many passes as the coefficient bound has bits, and the
+ * bound is tight only where few terms cancel (on alternating diagrams it
+ * equalled the sum of the |coefficients| in every case measured; on a
+ * 640-crossing torus closure it has 434 bits where the coefficients have 4).
  */
-function moduliMayPay(d: LinkDiagram): boolean {
-  return d.crossings.length >= MODULI_FROM_CROSSINGS && isAlternatingDiagram(d);
+export function moduliPay(d: LinkDiagram, steps: readonly StepPlan[]): boolean {
+  return (
+    d.crossings.length >= MODULI_FROM_CROSSINGS &&
+    widestBoundary(steps) >= MODULI_FROM_WIDTH &&
+    estimateStateBytes(steps) >= MODULI_FROM_STATE_BYTES &&
+    isAlternatingDiagram(d)
+  );
 }
+
 /** The recording of the contraction is not allowed to hold more than this. */
 const MAX_RECORD_BYTES = 512 * 1024 * 1024;
 
 /** ⟨D⟩ without free loops by the modular engine, or undefined where the digit engine is the one to use. */
 function bracketModuloMany(d: LinkDiagram, steps: readonly StepPlan[], forced: boolean, maxStateBytes = Infinity): Laurent | undefined {
-  if (!forced && !moduliMayPay(d)) return undefined;
+  if (!forced && !moduliPay(d, steps)) return undefined;
   const bound = bracketNormBound(d);
-  if (bound === undefined || (!forced && bound.toString(2).length < 32 * MODULI_FROM_DIGITS)) return undefined;
+  if (bound === undefined) return undefined;
   const budget = Math.min(MAX_RECORD_BYTES, maxStateBytes);
   const record = recordContraction(steps, 4, budget) ?? recordContraction(steps, 2, budget);
   if (record === undefined) throw new Error('internal: bracket contraction failed with exponent step 2');
