@@ -167,7 +167,14 @@ interface Section {
  * section with a `[` goes into one group (whatever its size), together with every section that has a `]:`
  * (wanted or not), so that each reference meets all the definitions; a section without `[` has neither.
  */
-export function parseInSections(text: string, parse: (markdown: string) => Root, wanted: (section: string, from: number) => boolean = () => true): Root {
+export function parseInSections(
+  text: string,
+  parse: (markdown: string) => Root,
+  wanted: (section: string, from: number) => boolean = () => true,
+  reader?: string,
+): Root {
+  const kept = reader === undefined ? undefined : keptTreesOf(reader);
+  if (kept) parse = kept.parse(parse);
   const starts = sectionStarts(text);
   const bom = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   const defines = text.includes(']:');
@@ -203,7 +210,8 @@ export function parseInSections(text: string, parse: (markdown: string) => Root,
     const refers = defines && section.includes('[');
     if (refers && (section.includes(']:') || wanted(section, from))) linked.push({ from, text: section, line });
     else if (wanted(section, from)) {
-      if (size + section.length > GROUP_SIZE) {
+      // Kept trees are looked up section by section: a group's text would change with any section in it.
+      if (size + section.length > (kept ? 0 : GROUP_SIZE)) {
         read(group);
         group = [];
         size = 0;
@@ -220,6 +228,54 @@ export function parseInSections(text: string, parse: (markdown: string) => Root,
   }
   root.position = { start: { line: 1, column: 1, offset: 0 }, end: endPoint(text, bom) };
   return root;
+}
+
+/**
+ * Section trees kept from one run to the next, for `watch`: after a save most sections are the same text,
+ * and a tree read before is copied instead of parsed again (copying is several times cheaper than parsing).
+ * Off unless keepSectionTrees was called; then parseInSections keeps the trees of a named `reader` (one
+ * per parser configuration: the same text parses differently with other extensions), each section's
+ * own tree by its text, the least recently used dropped beyond the limit.
+ */
+class KeptTrees {
+  private readonly trees = new Map<string, Root>();
+  private characters = 0;
+  constructor(private readonly limit: number) {}
+
+  /** `parse`, answered from the kept trees when it can; the caller gets a copy it may change. */
+  parse(parse: (markdown: string) => Root): (markdown: string) => Root {
+    return (markdown) => {
+      let tree = this.trees.get(markdown);
+      if (tree) this.trees.delete(markdown);
+      else {
+        tree = parse(markdown);
+        this.characters += markdown.length;
+      }
+      this.trees.set(markdown, tree);
+      for (const oldest of this.trees.keys()) {
+        if (this.characters <= this.limit) break;
+        this.trees.delete(oldest);
+        this.characters -= oldest.length;
+      }
+      return structuredClone(tree);
+    };
+  }
+}
+
+let keptLimit = 0;
+const keptByReader = new Map<string, KeptTrees>();
+
+/** Keeps up to `characters` of section text per reader, with their trees, from run to run (0: none, the default). */
+export function keepSectionTrees(characters: number): void {
+  keptLimit = characters;
+  keptByReader.clear();
+}
+
+function keptTreesOf(reader: string): KeptTrees | undefined {
+  if (keptLimit === 0) return undefined;
+  let kept = keptByReader.get(reader);
+  if (!kept) keptByReader.set(reader, (kept = new KeptTrees(keptLimit)));
+  return kept;
 }
 
 /** The point after the last character, as micromark counts it (offsets after a byte order mark). */

@@ -21,7 +21,7 @@ import { visit } from 'unist-util-visit';
 import { describe, expect, it } from 'vitest';
 import { VFile } from 'vfile';
 import remarkSkeinproof, { mayHoldCarriers } from '../../plugins/remark/index.ts';
-import { parseInSections, sectionStarts } from '../../plugins/remark/sections.ts';
+import { keepSectionTrees, parseInSections, sectionStarts } from '../../plugins/remark/sections.ts';
 
 const withDirectives = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath).use(remarkDirective);
 const mathReader = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath);
@@ -128,6 +128,33 @@ describe('parsing in sections', () => {
       );
       // Not vacuous: a good share of the generated documents were cut at least twice.
       expect(cut).toBeGreaterThan(120);
+    });
+  }
+
+  for (const [name, parse] of Object.entries(parsers)) {
+    it(`${name}: with section trees kept from run to run (watch), every read is still the whole text's tree, after any edit`, () => {
+      keepSectionTrees(4096);
+      try {
+        fc.assert(
+          fc.property(document, document, (before, after) => {
+            // The second read meets kept trees for the sections the two texts share, at other offsets and lines.
+            const edited = before + after;
+            for (const text of [before, edited, before]) {
+              const read = parseInSections(text, parse, () => true, name);
+              expect(read).toEqual(parse(text));
+              // The caller owns what it gets: changing it changes no later read.
+              visit(read, (node) => {
+                if (node.position) node.position.start.line += 1000;
+              });
+              read.children.length = 0;
+            }
+            expect(formulas(parseInSections(edited, parse, (s) => s.includes('$'), name))).toEqual(formulas(parse(edited)));
+          }),
+          { numRuns: 300 },
+        );
+      } finally {
+        keepSectionTrees(0);
+      }
     });
   }
 

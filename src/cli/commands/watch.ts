@@ -11,6 +11,9 @@ import { buildOnce, buildOptions, readBuildArgs } from './build.ts';
 import { formatOf, usage } from './check.ts';
 import type { CliCommand } from './index.ts';
 
+/** Section text (with its trees) kept per Markdown reader between builds: a manuscript of several megabytes keeps its most recent sections only. */
+const KEPT_SECTION_CHARACTERS = 2_000_000;
+
 /** Saves arrive as bursts of events (a write and a rename within a few milliseconds); one rebuild per burst. */
 const DEBOUNCE_MS = 50;
 
@@ -25,6 +28,9 @@ export const watchCommand: CliCommand = {
     const path = String(raw['file']);
     const format = formatOf(path);
     if (typeof format === 'string') return usage(format);
+    // After a save most sections of a Markdown text are unchanged: their parsed trees are kept for the next build.
+    if (format.name === 'markdown') (await import('../../../plugins/remark/sections.ts')).keepSectionTrees(KEPT_SECTION_CHARACTERS);
+
     if (!existsSync(dirname(resolve(path)))) return usage(`cannot watch ${path}: the directory ${dirname(path)} does not exist; check the path`);
     const watched = new Set<string>([resolve(path)]);
     const watchers = new Map<string, FSWatcher>();

@@ -69,7 +69,7 @@ async function checkManuscript(path: string, options: FormatOptions, draw: boole
     });
   // Read in sections, so that the parser's events for only one group of sections are alive at a time, and only
   // the sections that can hold skeinproof's markup: nothing here reads the tree but the extraction (plugins/remark/sections.ts).
-  const tree = parseInSections(text, (section) => processor.parse(section), (section, from) => from === 0 || mayHoldCarriers(section));
+  const tree = parseInSections(text, (section) => processor.parse(section), (section, from) => from === 0 || mayHoldCarriers(section), 'carriers');
   await processor.run(tree, file);
   const data = file.data.skeinproof!;
   const filled = applySplices(text, data.splices);

@@ -42,7 +42,7 @@ export function formulaKey(tex: string, displayMode: boolean): string {
 export function readMath(markdown: string, known: MathVerdicts = new Map()): MathReading {
   const parser = unified().use(remarkParse).use(remarkFrontmatter).use(remarkGfm).use(remarkMath);
   // Only sections with a dollar sign can hold math; the rest is not parsed at all (plugins/remark/sections.ts).
-  const tree = parseInSections(markdown, (section) => parser.parse(section), (section) => section.includes('$'));
+  const tree = parseInSections(markdown, (section) => parser.parse(section), (section) => section.includes('$'), 'math');
   const problems: MathProblem[] = [];
   const verdicts = new Map<string, string | null>();
   visit(tree, (node) => {
