@@ -327,7 +327,7 @@ function readArgs(args: Record<string, unknown>): ComputeArgs | string {
   const beforeSeparator = ((args['codes'] as unknown[] | undefined) ?? []).map(String);
   const unknownOption = beforeSeparator.find((code) => OPTION_LIKE.test(code));
   if (unknownOption !== undefined) {
-    return `unknown option ${unknownOption}; the options of compute are --notation, --strands, --json, --claim, --convention and --strict (put codes that start with "-" after "--").`;
+    return `unknown option ${unknownOption}; \`skeinproof compute --help\` lists the options of compute (put codes that start with "-" after "--").`;
   }
   // Everything after `--` is a code, whatever it looks like (common practice for command lines).
   const codes = [...beforeSeparator, ...((args['--'] as unknown[] | undefined) ?? []).map(String)];
