@@ -1,15 +1,15 @@
 /**
  * The Kauffman bracket modulo several word-sized numbers, lifted by the
  * Chinese remainder theorem: the tangle contraction of bracket.ts with one
- * double per coefficient instead of all of its digits.
+ * 32-bit residue per coefficient instead of all of its digits.
  *
  * Why: on long diagrams (hundreds of crossings) the coefficients reach
  * hundreds of digits, the digit engine's states hold all of them at once
  * (hundreds of MB), and its passes wait on memory. Here the shape of the
  * contraction (which state feeds which target, shifted where, through how
  * many closed loops) is worked out once and recorded; the arithmetic is then
- * replayed once per modulus on states a coefficient-digit wide, which stay
- * small enough to keep close to the processor.
+ * replayed once per modulus on states of one residue per coefficient, which
+ * stay small enough to keep close to the processor.
  *
  * Exactness: residues modulo odd, pairwise coprime m < 2^31 are kept reduced
  * in [0, m) as 32-bit integers (wasm/residue-kernels.ts), so no step can
