@@ -25,7 +25,8 @@ import { liftOneModulus, symmetricResidues } from './chinese-remainder.ts';
 import { lentReplayHelper } from '../helper-threads.ts';
 import { binomialRow, Contributions, matchSmoothings, States, TargetTable, widestBoundary, type StepPlan } from './bracket.ts';
 import type { ResidueKernels } from './wasm/residue-kernels.ts';
-import { RESIDUE_MEMORY_MAX_BYTES, ResidueSlabs, type SlabIndex } from './wasm/residue-slabs.ts';
+import type { SlabIndex } from './wasm/digit-slabs.ts';
+import { RESIDUE_MEMORY_MAX_BYTES, ResidueSlabs } from './wasm/residue-slabs.ts';
 
 /** One step of a recorded contraction. The states of a slab lie one after another in state order. */
 interface RecordedStep {

@@ -127,9 +127,9 @@ export type BracketArithmetic = 'auto' | 'digits' | 'moduli';
  * streams well (4 strands, 3,000 crossings: 2.0 s against 1.6 s; 5 strands,
  * 1,500: 0.96 s against 0.65 s), or small ones (8 strands, 300: even).
  */
-export const MODULI_FROM_CROSSINGS = 300;
-export const MODULI_FROM_WIDTH = 12;
-export const MODULI_FROM_STATE_BYTES = 64 * 1024 * 1024;
+const MODULI_FROM_CROSSINGS = 300;
+const MODULI_FROM_WIDTH = 12;
+const MODULI_FROM_STATE_BYTES = 64 * 1024 * 1024;
 
 /**
  * Whether 'auto' contracts `d` by moduli. Also only on alternating diagrams:
@@ -332,13 +332,13 @@ export const digitBoundCheck = { enabled: false };
 
 const LIMB_BASE = 2 ** 32;
 /** Limbs may grow to this before a carry; leaves room for the carry itself below 2^53. */
-export const LIMB_CEILING = 2 ** 52;
+const LIMB_CEILING = 2 ** 52;
 
 /**
  * How much multiplying by d^l can grow the largest |digit|: an entry of d^l·p
  * sums C(l, m)·|p_i| over m = 0 … l, so the factor is Σ C(l, m) = 2^l.
  */
-export function loopGrowth(l: number): number {
+function loopGrowth(l: number): number {
   return 2 ** l;
 }
 
@@ -614,7 +614,7 @@ function checkDigitBounds(slabs: DigitSlabs, states: States): void {
  * and ran at a third of the speed). The two smoothings of one source are added
  * one after the other: the source row is then still in the first-level cache.
  */
-export function addSmoothing(kernels: DigitKernels, from: number, n: number, at: number, loops: number, stride: number): void {
+function addSmoothing(kernels: DigitKernels, from: number, n: number, at: number, loops: number, stride: number): void {
   if (loops === 0) kernels.addRow(from, n, at);
   else if (loops === 1) {
     // d·p = −p·A² − p·A⁻²: target entry i receives −source[i] − source[i − stride].

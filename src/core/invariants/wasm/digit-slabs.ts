@@ -6,10 +6,10 @@
  * to the new middle, so the slab that is not being reserved keeps its digits.
  */
 import { digitKernels, type DigitKernels } from './digit-kernels.ts';
+import { PAGE_BYTES, WASM32_MEMORY_MAX_BYTES } from './encoding.ts';
 
-const PAGE_BYTES = 65536;
-/** A wasm32 memory has at most 2^16 pages of 64 KiB: 4 GiB, so each slab at most 2 GiB. */
-export const DIGIT_MEMORY_MAX_BYTES = 2 ** 32;
+/** The whole of a wasm32 memory, so each slab at most 2 GiB. */
+export const DIGIT_MEMORY_MAX_BYTES = WASM32_MEMORY_MAX_BYTES;
 const MAX_PAGES = DIGIT_MEMORY_MAX_BYTES / PAGE_BYTES;
 
 export type SlabIndex = 0 | 1;

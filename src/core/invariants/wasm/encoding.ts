@@ -97,6 +97,11 @@ export function f64Const(value: number): number[] {
   return [op.f64Const, ...bytes];
 }
 
+/** A WebAssembly memory grows in pages of 64 KiB. */
+export const PAGE_BYTES = 65536;
+/** A wasm32 memory has at most 2^16 pages: 4 GiB. */
+export const WASM32_MEMORY_MAX_BYTES = 2 ** 32;
+
 /** The memory immediate of a load or store: 8-byte alignment (every digit is a double), no offset. */
 export const DIGIT_ALIGNED = [3, 0];
 

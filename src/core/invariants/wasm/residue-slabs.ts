@@ -6,14 +6,13 @@
  * later; growing moves slab 1 up, so the slab not being reserved keeps its
  * residues.
  */
+import type { SlabIndex } from './digit-slabs.ts';
+import { PAGE_BYTES, WASM32_MEMORY_MAX_BYTES } from './encoding.ts';
 import { residueKernels, type ResidueKernels } from './residue-kernels.ts';
 
-const PAGE_BYTES = 65536;
-/** A wasm32 memory has at most 2^16 pages of 64 KiB. */
-export const RESIDUE_MEMORY_MAX_BYTES = 2 ** 32;
+/** The whole of a wasm32 memory: the program and both slabs. */
+export const RESIDUE_MEMORY_MAX_BYTES = WASM32_MEMORY_MAX_BYTES;
 const MAX_PAGES = RESIDUE_MEMORY_MAX_BYTES / PAGE_BYTES;
-
-export type SlabIndex = 0 | 1;
 
 export class ResidueSlabs {
   private readonly memory = new WebAssembly.Memory({ initial: 1, maximum: MAX_PAGES });
